@@ -1,0 +1,159 @@
+/**
+ * Library entry points behind `sorbshare equilibrium` and `sorbshare dose`. Each takes the parsed
+ * mixture object (the mixture file's JSON) and returns exactly what `--json` prints.
+ */
+import { InputError } from '../core/errors.js';
+import { prepareMixture, type FreundlichComponent, type PreparedMixture } from '../equilibrium/preparedMixture.js';
+import { solveBatchPrepared, type BatchSolution } from '../equilibrium/iastBatch.js';
+import { directIastPrepared } from '../equilibrium/iastDirect.js';
+import { doseForRemoval, MAX_DOSE_G_PER_L } from '../dose/doseSearch.js';
+import { atPath, parseConcentration, parseDose, readComponent, readMixture, type MixtureInput, type ParsedMixture } from '../scenario/readMixture.js';
+
+export interface EquilibriumComponentResult {
+  id: string;
+  c0_mg_per_L: number;
+  c_mg_per_L: number;
+  q_mg_per_g: number;
+  removal_fraction: number;
+}
+
+export interface EquilibriumResult {
+  dose_mg_per_L: number;
+  components: EquilibriumComponentResult[];
+}
+
+export interface DoseSearchResult {
+  target: string;
+  dose_mg_per_L: number;
+  removal_fraction: number;
+}
+
+/** A goal: removal in percent (0–100, exclusive) or an effluent limit ("50 ng/L" or mg/L). */
+export type DoseGoal = { removal: number } | { limit: string | number };
+
+type MixtureLike = MixtureInput | ParsedMixture | unknown;
+
+function toParsed(mixture: MixtureLike): ParsedMixture {
+  if (isParsed(mixture)) return mixture;
+  return readMixture(mixture);
+}
+
+function isParsed(m: unknown): m is ParsedMixture {
+  return typeof m === 'object' && m !== null && Array.isArray((m as ParsedMixture).components) &&
+    (m as ParsedMixture).components.every((c) => typeof (c as FreundlichComponent).c0MgPerL === 'number');
+}
+
+function resolveDose(dose: string | number | undefined, parsed: ParsedMixture): number {
+  if (dose !== undefined) return atPath('dose', () => parseDose(dose));
+  if (parsed.doseMgPerL !== undefined) return parsed.doseMgPerL;
+  throw new InputError('no carbon dose given; expected "dose" in the mixture or a dose argument such as "20 mg/L"', { path: 'dose' });
+}
+
+/** Shape one solution as the `--json` output. */
+export function formatSolution(pm: PreparedMixture, s: BatchSolution): EquilibriumResult {
+  return {
+    dose_mg_per_L: s.doseGPerL * 1000,
+    components: pm.source.map((c, i) => ({
+      id: c.id,
+      c0_mg_per_L: c.c0MgPerL,
+      c_mg_per_L: s.cMgPerL[i]!,
+      q_mg_per_g: s.qMgPerG[i]!,
+      removal_fraction: c.c0MgPerL > 0 ? 1 - s.cMgPerL[i]! / c.c0MgPerL : 0,
+    })),
+  };
+}
+
+/**
+ * Batch IAST equilibrium of a mixture at one carbon dose.
+ * @param mixture the mixture file's object (or an already parsed mixture)
+ * @param dose    "20 mg/L", a number in mg/L, or omitted to use the mixture's own dose
+ */
+export function equilibrium(mixture: MixtureLike, dose?: string | number): EquilibriumResult {
+  const parsed = toParsed(mixture);
+  const doseMgPerL = resolveDose(dose, parsed);
+  const pm = prepareMixture(parsed.components);
+  return formatSolution(pm, solveBatchPrepared(pm, doseMgPerL / 1000));
+}
+
+/** Log-spaced doses from `from` to `to` inclusive (mg/L). */
+export function logSpacedDoses(fromMgPerL: number, toMgPerL: number, points: number): number[] {
+  if (!(fromMgPerL > 0) || !(toMgPerL > fromMgPerL)) throw new InputError(`expected 0 < from < to for a dose sweep, got from ${fromMgPerL} mg/L and to ${toMgPerL} mg/L`, { path: 'from' });
+  if (!Number.isInteger(points) || points < 2 || points > 100000) throw new InputError(`expected a whole number of points from 2 to 100000, got ${points}`, { path: 'points' });
+  const l0 = Math.log(fromMgPerL), l1 = Math.log(toMgPerL);
+  return Array.from({ length: points }, (_, k) => (k === 0 ? fromMgPerL : k === points - 1 ? toMgPerL : Math.exp(l0 + ((l1 - l0) * k) / (points - 1))));
+}
+
+/** Removal-against-dose curve: one equilibrium per log-spaced dose. */
+export function equilibriumCurve(mixture: MixtureLike, from: string | number, to: string | number, points: number): { curve: EquilibriumResult[] } {
+  const parsed = toParsed(mixture);
+  const f = atPath('from', () => parseDose(from));
+  const t = atPath('to', () => parseDose(to));
+  const pm = prepareMixture(parsed.components);
+  let warm: { u: number; theta: number } | undefined;
+  const curve = logSpacedDoses(f, t, points).map((d) => {
+    const s = solveBatchPrepared(pm, d / 1000, warm);
+    warm = s.state;
+    return formatSolution(pm, s);
+  });
+  return { curve };
+}
+
+/** Turn a goal into a removal fraction for a component with initial concentration c0. */
+export function goalToRemovalFraction(goal: DoseGoal, c0MgPerL: number, targetId: string): number {
+  if ('removal' in goal) {
+    const r = goal.removal;
+    if (typeof r !== 'number' || !Number.isFinite(r) || !(r > 0 && r < 100)) throw new InputError(`expected a removal goal in percent between 0 and 100 (exclusive), got ${JSON.stringify(r)}`, { path: 'removal' });
+    return r / 100;
+  }
+  if ('limit' in goal) {
+    const lim = atPath('limit', () => parseConcentration(goal.limit));
+    if (!(lim > 0)) throw new InputError('expected a positive effluent limit', { path: 'limit' });
+    if (lim >= c0MgPerL) throw new InputError(`the limit ${lim} mg/L is not below c0 = ${c0MgPerL} mg/L of "${targetId}"; no carbon is needed`, { path: 'limit' });
+    return 1 - lim / c0MgPerL;
+  }
+  throw new InputError('expected a goal { removal: percent } or { limit: "50 ng/L" }', { path: 'goal' });
+}
+
+/** The carbon dose that meets a removal goal or an effluent limit for one component. */
+export function doseFor(mixture: MixtureLike, targetId: string, goal: DoseGoal): DoseSearchResult {
+  const parsed = toParsed(mixture);
+  const idx = parsed.components.findIndex((c) => c.id === targetId);
+  if (idx < 0) throw new InputError(`target "${targetId}" is not in the mixture; its ids are ${parsed.components.map((c) => `"${c.id}"`).join(', ')}`, { path: 'target' });
+  const comp = parsed.components[idx]!;
+  const R = goalToRemovalFraction(goal, comp.c0MgPerL, targetId);
+  const pm = prepareMixture(parsed.components);
+  const r = doseForRemoval(pm, idx, R, MAX_DOSE_G_PER_L);
+  return { target: targetId, dose_mg_per_L: r.doseGPerL * 1000, removal_fraction: r.removalFraction };
+}
+
+export interface LoadingResult {
+  id: string;
+  c_mg_per_L: number;
+  q_mg_per_g: number;
+}
+
+/**
+ * Direct IAST: loadings in equilibrium with given liquid concentrations.
+ * @param components   compounds (file shape without c0, or parsed FreundlichComponent)
+ * @param concentrations liquid concentrations by id ("100 ng/L" or mg/L) or in component order
+ */
+export function loadingsAt(components: unknown[], concentrations: Record<string, string | number> | Array<string | number>): { psi_mg_per_g: number; components: LoadingResult[] } {
+  if (!Array.isArray(components) || components.length === 0) throw new InputError('expected a non-empty array of components', { path: 'components' });
+  const comps = components.map((c, i) => (isInternal(c) ? c : readComponent(c, `components[${i}]`, false)));
+  const cs = comps.map((c, i) => {
+    const v = Array.isArray(concentrations) ? concentrations[i] : concentrations[c.id];
+    if (v === undefined) throw new InputError(`missing the liquid concentration of "${c.id}"`, { path: `concentrations.${c.id}` });
+    return atPath(`concentrations.${c.id}`, () => parseConcentration(v));
+  });
+  const withC = comps.map((c, i) => ({ ...c, c0MgPerL: cs[i]! }));
+  const pm = prepareMixture(withC);
+  const activeC = Array.from(pm.active, (idx) => cs[idx]!);
+  const d = directIastPrepared(pm, activeC);
+  const q = new Float64Array(comps.length);
+  pm.active.forEach((idx, j) => { q[idx] = d.qMgPerG[j]!; });
+  return { psi_mg_per_g: d.psiMgPerG, components: comps.map((c, i) => ({ id: c.id, c_mg_per_L: cs[i]!, q_mg_per_g: q[i]! })) };
+}
+
+function isInternal(c: unknown): c is FreundlichComponent {
+  return typeof c === 'object' && c !== null && typeof (c as FreundlichComponent).oneOverN === 'number' && typeof (c as FreundlichComponent).K === 'number';
+}

@@ -1,0 +1,234 @@
+/**
+ * Batch IAST equilibrium for Freundlich components (closed vessel, carbon dose D).
+ *
+ * Ideal adsorbed solution theory (Radke & Prausnitz 1972, AIChE J. 18(4):761–768) with the
+ * Freundlich reduced spreading pressure ψ = K·c°^(1/n)/(1/n) = n·q°, so the single-solute
+ * reference concentration is c°_i(ψ) = (ψ·β_i/K_i)^(n_i) (β = 1/n). Conditions:
+ *   c_i = z_i·c°_i(ψ),  q_i = z_i·q_T,  Σ z_i = 1,  1/q_T = Σ z_i/q°_i,  c0_i = c_i + D·q_i,
+ * which is the batch form of Crittenden et al. 1985 (Environ. Sci. Technol. 19(11):1037–1043),
+ * with ψ = Σ n_j q_j.
+ *
+ * Formulation used here (ours, exact rearrangement): with x = D·q_T (mg/L adsorbed) the mass
+ * balance gives z_i = c0_i/(c°_i + x), hence c_i = c0_i·σ(t_i) and D·q_i = c0_i·σ(−t_i) with
+ * t_i = ln(c°_i/x) = n_i·ln ψ + a_i − ln x and σ the logistic function. Mass balance therefore
+ * holds to rounding by construction. Two unknowns remain, u = ln ψ and θ = logit(x/C) with
+ * C = Σ c0_i; x = C·σ(θ) and the liquid total S = C·σ(−θ) both keep full relative precision:
+ *   F1: ln Σ c0_i σ(−t_i) − ln x = 0   (θ < 0)   or   ln Σ c0_i σ(t_i) − ln S = 0   (θ ≥ 0)
+ *   F2: ln Σ n_i c0_i σ(−t_i) − ln D − u = 0
+ * Newton's method on (u, θ) with an analytic Jacobian and backtracking; if it fails, a bracketed
+ * nested solve (F1 monotone in u for fixed θ; F2 changes sign in θ from −∞ to +∞) cannot lose
+ * the root.
+ *
+ * Units: c0 mg/L, K (mg/g)/(mg/L)^(1/n), D g/L, q mg/g. Non-adsorbable components (K = 0) stay
+ * in solution. Throws ComputationError if no converged root is found.
+ */
+import { ComputationError, InputError } from '../core/errors.js';
+import { brentRoot, bracketMonotone } from '../core/brent.js';
+import { softplus } from '../core/logistic.js';
+import type { PreparedMixture } from './preparedMixture.js';
+import { directIastPrepared } from './iastDirect.js';
+
+export interface BatchSolution {
+  /** Carbon dose, g/L. */
+  doseGPerL: number;
+  /** Equilibrium liquid concentrations, mg/L, in the mixture's component order. */
+  cMgPerL: Float64Array;
+  /** Equilibrium loadings, mg/g. */
+  qMgPerG: Float64Array;
+  /** Reduced spreading pressure ψ, mg/g (NaN when nothing adsorbable). */
+  psiMgPerG: number;
+  /** Internal state, for warm starts of nearby solves. */
+  state: { u: number; theta: number };
+  iterations: number;
+  method: 'newton' | 'bracketed' | 'trivial';
+}
+
+const F_TOL = 2e-14;
+
+interface Eval {
+  f1: number; f2: number; j11: number; j12: number; j21: number; j22: number;
+}
+
+/** Residuals and Jacobian at (u, θ); non-finite values signal a bad iterate. */
+function evaluate(pm: PreparedMixture, lnD: number, u: number, theta: number, out: Eval): void {
+  const { c0, n, a } = pm;
+  const m = c0.length;
+  const p = theta >= 0 ? Math.exp(-theta) / (1 + Math.exp(-theta)) : 1 / (1 + Math.exp(theta)); // σ(−θ)
+  const sTheta = 1 - p;
+  const lnx = pm.lnCTotal - softplus(-theta);
+  let A = 0, B = 0, N = 0, W = 0, Wn = 0, Wnn = 0;
+  for (let i = 0; i < m; i++) {
+    const ni = n[i]!;
+    const t = ni * u + a[i]! - lnx;
+    const e = Math.exp(-Math.abs(t));
+    const inv = 1 / (1 + e);
+    let sp: number, sm: number;
+    if (t >= 0) { sp = inv; sm = e * inv; } else { sp = e * inv; sm = inv; }
+    const ci = c0[i]!;
+    const adsorbed = ci * sm;
+    A += adsorbed;
+    B += ci * sp;
+    N += ni * adsorbed;
+    const w = adsorbed * sp;
+    W += w;
+    Wn += w * ni;
+    Wnn += w * ni * ni;
+  }
+  if (theta < 0) {
+    out.f1 = Math.log(A) - lnx;
+    out.j11 = -Wn / A;
+    out.j12 = p * (W / A - 1);
+  } else {
+    const lnS = pm.lnCTotal - softplus(theta);
+    out.f1 = Math.log(B) - lnS;
+    out.j11 = Wn / B;
+    out.j12 = -p * (W / B) + sTheta;
+  }
+  out.f2 = Math.log(N) - lnD - u;
+  out.j21 = -Wnn / N - 1;
+  out.j22 = p * (Wn / N);
+}
+
+/** Starting point from one lumped Freundlich solute (c0-weighted exponent and ln K). */
+function lumpedStart(pm: PreparedMixture, doseGPerL: number): { u: number; theta: number } {
+  const { c0, beta, lnK } = pm;
+  let b = 0, lk = 0;
+  for (let i = 0; i < c0.length; i++) { b += c0[i]! * beta[i]!; lk += c0[i]! * lnK[i]!; }
+  b /= pm.cTotal; lk /= pm.cTotal;
+  // f + α f^b = 1 with α = D·K·C^(b−1); solve h(g) = ln(e^g + α e^(b g)) = 0 for g = ln f.
+  const lnAlpha = Math.log(doseGPerL) + lk + (b - 1) * pm.lnCTotal;
+  let g = Math.min(0, -lnAlpha / Math.max(b, 1e-3) * 0.5);
+  if (!Number.isFinite(g)) g = 0;
+  for (let k = 0; k < 60; k++) {
+    const l1 = g, l2 = lnAlpha + b * g;
+    const mx = Math.max(l1, l2);
+    const e1 = Math.exp(l1 - mx), e2 = Math.exp(l2 - mx);
+    const h = mx + Math.log(e1 + e2);
+    const dh = (e1 + b * e2) / (e1 + e2);
+    const step = h / dh;
+    g -= step;
+    if (Math.abs(step) < 1e-10) break;
+  }
+  if (g > -1e-300) g = Math.min(g, -1e-12);
+  const theta = Math.log(-Math.expm1(g)) - g; // logit(1 − f)
+  const u = lk - Math.log(b) + b * (g + pm.lnCTotal); // ψ = K c^b / b
+  return { u, theta: Number.isFinite(theta) ? theta : 0 };
+}
+
+const scratch: Eval = { f1: 0, f2: 0, j11: 0, j12: 0, j21: 0, j22: 0 };
+
+function newton(pm: PreparedMixture, lnD: number, u0: number, th0: number): { u: number; theta: number; iterations: number } | undefined {
+  let u = u0, th = th0;
+  const ev = scratch;
+  evaluate(pm, lnD, u, th, ev);
+  if (!Number.isFinite(ev.f1) || !Number.isFinite(ev.f2)) return undefined;
+  let merit = ev.f1 * ev.f1 + ev.f2 * ev.f2;
+  for (let it = 1; it <= 80; it++) {
+    const det = ev.j11 * ev.j22 - ev.j12 * ev.j21;
+    if (!Number.isFinite(det) || det === 0) return undefined;
+    let du = (-ev.f1 * ev.j22 + ev.f2 * ev.j12) / det;
+    let dth = (-ev.f2 * ev.j11 + ev.f1 * ev.j21) / det;
+    const big = Math.max(Math.abs(du) / 4, Math.abs(dth) / 8);
+    if (big > 1) { du /= big; dth /= big; }
+    let lambda = 1;
+    let accepted = false;
+    for (let k = 0; k < 40; k++) {
+      const un = u + lambda * du, thn = th + lambda * dth;
+      evaluate(pm, lnD, un, thn, ev);
+      const mn = ev.f1 * ev.f1 + ev.f2 * ev.f2;
+      if (Number.isFinite(mn) && (mn < merit || mn < 1e-30)) {
+        u = un; th = thn; merit = mn; accepted = true;
+        break;
+      }
+      lambda *= 0.5;
+    }
+    if (!accepted) {
+      evaluate(pm, lnD, u, th, ev);
+      return Math.max(Math.abs(ev.f1), Math.abs(ev.f2)) < F_TOL * 50 ? { u, theta: th, iterations: it } : undefined;
+    }
+    if (Math.abs(ev.f1) < F_TOL && Math.abs(ev.f2) < F_TOL) return { u, theta: th, iterations: it };
+  }
+  return undefined;
+}
+
+/** F1 for fixed θ, as a function of u (decreasing for θ < 0 form, increasing for θ ≥ 0). */
+function f1At(pm: PreparedMixture, lnD: number, u: number, theta: number): number {
+  evaluate(pm, lnD, u, theta, scratch);
+  return scratch.f1;
+}
+
+function innerU(pm: PreparedMixture, lnD: number, theta: number, uGuess: number): number {
+  const increasing = theta >= 0;
+  const g = (u: number) => f1At(pm, lnD, u, theta);
+  const br = bracketMonotone(g, uGuess, 1, increasing, [-2000, 2000], 'IAST inner solve (Σz = 1)');
+  if (br.a === br.b) return br.a;
+  return brentRoot(g, br.a, br.b, { fa: br.fa, fb: br.fb, xTol: 1e-15, what: 'IAST inner solve (Σz = 1)' }).x;
+}
+
+function bracketed(pm: PreparedMixture, lnD: number, start: { u: number; theta: number }): { u: number; theta: number; iterations: number } {
+  let uLast = start.u;
+  let evals = 0;
+  const G = (theta: number) => {
+    uLast = innerU(pm, lnD, theta, uLast);
+    evals++;
+    evaluate(pm, lnD, uLast, theta, scratch);
+    return scratch.f2;
+  };
+  const br = bracketMonotone(G, start.theta, 2, true, [-1400, 1400], 'IAST outer solve (spreading pressure)');
+  let theta = br.a;
+  if (br.a !== br.b) theta = brentRoot(G, br.a, br.b, { fa: br.fa, fb: br.fb, xTol: 1e-13, what: 'IAST outer solve (spreading pressure)' }).x;
+  const u = innerU(pm, lnD, theta, uLast);
+  return { u, theta, iterations: evals };
+}
+
+/**
+ * Solve the batch IAST problem for a prepared mixture at carbon dose `doseGPerL` (g/L).
+ * @param warm optional (u, θ) of a nearby solve (e.g. the previous dose of a sweep).
+ * @throws ComputationError if neither Newton nor the bracketed solve converges.
+ */
+export function solveBatchPrepared(pm: PreparedMixture, doseGPerL: number, warm?: { u: number; theta: number }): BatchSolution {
+  if (!(doseGPerL >= 0) || !Number.isFinite(doseGPerL)) throw new InputError(`expected a non-negative finite carbon dose, got ${doseGPerL}`, { path: 'dose' });
+  const size = pm.size;
+  const c = new Float64Array(size);
+  const q = new Float64Array(size);
+  for (let i = 0; i < size; i++) c[i] = (pm.source[i] as { c0MgPerL: number }).c0MgPerL;
+  const m = pm.c0.length;
+  if (m === 0) return { doseGPerL, cMgPerL: c, qMgPerG: q, psiMgPerG: NaN, state: { u: 0, theta: 0 }, iterations: 0, method: 'trivial' };
+  if (doseGPerL === 0) {
+    const d = directIastPrepared(pm, pm.c0);
+    for (let j = 0; j < m; j++) q[pm.active[j]!] = d.qMgPerG[j]!;
+    return { doseGPerL, cMgPerL: c, qMgPerG: q, psiMgPerG: d.psiMgPerG, state: { u: Math.log(d.psiMgPerG), theta: -Infinity }, iterations: d.iterations, method: 'trivial' };
+  }
+  const lnD = Math.log(doseGPerL);
+  const start = warm && Number.isFinite(warm.u) && Number.isFinite(warm.theta) ? warm : lumpedStart(pm, doseGPerL);
+  let sol = newton(pm, lnD, start.u, start.theta);
+  let method: BatchSolution['method'] = 'newton';
+  if (!sol && warm) sol = newton(pm, lnD, ...spread(lumpedStart(pm, doseGPerL)));
+  if (!sol) {
+    sol = bracketed(pm, lnD, start);
+    method = 'bracketed';
+    const polished = newton(pm, lnD, sol.u, sol.theta);
+    if (polished) sol = { ...polished, iterations: polished.iterations + sol.iterations };
+  }
+  const { u, theta } = sol;
+  evaluate(pm, lnD, u, theta, scratch);
+  if (!(Math.abs(scratch.f1) < 1e-11 && Math.abs(scratch.f2) < 1e-11)) {
+    throw new ComputationError(`batch IAST did not converge at dose ${doseGPerL * 1000} mg/L (residuals ${scratch.f1.toExponential(2)}, ${scratch.f2.toExponential(2)})`);
+  }
+  const lnx = pm.lnCTotal - softplus(-theta);
+  for (let j = 0; j < m; j++) {
+    const t = pm.n[j]! * u + pm.a[j]! - lnx;
+    const e = Math.exp(-Math.abs(t));
+    const inv = 1 / (1 + e);
+    const sp = t >= 0 ? inv : e * inv; // σ(t): fraction remaining
+    const sm = t >= 0 ? e * inv : inv; // σ(−t): fraction adsorbed
+    const idx = pm.active[j]!;
+    c[idx] = pm.c0[j]! * sp;
+    q[idx] = (pm.c0[j]! * sm) / doseGPerL;
+  }
+  return { doseGPerL, cMgPerL: c, qMgPerG: q, psiMgPerG: Math.exp(u), state: { u, theta }, iterations: sol.iterations, method };
+}
+
+function spread(s: { u: number; theta: number }): [number, number] {
+  return [s.u, s.theta];
+}

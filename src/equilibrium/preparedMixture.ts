@@ -1,0 +1,76 @@
+/**
+ * A mixture of Freundlich components in the internal units, laid out in typed arrays for the
+ * solvers. Concentrations mg/L, K in (mg/g)/(mg/L)^(1/n), exponent 1/n dimensionless.
+ */
+import { InputError } from '../core/errors.js';
+
+/** One Freundlich component in internal units. K = 0 marks a non-adsorbable component. */
+export interface FreundlichComponent {
+  id: string;
+  /** Initial liquid concentration, mg/L (≥ 0). */
+  c0MgPerL: number;
+  /** Freundlich K in (mg/g)/(mg/L)^(1/n) (≥ 0; 0 = non-adsorbable). */
+  K: number;
+  /** Freundlich exponent 1/n (> 0; ignored when K = 0). */
+  oneOverN: number;
+}
+
+export interface PreparedMixture {
+  readonly ids: readonly string[];
+  readonly size: number;
+  /** Indices (into ids) of adsorbable components with c0 > 0, in the order of the arrays below. */
+  readonly active: Int32Array;
+  readonly c0: Float64Array;
+  readonly n: Float64Array;
+  readonly beta: Float64Array;
+  readonly lnK: Float64Array;
+  /** a_i = n_i·ln(β_i/K_i), so that ln c°_i(ψ) = n_i·ln ψ + a_i. */
+  readonly a: Float64Array;
+  /** Σ c0 over the active components, mg/L. */
+  readonly cTotal: number;
+  readonly lnCTotal: number;
+  readonly source: readonly FreundlichComponent[];
+}
+
+/** Validate and lay out a list of components. @throws InputError on invalid values. */
+export function prepareMixture(components: readonly FreundlichComponent[]): PreparedMixture {
+  if (components.length === 0) throw new InputError('expected at least one component', { path: 'components' });
+  const seen = new Set<string>();
+  const active: number[] = [];
+  components.forEach((c, i) => {
+    const path = `components[${i}]`;
+    if (seen.has(c.id)) throw new InputError(`duplicate id "${c.id}"; every component needs its own id`, { path: `${path}.id` });
+    seen.add(c.id);
+    if (!(c.c0MgPerL >= 0) || !Number.isFinite(c.c0MgPerL)) throw new InputError(`expected a non-negative finite concentration, got ${c.c0MgPerL}`, { path: `${path}.c0` });
+    if (!(c.K >= 0) || !Number.isFinite(c.K)) throw new InputError(`expected K ≥ 0 (0 = non-adsorbable), got ${c.K}`, { path: `${path}.K` });
+    if (c.K > 0) {
+      if (!(c.oneOverN > 0) || !Number.isFinite(c.oneOverN)) throw new InputError(`expected an exponent one_over_n > 0, got ${c.oneOverN}`, { path: `${path}.one_over_n` });
+      if (c.c0MgPerL > 0) active.push(i);
+    }
+  });
+  const m = active.length;
+  const c0 = new Float64Array(m);
+  const n = new Float64Array(m);
+  const beta = new Float64Array(m);
+  const lnK = new Float64Array(m);
+  const a = new Float64Array(m);
+  let cTotal = 0;
+  active.forEach((idx, j) => {
+    const comp = components[idx] as FreundlichComponent;
+    c0[j] = comp.c0MgPerL;
+    beta[j] = comp.oneOverN;
+    n[j] = 1 / comp.oneOverN;
+    lnK[j] = Math.log(comp.K);
+    a[j] = n[j]! * (Math.log(comp.oneOverN) - lnK[j]!);
+    cTotal += comp.c0MgPerL;
+  });
+  return {
+    ids: components.map((c) => c.id),
+    size: components.length,
+    active: Int32Array.from(active),
+    c0, n, beta, lnK, a,
+    cTotal,
+    lnCTotal: Math.log(cTotal),
+    source: components,
+  };
+}

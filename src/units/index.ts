@@ -1,0 +1,3 @@
+export * from './unitFactor.js';
+export * from './parseQuantity.js';
+export * from './freundlichK.js';

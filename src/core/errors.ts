@@ -16,6 +16,8 @@ export interface InputLocation {
   column?: string;
   /** JSON path such as `components[2].K`. */
   path?: string;
+  /** Command-line option such as `--dose`. */
+  option?: string;
 }
 
 export class SorbshareError extends Error {
@@ -59,5 +61,6 @@ export function formatInputMessage(expected: string, loc: InputLocation): string
   if (loc.row !== undefined) parts.push(`row ${loc.row}`);
   if (loc.column !== undefined) parts.push(`column "${loc.column}"`);
   if (loc.path !== undefined) parts.push(`field ${loc.path}`);
+  if (loc.option !== undefined) parts.push(`option ${loc.option}`);
   return parts.length ? `${parts.join(', ')}: ${expected}` : expected;
 }

@@ -15,8 +15,8 @@ import { solveBatchPrepared, type BatchSolution } from '../equilibrium/iastBatch
 
 /** Largest dose searched, g/L (5 g/L = 5000 mg/L, far above any practical PAC dose). */
 export const MAX_DOSE_G_PER_L = 5;
-/** Smallest dose searched, g/L (1 µg/L). */
-export const MIN_DOSE_G_PER_L = 1e-6;
+/** Smallest dose searched, g/L (1 ng/L of carbon: below any dose a plant can meter). */
+export const MIN_DOSE_G_PER_L = 1e-12;
 
 export interface DoseResult {
   doseGPerL: number;
@@ -67,8 +67,8 @@ export function doseForRemoval(pm: PreparedMixture, targetIndex: number, removal
   const lo = Math.log(MIN_DOSE_G_PER_L);
   while (ga < 0) {
     b = a; gb = ga;
-    if (a <= lo) throw new InputError(`the goal of ${fmtPct(removalFraction)} removal of "${id}" is already met below ${MIN_DOSE_G_PER_L * 1000} mg/L; check the inputs`);
-    a = Math.max(lo, a - 2.3);
+    if (a <= lo) throw new InputError(`the goal of ${fmtPct(removalFraction)} removal of "${id}" is already met below ${MIN_DOSE_G_PER_L * 1000} mg/L of carbon; check the inputs`);
+    a = Math.max(lo, a - 4.6);
     ga = g(a);
   }
   const root = brentRoot(g, a, b, { fa: ga, fb: gb, xTol: 1e-12, what: `dose search for "${id}"` });

@@ -184,9 +184,15 @@ function bracketed(pm: PreparedMixture, lnD: number, start: { u: number; theta: 
 /**
  * Solve the batch IAST problem for a prepared mixture at carbon dose `doseGPerL` (g/L).
  * @param warm optional (u, θ) of a nearby solve (e.g. the previous dose of a sweep).
+ * @param options.forceBracketed skip Newton (tests of the fallback path).
  * @throws ComputationError if neither Newton nor the bracketed solve converges.
  */
-export function solveBatchPrepared(pm: PreparedMixture, doseGPerL: number, warm?: { u: number; theta: number }): BatchSolution {
+export function solveBatchPrepared(
+  pm: PreparedMixture,
+  doseGPerL: number,
+  warm?: { u: number; theta: number },
+  options: { forceBracketed?: boolean } = {},
+): BatchSolution {
   if (!(doseGPerL >= 0) || !Number.isFinite(doseGPerL)) throw new InputError(`expected a non-negative finite carbon dose, got ${doseGPerL}`, { path: 'dose' });
   const size = pm.size;
   const c = new Float64Array(size);
@@ -201,13 +207,13 @@ export function solveBatchPrepared(pm: PreparedMixture, doseGPerL: number, warm?
   }
   const lnD = Math.log(doseGPerL);
   const start = warm && Number.isFinite(warm.u) && Number.isFinite(warm.theta) ? warm : lumpedStart(pm, doseGPerL);
-  let sol = newton(pm, lnD, start.u, start.theta);
+  let sol = options.forceBracketed ? undefined : newton(pm, lnD, start.u, start.theta);
   let method: BatchSolution['method'] = 'newton';
-  if (!sol && warm) sol = newton(pm, lnD, ...spread(lumpedStart(pm, doseGPerL)));
+  if (!sol && warm && !options.forceBracketed) sol = newton(pm, lnD, ...spread(lumpedStart(pm, doseGPerL)));
   if (!sol) {
     sol = bracketed(pm, lnD, start);
     method = 'bracketed';
-    const polished = newton(pm, lnD, sol.u, sol.theta);
+    const polished = options.forceBracketed ? undefined : newton(pm, lnD, sol.u, sol.theta);
     if (polished) sol = { ...polished, iterations: polished.iterations + sol.iterations };
   }
   const { u, theta } = sol;

@@ -20,16 +20,16 @@ export const doseCommand: CommandSpec = {
   examples: ['sorbshare dose mixture.json --target T1 --removal 80', 'sorbshare dose mixture.json --target T1 --limit "50 ng/L" --json'],
   action(args, opts, ctx) {
     const file = args[0]!;
-    if (typeof opts.target !== 'string' || opts.target === '') throw new InputError('missing --target; expected the id of a component in the mixture', { column: '--target' });
-    if ((opts.removal === undefined) === (opts.limit === undefined)) throw new InputError('give exactly one of --removal PERCENT or --limit QUANTITY', { column: '--removal/--limit' });
+    if (typeof opts.target !== 'string' || opts.target === '') throw new InputError('missing --target; expected the id of a component in the mixture', { option: '--target' });
+    if ((opts.removal === undefined) === (opts.limit === undefined)) throw new InputError('give exactly one of --removal PERCENT or --limit QUANTITY', { option: '--removal/--limit' });
     let goal: DoseGoal;
     if (opts.removal !== undefined) {
       const r = Number(opts.removal);
-      if (!Number.isFinite(r) || String(opts.removal).trim() === '') throw new InputError(`expected a percentage such as 80, got "${String(opts.removal)}"`, { column: '--removal' });
+      if (!Number.isFinite(r) || String(opts.removal).trim() === '') throw new InputError(`expected a percentage such as 80, got "${String(opts.removal)}"`, { option: '--removal' });
       goal = { removal: r };
     } else goal = { limit: String(opts.limit) };
     const mixture = inFile(file, () => readMixture(readJsonFile(file, 'mixture file')));
-    const res = optionValue(() => doseFor(mixture, opts.target as string, goal));
+    const res = inFile(file, () => optionValue(() => doseFor(mixture, opts.target as string, goal)));
     if (opts.json) ctx.out(JSON.stringify(res, null, 2));
     else ctx.out([
       `Target ${res.target}: ${fmt(res.removal_fraction * 100, 4)} % removal at a carbon dose of ${fmt(res.dose_mg_per_L, 5)} mg/L (${fmt(res.dose_mg_per_L, 5)} g/m³)`,

@@ -24,16 +24,16 @@ export const equilibriumCommand: CommandSpec = {
     const mixture = inFile(file, () => readMixture(readJsonFile(file, 'mixture file')));
     const sweep = opts.from !== undefined || opts.to !== undefined;
     if (sweep) {
-      if (opts.dose !== undefined) throw new InputError('give either --dose or --from/--to, not both', { column: '--dose' });
-      if (opts.from === undefined || opts.to === undefined) throw new InputError('a sweep needs both --from and --to', { column: opts.from === undefined ? '--from' : '--to' });
+      if (opts.dose !== undefined) throw new InputError('give either --dose or --from/--to, not both', { option: '--dose' });
+      if (opts.from === undefined || opts.to === undefined) throw new InputError('a sweep needs both --from and --to', { option: opts.from === undefined ? '--from' : '--to' });
       const points = Number(opts.points);
-      if (!Number.isInteger(points) || points < 2) throw new InputError(`expected a whole number ≥ 2, got "${String(opts.points)}"`, { column: '--points' });
-      const res = optionValue(() => equilibriumCurve(mixture, opts.from as string, opts.to as string, points));
+      if (!Number.isInteger(points) || points < 2) throw new InputError(`expected a whole number ≥ 2, got "${String(opts.points)}"`, { option: '--points' });
+      const res = inFile(file, () => optionValue(() => equilibriumCurve(mixture, opts.from as string, opts.to as string, points)));
       if (opts.json) ctx.out(JSON.stringify(res, null, 2));
       else ctx.out(renderCurve(res.curve));
       return;
     }
-    const res = optionValue(() => equilibrium(mixture, opts.dose as string | undefined));
+    const res = inFile(file, () => optionValue(() => equilibrium(mixture, opts.dose as string | undefined)));
     if (opts.json) ctx.out(JSON.stringify(res, null, 2));
     else ctx.out(renderOne(res));
   },

@@ -19,7 +19,7 @@ export function optionValue<T>(f: () => T): T {
   } catch (e) {
     if (e instanceof InputError && e.location.path && !e.location.file) {
       const opt = OPTION_OF_PATH[e.location.path.split('.')[0]!];
-      if (opt) throw new InputError(e.expected, { column: opt });
+      if (opt) throw new InputError(e.expected, { option: opt });
     }
     throw e;
   }

@@ -1,0 +1,88 @@
+/**
+ * End-to-end: `sorbshare fractionate` through the built binary (npm run build first).
+ */
+import { beforeAll, describe, expect, it } from 'vitest';
+import { spawnSync } from 'node:child_process';
+import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+
+const BIN = join(process.cwd(), 'dist/cli/bin.js');
+const ISO = join(process.cwd(), 'fixtures/fractionation/site-effluent-isotherm.csv');
+const run = (...args: string[]) => {
+  const r = spawnSync(process.execPath, [BIN, ...args], { encoding: 'utf8' });
+  return { code: r.status, out: r.stdout, err: r.stderr };
+};
+let dir: string;
+const write = (name: string, content: string) => { const p = join(dir, name); writeFileSync(p, content); return p; };
+
+beforeAll(() => {
+  if (!existsSync(BIN)) throw new Error('build first: npm run build');
+  dir = mkdtempSync(join(tmpdir(), 'sorbshare-fractionate-'));
+});
+
+describe('sorbshare fractionate', () => {
+  it('--json prints the background file and --out writes the same JSON', () => {
+    const out = join(dir, 'background.json');
+    const r = run('fractionate', ISO, '--json', '--out', out);
+    expect(r.code).toBe(0);
+    const j = JSON.parse(r.out);
+    expect(Object.keys(j)).toEqual(expect.arrayContaining(['doc0_mg_per_L', 'one_over_n', 'components', 'fit']));
+    expect(Object.keys(j.components[0])).toEqual(expect.arrayContaining(['id', 'K', 'one_over_n', 'fraction', 'c0_mg_per_L']));
+    expect(j.components).toHaveLength(4);
+    expect(j.components[0].K).toBe(0);
+    expect(j.fit.points).toBe(10);
+    expect(j.uv254).toBeDefined();
+    expect(JSON.parse(readFileSync(out, 'utf8'))).toEqual(j);
+  });
+
+  it('text output with --components auto shows the AICc table; --fit-k, --k-grid and --exponent are honoured', () => {
+    const auto = run('fractionate', ISO, '--components', 'auto');
+    expect(auto.code).toBe(0);
+    expect(auto.out).toMatch(/Number of components by AICc/);
+    expect(auto.out).toMatch(/chosen/);
+    const grid = run('fractionate', ISO, '--k-grid', '5,50', '--exponent', '0.25', '--json');
+    expect(grid.code).toBe(0);
+    const g = JSON.parse(grid.out);
+    expect(g.components.map((c: { K: number }) => c.K)).toEqual([0, 5, 50]);
+    expect(g.one_over_n).toBe(0.25);
+    const fk = JSON.parse(run('fractionate', ISO, '--fit-k', '--components', '2', '--json').out);
+    expect(fk.fit.k_mode).toBe('fitted');
+  });
+
+  const bad: Array<[string, string, RegExp, string[]?]> = [
+    ['a header without a unit', 'dose,DOC0 (mg/L),DOC (mg/L)\n0,8,8\n10,8,6\n20,8,5\n40,8,4.5\n', /row 1, column "dose": header without a unit/],
+    ['DOC that rises with dose', 'dose (mg/L),DOC0 (mg/L),DOC (mg/L)\n0,8,8\n10,8,6\n20,8,7.5\n40,8,5\n', /row 4, column "DOC \(mg\/L\)": DOC 7\.5 mg\/L at dose 20 mg\/L is higher/, ['--components', '1']],
+    ['a negative value', 'dose (mg/L),DOC0 (mg/L),DOC (mg/L)\n0,8,8\n-10,8,6\n', /row 3, column "dose \(mg\/L\)": negative value -10/],
+    ['fewer points than parameters', 'dose (mg/L),DOC0 (mg/L),DOC (mg/L)\n0,8,8\n10,8,6\n20,8,5\n', /row 4, column "DOC \(mg\/L\)": only 2 rows with a carbon dose > 0 for 3 fitted parameters/],
+    ['a dose-0 row that disagrees with DOC0', 'dose (mg/L),DOC0 (mg/L),DOC (mg/L)\n0,8,6.5\n10,8,6\n20,8,5\n40,8,4.5\n', /row 2, column "DOC \(mg\/L\)": at dose 0 the DOC \(6\.5 mg\/L\) disagrees with DOC0/],
+    ['a non-numeric cell', 'dose (mg/L),DOC0 (mg/L),DOC (mg/L)\n0,8,8\n10,8,n/a\n', /row 3, column "DOC \(mg\/L\)": "n\/a" is not a number/],
+  ];
+  for (const [what, csv, message, extra] of bad) {
+    it(`${what}: exit 2, file/row/column named, nothing on stdout, --out not written`, () => {
+      const f = write(`bad-${what.replace(/\W+/g, '-')}.csv`, csv);
+      const out = join(dir, `never-${what.replace(/\W+/g, '-')}.json`);
+      const r = run('fractionate', f, '--out', out, ...(extra ?? []));
+      expect(r.code).toBe(2);
+      expect(r.out).toBe('');
+      expect(r.err).toContain(f);
+      expect(r.err).toMatch(message);
+      expect(existsSync(out)).toBe(false);
+    });
+  }
+
+  it('bad options exit 2 naming the option', () => {
+    const r = run('fractionate', ISO, '--components', 'many');
+    expect(r.code).toBe(2);
+    expect(r.err).toMatch(/column "--components"/);
+    const g = run('fractionate', ISO, '--k-grid', '5,-1');
+    expect(g.code).toBe(2);
+    expect(g.err).toMatch(/--k-grid/);
+    const e = run('fractionate', ISO, '--exponent', '3');
+    expect(e.code).toBe(2);
+    expect(e.err).toMatch(/--exponent/);
+    const m = run('fractionate', join(dir, 'missing.csv'));
+    expect(m.code).toBe(2);
+    expect(m.err).toMatch(/missing\.csv: isotherm file not found/);
+  });
+});

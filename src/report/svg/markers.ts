@@ -1,0 +1,27 @@
+/**
+ * Marker outlines as SVG path data, so all markers of one series go into a single `<path>`
+ * (short, fast output). Each shape has about the same visual area for the same `size`.
+ */
+import type { MarkerShape } from './palette.js';
+import { r2 } from './svgNumber.js';
+
+/** Path data of one marker of `shape` centred on (cx, cy), `size` ≈ diameter in SVG units. */
+export function markerPath(shape: MarkerShape, cx: number, cy: number, size: number): string {
+  const r = size / 2;
+  switch (shape) {
+    case 'square': {
+      const h = r * 0.88;
+      return `M${r2(cx - h)} ${r2(cy - h)}h${r2(2 * h)}v${r2(2 * h)}h${r2(-2 * h)}Z`;
+    }
+    case 'triangle': {
+      const h = r * 1.2;
+      return `M${r2(cx)} ${r2(cy - h)}L${r2(cx + h * 0.95)} ${r2(cy + h * 0.7)}L${r2(cx - h * 0.95)} ${r2(cy + h * 0.7)}Z`;
+    }
+    case 'diamond': {
+      const h = r * 1.2;
+      return `M${r2(cx)} ${r2(cy - h)}L${r2(cx + h)} ${r2(cy)}L${r2(cx)} ${r2(cy + h)}L${r2(cx - h)} ${r2(cy)}Z`;
+    }
+    default:
+      return `M${r2(cx - r)} ${r2(cy)}a${r2(r)} ${r2(r)} 0 1 0 ${r2(2 * r)} 0a${r2(r)} ${r2(r)} 0 1 0 ${r2(-2 * r)} 0Z`;
+  }
+}

@@ -1,0 +1,130 @@
+/**
+ * The HTML report in a real browser (headless Chromium through playwright-core, the system's
+ * /usr/bin/chromium; never a downloaded browser). Renders the synthetic fixture (invented numbers;
+ * a rendering test, not check values) and checks: no console or page errors, no network request,
+ * every plot of the model present as a visible svg.plot, something drawn for every non-empty
+ * series, and injected <script> text shown as text. Leaves a full-page screenshot in
+ * tests/.artifacts/report.png.
+ *
+ * Without /usr/bin/chromium the test is skipped, except in CI (CI set), where it fails.
+ */
+import { existsSync, mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+import { afterAll, describe, expect, it } from 'vitest';
+import { renderHtmlReport } from '../../src/report/htmlReport.js';
+import type { PlotSpec } from '../../src/report/reportModel.js';
+import { reportPlotIds } from '../../src/report/reportPlotIds.js';
+import { syntheticModel } from './syntheticModel.js';
+
+// Minimal shapes of the DOM used by the code that runs inside the page (the project's lib has no DOM types).
+interface PageNode {
+  textContent: string | null;
+  getAttribute(name: string): string | null;
+  getBoundingClientRect(): { width: number; height: number };
+  getBBox(): { width: number; height: number };
+  querySelectorAll(selector: string): ArrayLike<PageNode> & Iterable<PageNode>;
+}
+declare const document: { body: PageNode; querySelector(s: string): PageNode | null; querySelectorAll(s: string): ArrayLike<PageNode> & Iterable<PageNode> };
+
+const CHROMIUM = '/usr/bin/chromium';
+const HAVE = existsSync(CHROMIUM);
+const IN_CI = Boolean(process.env.CI);
+const ARTIFACTS = fileURLToPath(new URL('../.artifacts/', import.meta.url));
+const EVIL = '<script>alert(1)</script>';
+
+if (!HAVE && !IN_CI) console.warn(`[report browser test] SKIPPED: ${CHROMIUM} not found (apt-get install -y chromium to run it).`);
+
+/** Indices of the series/stacks that have at least one drawable value (independent of the renderer). */
+function nonEmptySeries(p: PlotSpec): number[] {
+  if (p.kind === 'bars') return p.stacks.flatMap((s, k) => (s.values.some((v) => Number.isFinite(v) && v > 0) ? [k] : []));
+  const ok = (v: number, log?: boolean) => Number.isFinite(v) && (!log || v > 0);
+  return p.series.flatMap((s, k) => (s.points.some(([x, y]) => ok(x, p.xLog) && ok(y, p.yLog)) ? [k] : []));
+}
+
+describe('HTML report in headless Chromium', () => {
+  it.runIf(!HAVE && IN_CI)('needs /usr/bin/chromium in CI', () => {
+    expect.fail(`${CHROMIUM} is missing; CI must install it (apt-get install -y chromium).`);
+  });
+
+  const dir = mkdtempSync(join(tmpdir(), 'sorbshare-report-'));
+  afterAll(() => rmSync(dir, { recursive: true, force: true }));
+
+  it.skipIf(!HAVE)('renders cleanly, draws every plot and series, escapes injected script', async () => {
+    const { chromium } = await import('playwright-core');
+    const model = syntheticModel();
+    const file = join(dir, 'report.html');
+    writeFileSync(file, renderHtmlReport(model));
+    const browser = await chromium.launch({
+      executablePath: CHROMIUM,
+      args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
+    });
+    try {
+      const page = await browser.newPage({ viewport: { width: 1100, height: 900 } });
+      const errors: string[] = [];
+      const requests: string[] = [];
+      page.on('console', (m) => {
+        if (m.type() === 'error') errors.push(`console: ${m.text()}`);
+      });
+      page.on('pageerror', (e) => errors.push(`page: ${e.message}`));
+      page.on('dialog', async (d) => {
+        errors.push(`dialog: ${d.message()}`);
+        await d.dismiss();
+      });
+      await page.route('**/*', async (route) => {
+        const url = route.request().url();
+        if (url.startsWith('file:')) return route.continue();
+        requests.push(url);
+        return route.abort();
+      });
+      await page.goto(pathToFileURL(file).href, { waitUntil: 'load' });
+
+      const plots = model.sections.flatMap((s) => s.plots ?? []);
+      expect(plots.map((p) => p.id)).toEqual(reportPlotIds(model));
+      const found = await page.evaluate(
+        (specs) =>
+          specs.map(({ id, series }) => {
+            const svg = [...document.querySelectorAll('svg.plot')].find((e) => e.getAttribute('data-plot-id') === id);
+            if (!svg) return { id, present: false, w: 0, h: 0, drawn: [] as number[] };
+            const r = svg.getBoundingClientRect();
+            const drawn = series.map((k) => {
+              const shapes = svg.querySelectorAll(`[data-series="${k}"] path, [data-series="${k}"] rect, [data-series="${k}"] circle, [data-series="${k}"] line`);
+              return [...shapes].filter((s) => {
+                const b = s.getBBox();
+                return b.width > 0 || b.height > 0;
+              }).length;
+            });
+            return { id, present: true, w: r.width, h: r.height, drawn };
+          }),
+        plots.map((p) => ({ id: p.id, series: nonEmptySeries(p) })),
+      );
+      for (const f of found) {
+        expect(f.present, `plot ${f.id} present`).toBe(true);
+        expect(f.w, `plot ${f.id} width`).toBeGreaterThan(100);
+        expect(f.h, `plot ${f.id} height`).toBeGreaterThan(100);
+        for (const n of f.drawn) expect(n, `plot ${f.id}: something drawn per non-empty series`).toBeGreaterThan(0);
+      }
+      expect(found.find((f) => f.id === 'removal-dose')!.drawn).toHaveLength(4);
+
+      const dom = await page.evaluate(() => ({
+        scripts: document.querySelectorAll('script').length,
+        title: document.querySelector('h1')?.textContent ?? '',
+        body: document.body.textContent ?? '',
+        svgTitles: [...document.querySelectorAll('svg.plot > title')].map((t) => t.textContent),
+      }));
+      expect(dom.scripts).toBe(0);
+      expect(dom.title).toBe(`Synthetic rendering test ${EVIL}`);
+      expect(dom.body).toContain(`Paragraph with ${EVIL} & "quotes".`);
+      expect(dom.svgTitles).toContain(`Zero and negative values on a log axis ${EVIL}`);
+      expect(errors).toEqual([]);
+      expect(requests).toEqual([]);
+
+      mkdirSync(ARTIFACTS, { recursive: true });
+      await page.screenshot({ path: join(ARTIFACTS, 'report.png'), fullPage: true });
+      expect(existsSync(join(ARTIFACTS, 'report.png'))).toBe(true);
+    } finally {
+      await browser.close();
+    }
+  });
+});

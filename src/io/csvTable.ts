@@ -1,11 +1,19 @@
 /**
  * Reading a CSV table whose headers carry units, e.g. `dose (mg/L),DOC0 (mg/L),DOC (mg/L)`.
+ * This is the project's one CSV reader: every CSV input goes through `readCsvTable`.
  *
- * The caller declares the columns it understands (name, aliases, quantity kind, required or
- * not). Every recognised column must carry a known unit of its kind; every cell must be a
- * non-negative number (blank only where the column allows it). Values are converted once, to the
- * internal units (mg/L for concentrations and doses, 1/m for absorbance). Columns that match no
- * declaration are ignored (sample names, notes).
+ * The caller declares the columns it understands (name, aliases, kind, required or not), either
+ * as a list or as a function of the header row (for column families such as `removal <id> (%)`).
+ * Kinds:
+ * - quantity kinds (mass concentration, loading, flow …, UV absorbance): the header carries a
+ *   known unit of the kind; cells are numbers, converted once to the internal unit (mg/L for
+ *   concentrations and doses, 1/m for absorbance);
+ * - `fraction`: the header says `%` (or `percent`) or `fraction` (also `-`, `1`); values become
+ *   fractions (50 % → 0.5), range-checked to 0–1 unless the column sets another range;
+ * - `text`: cells are kept as written (sample names); the header needs no unit.
+ * Numbers must lie in the column's range (default: ≥ 0, and ≤ 1 for fractions); a blank cell is
+ * an error unless the column allows it (blank = not measured). Columns that match no declaration
+ * are ignored (notes).
  *
  * Errors are InputError naming the file, the row (as a spreadsheet shows it: header = row 1,
  * blank and comment lines counted) and the column, and saying what was expected.
@@ -15,30 +23,51 @@ import { InputError } from '../core/errors.js';
 import { splitHeader } from '../units/parseQuantity.js';
 import { describeKind, normaliseUnitText, unitFactor, type UnitKind } from '../units/unitFactor.js';
 
-/** Quantity kinds a CSV column may hold: the unit kinds plus UV absorbance (internal 1/m). */
-export type CsvKind = UnitKind | 'absorbance';
+/** Quantity kinds a CSV column may hold: the unit kinds, UV absorbance (internal 1/m) and fractions (internal 0–1). */
+export type CsvKind = UnitKind | 'absorbance' | 'fraction';
 
 export interface CsvColumnSpec {
   /** Key of the column in the result, e.g. "doc0". */
   key: string;
   /** Accepted header names (compared case-insensitively, ignoring spaces, `_` and `-`). */
   names: string[];
-  kind: CsvKind;
+  /** A quantity kind (numbers with a unit in the header) or `text` (cells kept as written). */
+  kind: CsvKind | 'text';
   required: boolean;
   /** Blank cells allowed (reported in `blank`). Default false. */
   allowBlank?: boolean;
+  /** Smallest allowed value, in the internal unit (a fraction for `fraction`). Default 0. */
+  min?: number;
+  /** Largest allowed value, in the internal unit. Default 1 for `fraction`, no limit otherwise. */
+  max?: number;
   /** What the column is, for messages ("equilibrium DOC"). */
   description: string;
 }
+
+/** The header row, given to a caller that declares its columns from the headers it finds. */
+export interface CsvHeaderRow {
+  /** Spreadsheet row number of the header (1 unless comment or blank lines precede it). */
+  row: number;
+  /** Header cells as written (trimmed). */
+  cells: readonly string[];
+}
+
+/**
+ * The columns a caller understands: a list, or a function of the header row. The function may
+ * throw InputError for a bad header (with row and column); the reader adds the file name.
+ */
+export type CsvColumnSpecs = readonly CsvColumnSpec[] | ((header: CsvHeaderRow) => readonly CsvColumnSpec[]);
 
 export interface CsvColumn {
   key: string;
   /** Header text as written in the file. */
   header: string;
-  /** Unit text from the header. */
+  /** Unit text from the header ('' for a text column without one). */
   unit: string;
-  /** Values in the internal unit (0 where blank). */
+  /** Values in the internal unit (0 where blank); empty for text columns. */
   values: number[];
+  /** Cell text as written (trimmed), one per data row; '' where blank. */
+  cells: string[];
   /** True where the cell was blank (only possible when the spec allows it). */
   blank: boolean[];
 }
@@ -52,36 +81,48 @@ export interface CsvTable {
   columns: Record<string, CsvColumn>;
 }
 
-/** Internal unit of each kind, for messages. */
 const ABSORBANCE_FACTORS: Record<string, number> = { '1/m': 1, 'm^-1': 1, '/m': 1, '1/cm': 100, 'cm^-1': 100, '/cm': 100 };
+/** Percent to fraction: 1 % = 0.01 by definition. */
+const FRACTION_FACTORS: Record<string, number> = { '%': 0.01, 'percent': 0.01, 'fraction': 1, '-': 1, '1': 1 };
 
 /** Factor from a header unit to the internal unit of `kind`. @throws InputError */
 export function csvUnitFactor(unit: string, kind: CsvKind): number {
+  const compact = normaliseUnitText(unit).replace(/\s+/g, '');
   if (kind === 'absorbance') {
-    const f = ABSORBANCE_FACTORS[normaliseUnitText(unit).replace(/\s+/g, '')];
+    const f = ABSORBANCE_FACTORS[compact];
     if (f === undefined) throw new InputError(`unknown unit "${unit}"; expected an absorbance per path length such as 1/m or 1/cm`);
+    return f;
+  }
+  if (kind === 'fraction') {
+    const f = FRACTION_FACTORS[compact.toLowerCase()];
+    if (f === undefined) throw new InputError(`unknown unit "${unit}"; expected % or fraction (0–1)`);
     return f;
   }
   return unitFactor(unit, kind);
 }
 
 function describe(kind: CsvKind): string {
-  return kind === 'absorbance' ? 'an absorbance unit such as 1/m or 1/cm' : describeKind(kind);
+  if (kind === 'absorbance') return 'an absorbance unit such as 1/m or 1/cm';
+  if (kind === 'fraction') return '% or fraction';
+  return describeKind(kind);
 }
 
 function normaliseName(name: string): string {
   return name.toLowerCase().replace(/[\s_\-]+/g, '');
 }
 
+type Location = { file?: string; row?: number; column?: string };
+interface FoundColumn { spec: CsvColumnSpec; index: number; header: string; unit: string; factor: number }
+
 /**
  * Parse CSV text into typed, unit-converted columns.
  * @param text  the CSV text (comma-separated; `#` starts a comment line)
- * @param specs the columns the caller understands
+ * @param specs the columns the caller understands (a list, or a function of the header row)
  * @param file  file name for messages
  * @throws InputError naming file, row and column
  */
-export function readCsvTable(text: string, specs: readonly CsvColumnSpec[], file?: string): CsvTable {
-  const loc = (row?: number, column?: string) => ({ ...(file !== undefined ? { file } : {}), ...(row !== undefined ? { row } : {}), ...(column !== undefined ? { column } : {}) });
+export function readCsvTable(text: string, specs: CsvColumnSpecs, file?: string): CsvTable {
+  const loc = (row?: number, column?: string): Location => ({ ...(file !== undefined ? { file } : {}), ...(row !== undefined ? { row } : {}), ...(column !== undefined ? { column } : {}) });
   let records: Array<{ record: string[]; info: { lines: number } }>;
   try {
     records = parse(text.replace(/^\uFEFF/, ''), { skip_empty_lines: true, trim: true, info: true, comment: '#', comment_no_infix: true, relax_quotes: false }) as unknown as Array<{ record: string[]; info: { lines: number } }>;
@@ -90,57 +131,87 @@ export function readCsvTable(text: string, specs: readonly CsvColumnSpec[], file
     throw new InputError(`malformed CSV (${err.message.replace(/^Invalid Record Length: /, '')}); expected comma-separated values with the same number of cells in every row`, loc(err.lines));
   }
   const header = records[0];
-  if (!header) throw new InputError(`empty table; expected a header row with ${specs.filter((s) => s.required).map((s) => `"${s.names[0]}"`).join(', ')} and units`, loc(1));
-  const headerRow = header.info.lines;
-  const found = new Map<string, { index: number; header: string; unit: string; factor: number }>();
-  header.record.forEach((h, index) => {
-    const { name, unit } = splitHeader(h);
-    const spec = specs.find((s) => s.names.some((n) => normaliseName(n) === normaliseName(name)));
-    if (!spec) return;
-    if (found.has(spec.key)) throw new InputError(`the ${spec.description} appears twice; expected one column`, loc(headerRow, h));
-    if (unit === undefined) throw new InputError(`header without a unit; expected e.g. "${spec.names[0]} (${exampleUnit(spec.kind)})" with ${describe(spec.kind)}`, loc(headerRow, h));
-    let factor: number;
-    try {
-      factor = csvUnitFactor(unit, spec.kind);
-    } catch (e) {
-      if (e instanceof InputError) throw new InputError(e.expected, loc(headerRow, h));
-      throw e;
-    }
-    found.set(spec.key, { index, header: h, unit, factor });
-  });
-  for (const s of specs) {
-    if (s.required && !found.has(s.key)) {
-      throw new InputError(`missing column for the ${s.description}; expected a header such as "${s.names[0]} (${exampleUnit(s.kind)})"`, loc(headerRow, s.names[0]));
-    }
+  if (!header) {
+    const wanted = typeof specs === 'function' ? '' : ` with ${specs.filter((s) => s.required).map((s) => `"${s.names[0]}"`).join(', ')} and units`;
+    throw new InputError(`empty table; expected a header row${wanted}`, loc(1));
   }
+  const headerRow = header.info.lines;
+  let columnSpecs: readonly CsvColumnSpec[];
+  try {
+    columnSpecs = typeof specs === 'function' ? specs({ row: headerRow, cells: header.record }) : specs;
+  } catch (e) {
+    throw e instanceof InputError && file !== undefined ? e.at({ file }) : e;
+  }
+  const found = findColumns(header.record, columnSpecs, (column) => loc(headerRow, column));
   const columns: Record<string, CsvColumn> = {};
-  for (const [key, f] of found) columns[key] = { key, header: f.header, unit: f.unit, values: [], blank: [] };
+  for (const f of found.values()) columns[f.spec.key] = { key: f.spec.key, header: f.header, unit: f.unit, values: [], cells: [], blank: [] };
+  const inSpecOrder = columnSpecs.flatMap((s) => found.get(s.key) ?? []);
   const rowNumbers: number[] = [];
   for (const rec of records.slice(1)) {
     const row = rec.info.lines;
     rowNumbers.push(row);
-    for (const s of specs) {
-      const f = found.get(s.key);
-      if (!f) continue;
-      const col = columns[s.key]!;
-      const cell = rec.record[f.index] ?? '';
-      if (cell === '') {
-        if (!s.allowBlank) throw new InputError(`empty cell; expected a number in ${f.unit}`, loc(row, f.header));
-        col.values.push(0);
-        col.blank.push(true);
-        continue;
-      }
-      const v = parseCell(cell);
-      if (v === undefined) throw new InputError(`"${cell}" is not a number; expected a number in ${f.unit} (the unit is given in the header)`, loc(row, f.header));
-      if (v < 0) throw new InputError(`negative value ${cell}; expected a value ≥ 0 ${f.unit}`, loc(row, f.header));
-      col.values.push(v * f.factor);
-      col.blank.push(false);
-    }
+    for (const f of inSpecOrder) readCell(rec.record[f.index] ?? '', f, columns[f.spec.key]!, loc(row, f.header));
   }
   if (rowNumbers.length === 0) throw new InputError('no data rows; expected at least one row below the header', loc(headerRow + 1));
   const table: CsvTable = { rowNumbers, columns };
   if (file !== undefined) table.file = file;
   return table;
+}
+
+/** Match header cells to specs (result in header order by key); check units, duplicates and required columns. */
+function findColumns(headers: readonly string[], specs: readonly CsvColumnSpec[], at: (column: string) => Location): Map<string, FoundColumn> {
+  const found = new Map<string, FoundColumn>();
+  headers.forEach((h, index) => {
+    const { name, unit } = splitHeader(h);
+    const spec = specs.find((s) => s.names.some((n) => normaliseName(n) === normaliseName(name)));
+    if (!spec) return;
+    if (found.has(spec.key)) throw new InputError(`the ${spec.description} appears twice; expected one column`, at(h));
+    if (spec.kind === 'text') {
+      found.set(spec.key, { spec, index, header: h, unit: unit ?? '', factor: 1 });
+      return;
+    }
+    if (unit === undefined) throw new InputError(`header without a unit; expected e.g. "${exampleHeader(spec)}" with ${describe(spec.kind)}`, at(h));
+    try {
+      found.set(spec.key, { spec, index, header: h, unit, factor: csvUnitFactor(unit, spec.kind) });
+    } catch (e) {
+      throw e instanceof InputError ? new InputError(e.expected, at(h)) : e;
+    }
+  });
+  for (const s of specs) {
+    if (s.required && !found.has(s.key)) throw new InputError(`missing column for the ${s.description}; expected a header such as "${exampleHeader(s)}"`, at(s.names[0] ?? s.key));
+  }
+  return found;
+}
+
+/** Check one cell and append it to its column. @throws InputError at `where` */
+function readCell(cell: string, f: FoundColumn, col: CsvColumn, where: Location): void {
+  const s = f.spec;
+  col.cells.push(cell);
+  col.blank.push(cell === '');
+  if (cell === '') {
+    if (!s.allowBlank) throw new InputError(`empty cell; expected ${s.kind === 'text' ? `the ${s.description}` : `a number in ${f.unit}`}`, where);
+    if (s.kind !== 'text') col.values.push(0);
+    return;
+  }
+  if (s.kind === 'text') return;
+  const v = parseCell(cell);
+  if (v === undefined) throw new InputError(`"${cell}" is not a number; expected a number in ${f.unit} (the unit is given in the header)`, where);
+  const x = v * f.factor;
+  const min = s.min ?? 0;
+  const max = s.max ?? (s.kind === 'fraction' ? 1 : Infinity);
+  if (x < min || x > max) throw new InputError(outOfRange(cell, f, min, max), where);
+  col.values.push(x);
+}
+
+/** The message for a value outside [min, max] (internal unit), with the bounds in the header's unit. */
+function outOfRange(cell: string, f: FoundColumn, min: number, max: number): string {
+  if (min === 0 && max === Infinity) return `negative value ${cell}; expected a value ≥ 0 ${f.unit}`;
+  const inHeaderUnit = (x: number) => String(Number((x / f.factor).toPrecision(12)));
+  const unit = f.spec.kind === 'fraction' && f.factor === 1 ? '' : ` ${f.unit}`;
+  const lo = inHeaderUnit(min);
+  if (max === Infinity) return `${f.spec.description} ${cell} is below ${lo}${unit}; expected a value ≥ ${lo}${unit}`;
+  const hi = inHeaderUnit(max);
+  return `${f.spec.description} ${cell} is outside ${lo}${min < 0 ? ' … ' : '–'}${hi}${unit}; expected a value from ${lo} to ${hi}${unit}`;
 }
 
 const NUMBER = /^[-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?$/;
@@ -152,9 +223,14 @@ function parseCell(cell: string): number | undefined {
   return Number.isFinite(v) ? v : undefined;
 }
 
+function exampleHeader(spec: CsvColumnSpec): string {
+  return spec.kind === 'text' ? `${spec.names[0]}` : `${spec.names[0]} (${exampleUnit(spec.kind)})`;
+}
+
 function exampleUnit(kind: CsvKind): string {
   switch (kind) {
     case 'absorbance': return '1/m';
+    case 'fraction': return '%';
     case 'massConcentration': return 'mg/L';
     case 'massLoading': return 'mg/g';
     case 'molarConcentration': return 'umol/L';

@@ -120,7 +120,7 @@ describe('pilot CSV', () => {
 
   it('rejects other bad cells and headers', () => {
     const h = 'sample,dose (mg/L),UV254 reduction (%),removal CBZ (%)\n';
-    expect(() => parsePilotCsv(h + 'A,5,30,130\n', 'x.csv')).toThrow(/row 2, column "removal CBZ \(%\)": removal 130 is outside/);
+    expect(() => parsePilotCsv(h + 'A,5,30,130\n', 'x.csv')).toThrow(/x\.csv, row 2, column "removal CBZ \(%\)": removal of CBZ 130 is outside -100 … 100 %/);
     expect(() => parsePilotCsv(h + 'A,5,,60\n', 'x.csv')).toThrow(/row 2, column "UV254 reduction \(%\)": empty cell/);
     expect(() => parsePilotCsv(h + 'A,5,30,60\nA,6,31,61\n', 'x.csv')).toThrow(/row 3, column "sample": duplicate sample "A"/);
     expect(() => parsePilotCsv('sample,dose (mg/L),UV254 reduction (ppm),removal CBZ (%)\nA,5,30,60\n', 'x.csv')).toThrow(/unknown unit "ppm"/);

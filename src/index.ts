@@ -20,7 +20,29 @@ export {
 } from './api/equilibriumApi.js';
 
 // ── background characterisation (capabilities 4–7) — add exports below this line
+export { readCsvTable, csvUnitFactor, type CsvTable, type CsvColumn, type CsvColumnSpec, type CsvKind, type CsvHeaderRow, type CsvColumnSpecs } from './io/csvTable.js';
+export { fractionate, readIsotherm, DEFAULT_EXPONENT, DEFAULT_COMPONENTS, type FractionateOptions, type FractionateResult, type IsothermInput, type ModelAlternative } from './fractionation/fractionate.js';
+export { readBackground, type BackgroundFile, type BackgroundComponentRecord, type BackgroundFit } from './fractionation/backgroundFile.js';
+export { backgroundComponents, predictDoc, predictUv254, predictUv254Reduction } from './fractionation/backgroundPrediction.js';
+export { defaultKGrid, DEFAULT_K_GRIDS } from './fractionation/defaultKGrid.js';
+export { ISOTHERM_COLUMNS, checkIsotherm, type IsothermPoint, type IsothermData } from './fractionation/isothermData.js';
+export { makeIsothermModel, type IsothermModel } from './fractionation/isothermModel.js';
+export { calibrate, POOR_FIT_RMSE_LN, type CalibrateOptions, type CalibrationResult, type CalibrationModel, type CalibrationRow } from './calibration/calibrate.js';
+export { ebcComponent } from './calibration/ebcComponent.js';
+export { readJarTests, JAR_TEST_COLUMNS, type JarTestInput, type JarTestPoint, type JarTestData } from './calibration/jarTestData.js';
+export { fitLeastSquares, type LeastSquaresProblem, type LeastSquaresFit } from './calibration/leastSquares.js';
+export { nnls, type NnlsResult } from './calibration/nnls.js';
+export { studentTQuantile, studentTCdf } from './calibration/studentT.js';
 
 // ── project, pipeline, report (capabilities 8–10, 14, 15) — add exports below this line
+export { validateProject, loadProject, DEFAULT_REMOVAL_PERCENT, DEFAULT_SWEEP, type ProjectSpec, type SiteSpec, type BackgroundSpec, type CarbonSpec, type CompoundSpec, type GoalsSpec, type CalibrationModelName } from './project/index.js';
+export { evaluateIndicatorSet, indicatorMean, admissibleRange, ruleViolation, MIN_INDICATOR_SUBSTANCES, CATEGORY_RATIO, type IndicatorValue, type IndicatorCategory, type IndicatorEvaluation, type AdmissibleRange } from './indicators/index.js';
+export { parseSiteSeries, quantile as seriesQuantile, median as seriesMedian, summarise as summariseSeries, type SiteSeries, type SeriesSummary } from './siteSeries/index.js';
+export { runPipeline, indicatorPlan, pipelineOutputs, OUTPUT_FILES, buildReportModel, runRecord, CAUTIONS, requiredDose, compoundDose, reducedLoading, removalCurves, indicatorCheckAt, indicatorDose, dailyDoses, buildSystems, systemComponents, prepareSystem, compoundGoal, type PipelineInput, type PipelineOptions, type PipelineResult, type CarbonResult, type ProgressEvent, type CompoundSystem, type CompoundGoal, type CompoundDose, type RequiredDose, type ReducedLoading, type RemovalCurves, type IndicatorCheck, type IndicatorDose, type IndicatorPlan, type DailyDoses, type DailyRow, type CompoundCalibration, type RunEnvironment } from './pipeline/index.js';
+export { readCheckCase, runCheckCase, CHECK_KINDS, type CheckCase, type CheckOutcome, type CheckKind } from './checks/index.js';
+export { renderHtmlReport, renderMarkdownSummary, reportPlotIds, renderPlot } from './report/index.js';
 
 // ── surrogates, GAC, uncertainty (capabilities 11–13) — add exports below this line
+export * from './surrogates/index.js';
+export * from './gac/index.js';
+export * from './uncertainty/index.js';

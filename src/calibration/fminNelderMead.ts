@@ -3,8 +3,8 @@
  * made loadable from ES modules.
  *
  * fmin 0.0.4 declares `"type": "module"` but ships a UMD bundle: imported as an ES module it
- * exports nothing and instead sets `globalThis.fmin`; loaded as CommonJS (some test runners) it
- * fills `exports`. This adapter accepts either.
+ * exports nothing and instead sets `globalThis.fmin`; loaded as CommonJS (some test runners) or
+ * from `node -e` (whose scope has a global `exports`) it fills `exports`. This adapter accepts all.
  */
 import * as fminNamespace from 'fmin';
 import type { FminParams, FminResult } from 'fmin';
@@ -13,8 +13,9 @@ type NelderMead = (f: (x: number[]) => number, x0: number[], parameters?: FminPa
 
 function resolve(): NelderMead {
   const ns = fminNamespace as unknown as { nelderMead?: NelderMead; default?: { nelderMead?: NelderMead } };
-  const fromGlobal = (globalThis as { fmin?: { nelderMead?: NelderMead } }).fmin?.nelderMead;
-  const nm = ns.nelderMead ?? ns.default?.nelderMead ?? fromGlobal;
+  const g = globalThis as { fmin?: { nelderMead?: NelderMead }; exports?: { nelderMead?: NelderMead } };
+  // Under `node -e` the eval scope defines a global `exports`, and the UMD wrapper fills that.
+  const nm = ns.nelderMead ?? ns.default?.nelderMead ?? g.fmin?.nelderMead ?? g.exports?.nelderMead;
   if (typeof nm !== 'function') throw new Error('the fmin package did not provide nelderMead');
   return nm;
 }

@@ -2,8 +2,18 @@
 import type { CommandSpec } from '../commandSpec.js';
 import { equilibriumCommand } from './equilibriumCommand.js';
 import { doseCommand } from './doseCommand.js';
+import { fractionateCommand } from './fractionateCommand.js';
+import { calibrateCommand } from './calibrateCommand.js';
+import { runCommand } from './runCommand.js';
+import { demoCommand } from './demoCommand.js';
+import { checkCommand } from './checkCommand.js';
 
 export const COMMANDS: CommandSpec[] = [
   equilibriumCommand,
   doseCommand,
+  fractionateCommand,
+  calibrateCommand,
+  runCommand,
+  demoCommand,
+  checkCommand,
 ];

@@ -1,0 +1,66 @@
+/** `sorbshare check [--json]` — run the published check cases shipped in fixtures/checks/. */
+import { readdirSync } from 'node:fs';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import type { CommandSpec } from '../commandSpec.js';
+import { ComputationError, InputError } from '../../core/errors.js';
+import { readJsonFile } from '../../io/readFiles.js';
+import { readCheckCase, runCheckCase, type CheckOutcome } from '../../checks/checkCase.js';
+import { fmt } from '../format.js';
+
+/** The shipped check cases, three folders above this file in both src/ and dist/ layouts. */
+export function checksDir(): string {
+  return fileURLToPath(new URL('../../../fixtures/checks/', import.meta.url));
+}
+
+function fmtValue(x: number | null): string {
+  if (x === null) return '—';
+  const a = Math.abs(x);
+  return a !== 0 && (a < 1e-3 || a >= 1e7) ? x.toExponential(9) : String(Number(x.toPrecision(10)));
+}
+
+function render(outcomes: CheckOutcome[]): string {
+  const lines: string[] = [];
+  for (const o of outcomes) {
+    lines.push(`${o.pass ? 'PASS' : 'FAIL'}  ${o.id}: ${o.title}`);
+    lines.push(`      source:   ${o.source}`);
+    lines.push(`      expected: ${fmtValue(o.expected)} ${o.unit}   computed: ${fmtValue(o.computed)} ${o.unit}   ${o.error ? `error: ${o.error}` : `relative difference ${o.relativeError === null ? '—' : fmt(o.relativeError, 2)}`}`);
+  }
+  const failed = outcomes.filter((o) => !o.pass).length;
+  lines.push('', `${outcomes.length - failed} of ${outcomes.length} published check cases agree${failed ? `; ${failed} failed` : ''}.`);
+  return lines.join('\n');
+}
+
+export const checkCommand: CommandSpec = {
+  name: 'check',
+  args: [],
+  summary: 'Run the shipped published check cases and print expected and computed values with their sources',
+  options: [{ flags: '--json', description: 'print JSON instead of text' }],
+  examples: ['sorbshare check', 'sorbshare check --json'],
+  action(_args, opts, ctx) {
+    const dir = checksDir();
+    let names: string[];
+    try {
+      names = readdirSync(dir).filter((n) => n.endsWith('.json')).sort();
+    } catch {
+      throw new InputError('check cases folder not found; expected fixtures/checks/ beside the installed package', { file: dir });
+    }
+    const outcomes = names.map((n) => {
+      const file = join(dir, n);
+      try {
+        return runCheckCase(readCheckCase(readJsonFile(file, 'check case')));
+      } catch (e) {
+        if (e instanceof InputError && !e.location.file) throw e.at({ file });
+        throw e;
+      }
+    });
+    const failed = outcomes.filter((o) => !o.pass);
+    const text = opts.json ? JSON.stringify({ cases: outcomes, passed: outcomes.length - failed.length, failed: failed.length }, null, 2) : render(outcomes);
+    if (failed.length) {
+      // stdout stays empty on failure (CLI rule); the full listing goes to stderr with exit 1
+      ctx.err(text.endsWith('\n') ? text : text + '\n');
+      throw new ComputationError(`${failed.length} of ${outcomes.length} check cases failed: ${failed.map((f) => f.id).join(', ')}`);
+    }
+    ctx.out(text);
+  },
+};

@@ -1,0 +1,67 @@
+/**
+ * Step 3 of the job: one adsorption system per (carbon, compound) from the project, the
+ * background step and the calibrations (see competitionSystem.ts for the carbon rules).
+ *
+ * Competitor of each compound, in order of precedence:
+ *   1. an EBC calibrated from its jar tests (models "ebc", "sebc"; for "sebc" the EBC takes the
+ *      target's own isotherm on each carbon, Qi et al. 2007, from memory);
+ *   2. the EBC given for it in the project's background (EBC background);
+ *   3. the fractionated DOC (fictive components), with the target's K times the calibrated
+ *      factor of model "fictive-k" (Schideman et al. 2006; Worch 2010; both from memory).
+ * EBC concentrations scale with DOC: c0_EBC(DOC) = c0_EBC,ref · DOC / DOC_ref (Zietzschmann et
+ * al. 2016 found the EBC concentration correlated with DOC; CHECKS.md).
+ */
+import { backgroundComponents } from '../fractionation/backgroundPrediction.js';
+import { InputError } from '../core/errors.js';
+import type { CarbonSpec, ProjectSpec } from '../project/projectTypes.js';
+import type { BackgroundStep } from './backgroundStep.js';
+import type { CompoundCalibration } from './calibrationStep.js';
+import { scaleK, type CompoundSystem } from './competitionSystem.js';
+
+function fmtK(K: number): string {
+  return Number(K.toPrecision(4)).toString();
+}
+
+/** Systems of every compound (project order) on one carbon. */
+export function buildSystems(project: ProjectSpec, carbon: CarbonSpec, bg: BackgroundStep, calibrations: ReadonlyMap<string, CompoundCalibration>): CompoundSystem[] {
+  const f = carbon.kFactor;
+  return project.compounds.map((comp) => {
+    const own = carbon.isotherms[comp.id];
+    const single = own ? { K: own.K, oneOverN: own.oneOverN } : { K: comp.K * f, oneOverN: comp.oneOverN };
+    const cal = calibrations.get(comp.id);
+    const base = { compoundId: comp.id, carbonName: carbon.name, c0MgPerL: comp.c0MgPerL, single };
+    if (cal?.ebc) {
+      const e = cal.ebc;
+      const ebcIso = cal.model === 'sebc' ? single : { K: e.K * f, oneOverN: e.oneOverN };
+      return {
+        ...base,
+        inMixture: single,
+        competition: 'ebc',
+        background: (doc: number) => [{ id: `EBC ${comp.id}`, c0MgPerL: (e.c0MgPerL * doc) / e.docMgPerL, K: ebcIso.K, oneOverN: ebcIso.oneOverN }],
+        description: `EBC calibrated from jar tests (model ${cal.model}): K = ${fmtK(ebcIso.K)} (mg/g)/(mg/L)^${ebcIso.oneOverN}, c0 = ${fmtK(e.c0MgPerL)} mg/L at DOC ${fmtK(e.docMgPerL)} mg/L`,
+      } satisfies CompoundSystem;
+    }
+    if (project.background.kind === 'ebc') {
+      const spec = project.background;
+      const e = spec.ebc[comp.id];
+      if (!e) throw new InputError(`missing the EBC of compound "${comp.id}"`, { path: `background.ebc.${comp.id}` });
+      return {
+        ...base,
+        inMixture: single,
+        competition: 'ebc',
+        background: (doc: number) => [{ id: e.id, c0MgPerL: (e.c0MgPerL * doc) / spec.docMgPerL, K: e.K * f, oneOverN: e.oneOverN }],
+        description: `EBC from the project: K = ${fmtK(e.K * f)} (mg/g)/(mg/L)^${e.oneOverN}, c0 = ${fmtK(e.c0MgPerL)} mg/L at DOC ${fmtK(spec.docMgPerL)} mg/L`,
+      } satisfies CompoundSystem;
+    }
+    const background = bg.background;
+    if (!background) throw new InputError('no fractionated background for the fictive-component model', { path: 'background' });
+    const factor = cal?.model === 'fictive-k' && cal.targetKFactor !== undefined ? cal.targetKFactor : 1;
+    return {
+      ...base,
+      inMixture: { K: single.K * factor, oneOverN: single.oneOverN },
+      competition: 'fictive',
+      background: (doc: number) => scaleK(backgroundComponents(background, doc), f),
+      description: `fractionated DOC (${background.components.length} fictive components)${factor !== 1 ? `, target K × ${fmtK(factor)} from jar tests` : ''}${f !== 1 ? `, carbon K factor ${f}` : ''}`,
+    } satisfies CompoundSystem;
+  });
+}

@@ -1,0 +1,18 @@
+export * from './pipelineTypes.js';
+export { runPipeline, indicatorPlan } from './runPipeline.js';
+export { backgroundStep, type BackgroundStep } from './backgroundStep.js';
+export { calibrationStep, type CompoundCalibration } from './calibrationStep.js';
+export { buildSystems } from './buildSystems.js';
+export { systemComponents, prepareSystem, scaleK, type CompoundSystem } from './competitionSystem.js';
+export { compoundGoal, type CompoundGoal } from './compoundGoal.js';
+export { compoundDose, type CompoundDose, type DoseStatus } from './compoundDose.js';
+export { requiredDose, type RequiredDose } from './requiredDose.js';
+export { reducedLoading, type ReducedLoading } from './reducedLoading.js';
+export { removalCurves, type RemovalCurves } from './removalCurves.js';
+export { indicatorCheckAt, indicatorDose, type IndicatorCheck, type IndicatorDose, type IndicatorPlan, type IndicatorSelection } from './indicatorCheck.js';
+export { dailyDoses, type DailyDoses, type DailyRow } from './dailyDoses.js';
+export { buildReportModel } from './buildReportModel.js';
+export { pipelineOutputs, OUTPUT_FILES } from './pipelineOutputs.js';
+export { runRecord, type RunEnvironment } from './runRecord.js';
+export { CAUTIONS } from './cautions.js';
+export { toCsv, compoundsCsv, removalCurvesCsv, carbonsCsv, dailyDosesCsv, indicatorsCsv } from './outputTables.js';

@@ -1,0 +1,90 @@
+/**
+ * Inputs and results of the whole job (`sorbshare run`). The pipeline is pure: it receives the
+ * validated project and the already-read tables; src/project/loadProject.ts reads the files.
+ */
+import type { CsvTable } from '../io/csvTable.js';
+import type { BackgroundFile } from '../fractionation/backgroundFile.js';
+import type { CarbonSpec, ProjectSpec } from '../project/projectTypes.js';
+import type { SiteSeries } from '../siteSeries/siteSeries.js';
+import type { BackgroundStep } from './backgroundStep.js';
+import type { CompoundCalibration } from './calibrationStep.js';
+import type { CompoundSystem } from './competitionSystem.js';
+import type { CompoundGoal } from './compoundGoal.js';
+import type { DailyDoses } from './dailyDoses.js';
+import type { IndicatorCheck } from './indicatorCheck.js';
+import type { ReducedLoading } from './reducedLoading.js';
+import type { RemovalCurves } from './removalCurves.js';
+import type { RequiredDose } from './requiredDose.js';
+
+/** A file the project referenced, for run.json. */
+export interface InputFileRecord {
+  role: string;
+  /** Path as written in the project. */
+  path: string;
+  /** Resolved absolute path. */
+  resolved: string;
+  bytes: number;
+  sha256: string;
+}
+
+export interface PipelineInput {
+  project: ProjectSpec;
+  /** The DOC isotherm (background.kind 'isotherm'). */
+  isotherm?: CsvTable;
+  /** The checked background file (background.kind 'file'). */
+  backgroundFile?: BackgroundFile;
+  /** Jar-test tables by compound id. */
+  jarTests: Record<string, CsvTable>;
+  /** The site's DOC series, if the project has one. */
+  series?: SiteSeries;
+  /** Where the inputs came from (for run.json). */
+  provenance: { projectFile?: string; files: InputFileRecord[]; demo?: boolean };
+}
+
+export interface ProgressEvent {
+  step: string;
+  done: number;
+  total: number;
+}
+
+export interface PipelineOptions {
+  onProgress?: (e: ProgressEvent) => void;
+  /** Time stamp of the run (default now). */
+  now?: Date;
+}
+
+export interface CarbonResult {
+  carbon: CarbonSpec;
+  /** Systems of the compounds on this carbon (project order); PAC only. */
+  systems: CompoundSystem[];
+  /** Required dose at the site's design DOC (PAC only). */
+  required?: RequiredDose;
+  /** Dose the reduced loadings and the indicator check are reported at, mg/L. */
+  designDoseMgPerL?: number;
+  designDoseSource?: 'required dose' | 'goals.design_dose';
+  reducedLoadings?: ReducedLoading[];
+  indicator?: IndicatorCheck;
+  curves?: RemovalCurves;
+  /** Carbon cost per m³ treated at the required dose, in the carbon's currency. */
+  costPerM3?: number;
+  /** Carbon mass at the required dose and the design flow, kg/d. */
+  carbonKgPerDAtDesign?: number;
+  daily?: DailyDoses;
+  /** Yearly carbon and cost: from the DOC series, or design dose × design flow × 365. */
+  yearly?: { carbonKg: number; cost: number; basis: 'DOC series' | 'design DOC and flow' };
+  warnings: string[];
+}
+
+export interface PipelineResult {
+  project: ProjectSpec;
+  generatedAt: string;
+  background: BackgroundStep;
+  calibrations: CompoundCalibration[];
+  goals: Record<string, CompoundGoal>;
+  carbons: CarbonResult[];
+  series?: SiteSeries;
+  provenance: PipelineInput['provenance'];
+  warnings: string[];
+  /** Wall time of each step, ms. */
+  timingMs: Record<string, number>;
+}

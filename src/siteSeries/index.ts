@@ -1,0 +1,2 @@
+export * from './siteSeries.js';
+export * from './seriesStats.js';

@@ -1,0 +1,214 @@
+/**
+ * The demo end to end (in-process), checked for internal consistency. The demo data are
+ * invented, so nothing here compares with demo numbers; every check is a property the results
+ * must have whatever the data (STYLE.md rule 6).
+ */
+import { beforeAll, describe, expect, it } from 'vitest';
+import { join } from 'node:path';
+import { loadProject } from '../../src/project/loadProject.js';
+import { runPipeline } from '../../src/pipeline/runPipeline.js';
+import { requiredDose } from '../../src/pipeline/requiredDose.js';
+import { indicatorCheckAt, indicatorDose } from '../../src/pipeline/indicatorCheck.js';
+import { indicatorPlan } from '../../src/pipeline/runPipeline.js';
+import { prepareSystem } from '../../src/pipeline/competitionSystem.js';
+import { solveBatchPrepared } from '../../src/equilibrium/iastBatch.js';
+import { backgroundComponents } from '../../src/fractionation/backgroundPrediction.js';
+import { carbonsCsv, dailyDosesCsv } from '../../src/pipeline/outputTables.js';
+import type { PipelineResult } from '../../src/pipeline/pipelineTypes.js';
+
+let r: PipelineResult;
+beforeAll(() => {
+  r = runPipeline(loadProject(join(__dirname, '../../fixtures/demo/project.json'), { demo: true }), { now: new Date('2026-01-01T00:00:00Z') });
+});
+
+function removalAt(sys: Parameters<typeof prepareSystem>[0], docMgPerL: number, doseMgPerL: number): number {
+  return 1 - solveBatchPrepared(prepareSystem(sys, docMgPerL), doseMgPerL / 1000).cMgPerL[0]! / sys.c0MgPerL;
+}
+
+describe('demo: doses', () => {
+  it('runs two PAC carbons with nine compounds and a year of days', () => {
+    expect(r.carbons.length).toBe(2);
+    for (const c of r.carbons) {
+      expect(c.required!.compounds.length).toBe(9);
+      expect(c.daily!.rows.length).toBe(365);
+    }
+  });
+
+  it('each reported compound dose, re-solved by batch IAST, gives its goal (to 1e-9)', () => {
+    for (const c of r.carbons) {
+      c.required!.compounds.forEach((d, i) => {
+        expect(d.status).toBe('ok');
+        const goal = r.goals[d.compoundId]!.removalFraction;
+        expect(Math.abs(removalAt(c.systems[i]!, r.project.site.docMgPerL, d.doseMgPerL!) - goal)).toBeLessThan(1e-9);
+      });
+    }
+  });
+
+  it('a limit goal is the removal 1 − limit/c0', () => {
+    const mbt = r.project.compounds.find((c) => c.id === 'MBT')!;
+    expect(r.goals.MBT!.removalFraction).toBeCloseTo(1 - 0.5e-3 / mbt.c0MgPerL, 14);
+    const i = r.project.compounds.indexOf(mbt);
+    const c = r.carbons[0]!;
+    const cAt = c.systems[i]!.c0MgPerL * (1 - removalAt(c.systems[i]!, r.project.site.docMgPerL, c.required!.compounds[i]!.doseMgPerL!));
+    expect(cAt * 1e6).toBeCloseTo(500, 5); // ng/L
+  });
+
+  it('the governing compound is the one needing the most carbon', () => {
+    for (const c of r.carbons) {
+      const req = c.required!;
+      const max = Math.max(...req.compounds.map((d) => d.doseMgPerL!));
+      expect(req.governing!.doseMgPerL).toBe(max);
+      expect(req.compounds.find((d) => d.doseMgPerL === max)!.compoundId).toBe(req.governing!.compoundId);
+      expect(req.doseMgPerL).toBe(Math.max(max, req.indicator!.doseMgPerL!));
+    }
+  });
+
+  it('the indicator dose re-solved gives the mean-removal goal; the check at the design dose agrees', () => {
+    for (const c of r.carbons) {
+      const plan = indicatorPlan(r.project, c.systems)!;
+      const at = indicatorCheckAt(plan, r.project.site.docMgPerL, c.required!.indicator!.doseMgPerL!);
+      expect(at.set.admissible).toBe(true);
+      expect(Math.abs(at.set.meanRemovalPercent - 80)).toBeLessThan(1e-7);
+      // at the design dose the mean is the arithmetic mean of the listed removals
+      const ind = c.indicator!;
+      const mean = ind.values.reduce((s, v) => s + v.removalPercent, 0) / ind.values.length;
+      expect(ind.set.meanRemovalPercent).toBeCloseTo(mean, 12);
+      expect(ind.met).toBe(true);
+      expect(ind.range!.best.meanRemovalPercent).toBeGreaterThanOrEqual(ind.set.meanRemovalPercent - 1e-12);
+      expect(ind.range!.worst.meanRemovalPercent).toBeLessThanOrEqual(ind.set.meanRemovalPercent + 1e-12);
+    }
+  });
+
+  it('reduced loading: q in site water from the batch balance, q single-solute from Freundlich at the same c', () => {
+    const c = r.carbons[0]!;
+    c.reducedLoadings!.forEach((rl, i) => {
+      const sys = c.systems[i]!;
+      expect(rl.qSiteMgPerG).toBeCloseTo((sys.c0MgPerL - rl.cMgPerL) / (rl.doseMgPerL / 1000), 10); // c0 = c + D·q
+      expect(rl.qSingleMgPerG).toBeCloseTo(sys.single.K * Math.pow(rl.cMgPerL, sys.single.oneOverN), 10);
+      expect(rl.ratio).toBeGreaterThan(0);
+      expect(rl.ratio).toBeLessThan(1); // competition lowers the loading
+    });
+  });
+
+  it('cost per m³ = dose (g/m³) / 1000 × price per kg', () => {
+    for (const c of r.carbons) expect(c.costPerM3).toBeCloseTo((c.required!.doseMgPerL! / 1000) * c.carbon.pricePerKg, 15);
+  });
+
+  it('a carbon with K factor f and no own isotherm for a compound needs 1/f times the dose of the reference carbon', () => {
+    // q = f·q_ref in the balance c0 = c + D·q, so D_B = D_A / f (exact for every compound except DCF, which has its own isotherm on carbon B)
+    const [a, b] = r.carbons;
+    const f = b!.carbon.kFactor;
+    a!.required!.compounds.forEach((d, i) => {
+      if (d.compoundId === 'DCF') return;
+      expect(b!.required!.compounds[i]!.doseMgPerL!).toBeCloseTo(d.doseMgPerL! / f, 6);
+    });
+  });
+});
+
+describe('demo: the year of DOC', () => {
+  it('yearly totals equal the sum of the days; kg/d = dose × flow / 1000', () => {
+    for (const c of r.carbons) {
+      const d = c.daily!;
+      let kg = 0, cost = 0;
+      for (const row of d.rows) {
+        expect(row.carbonKgPerD!).toBeCloseTo((row.doseMgPerL! * row.flowM3PerD) / 1000, 9);
+        kg += row.carbonKgPerD!;
+        cost += row.cost!;
+      }
+      expect(d.totalCarbonKg).toBeCloseTo(kg, 6);
+      expect(c.yearly!.carbonKg).toBeCloseTo(kg, 6);
+      expect(c.yearly!.cost).toBeCloseTo(cost, 6);
+      expect(c.yearly!.cost).toBeCloseTo(kg * c.carbon.pricePerKg, 6);
+    }
+  });
+
+  it('the daily CSV sums to the yearly figure in carbons.csv (to the 8 digits written)', () => {
+    const daily = dailyDosesCsv(r).trim().split('\n').slice(1).map((l) => l.match(/("[^"]*"|[^,]+|)(?=,|$)/g)!);
+    const carbonsRows = carbonsCsv(r).trim().split('\n');
+    expect(carbonsRows.length).toBe(3);
+    const sumA = daily.filter((cells) => cells.join(',').includes('Demo carbon A')).reduce((s, cells) => s + Number(cells.filter((x) => x !== '')[6]), 0);
+    expect(sumA / r.carbons[0]!.yearly!.carbonKg).toBeCloseTo(1, 6);
+  });
+
+  it('each daily dose re-solved at that day\'s DOC gives its governing goal, and every other goal is met', () => {
+    const c = r.carbons[0]!;
+    const rows = c.daily!.rows.filter((_, k) => k % 37 === 0);
+    for (const row of rows) {
+      c.systems.forEach((sys, i) => {
+        const removal = removalAt(sys, row.docMgPerL, row.doseMgPerL!);
+        const goal = r.goals[sys.compoundId]!.removalFraction;
+        expect(removal).toBeGreaterThanOrEqual(goal - 1e-9);
+        if (row.governedBy === `compound ${sys.compoundId}`) expect(Math.abs(removal - goal)).toBeLessThan(1e-9);
+        void i;
+      });
+    }
+  });
+
+  it('the fast daily solve equals the full requiredDose on sample days', () => {
+    const c = r.carbons[1]!;
+    const plan = indicatorPlan(r.project, c.systems);
+    const goals = r.project.compounds.map((x) => r.goals[x.id]!);
+    for (const row of c.daily!.rows.filter((_, k) => k % 61 === 0)) {
+      const full = requiredDose(c.systems, goals, plan, row.docMgPerL);
+      expect(row.doseMgPerL! / full.doseMgPerL!).toBeCloseTo(1, 9);
+      expect(row.governedBy).toBe(full.governedBy);
+    }
+  });
+
+  it('the background scales with DOC: every fictive component proportional to the day\'s DOC', () => {
+    const bg = r.background.background!;
+    const a = backgroundComponents(bg, 6), b = backgroundComponents(bg, 9);
+    a.forEach((comp, i) => expect(b[i]!.c0MgPerL).toBeCloseTo(comp.c0MgPerL * 1.5, 12));
+  });
+
+  it('higher DOC needs more carbon (monotone over the series)', () => {
+    const rows = [...r.carbons[0]!.daily!.rows].sort((x, y) => x.docMgPerL - y.docMgPerL);
+    for (let k = 1; k < rows.length; k++) expect(rows[k]!.doseMgPerL!).toBeGreaterThanOrEqual(rows[k - 1]!.doseMgPerL! * (1 - 1e-12));
+  });
+
+  it('median and P90 follow Hyndman & Fan definition 7 on the daily doses', () => {
+    const d = r.carbons[0]!.daily!;
+    const x = d.rows.map((row) => row.doseMgPerL!).sort((p, q) => p - q);
+    expect(d.dose!.median).toBe(x[182]); // n = 365: h = 364·0.5 = 182 exactly
+    const h = 364 * 0.9;
+    expect(d.dose!.p90).toBeCloseTo(x[Math.floor(h)]! + (h - Math.floor(h)) * (x[Math.floor(h) + 1]! - x[Math.floor(h)]!), 12);
+  });
+});
+
+describe('demo: calibration and unreachable goals', () => {
+  it('the CBZ jar tests give a fictive-k factor that is used in the IAST', () => {
+    const cal = r.calibrations.find((c) => c.compoundId === 'CBZ')!;
+    expect(cal.model).toBe('fictive-k');
+    expect(cal.result.fit.converged).toBe(true);
+    const sys = r.carbons[0]!.systems[0]!;
+    expect(sys.inMixture.K).toBeCloseTo(sys.single.K * cal.targetKFactor!, 12);
+  });
+
+  it('an unreachable goal is reported, left out of the required dose, and does not stop the run', () => {
+    const input = loadProject(join(__dirname, '../../fixtures/project/ebc-background/project.json'));
+    input.project.compounds.find((c) => c.id === 'SUC')!.limitMgPerL = 1e-6; // 1 ng/L from 10 µg/L
+    const res = runPipeline(input);
+    const pac = res.carbons[0]!;
+    const suc = pac.required!.compounds.find((d) => d.compoundId === 'SUC')!;
+    expect(suc.status).toBe('unreachable');
+    expect(suc.message).toMatch(/not reached by any dose up to 5000 mg\/L/);
+    expect(pac.required!.governing!.compoundId).not.toBe('SUC');
+    expect(pac.warnings.join('\n')).toMatch(/SUC: .*left out of the required dose/);
+    expect(res.carbons[1]!.required).toBeUndefined(); // GAC: no batch dose
+  });
+
+  it('the chosen indicator set is evaluated; a non-admissible choice is said so', () => {
+    const input = loadProject(join(__dirname, '../../fixtures/project/ebc-background/project.json'));
+    const res = runPipeline(input);
+    expect(res.carbons[0]!.indicator!.selection).toBe('chosen set');
+    expect(res.carbons[0]!.indicator!.set.ids.sort()).toEqual(['BTZ', 'CAN', 'CBZ', 'DCF', 'MET', 'VEN']);
+    input.project.goals.indicator!.compounds = ['CBZ', 'DCF', 'MET', 'BTZ', 'CAN'];
+    const bad = runPipeline(input);
+    expect(bad.carbons[0]!.required!.indicator!.status).toBe('not admissible');
+    expect(bad.carbons[0]!.indicator!.set.admissible).toBe(false);
+    expect(bad.carbons[0]!.indicator!.set.reason).toMatch(/5 substances given/);
+    expect(bad.warnings.join('\n')).toMatch(/indicator goal: the chosen indicator set is not admissible/);
+    const plan = indicatorPlan(input.project, bad.carbons[0]!.systems)!;
+    expect(indicatorDose(plan, 6.5).status).toBe('not admissible');
+  });
+});

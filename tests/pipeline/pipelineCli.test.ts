@@ -1,0 +1,136 @@
+/**
+ * End-to-end tests of `sorbshare demo`, `sorbshare run` and `sorbshare check`: the real binary
+ * is spawned (build first: `npm run build`). Outputs go to temporary folders.
+ */
+import { describe, expect, it } from 'vitest';
+import { spawnSync } from 'node:child_process';
+import { cpSync, existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+
+const BIN = join(process.cwd(), 'dist/cli/bin.js');
+const DEMO = join(process.cwd(), 'fixtures/demo');
+const run = (...args: string[]) => {
+  const r = spawnSync(process.execPath, [BIN, ...args], { encoding: 'utf8' });
+  return { code: r.status, out: r.stdout, err: r.stderr };
+};
+const tmp = () => mkdtempSync(join(tmpdir(), 'sorbshare-cli-'));
+const FILES = ['summary.md', 'report.html', 'compounds.csv', 'removal_curves.csv', 'carbons.csv', 'daily_doses.csv', 'indicators.csv', 'run.json'];
+
+describe('sorbshare demo', () => {
+  it('writes every output, with the cautions, run.json provenance and --json summary', () => {
+    const dir = tmp();
+    try {
+      const out = join(dir, 'demo-out');
+      const r = run('demo', '--out', out, '--json');
+      expect(r.err).toBe('');
+      expect(r.code).toBe(0);
+      const s = JSON.parse(r.out);
+      expect(s.carbons).toHaveLength(2);
+      expect(s.carbons[0].governing_compound).toBe('HCT');
+      expect(readdirSync(out).sort()).toEqual([...FILES].sort());
+      const summary = readFileSync(join(out, 'summary.md'), 'utf8');
+      const html = readFileSync(join(out, 'report.html'), 'utf8');
+      for (const text of [summary, html]) {
+        expect(text).toContain('Contact time, carbon age, preloading');
+        expect(text).toContain('licensed engineer');
+        expect(text).toContain('Carbon dust is combustible');
+        expect(text).toMatch(/invented/i);
+      }
+      expect(html).toContain('<svg');
+      const rec = JSON.parse(readFileSync(join(out, 'run.json'), 'utf8'));
+      expect(rec.tool.version).toMatch(/^\d+\.\d+\.\d+/);
+      expect(rec.node).toBe(process.version);
+      expect(Date.parse(rec.date)).not.toBeNaN();
+      expect(rec.demo).toBe(true);
+      expect(rec.inputs.site.flow_m3_per_d).toBe(15000);
+      expect(rec.input_files.map((f: { role: string }) => f.role)).toContain('site DOC series');
+      expect(rec.results.carbons[0].daily).toHaveLength(365);
+      const daily = readFileSync(join(out, 'daily_doses.csv'), 'utf8').trim().split('\n');
+      expect(daily[0]).toBe('date,carbon,DOC (mg/L),flow (m3/d),dose (mg/L),governed by,carbon (kg/d),carbon cost per day,currency');
+      expect(daily.length).toBe(1 + 2 * 365);
+    } finally { rmSync(dir, { recursive: true, force: true }); }
+  });
+
+  it('prints a text table by default', () => {
+    const dir = tmp();
+    try {
+      const r = run('demo', '--out', join(dir, 'o'));
+      expect(r.code).toBe(0);
+      expect(r.out).toMatch(/Demo carbon A \(invented/);
+      expect(r.out).toMatch(/compound HCT/);
+    } finally { rmSync(dir, { recursive: true, force: true }); }
+  });
+});
+
+describe('sorbshare run: bad input writes nothing', () => {
+  function demoCopy(): string {
+    const dir = tmp();
+    cpSync(DEMO, join(dir, 'p'), { recursive: true });
+    return dir;
+  }
+
+  it('a schema violation: exit 2, the message names file and JSON path, --out not created', () => {
+    const dir = demoCopy();
+    try {
+      const p = join(dir, 'p/project.json');
+      const raw = JSON.parse(readFileSync(p, 'utf8'));
+      raw.carbons[0].price_per_kg = 'cheap';
+      writeFileSync(p, JSON.stringify(raw));
+      const out = join(dir, 'out');
+      const r = run('run', p, '--out', out);
+      expect(r.code).toBe(2);
+      expect(r.out).toBe('');
+      expect(r.err).toContain(p);
+      expect(r.err).toContain('field carbons[0].price_per_kg');
+      expect(existsSync(out)).toBe(false);
+      expect(readdirSync(dir).sort()).toEqual(['p']); // no staging folder left either
+    } finally { rmSync(dir, { recursive: true, force: true }); }
+  });
+
+  it('a missing referenced CSV: exit 2, names the path; an existing --out keeps its old content', () => {
+    const dir = demoCopy();
+    try {
+      rmSync(join(dir, 'p/doc_isotherm.csv'));
+      const out = join(dir, 'out');
+      cpSync(join(dir, 'p/jar_tests_cbz.csv'), join(out, 'keep.txt'));
+      const r = run('run', join(dir, 'p/project.json'), '--out', out);
+      expect(r.code).toBe(2);
+      expect(r.err).toContain('doc_isotherm.csv');
+      expect(r.err).toContain('field background.isotherm');
+      expect(readdirSync(out)).toEqual(['keep.txt']);
+    } finally { rmSync(dir, { recursive: true, force: true }); }
+  });
+
+  it('runs a fixture project with an EBC background and a GAC candidate', () => {
+    const dir = tmp();
+    try {
+      const r = run('run', join(process.cwd(), 'fixtures/project/ebc-background/project.json'), '--out', join(dir, 'o'), '--json');
+      expect(r.code).toBe(0);
+      const s = JSON.parse(r.out);
+      expect(s.carbons[1].type).toBe('GAC');
+      expect(s.carbons[1].required_dose_mg_per_L).toBeNull();
+      expect(s.carbons[0].currency).toBe('CHF');
+    } finally { rmSync(dir, { recursive: true, force: true }); }
+  });
+});
+
+describe('sorbshare check', () => {
+  it('prints every case with source, expected, computed and PASS; exit 0', () => {
+    const r = run('check');
+    expect(r.code).toBe(0);
+    expect(r.out).toMatch(/PASS {2}sr814-indicator-mean/);
+    expect(r.out).toMatch(/source: {3}Chen, Z\., Xing, B\., McGill/);
+    expect(r.out).toMatch(/expected: 83\.33 %/);
+    expect(r.out).not.toMatch(/FAIL/);
+  });
+
+  it('--json lists the cases', () => {
+    const r = run('check', '--json');
+    expect(r.code).toBe(0);
+    const j = JSON.parse(r.out);
+    expect(j.failed).toBe(0);
+    expect(j.cases.length).toBe(j.passed);
+    for (const c of j.cases) expect(typeof c.source).toBe('string');
+  });
+});

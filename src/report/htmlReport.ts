@@ -49,7 +49,7 @@ function renderTable(t: ReportTable, n: Counters): string {
     ? t.rows.map((r) => `<tr>${Array.from({ length: width }, (_, j) => `<td${cls(j)}>${escapeHtml(cellText(r[j]))}</td>`).join('')}</tr>`).join('\n')
     : `<tr><td class="empty" colspan="${Math.max(1, width)}">No rows.</td></tr>`;
   return (
-    `<div class="table-wrap"><table>` +
+    `<div class="table-wrap"><table${width >= 10 ? ' class="wide very-wide"' : width >= 7 ? ' class="wide"' : ''}>` +
     `<caption><span class="num">Table ${n.table}.</span> ${escapeHtml(t.caption)}</caption>` +
     `<thead><tr>${head}</tr></thead><tbody>\n${body}\n</tbody></table></div>`
   );

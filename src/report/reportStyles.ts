@@ -53,7 +53,12 @@ caption .num, figcaption .num { color: var(--brand-2); }
 th, td { padding: 5px 10px; border-bottom: 1px solid var(--line); vertical-align: top; text-align: left; }
 thead th { background: #f1f5f6; border-bottom: 2px solid #b9c6cc; font-weight: 600; }
 tbody tr:nth-child(even) td { background: #fafbfc; }
-td.n, th.n { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
+td.n, th.n { text-align: right; font-variant-numeric: tabular-nums; }
+td.n { white-space: nowrap; }
+table.wide { width: 100%; font-size: 12px; }
+table.wide th, table.wide td { padding: 4px 6px; }
+table.very-wide { font-size: 11px; }
+table.very-wide th, table.very-wide td { padding: 3px 4px; }
 td.empty { color: var(--muted); font-style: italic; }
 figure { margin: 18px 0; padding: 12px 12px 6px; border: 1px solid var(--line); border-radius: 4px; }
 figure svg.plot { display: block; width: 100%; height: auto; max-width: 720px; margin: 0 auto; }

@@ -1,25 +1,12 @@
 /** Plain-text tables and number formatting for terminal output. */
 
+import { fmtConcentration, fmtNumber } from '../pipeline/formatting.js';
+
 /** Number with `sig` significant digits, no exponent for everyday magnitudes. */
-export function fmt(x: number, sig = 4): string {
-  if (!Number.isFinite(x)) return String(x);
-  if (x === 0) return '0';
-  const ax = Math.abs(x);
-  if (ax >= 1e-3 && ax < 1e7) {
-    const digits = Math.max(0, sig - 1 - Math.floor(Math.log10(ax)));
-    return x.toFixed(Math.min(digits, 12));
-  }
-  return x.toExponential(sig - 1);
-}
+export const fmt = (x: number, sig = 4): string => fmtNumber(x, sig);
 
 /** Concentration in mg/L shown in the most readable of ng/L, µg/L, mg/L. */
-export function fmtConc(cMgPerL: number, sig = 4): string {
-  const a = Math.abs(cMgPerL);
-  if (a === 0) return '0 mg/L';
-  if (a < 1e-3) return `${fmt(cMgPerL * 1e6, sig)} ng/L`;
-  if (a < 1) return `${fmt(cMgPerL * 1e3, sig)} µg/L`;
-  return `${fmt(cMgPerL, sig)} mg/L`;
-}
+export const fmtConc = (cMgPerL: number, sig = 4): string => fmtConcentration(cMgPerL, sig);
 
 /** Aligned text table; numbers right-aligned. */
 export function table(headers: string[], rows: string[][]): string {

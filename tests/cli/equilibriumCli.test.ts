@@ -2,24 +2,15 @@
  * End-to-end tests of `sorbshare equilibrium` and `sorbshare dose`: the real binary is spawned.
  */
 import { beforeAll, describe, expect, it } from 'vitest';
-import { spawnSync } from 'node:child_process';
-import { mkdtempSync, writeFileSync, existsSync, readFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
+import { runBin, requireBuild, scratchDir } from '../helpers/cliHarness.js';
 import { freundlichBatchC } from '../helpers/reference.js';
 
-const BIN = join(process.cwd(), 'dist/cli/bin.js');
 const FIX = join(process.cwd(), 'fixtures/equilibrium');
-const run = (...args: string[]) => {
-  const r = spawnSync(process.execPath, [BIN, ...args], { encoding: 'utf8' });
-  return { code: r.status, out: r.stdout, err: r.stderr };
-};
+const run = runBin;
 let dir: string;
-const write = (name: string, content: unknown) => {
-  const p = join(dir, name);
-  writeFileSync(p, typeof content === 'string' ? content : JSON.stringify(content));
-  return p;
-};
+let write: (name: string, content: unknown) => string;
 const good = (extra: Record<string, unknown> = {}) => ({
   dose: '10 mg/L',
   components: [
@@ -29,8 +20,8 @@ const good = (extra: Record<string, unknown> = {}) => ({
 });
 
 beforeAll(() => {
-  if (!existsSync(BIN)) throw new Error('build first: npm run build');
-  dir = mkdtempSync(join(tmpdir(), 'sorbshare-cli-'));
+  requireBuild();
+  ({ dir, write } = scratchDir('sorbshare-cli-'));
 });
 
 describe('sorbshare equilibrium', () => {

@@ -2,23 +2,18 @@
  * End-to-end: `sorbshare fractionate` through the built binary (npm run build first).
  */
 import { beforeAll, describe, expect, it } from 'vitest';
-import { spawnSync } from 'node:child_process';
-import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
+import { runBin, requireBuild, scratchDir } from '../helpers/cliHarness.js';
 
-const BIN = join(process.cwd(), 'dist/cli/bin.js');
 const ISO = join(process.cwd(), 'fixtures/fractionation/site-effluent-isotherm.csv');
-const run = (...args: string[]) => {
-  const r = spawnSync(process.execPath, [BIN, ...args], { encoding: 'utf8' });
-  return { code: r.status, out: r.stdout, err: r.stderr };
-};
+const run = runBin;
 let dir: string;
-const write = (name: string, content: string) => { const p = join(dir, name); writeFileSync(p, content); return p; };
+let write: (name: string, content: unknown) => string;
 
 beforeAll(() => {
-  if (!existsSync(BIN)) throw new Error('build first: npm run build');
-  dir = mkdtempSync(join(tmpdir(), 'sorbshare-fractionate-'));
+  requireBuild();
+  ({ dir, write } = scratchDir('sorbshare-fractionate-'));
 });
 
 describe('sorbshare fractionate', () => {

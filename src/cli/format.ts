@@ -11,7 +11,8 @@ export const fmtConc = (cMgPerL: number, sig = 4): string => fmtConcentration(cM
 /** Aligned text table; numbers right-aligned. */
 export function table(headers: string[], rows: string[][]): string {
   const widths = headers.map((h, j) => Math.max(h.length, ...rows.map((r) => (r[j] ?? '').length)));
-  const isNum = headers.map((_, j) => rows.length > 0 && rows.every((r) => /^[-+]?[\d.]/.test(r[j] ?? '')));
+  const blank = (c: string) => c === '' || c === '—' || c === '-';
+  const isNum = headers.map((_, j) => rows.some((r) => !blank(r[j] ?? '')) && rows.every((r) => blank(r[j] ?? '') || /^[-+−]?[\d.]/.test(r[j] ?? '')));
   const line = (cells: string[]) => cells.map((c, j) => (isNum[j] ? c.padStart(widths[j]!) : c.padEnd(widths[j]!))).join('  ').trimEnd();
   return [line(headers), widths.map((w) => '─'.repeat(w)).join('  '), ...rows.map(line)].join('\n');
 }

@@ -5,10 +5,11 @@
  */
 import { predictDoc } from '../fractionation/backgroundPrediction.js';
 import { logSpacedDoses } from '../api/equilibriumApi.js';
-import type { KeyFigure, PlotSpec, ReportModel, ReportSection, ReportTable } from '../report/reportModel.js';
+import type { KeyFigure, PlotSeries, PlotSpec, ReportModel, ReportSection, ReportTable } from '../report/reportModel.js';
 import { CAUTIONS } from './cautions.js';
 import { fmtConcentration as fc, fmtMoney, fmtNumber as fn, fmtWhole } from './formatting.js';
 import type { CarbonResult, PipelineResult } from './pipelineTypes.js';
+import { gacSection, loadingPlot, pilotSection, surrogateSection, uncertaintySection } from './capabilitySections.js';
 
 const pct = (x: number | null | undefined, sig = 4) => (x === null || x === undefined ? '—' : `${fn(x, sig)} %`);
 const mgL = (x: number | null | undefined, sig = 3) => (x === null || x === undefined ? '—' : `${fn(x, sig)} mg/L`);
@@ -27,14 +28,27 @@ function keyFigures(r: PipelineResult): KeyFigure[] {
       req.governedBy !== 'indicator mean' || !req.governing ? '' : `; governing compound ${req.governing.compoundId} at ${mgL(req.governing.doseMgPerL)}`,
       req.governedBy === 'indicator mean' || req.indicator?.doseMgPerL == null ? '' : `; indicator mean reached at ${mgL(req.indicator.doseMgPerL)}`,
     ].join('');
-    figs.push({ label: `${cr.carbon.name}: required dose`, value: mgL(req.doseMgPerL), note: `at DOC ${fn(req.docMgPerL, 3)} mg/L, governed by ${req.governedBy}${others}` });
-    if (cr.costPerM3 !== undefined) figs.push({ label: `${cr.carbon.name}: carbon cost per m³ treated`, value: fmtMoney(cr.costPerM3, cr.carbon.currency) });
-    if (cr.yearly) figs.push({ label: `${cr.carbon.name}: carbon per year`, value: `${fmtWhole(cr.yearly.carbonKg / 1000)} t`, note: `${fmtMoney(cr.yearly.cost, cr.carbon.currency)} per year (${cr.yearly.basis})` });
+    const gd = cr.uncertainty?.result.quantities.find((q) => q.key === 'governing_dose');
+    const band = gd && Number.isFinite(gd.p90) ? `; P10–P90 ${fn(gd.p10, 3)}–${fn(gd.p90, 3)} mg/L (Monte Carlo)` : '';
+    figs.push({ label: `${cr.carbon.name}: dose`, value: mgL(req.doseMgPerL), note: `required at DOC ${fn(req.docMgPerL, 3)} mg/L, governed by ${req.governedBy}${others}${band}` });
+    if (cr.costPerM3 !== undefined) figs.push({ label: `${cr.carbon.name}: cost per m³`, value: fmtMoney(cr.costPerM3, cr.carbon.currency), note: 'carbon only, at the required dose' });
+    if (cr.yearly) {
+      const yc = cr.uncertainty?.result.quantities.find((q) => q.key === 'yearly_cost');
+      const ycBand = yc && Number.isFinite(yc.p90) ? `; P10–P90 ${fmtMoney(yc.p10, cr.carbon.currency)}–${fmtMoney(yc.p90, cr.carbon.currency)}` : '';
+      figs.push({ label: `${cr.carbon.name}: carbon per year`, value: `${fmtWhole(cr.yearly.carbonKg / 1000)} t`, note: `${fmtMoney(cr.yearly.cost, cr.carbon.currency)} per year (${cr.yearly.basis})${ycBand}` });
+    }
   }
   const cheapest = pac.filter((c) => c.yearly).sort((a, b) => a.yearly!.cost - b.yearly!.cost)[0];
-  if (cheapest && pac.length > 1) figs.push({ label: 'Cheapest carbon over the year', value: cheapest.carbon.name, note: 'carbon cost only; compare currencies yourself if they differ' });
+  if (cheapest && pac.length > 1) figs.push({ label: 'Cheapest carbon', value: cheapest.carbon.name, note: 'over the year, carbon cost only; compare currencies yourself if they differ' });
+  const sp = pac.find((c) => c.surrogates?.atRequiredDose?.uv254Reduction != null);
+  if (sp) figs.push({ label: 'UV254 set-point', value: pct(sp.surrogates!.atRequiredDose!.uv254Reduction! * 100, 3), note: `UV254 reduction to dose to with ${sp.carbon.name} (required dose ${mgL(sp.surrogates!.atRequiredDose!.doseMgPerL)}, governed by ${sp.surrogates!.atRequiredDose!.governedBy})` });
   const first = pac[0];
-  if (first?.indicator) figs.push({ label: `Indicator mean at ${mgL(first.indicator.doseMgPerL)} (${first.carbon.name})`, value: pct(first.indicator.set.meanRemovalPercent), note: `goal ${first.indicator.goalPercent} %; ${first.indicator.set.admissible ? 'admissible set' : `not admissible: ${first.indicator.set.reason}`}` });
+  if (first?.indicator) figs.push({ label: 'Indicator mean', value: pct(first.indicator.set.meanRemovalPercent), note: `${first.carbon.name} at ${mgL(first.indicator.doseMgPerL)}; goal ${first.indicator.goalPercent} %; ${first.indicator.set.admissible ? 'admissible set' : `not admissible: ${first.indicator.set.reason}`}` });
+  for (const cr of r.carbons.filter((c) => c.gac)) {
+    const g = cr.gac!.governing;
+    figs.push({ label: `${cr.carbon.name}: bed life`, value: g.lifeDays !== undefined ? `≤ ${fn(g.lifeDays, 3)} d` : `≤ ${fmtWhole(g.bedVolumes)} BV`, note: `equilibrium upper bound: ${fmtWhole(g.bedVolumes)} bed volumes, governed by ${g.id}; preloading and kinetics shorten real runs` });
+  }
+  if (r.pilot) figs.push({ label: 'Pilot check', value: r.pilot.check.outlierCompounds.length === 0 ? 'all within band' : r.pilot.check.outlierCompounds.length <= 3 ? `${r.pilot.check.outlierCompounds.join(', ')} off` : `${r.pilot.check.outlierCompounds.length} compounds off`, note: r.pilot.check.outlierCompounds.length ? `outside ±${r.pilot.bandPercent} percentage points: ${r.pilot.check.outlierCompounds.join(', ')}` : `±${r.pilot.bandPercent} percentage points` });
   return figs;
 }
 
@@ -130,6 +144,8 @@ function carbonSection(r: PipelineResult, cr: CarbonResult, index: number): Repo
     if (req.doseMgPerL !== null) spec.vLines = [{ x: req.doseMgPerL, label: `required ${fn(req.doseMgPerL, 3)} mg/L` }];
     plots.push(spec);
   }
+  const lp = loadingPlot(cr, index);
+  if (lp) plots.push(lp);
   return { id: `carbon-${index + 1}`, heading: `Doses and reduced loadings — ${cr.carbon.name}`, paragraphs, tables, plots, warnings: cr.warnings };
 }
 
@@ -151,7 +167,7 @@ function indicatorSection(r: PipelineResult): ReportSection | undefined {
 }
 
 function comparisonSection(r: PipelineResult): ReportSection {
-  const rows = r.carbons.map((cr) => [cr.carbon.name, cr.carbon.type, fmtMoney(cr.carbon.pricePerKg, cr.carbon.currency), mgL(cr.required?.doseMgPerL), cr.required?.governedBy ?? '—',
+  const rows = r.carbons.map((cr) => [cr.carbon.name, cr.carbon.type, fmtMoney(cr.carbon.pricePerKg, cr.carbon.currency), mgL(cr.required?.doseMgPerL), cr.required?.governedBy ?? (cr.gac ? 'GAC: see the GAC estimate' : '—'),
     cr.costPerM3 !== undefined ? fmtMoney(cr.costPerM3, cr.carbon.currency) : '—', cr.yearly ? fmtWhole(cr.yearly.carbonKg) : '—', cr.yearly ? fmtMoney(cr.yearly.cost, cr.carbon.currency) : '—',
     cr.daily?.dose ? fn(cr.daily.dose.median, 3) : '—', cr.daily?.dose ? fn(cr.daily.dose.p90, 3) : '—']);
   return {
@@ -160,13 +176,26 @@ function comparisonSection(r: PipelineResult): ReportSection {
   };
 }
 
+/**
+ * The daily-dose series of one carbon; with a Monte Carlo, a P10–P90 band: each day's dose times
+ * the P10 and P90 of (governing dose of a draw)/(point estimate) at the design DOC — the relative
+ * spread taken as the same on every day (an approximation, said so in the section).
+ */
+function dailySeries(c: CarbonResult, dates: readonly string[], dayIndex: readonly number[]): PlotSeries {
+  const rows = c.daily!.rows.filter((d) => d.doseMgPerL !== null);
+  const series: PlotSeries = { name: c.carbon.name, points: rows.map((d, k) => [dayIndex[dates.indexOf(d.date)] ?? k + 1, d.doseMgPerL!] as [number, number]) };
+  const ratio = c.uncertainty?.governingDoseRatio;
+  if (ratio && Number.isFinite(ratio.p90)) series.band = { lower: rows.map((d) => d.doseMgPerL! * ratio.p10), upper: rows.map((d) => d.doseMgPerL! * ratio.p90), label: 'P10–P90' };
+  return series;
+}
+
 function yearSection(r: PipelineResult): ReportSection | undefined {
   const s = r.series;
   if (!s) return undefined;
   const withDaily = r.carbons.filter((c) => c.daily);
   const dayIndex = s.dates.map((_, k) => k + 1);
   const plots: PlotSpec[] = [
-    { kind: 'xy', id: 'daily-dose', title: 'Required dose over the DOC series', xLabel: `day (from ${s.dates[0]})`, yLabel: 'dose (mg/L)', series: withDaily.map((c) => ({ name: c.carbon.name, points: c.daily!.rows.filter((d) => d.doseMgPerL !== null).map((d, k) => [dayIndex[s.dates.indexOf(d.date)] ?? k + 1, d.doseMgPerL!] as [number, number]) })) },
+    { kind: 'xy', id: 'daily-dose', title: `Required dose over the DOC series${withDaily.some((c) => c.uncertainty?.governingDoseRatio) ? ' (band: Monte Carlo P10–P90)' : ''}`, xLabel: `day (from ${s.dates[0]})`, yLabel: 'dose (mg/L)', series: withDaily.map((c) => dailySeries(c, s.dates, dayIndex)) },
     { kind: 'xy', id: 'daily-doc', title: 'Effluent DOC over the series', xLabel: `day (from ${s.dates[0]})`, yLabel: 'DOC (mg/L)', series: [{ name: 'DOC', points: s.docMgPerL.map((v, k) => [k + 1, v] as [number, number]) }] },
   ];
   const rows = withDaily.map((c) => {
@@ -175,7 +204,7 @@ function yearSection(r: PipelineResult): ReportSection | undefined {
   });
   return {
     id: 'year', heading: 'Carbon over the year',
-    paragraphs: [`${s.dates.length} days from ${s.dates[0]} to ${s.dates[s.dates.length - 1]}; the background is scaled to each day's DOC and the dose solved anew. Carbon kg/d = dose (mg/L) × flow (m³/d) / 1000; totals are sums over the days. Percentiles: Hyndman & Fan (1996) definition 7.${s.flowFromDesign ? ' The series has no flow column: the design flow is used every day.' : ''}`],
+    paragraphs: [`${s.dates.length} days from ${s.dates[0]} to ${s.dates[s.dates.length - 1]}; the background is scaled to each day's DOC and the dose solved anew. Carbon kg/d = dose (mg/L) × flow (m³/d) / 1000; totals are sums over the days. Percentiles: Hyndman & Fan (1996) definition 7.${s.flowFromDesign ? ' The series has no flow column: the design flow is used every day.' : ''}${withDaily.some((c) => c.uncertainty?.governingDoseRatio) ? ' The band on the daily dose is the Monte Carlo P10–P90 of the governing dose relative to its point estimate at the design DOC, applied to every day (an approximation).' : ''}`],
     tables: [{ caption: 'Daily dose and carbon mass', columns: ['carbon', 'days', 'dose median (mg/L)', 'dose P90 (mg/L)', 'dose max (mg/L)', 'carbon median (kg/d)', 'carbon P90 (kg/d)', 'carbon total (kg)', 'carbon cost total'], rows }],
     plots,
   };
@@ -195,15 +224,13 @@ export function buildReportModel(r: PipelineResult, version: string): ReportMode
   const cal = calibrationSection(r);
   if (cal) sections.push(cal);
   pacCarbons(r).forEach((cr) => sections.push(carbonSection(r, cr, r.carbons.indexOf(cr))));
-  const ind = indicatorSection(r);
-  if (ind) sections.push(ind);
+  for (const sec of [surrogateSection(r), pilotSection(r), indicatorSection(r)]) if (sec) sections.push(sec);
   sections.push(comparisonSection(r));
-  const year = yearSection(r);
-  if (year) sections.push(year);
+  for (const sec of [gacSection(r), yearSection(r), uncertaintySection(r)]) if (sec) sections.push(sec);
   sections.push(inputsSection(r));
   const model: ReportModel = {
     title: r.project.name,
-    subtitle: `${r.project.site.name} — activated-carbon dose, cost and indicator check${r.provenance.demo ? ' (built-in demo; all data invented)' : ''}`,
+    subtitle: `${r.project.site.name} — activated-carbon dose, cost, set-points and indicator check${r.provenance.demo ? ' (built-in demo; all data invented)' : ''}`,
     generatedAt: r.generatedAt,
     version,
     cautions: [...CAUTIONS],

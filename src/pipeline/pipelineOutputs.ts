@@ -6,10 +6,14 @@ import { renderHtmlReport } from '../report/htmlReport.js';
 import { renderMarkdownSummary } from '../report/markdownSummary.js';
 import { buildReportModel } from './buildReportModel.js';
 import { carbonsCsv, compoundsCsv, dailyDosesCsv, indicatorsCsv, removalCurvesCsv } from './outputTables.js';
+import { gacCsv, pilotCheckCsv, setpointsCsv, surrogatesCsv, uncertaintyCsv } from './capabilityTables.js';
 import { runRecord, type RunEnvironment } from './runRecord.js';
 import type { PipelineResult } from './pipelineTypes.js';
 
-export const OUTPUT_FILES = ['summary.md', 'report.html', 'compounds.csv', 'removal_curves.csv', 'carbons.csv', 'daily_doses.csv', 'indicators.csv', 'run.json'] as const;
+export const OUTPUT_FILES = [
+  'summary.md', 'report.html', 'compounds.csv', 'removal_curves.csv', 'carbons.csv', 'daily_doses.csv', 'indicators.csv',
+  'surrogates.csv', 'setpoints.csv', 'pilot_check.csv', 'gac.csv', 'uncertainty.csv', 'run.json',
+] as const;
 
 export function pipelineOutputs(r: PipelineResult, env: RunEnvironment): Record<(typeof OUTPUT_FILES)[number], string> {
   const model = buildReportModel(r, env.toolVersion);
@@ -21,6 +25,11 @@ export function pipelineOutputs(r: PipelineResult, env: RunEnvironment): Record<
     'carbons.csv': carbonsCsv(r),
     'daily_doses.csv': dailyDosesCsv(r),
     'indicators.csv': indicatorsCsv(r),
+    'surrogates.csv': surrogatesCsv(r),
+    'setpoints.csv': setpointsCsv(r),
+    'pilot_check.csv': pilotCheckCsv(r),
+    'gac.csv': gacCsv(r),
+    'uncertainty.csv': uncertaintyCsv(r),
     'run.json': JSON.stringify(runRecord(r, env), null, 2) + '\n',
   };
 }

@@ -6,6 +6,7 @@ import type { CsvTable } from '../io/csvTable.js';
 import type { BackgroundFile } from '../fractionation/backgroundFile.js';
 import type { CarbonSpec, ProjectSpec } from '../project/projectTypes.js';
 import type { SiteSeries } from '../siteSeries/siteSeries.js';
+import type { PilotData } from '../surrogates/pilotCsv.js';
 import type { BackgroundStep } from './backgroundStep.js';
 import type { CompoundCalibration } from './calibrationStep.js';
 import type { CompoundSystem } from './competitionSystem.js';
@@ -15,6 +16,10 @@ import type { IndicatorCheck } from './indicatorCheck.js';
 import type { ReducedLoading } from './reducedLoading.js';
 import type { RemovalCurves } from './removalCurves.js';
 import type { RequiredDose } from './requiredDose.js';
+import type { SurrogateResult } from './surrogateStep.js';
+import type { PilotStepResult } from './pilotStep.js';
+import type { GacStepResult } from './gacStep.js';
+import type { CarbonUncertainty, UncertaintySettings } from './uncertaintyStep.js';
 
 /** A file the project referenced, for run.json. */
 export interface InputFileRecord {
@@ -37,6 +42,8 @@ export interface PipelineInput {
   jarTests: Record<string, CsvTable>;
   /** The site's DOC series, if the project has one. */
   series?: SiteSeries;
+  /** Pilot pairs (project field `pilot`). */
+  pilot?: PilotData;
   /** Where the inputs came from (for run.json). */
   provenance: { projectFile?: string; files: InputFileRecord[]; demo?: boolean };
 }
@@ -51,6 +58,17 @@ export interface PipelineOptions {
   onProgress?: (e: ProgressEvent) => void;
   /** Time stamp of the run (default now). */
   now?: Date;
+}
+
+/** Options of the run with the Monte Carlo step (runPipelineWithUncertainty). */
+export interface UncertaintyRunOptions extends PipelineOptions {
+  /** Overrides of the project's uncertainty section (command line --draws, --seed); draws 0 = off. */
+  draws?: number;
+  seed?: number;
+  /** Monte Carlo progress: draws done and total over all carbons. */
+  onMonteCarloProgress?: (done: number, total: number) => void;
+  /** Worker threads for the Monte Carlo (default: parallelMonteCarlo decides). */
+  workers?: number;
 }
 
 export interface CarbonResult {
@@ -72,6 +90,12 @@ export interface CarbonResult {
   daily?: DailyDoses;
   /** Yearly carbon and cost: from the DOC series, or design dose × design flow × 365. */
   yearly?: { carbonKg: number; cost: number; basis: 'DOC series' | 'design DOC and flow' };
+  /** DOC/UV254 reduction beside removal and the UV254 set-points (PAC with a fractionated background). */
+  surrogates?: SurrogateResult;
+  /** GAC equilibrium estimate (GAC carbons; an upper bound). */
+  gac?: GacStepResult;
+  /** Monte Carlo percentiles (PAC; runPipelineWithUncertainty only). */
+  uncertainty?: CarbonUncertainty;
   warnings: string[];
 }
 
@@ -83,6 +107,10 @@ export interface PipelineResult {
   goals: Record<string, CompoundGoal>;
   carbons: CarbonResult[];
   series?: SiteSeries;
+  /** Pilot pairs checked against the prediction (project field `pilot`). */
+  pilot?: PilotStepResult;
+  /** The Monte Carlo settings used (absent when it did not run). */
+  uncertainty?: UncertaintySettings;
   provenance: PipelineInput['provenance'];
   warnings: string[];
   /** Wall time of each step, ms. */

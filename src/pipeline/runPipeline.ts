@@ -1,9 +1,11 @@
 /**
  * The whole job (capabilities 8–10): background → calibrations → per carbon the systems, the
  * required dose and governing compound at the design DOC, removal curves, reduced loadings and
- * the indicator check at the design dose, cost per m³, and the daily doses over the DOC series.
- * Pure: no file access; progress is reported through a callback. Each step lives in its own file
- * so later steps (surrogates, GAC, Monte Carlo) can be added beside them.
+ * the indicator check at the design dose, cost per m³, the daily doses over the DOC series, the
+ * surrogates (DOC/UV254 reduction and set-points), the pilot check and, for GAC carbons, the
+ * equilibrium GAC estimate (capabilities 11, 12). Pure: no file access; progress is reported
+ * through a callback. Synchronous; the Monte Carlo step (capability 13) is added by the async
+ * `runPipelineWithUncertainty` (runWithUncertainty.ts).
  *
  * @throws InputError on inconsistent inputs; ComputationError if a solver fails.
  */
@@ -21,6 +23,11 @@ import type { CompoundSystem } from './competitionSystem.js';
 import type { CarbonResult, PipelineInput, PipelineOptions, PipelineResult } from './pipelineTypes.js';
 import type { ProjectSpec } from '../project/projectTypes.js';
 import { fmtConcentration } from './formatting.js';
+import { surrogateModel, surrogateStep } from './surrogateStep.js';
+import { pilotStep, type PilotStepResult } from './pilotStep.js';
+import { gacStep } from './gacStep.js';
+import { GAC_UPPER_BOUND_CAUTION } from '../gac/gacEstimate.js';
+import { InputError } from '../core/errors.js';
 
 /** The indicator plan of one carbon, when the project sets an indicator goal. */
 export function indicatorPlan(project: ProjectSpec, systems: readonly CompoundSystem[]): IndicatorPlan | undefined {
@@ -60,12 +67,14 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
 
   const carbons: CarbonResult[] = project.carbons.map((carbon, ci) => {
     const res: CarbonResult = { carbon, systems: [], warnings: [] };
-    if (carbon.type === 'GAC') {
-      res.warnings.push('GAC carbon: no batch dose; GAC beds are estimated by the GAC step (equilibrium bed volumes, an upper bound).');
-      return res;
-    }
     const systems = buildSystems(project, carbon, bg, calMap);
     res.systems = systems;
+    if (carbon.type === 'GAC') {
+      progress({ step: `${carbon.name}: GAC estimate`, done: ci, total: project.carbons.length });
+      res.gac = timed('GAC', () => gacStep(carbon, systems, doc, project.site.flowM3PerD));
+      res.warnings.push(`GAC: ${GAC_UPPER_BOUND_CAUTION}`);
+      return res;
+    }
     const plan = indicatorPlan(project, systems);
     progress({ step: `${carbon.name}: doses at the design DOC`, done: ci, total: project.carbons.length });
     const req = timed('doses', () => requiredDose(systems, goalList, plan, doc));
@@ -75,7 +84,13 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
       if (c.status === 'no-carbon-needed') res.warnings.push(`${c.compoundId}: ${c.message}`);
     }
     if (req.indicator && req.indicator.status !== 'ok') res.warnings.push(`indicator goal: ${req.indicator.message}`);
-    res.curves = timed('curves', () => removalCurves(carbon.name, systems, doc, project.goals.sweep));
+    const curves = timed('curves', () => removalCurves(carbon.name, systems, doc, project.goals.sweep));
+    res.curves = curves;
+    if (bg.background) {
+      const background = bg.background;
+      res.surrogates = timed('surrogates', () => surrogateStep(carbon.name, background, carbon.kFactor, doc, curves, req, goalList));
+      if (!res.surrogates.hasUv254) res.warnings.push('the background has no UV254 absorbances: DOC reduction only, no UV254 set-point');
+    }
     const design = project.goals.designDoseMgPerL ?? req.doseMgPerL ?? undefined;
     if (design !== undefined && design > 0) {
       res.designDoseMgPerL = design;
@@ -104,6 +119,18 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
     return res;
   });
   for (const c of carbons) warnings.push(...c.warnings.map((w) => `${c.carbon.name}: ${w}`));
+  let pilot: PilotStepResult | undefined;
+  if (project.pilot && input.pilot) {
+    const spec = project.pilot;
+    const pilotData = input.pilot;
+    const cr = spec.carbon !== undefined ? carbons.find((c) => c.carbon.name === spec.carbon) : carbons.find((c) => c.carbon.type === 'PAC');
+    if (!cr || !bg.background) throw new InputError('the pilot check needs a PAC carbon and a fractionated background ("isotherm" or "file")', { path: 'pilot' });
+    const model = surrogateModel(bg.background, doc, cr.carbon.kFactor);
+    pilot = timed('pilot check', () => pilotStep(cr.carbon.name, pilotData, spec.bandPercent, model, cr.systems, doc));
+    for (const c of pilot.check.compounds) {
+      if (c.outliers.length) warnings.push(`pilot check: ${c.compound} has ${c.outliers.length} of ${c.points} point(s) outside ±${spec.bandPercent} percentage points of the prediction (${c.outliers.map((o) => o.sample).join(', ')}); mean residual ${(c.meanResidual * 100).toFixed(1)} percentage points`);
+    }
+  }
   const out: PipelineResult = {
     project,
     generatedAt: (options.now ?? new Date()).toISOString(),
@@ -116,5 +143,6 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
     timingMs: timing,
   };
   if (input.series) out.series = input.series;
+  if (pilot) out.pilot = pilot;
   return out;
 }

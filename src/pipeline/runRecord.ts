@@ -6,6 +6,7 @@
  */
 import { systemComponents } from './competitionSystem.js';
 import type { PipelineResult } from './pipelineTypes.js';
+import { CI_TO_SD_NOTE } from './uncertaintyStep.js';
 import type { ProjectSpec } from '../project/projectTypes.js';
 
 export interface RunEnvironment {
@@ -30,6 +31,11 @@ function resolvedInputs(p: ProjectSpec): Record<string, unknown> {
       isotherms: Object.fromEntries(Object.entries(c.isotherms).map(([id, i]) => [id, { K_mg_per_g_per_mg_per_L_pow_1_over_n: i.K, one_over_n: i.oneOverN }])),
       bed_density_kg_per_m3: c.bedDensityKgPerM3 ?? null, ebct_min: c.ebctMin ?? null,
     })),
+    pilot: p.pilot ? { file: p.pilot.file, band_percent: p.pilot.bandPercent, carbon: p.pilot.carbon ?? null } : null,
+    uncertainty: p.uncertainty ? {
+      draws: p.uncertainty.draws, seed: p.uncertainty.seed, K_rel_sd: p.uncertainty.KRelSd, one_over_n_rel_sd: p.uncertainty.oneOverNRelSd,
+      doc_rel_sd: p.uncertainty.docRelSd, fraction_rel_sd: p.uncertainty.fractionRelSd, background_K_rel_sd: p.uncertainty.backgroundKRelSd, doc_levels: p.uncertainty.docLevels,
+    } : null,
     compounds: p.compounds.map((c) => ({
       id: c.id, name: c.name, K_mg_per_g_per_mg_per_L_pow_1_over_n: c.K, one_over_n: c.oneOverN, c0_mg_per_L: c.c0MgPerL,
       molar_mass_g_per_mol: c.molarMassGPerMol ?? null, jar_tests: c.jarTests ?? null, limit_mg_per_L: c.limitMgPerL ?? null, indicator_category: c.indicatorCategory ?? null,
@@ -81,8 +87,24 @@ export function runRecord(r: PipelineResult, env: RunEnvironment): Record<string
         } : null,
         daily: cr.daily?.rows ?? null,
         removal_curves: cr.curves ?? null,
+        surrogates: cr.surrogates ? {
+          has_uv254: cr.surrogates.hasUv254,
+          background_at_design_doc: cr.surrogates.model,
+          curve: cr.surrogates.curve,
+          set_points: cr.surrogates.setPoints,
+          governing_set_point: cr.surrogates.governing ?? null,
+          at_required_dose: cr.surrogates.atRequiredDose ?? null,
+        } : null,
+        gac: cr.gac ?? null,
+        monte_carlo: cr.uncertainty ? {
+          parameters: cr.uncertainty.parameters, excluded: cr.uncertainty.excluded, ci_to_sd: CI_TO_SD_NOTE,
+          result: cr.uncertainty.result, governing_removal_band: cr.uncertainty.governingCurve ?? null, governing_dose_ratio: cr.uncertainty.governingDoseRatio ?? null,
+          problem: cr.uncertainty.problem,
+        } : null,
         warnings: cr.warnings,
       })),
+      pilot_check: r.pilot ? { carbon: r.pilot.carbonName, file: r.pilot.file ?? null, band_percent: r.pilot.bandPercent, check: r.pilot.check } : null,
+      monte_carlo_settings: r.uncertainty ?? null,
       warnings: r.warnings,
     },
     timing_ms: r.timingMs,

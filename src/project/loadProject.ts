@@ -1,7 +1,7 @@
 /**
  * Read a project file and everything it references (I/O lives here, not in the pipeline):
  * the JSON is validated (validateProject), then the DOC isotherm, background file, jar tests and
- * site series are read relative to the project file's folder and parsed into tables.
+ * site series and pilot pairs are read relative to the project file's folder and parsed into tables.
  *
  * @throws InputError naming the project file and JSON path, or the referenced file (with the JSON
  *   path that referenced it when it is missing), row and column.
@@ -17,6 +17,7 @@ import { parseSiteSeries } from '../siteSeries/siteSeries.js';
 import type { InputFileRecord, PipelineInput } from '../pipeline/pipelineTypes.js';
 import { JAR_TEST_COLUMNS } from '../calibration/jarTestData.js';
 import { validateProject } from './validateProject.js';
+import { parsePilotCsv } from '../surrogates/pilotCsv.js';
 
 /** Read a referenced file; a missing file names the JSON path that referenced it. */
 function readReferenced(baseDir: string, relPath: string, jsonPath: string, what: string, files: InputFileRecord[], role: string): { text: string; file: string } {
@@ -78,6 +79,10 @@ export function loadProject(projectPath: string, options: { demo?: boolean } = {
   if (project.site.seriesFile) {
     const f = readReferenced(baseDir, project.site.seriesFile, 'site.series', 'site DOC series CSV', files, 'site DOC series');
     input.series = parseSiteSeries(f.text, project.site.flowM3PerD, f.file);
+  }
+  if (project.pilot) {
+    const f = readReferenced(baseDir, project.pilot.file, 'pilot.file', 'pilot CSV', files, 'pilot pairs');
+    input.pilot = parsePilotCsv(f.text, f.file, project.compounds.map((c) => c.id));
   }
   return input;
 }

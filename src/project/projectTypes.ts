@@ -89,6 +89,40 @@ export interface GoalsSpec {
   sweep: { fromMgPerL: number; toMgPerL: number; points: number };
 }
 
+/** Pilot pairs (UV254 reduction, measured removal) to check the predicted relation against. */
+export interface PilotSpec {
+  /** Pilot CSV, relative to the project file (src/surrogates/pilotCsv.ts describes the columns). */
+  file: string;
+  /** Half-width of the acceptance band, percentage points (default 10, common practice). */
+  bandPercent: number;
+  /** Name of the carbon the pilot ran with (default: the first PAC carbon). */
+  carbon?: string;
+}
+
+/**
+ * Monte Carlo over isotherm and background parameters (capability 13). Relative standard
+ * deviations are fractions (0.2 = 20 %); fitted parameters with a confidence interval use the fit
+ * instead (95 % interval converted to a standard deviation).
+ */
+export interface UncertaintySpec {
+  /** Number of draws (0 switches the Monte Carlo off). */
+  draws: number;
+  /** Seed of the random streams (integer 0 … 4294967295). */
+  seed: number;
+  /** Relative SD of each compound's Freundlich K. */
+  KRelSd: number;
+  /** Relative SD of each compound's exponent 1/n. */
+  oneOverNRelSd: number;
+  /** Relative SD of the DOC (design value and the whole series together). */
+  docRelSd: number;
+  /** Relative SD of the background fractions without a fitted interval. */
+  fractionRelSd: number;
+  /** Relative SD of the background K values without a fitted interval. */
+  backgroundKRelSd: number;
+  /** DOC levels per draw at which the yearly doses are solved exactly (2–50, default 5). */
+  docLevels: number;
+}
+
 export interface ProjectSpec {
   name: string;
   note?: string;
@@ -97,8 +131,16 @@ export interface ProjectSpec {
   carbons: CarbonSpec[];
   compounds: CompoundSpec[];
   goals: GoalsSpec;
+  pilot?: PilotSpec;
+  uncertainty?: UncertaintySpec;
 }
 
 /** Defaults (common practice, CHECKS.md "Regulation and practice"). */
 export const DEFAULT_REMOVAL_PERCENT = 80;
 export const DEFAULT_SWEEP = { fromMgPerL: 0.5, toMgPerL: 100, points: 40 } as const;
+/** Pilot acceptance band, ± percentage points (common practice; see src/surrogates/pilotCheck.ts). */
+export const DEFAULT_PILOT_BAND_PERCENT = 10;
+/** Monte Carlo defaults when the section is present but a field is not (common practice). */
+export const DEFAULT_UNCERTAINTY: UncertaintySpec = { draws: 1000, seed: 1, KRelSd: 0, oneOverNRelSd: 0, docRelSd: 0, fractionRelSd: 0, backgroundKRelSd: 0, docLevels: 5 };
+/** Largest number of draws a project or --draws may ask for. */
+export const MAX_PROJECT_DRAWS = 1_000_000;

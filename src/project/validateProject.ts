@@ -15,13 +15,15 @@ import { positive, readAbsorbance, readLimit } from './quantities.js';
 import { readBackground } from './readBackgroundSpec.js';
 import { readCarbons } from './readCarbons.js';
 import { readGoals } from './readGoals.js';
+import { readPilot } from './readPilotSpec.js';
+import { readUncertainty } from './readUncertaintySpec.js';
 
 const CALIBRATION_MODELS: readonly CalibrationModelName[] = ['ebc', 'sebc', 'fictive-k'];
 
 /** Validate a parsed project file. */
 export function validateProject(raw: unknown): ProjectSpec {
   const root = expectObject(raw, '$', 'a project');
-  onlyKeys(root, ['$schema', 'name', 'note', 'site', 'background', 'carbons', 'compounds', 'goals'], '');
+  onlyKeys(root, ['$schema', 'name', 'note', 'site', 'background', 'carbons', 'compounds', 'goals', 'pilot', 'uncertainty'], '');
   const name = expectString(required(root, 'name', '', 'the project name as text'), 'name', 'the project name as text');
   const site = readSite(required(root, 'site', '', 'the site object { name, flow, doc }'));
   const compounds = readCompounds(required(root, 'compounds', '', 'an array of compounds'));
@@ -30,6 +32,8 @@ export function validateProject(raw: unknown): ProjectSpec {
   const goals = readGoals(root.goals, compounds);
   const out: ProjectSpec = { name, site, background, carbons, compounds, goals };
   if (root.note !== undefined) out.note = expectString(root.note, 'note', 'a note as text');
+  if (root.pilot !== undefined) out.pilot = readPilot(root.pilot, carbons);
+  if (root.uncertainty !== undefined) out.uncertainty = readUncertainty(root.uncertainty);
   return out;
 }
 

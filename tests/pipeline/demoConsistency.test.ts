@@ -17,6 +17,8 @@ import { carbonsCsv, dailyDosesCsv } from '../../src/pipeline/outputTables.js';
 import type { PipelineResult } from '../../src/pipeline/pipelineTypes.js';
 
 let r: PipelineResult;
+/** The PAC carbons of the demo (the GAC candidate has no batch dose). */
+const pac = () => r.carbons.filter((c) => c.carbon.type === 'PAC');
 beforeAll(() => {
   r = runPipeline(loadProject(join(__dirname, '../../fixtures/demo/project.json'), { demo: true }), { now: new Date('2026-01-01T00:00:00Z') });
 });
@@ -26,16 +28,17 @@ function removalAt(sys: Parameters<typeof prepareSystem>[0], docMgPerL: number, 
 }
 
 describe('demo: doses', () => {
-  it('runs two PAC carbons with nine compounds and a year of days', () => {
-    expect(r.carbons.length).toBe(2);
-    for (const c of r.carbons) {
+  it('runs two PAC carbons and one GAC carbon with nine compounds and a year of days', () => {
+    expect(r.carbons.length).toBe(3);
+    expect(pac().length).toBe(2);
+    for (const c of pac()) {
       expect(c.required!.compounds.length).toBe(9);
       expect(c.daily!.rows.length).toBe(365);
     }
   });
 
   it('each reported compound dose, re-solved by batch IAST, gives its goal (to 1e-9)', () => {
-    for (const c of r.carbons) {
+    for (const c of pac()) {
       c.required!.compounds.forEach((d, i) => {
         expect(d.status).toBe('ok');
         const goal = r.goals[d.compoundId]!.removalFraction;
@@ -54,7 +57,7 @@ describe('demo: doses', () => {
   });
 
   it('the governing compound is the one needing the most carbon', () => {
-    for (const c of r.carbons) {
+    for (const c of pac()) {
       const req = c.required!;
       const max = Math.max(...req.compounds.map((d) => d.doseMgPerL!));
       expect(req.governing!.doseMgPerL).toBe(max);
@@ -64,7 +67,7 @@ describe('demo: doses', () => {
   });
 
   it('the indicator dose re-solved gives the mean-removal goal; the check at the design dose agrees', () => {
-    for (const c of r.carbons) {
+    for (const c of pac()) {
       const plan = indicatorPlan(r.project, c.systems)!;
       const at = indicatorCheckAt(plan, r.project.site.docMgPerL, c.required!.indicator!.doseMgPerL!);
       expect(at.set.admissible).toBe(true);
@@ -91,7 +94,7 @@ describe('demo: doses', () => {
   });
 
   it('cost per m³ = dose (g/m³) / 1000 × price per kg', () => {
-    for (const c of r.carbons) expect(c.costPerM3).toBeCloseTo((c.required!.doseMgPerL! / 1000) * c.carbon.pricePerKg, 15);
+    for (const c of pac()) expect(c.costPerM3).toBeCloseTo((c.required!.doseMgPerL! / 1000) * c.carbon.pricePerKg, 15);
   });
 
   it('a carbon with K factor f and no own isotherm for a compound needs 1/f times the dose of the reference carbon', () => {
@@ -107,7 +110,7 @@ describe('demo: doses', () => {
 
 describe('demo: the year of DOC', () => {
   it('yearly totals equal the sum of the days; kg/d = dose × flow / 1000', () => {
-    for (const c of r.carbons) {
+    for (const c of pac()) {
       const d = c.daily!;
       let kg = 0, cost = 0;
       for (const row of d.rows) {
@@ -125,8 +128,8 @@ describe('demo: the year of DOC', () => {
   it('the daily CSV sums to the yearly figure in carbons.csv (to the 8 digits written)', () => {
     const daily = dailyDosesCsv(r).trim().split('\n').slice(1).map((l) => l.match(/("[^"]*"|[^,]+|)(?=,|$)/g)!);
     const carbonsRows = carbonsCsv(r).trim().split('\n');
-    expect(carbonsRows.length).toBe(3);
-    const sumA = daily.filter((cells) => cells.join(',').includes('Demo carbon A')).reduce((s, cells) => s + Number(cells.filter((x) => x !== '')[6]), 0);
+    expect(carbonsRows.length).toBe(4); // header, two PAC carbons, one GAC carbon
+    const sumA = daily.filter((cells) => cells.join(',').includes('Carbon A (coal-based)')).reduce((s, cells) => s + Number(cells.filter((x) => x !== '')[6]), 0);
     expect(sumA / r.carbons[0]!.yearly!.carbonKg).toBeCloseTo(1, 6);
   });
 

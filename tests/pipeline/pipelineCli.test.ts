@@ -15,7 +15,10 @@ const run = (...args: string[]) => {
   return { code: r.status, out: r.stdout, err: r.stderr };
 };
 const tmp = () => mkdtempSync(join(tmpdir(), 'sorbshare-cli-'));
-const FILES = ['summary.md', 'report.html', 'compounds.csv', 'removal_curves.csv', 'carbons.csv', 'daily_doses.csv', 'indicators.csv', 'run.json'];
+const FILES = ['summary.md', 'report.html', 'compounds.csv', 'removal_curves.csv', 'carbons.csv', 'daily_doses.csv', 'indicators.csv',
+  'surrogates.csv', 'setpoints.csv', 'pilot_check.csv', 'gac.csv', 'uncertainty.csv', 'run.json'];
+/** stderr without Monte Carlo progress lines (they appear only when the draws take over a second). */
+const quiet = (err: string) => err.replace(/^\r?sorbshare: Monte Carlo.*$\n?/gm, '');
 
 describe('sorbshare demo', () => {
   it('writes every output, with the cautions, run.json provenance and --json summary', () => {
@@ -23,11 +26,15 @@ describe('sorbshare demo', () => {
     try {
       const out = join(dir, 'demo-out');
       const r = run('demo', '--out', out, '--json');
-      expect(r.err).toBe('');
+      expect(quiet(r.err)).toBe('');
       expect(r.code).toBe(0);
       const s = JSON.parse(r.out);
-      expect(s.carbons).toHaveLength(2);
+      expect(s.carbons).toHaveLength(3);
       expect(s.carbons[0].governing_compound).toBe('HCT');
+      expect(s.carbons[2].type).toBe('GAC');
+      expect(s.carbons[2].gac.upper_bound).toBe(true);
+      expect(s.carbons[0].monte_carlo.draws).toBeGreaterThan(0);
+      expect(s.pilot_outliers).toEqual(['DCF']); // the demo's pilot data put diclofenac deliberately off (fixtures/demo/README.md)
       expect(readdirSync(out).sort()).toEqual([...FILES].sort());
       const summary = readFileSync(join(out, 'summary.md'), 'utf8');
       const html = readFileSync(join(out, 'report.html'), 'utf8');
@@ -57,7 +64,8 @@ describe('sorbshare demo', () => {
     try {
       const r = run('demo', '--out', join(dir, 'o'));
       expect(r.code).toBe(0);
-      expect(r.out).toMatch(/Demo carbon A \(invented/);
+      expect(r.out).toMatch(/Carbon A \(coal-based\)/);
+      expect(r.out).toMatch(/UV254-reduction set-point/);
       expect(r.out).toMatch(/compound HCT/);
     } finally { rmSync(dir, { recursive: true, force: true }); }
   });
@@ -110,6 +118,7 @@ describe('sorbshare run: bad input writes nothing', () => {
       const s = JSON.parse(r.out);
       expect(s.carbons[1].type).toBe('GAC');
       expect(s.carbons[1].required_dose_mg_per_L).toBeNull();
+      expect(s.carbons[1].gac.bed_volumes).toBeGreaterThan(0); // the GAC step replaces the old "skipped" warning
       expect(s.carbons[0].currency).toBe('CHF');
     } finally { rmSync(dir, { recursive: true, force: true }); }
   });

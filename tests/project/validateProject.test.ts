@@ -62,6 +62,16 @@ const BAD: Array<[string, (p: any) => void, string, RegExp]> = [
   ['limit for an unknown compound', (p) => { p.goals.limits = { NOPE: '1 ng/L' }; }, 'goals.limits.NOPE', /not a compound id/],
   ['indicator goal without mean', (p) => { p.goals.indicator = {}; }, 'goals.indicator.mean_removal_percent', /missing "mean_removal_percent"/],
   ['sweep with 1 point', (p) => { p.goals.sweep.points = 1; }, 'goals.sweep.points', /whole number of doses/],
+  ['pilot without a file', (p) => { delete p.pilot.file; }, 'pilot.file', /missing "file"/],
+  ['pilot band of 100', (p) => { p.pilot.band_percent = 100; }, 'pilot.band_percent', /between 0 and 100/],
+  ['pilot carbon unknown', (p) => { p.pilot.carbon = 'Carbon Z'; }, 'pilot.carbon', /not a carbon name/],
+  ['pilot key typo', (p) => { p.pilot.band = 5; }, 'pilot.band', /unknown key "band"/],
+  ['uncertainty not an object', (p) => { p.uncertainty = 500; }, 'uncertainty', /Monte Carlo settings/],
+  ['negative draws', (p) => { p.uncertainty.draws = -3; }, 'uncertainty.draws', /whole number of draws/],
+  ['seed as text', (p) => { p.uncertainty.seed = 'abc'; }, 'uncertainty.seed', /whole-number seed/],
+  ['seed above 2^32 − 1', (p) => { p.uncertainty.seed = 4294967296; }, 'uncertainty.seed', /whole-number seed/],
+  ['relative SD of 3', (p) => { p.uncertainty.doc_rel_sd = 3; }, 'uncertainty.doc_rel_sd', /relative standard deviation of the DOC/],
+  ['one DOC level', (p) => { p.uncertainty.doc_levels = 1; }, 'uncertainty.doc_levels', /DOC levels from 2 to 50/],
 ];
 
 describe('bad project files name the JSON path and what was expected', () => {
@@ -78,7 +88,7 @@ describe('bad project files name the JSON path and what was expected', () => {
       expect(e.message).toMatch(words);
       // The schema rejects it too, where JSON Schema can express the rule (units, ranges of
       // converted quantities and cross-references are the hand validator's alone).
-      const schemaCan = !['flow without a flow unit', 'unknown K unit', 'c0 with a flow unit', 'isotherm for an unknown compound', 'limit for an unknown compound', 'duplicate compound id'].includes(what);
+      const schemaCan = !['pilot carbon unknown', 'flow without a flow unit', 'unknown K unit', 'c0 with a flow unit', 'isotherm for an unknown compound', 'limit for an unknown compound', 'duplicate compound id'].includes(what);
       if (schemaCan) expect(validateAgainstSchema(schema, p).length).toBeGreaterThan(0);
     });
   }
@@ -96,6 +106,18 @@ describe('bad project files name the JSON path and what was expected', () => {
     const q = JSON.parse(readFileSync(join(root, 'fixtures/project/ebc-background/project.json'), 'utf8'));
     q.compounds[0].jar_tests.model = 'fictive-k';
     expect(() => validateProject(q)).toThrow(/field compounds\[0\]\.jar_tests\.model: the model "fictive-k" needs a fractionated background/);
+  });
+
+  it('reads the pilot and uncertainty sections with their defaults (band 10 percentage points; relative SDs 0)', () => {
+    const p = validateProject(demo);
+    expect(p.pilot).toEqual({ file: 'pilot_pairs.csv', bandPercent: 10, carbon: 'Carbon A (coal-based)' });
+    expect(p.uncertainty).toMatchObject({ seed: 2026, KRelSd: 0.2, oneOverNRelSd: 0.05, docRelSd: 0.05, fractionRelSd: 0.1, backgroundKRelSd: 0, docLevels: 4 });
+    const q = clone(demo);
+    q.pilot = { file: 'x.csv' };
+    q.uncertainty = {};
+    const v = validateProject(q);
+    expect(v.pilot!.bandPercent).toBe(10);
+    expect(v.uncertainty).toEqual({ draws: 1000, seed: 1, KRelSd: 0, oneOverNRelSd: 0, docRelSd: 0, fractionRelSd: 0, backgroundKRelSd: 0, docLevels: 5 });
   });
 
   it('a chosen indicator compound must have a category', () => {

@@ -2,7 +2,7 @@
 import { fileURLToPath } from 'node:url';
 import type { CommandSpec } from '../commandSpec.js';
 import { loadProject } from '../../project/loadProject.js';
-import { runAndWrite } from './projectRun.js';
+import { MONTE_CARLO_OPTIONS, monteCarloOverrides, runAndWrite } from './projectRun.js';
 
 /** The demo project, three folders above this file in both src/ and dist/ layouts. */
 export function demoProjectPath(): string {
@@ -16,10 +16,12 @@ export const demoCommand: CommandSpec = {
   options: [
     { flags: '--out <dir>', description: 'output folder (written whole or not at all)', default: 'sorbshare-demo' },
     { flags: '--json', description: 'print a JSON summary instead of text' },
+    ...MONTE_CARLO_OPTIONS,
   ],
-  examples: ['sorbshare demo', 'sorbshare demo --out demo-output --json'],
-  action(_args, opts, ctx) {
+  examples: ['sorbshare demo', 'sorbshare demo --draws 0', 'sorbshare demo --out demo-output --json'],
+  async action(_args, opts, ctx) {
+    const mc = monteCarloOverrides(opts);
     const input = loadProject(demoProjectPath(), { demo: true });
-    runAndWrite(input, String(opts.out), Boolean(opts.json), ctx);
+    await runAndWrite(input, String(opts.out), Boolean(opts.json), ctx, mc);
   },
 };

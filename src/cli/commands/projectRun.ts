@@ -4,7 +4,10 @@
  * short summary (or JSON) on stdout.
  */
 import type { CommandContext } from '../commandSpec.js';
-import { runPipeline } from '../../pipeline/runPipeline.js';
+import { runPipelineWithUncertainty } from '../../pipeline/runWithUncertainty.js';
+import { InputError } from '../../core/errors.js';
+import { MAX_PROJECT_DRAWS } from '../../project/projectTypes.js';
+import { createProgressBar, type ProgressBar } from '../progressBar.js';
 import { pipelineOutputs } from '../../pipeline/pipelineOutputs.js';
 import type { PipelineInput, PipelineResult, ProgressEvent } from '../../pipeline/pipelineTypes.js';
 import { writeOutputDir } from '../../io/writeOutputs.js';
@@ -39,7 +42,14 @@ export interface RunSummaryJson {
     carbon: string; type: string; required_dose_mg_per_L: number | null; governed_by: string | null; governing_compound: string | null;
     governing_dose_mg_per_L: number | null; indicator_dose_mg_per_L: number | null; cost_per_m3: number | null; currency: string;
     yearly_carbon_kg: number | null; yearly_cost: number | null; indicator_mean_percent: number | null;
+    /** UV254 reduction at the required dose (the operator's set-point), percent. */
+    uv254_setpoint_percent: number | null;
+    /** Monte Carlo percentiles of the governing dose (mg/L) and yearly cost. */
+    monte_carlo: { draws: number; seed: number; governing_dose_mg_per_L: { p10: number; p50: number; p90: number }; yearly_cost: { p10: number; p50: number; p90: number } | null } | null;
+    /** GAC equilibrium estimate of the governing compound (an upper bound). */
+    gac: { governing_compound: string; bed_volumes: number; life_days: number | null; carbon_usage_g_per_m3: number; upper_bound: true } | null;
   }>;
+  pilot_outliers: string[] | null;
   warnings: string[];
 }
 
@@ -55,15 +65,64 @@ export function summaryJson(r: PipelineResult, outDir: string, files: string[]):
       cost_per_m3: c.costPerM3 ?? null, currency: c.carbon.currency,
       yearly_carbon_kg: c.yearly?.carbonKg ?? null, yearly_cost: c.yearly?.cost ?? null,
       indicator_mean_percent: c.indicator?.set.meanRemovalPercent ?? null,
+      uv254_setpoint_percent: c.surrogates?.atRequiredDose?.uv254Reduction != null ? c.surrogates.atRequiredDose.uv254Reduction * 100 : null,
+      monte_carlo: c.uncertainty ? (() => {
+        const q = (k: string) => c.uncertainty!.result.quantities.find((x) => x.key === k);
+        const g = q('governing_dose')!;
+        const y = q('yearly_cost');
+        return { draws: c.uncertainty.result.draws, seed: c.uncertainty.result.seed, governing_dose_mg_per_L: { p10: g.p10, p50: g.p50, p90: g.p90 }, yearly_cost: y ? { p10: y.p10, p50: y.p50, p90: y.p90 } : null };
+      })() : null,
+      gac: c.gac ? { governing_compound: c.gac.governing.id, bed_volumes: c.gac.governing.bedVolumes, life_days: c.gac.governing.lifeDays ?? null, carbon_usage_g_per_m3: c.gac.governing.carbonUsageGPerM3, upper_bound: true } : null,
     })),
+    pilot_outliers: r.pilot ? r.pilot.check.outlierCompounds : null,
     warnings: r.warnings,
   };
 }
 
+/** The Monte Carlo options shared by `run` and `demo`. */
+export const MONTE_CARLO_OPTIONS = [
+  { flags: '--draws <n>', description: `Monte Carlo draws (0 = off; overrides the project's uncertainty.draws; at most ${MAX_PROJECT_DRAWS})` },
+  { flags: '--seed <s>', description: "Monte Carlo seed, a whole number 0–4294967295 (overrides uncertainty.seed)" },
+];
+
+/** --draws and --seed from the command line. @throws InputError naming the option */
+export function monteCarloOverrides(opts: Record<string, unknown>): { draws?: number; seed?: number } {
+  const out: { draws?: number; seed?: number } = {};
+  const whole = (v: unknown, option: string, max: number, what: string): number => {
+    const t = String(v).trim();
+    const x = /^\d+$/.test(t) ? Number(t) : NaN;
+    if (!(Number.isInteger(x) && x >= 0 && x <= max)) throw new InputError(`expected ${what}, got ${JSON.stringify(String(v))}`, { option });
+    return x;
+  };
+  if (opts.draws !== undefined) out.draws = whole(opts.draws, '--draws', MAX_PROJECT_DRAWS, `a whole number of draws from 0 (off) to ${MAX_PROJECT_DRAWS}`);
+  if (opts.seed !== undefined) out.seed = whole(opts.seed, '--seed', 0xffffffff, 'a whole-number seed from 0 to 4294967295');
+  return out;
+}
+
+/**
+ * A Monte Carlo progress bar on stderr that appears only on long runs: once the draws have taken
+ * `thresholdMs` (default 1 s, as for the other steps), so short runs keep stderr quiet.
+ */
+export function monteCarloProgress(ctx: CommandContext, thresholdMs = 1000, now: () => number = () => performance.now()): { update: (done: number, total: number) => void; finish: () => void } {
+  let start: number | undefined;
+  let bar: ProgressBar | undefined;
+  return {
+    update(done, total) {
+      const t = now();
+      start ??= t;
+      if (!bar && t - start >= thresholdMs && done < total) bar = createProgressBar({ total, label: 'sorbshare: Monte Carlo', write: ctx.err, isTTY: ctx.isTTY });
+      bar?.update(done);
+    },
+    finish() { bar?.finish(); },
+  };
+}
+
 /** Run, write and print. */
-export function runAndWrite(input: PipelineInput, outDir: string, json: boolean, ctx: CommandContext): void {
+export async function runAndWrite(input: PipelineInput, outDir: string, json: boolean, ctx: CommandContext, mc: { draws?: number; seed?: number } = {}): Promise<void> {
   const progress = progressPrinter(ctx);
-  const result = runPipeline(input, { onProgress: progress.onProgress });
+  const bar = monteCarloProgress(ctx);
+  const result = await runPipelineWithUncertainty(input, { ...mc, onProgress: progress.onProgress, onMonteCarloProgress: (d, t) => bar.update(d, t) });
+  bar.finish();
   progress.done();
   const files = pipelineOutputs(result, { toolVersion: VERSION, nodeVersion: process.version, platform: `${process.platform}-${process.arch}` });
   writeOutputDir(outDir, files);
@@ -76,11 +135,19 @@ export function runAndWrite(input: PipelineInput, outDir: string, json: boolean,
     c.yearly_cost === null ? '—' : `${Math.round(c.yearly_cost).toLocaleString('en-US')} ${c.currency}`,
     c.indicator_mean_percent === null ? '—' : fmt(c.indicator_mean_percent, 3),
   ]);
+  const extra: string[] = [];
+  for (const c of s.carbons) {
+    if (c.uv254_setpoint_percent !== null) extra.push(`${c.carbon}: UV254-reduction set-point ${fmt(c.uv254_setpoint_percent, 3)} % at the required dose`);
+    if (c.monte_carlo) extra.push(`${c.carbon}: governing dose P10–P50–P90 ${fmt(c.monte_carlo.governing_dose_mg_per_L.p10, 3)}–${fmt(c.monte_carlo.governing_dose_mg_per_L.p50, 3)}–${fmt(c.monte_carlo.governing_dose_mg_per_L.p90, 3)} mg/L (${c.monte_carlo.draws} draws, seed ${c.monte_carlo.seed})`);
+    if (c.gac) extra.push(`${c.carbon}: GAC ${fmt(c.gac.bed_volumes, 3)} bed volumes${c.gac.life_days !== null ? ` (${fmt(c.gac.life_days, 3)} days)` : ''} for ${c.gac.governing_compound} — equilibrium upper bound`);
+  }
+  if (s.pilot_outliers) extra.push(`Pilot check: ${s.pilot_outliers.length ? `outside the band: ${s.pilot_outliers.join(', ')}` : 'every compound within the band'}`);
   ctx.out([
     `${result.project.name}`,
     '',
     table(['carbon', 'dose mg/L', 'governed by', 'cost per m³', 't/year', 'cost per year', 'indicator mean %'], rows),
     '',
+    ...(extra.length ? [...extra, ''] : []),
     ...(result.warnings.length ? ['Warnings:', ...result.warnings.map((w) => `  - ${w}`), ''] : []),
     `Wrote ${names.join(', ')} to ${outDir}`,
     'Planning estimates from equilibrium models: confirm with jar and pilot tests (see the cautions in summary.md).',

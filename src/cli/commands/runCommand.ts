@@ -1,7 +1,7 @@
 /** `sorbshare run PROJECT.json [--out DIR] [--json]` — the whole job from a project file. */
 import type { CommandSpec } from '../commandSpec.js';
 import { loadProject } from '../../project/loadProject.js';
-import { runAndWrite } from './projectRun.js';
+import { MONTE_CARLO_OPTIONS, monteCarloOverrides, runAndWrite } from './projectRun.js';
 
 export const runCommand: CommandSpec = {
   name: 'run',
@@ -10,10 +10,12 @@ export const runCommand: CommandSpec = {
   options: [
     { flags: '--out <dir>', description: 'output folder (written whole or not at all)', default: 'sorbshare-output' },
     { flags: '--json', description: 'print a JSON summary instead of text' },
+    ...MONTE_CARLO_OPTIONS,
   ],
-  examples: ['sorbshare run project.json --out results', 'sorbshare run project.json --out results --json'],
-  action(args, opts, ctx) {
+  examples: ['sorbshare run project.json --out results', 'sorbshare run project.json --draws 2000 --seed 7', 'sorbshare run project.json --out results --json'],
+  async action(args, opts, ctx) {
+    const mc = monteCarloOverrides(opts);
     const input = loadProject(args[0]!);
-    runAndWrite(input, String(opts.out), Boolean(opts.json), ctx);
+    await runAndWrite(input, String(opts.out), Boolean(opts.json), ctx, mc);
   },
 };

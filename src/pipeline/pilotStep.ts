@@ -1,0 +1,75 @@
+/**
+ * The pilot check (capability 11): pilot pairs (UV254 reduction, measured removal) against the
+ * model's relation between UV254 reduction and removal on the pilot's carbon at the design DOC,
+ * with residuals, the compounds outside the band named, and a site curve
+ * removal = 1 − (1 − ΔUV)^k fitted beside the model's (src/surrogates/pilotCheck.ts,
+ * siteCurveFit.ts).
+ *
+ * The predicted relation is traced over doses 0 and 0.1–2000 mg/L (log-spaced, 160 doses): UV254
+ * reduction from the fictive components (Beer–Lambert additivity), removal from each compound's
+ * system (the same as the dose table). Both rise with the dose, so removal is a function of UV254
+ * reduction.
+ *
+ * @throws InputError when the background has no UV254 absorbances (naming the project field
+ *   `pilot`) or the pilot data name an unknown compound
+ */
+import { InputError } from '../core/errors.js';
+import { logSpacedDoses } from '../api/equilibriumApi.js';
+import { solveBatchPrepared } from '../equilibrium/iastBatch.js';
+import type { PilotData } from '../surrogates/pilotCsv.js';
+import { checkPilotPairs, type PilotCheckResult, type PredictedRelation } from '../surrogates/pilotCheck.js';
+import { backgroundSurrogatesAt, type SurrogateModel } from '../surrogates/surrogateCurve.js';
+import { prepareSystem, type CompoundSystem } from './competitionSystem.js';
+
+export interface PilotStepResult {
+  carbonName: string;
+  file?: string;
+  bandPercent: number;
+  check: PilotCheckResult;
+  /** The model's removal against UV254 reduction per compound in the pilot data. */
+  relations: PredictedRelation[];
+}
+
+/** Removal against UV254 reduction of each system, traced over a dose sweep. */
+export function predictedRelations(model: SurrogateModel, systems: readonly CompoundSystem[], docMgPerL: number, ids: readonly string[]): PredictedRelation[] {
+  const doses = [0, ...logSpacedDoses(0.1, 2000, 160)];
+  const uv: number[] = [];
+  let warm: { u: number; theta: number } | undefined;
+  for (const d of doses) {
+    const r = backgroundSurrogatesAt(model, d, d > 0 ? warm : undefined);
+    if (d > 0) warm = r.state;
+    uv.push(r.point.uv254Reduction!);
+  }
+  return systems.filter((s) => ids.includes(s.compoundId)).map((sys) => {
+    const pm = prepareSystem(sys, docMgPerL);
+    let w: { u: number; theta: number } | undefined;
+    const removal = doses.map((d) => {
+      if (d === 0) return 0;
+      const s = solveBatchPrepared(pm, d / 1000, w);
+      w = s.state;
+      return 1 - s.cMgPerL[0]! / sys.c0MgPerL;
+    });
+    return { compound: sys.compoundId, uv254Reduction: uv.slice(), removal };
+  });
+}
+
+/**
+ * @param model   the surrogate model of the pilot carbon (needs UV254 absorbances)
+ * @param systems the compounds' systems on that carbon
+ */
+export function pilotStep(carbonName: string, pilot: PilotData, bandPercent: number, model: SurrogateModel, systems: readonly CompoundSystem[], docMgPerL: number): PilotStepResult {
+  if (!model.uv254AbsorbancePerM) {
+    throw new InputError('the pilot check needs UV254 absorbances of the fictive components; expected a DOC isotherm with UV254 columns (or a background file with specific_uv254_per_m_per_mg_per_L)', { path: 'pilot' });
+  }
+  const relations = predictedRelations(model, systems, docMgPerL, pilot.compounds);
+  let check: PilotCheckResult;
+  try {
+    check = checkPilotPairs(pilot.pairs, relations, bandPercent);
+  } catch (e) {
+    if (e instanceof InputError && pilot.file !== undefined && !e.location.file) throw e.at({ file: pilot.file });
+    throw e;
+  }
+  const out: PilotStepResult = { carbonName, bandPercent, check, relations };
+  if (pilot.file !== undefined) out.file = pilot.file;
+  return out;
+}

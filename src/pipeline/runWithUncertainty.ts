@@ -1,0 +1,26 @@
+/**
+ * The whole job with the Monte Carlo step: `runPipeline` (synchronous, capabilities 8–12), then
+ * the Monte Carlo over isotherm and background parameters (capability 13, asynchronous because it
+ * may run on worker threads). The Monte Carlo settings come from the project's `uncertainty`
+ * section, with `draws` / `seed` overriding it (the CLI's --draws, --seed); draws 0 switches it
+ * off and the result is then exactly `runPipeline`'s.
+ *
+ * @throws InputError on inconsistent inputs; ComputationError if a solver fails.
+ */
+import { runPipeline } from './runPipeline.js';
+import { resolveUncertaintySettings, uncertaintyStep } from './uncertaintyStep.js';
+import type { PipelineInput, PipelineResult, UncertaintyRunOptions } from './pipelineTypes.js';
+
+export async function runPipelineWithUncertainty(input: PipelineInput, options: UncertaintyRunOptions = {}): Promise<PipelineResult> {
+  const result = runPipeline(input, options);
+  const overrides: { draws?: number; seed?: number } = {};
+  if (options.draws !== undefined) overrides.draws = options.draws;
+  if (options.seed !== undefined) overrides.seed = options.seed;
+  const settings = resolveUncertaintySettings(input.project.uncertainty, overrides);
+  if (!settings) return result;
+  const o: Parameters<typeof uncertaintyStep>[3] = {};
+  if (options.onMonteCarloProgress) o.onMonteCarloProgress = options.onMonteCarloProgress;
+  if (options.workers !== undefined) o.workers = options.workers;
+  await uncertaintyStep(result, input, settings, o);
+  return result;
+}

@@ -1,0 +1,208 @@
+/**
+ * The Monte Carlo step (capability 13): per PAC carbon, the isotherm and background parameters
+ * are drawn and the doses, the governing dose, the UV254 set-point and the yearly carbon and cost
+ * are solved again in every draw (src/uncertainty: monteCarlo / parallelMonteCarlo), giving the
+ * 10th, 50th and 90th percentiles (Hyndman & Fan 1996, type 7).
+ *
+ * What is uncertain, and how (stated in the report and run.json):
+ *   - fitted background parameters with a 95 % interval from the fractionation (fractions; K when
+ *     fitted): the interval [lo, hi] is converted to a standard deviation (hi − lo)/(2·1.96)
+ *     (normal approximation; for K on ln K: ln(hi/lo)/(2·1.96)), drawn normal and independent —
+ *     the background file keeps no correlations between fitted parameters;
+ *   - background parameters without an interval: the project's `fraction_rel_sd` and
+ *     `background_K_rel_sd` (lognormal, median = point value);
+ *   - each compound's K and 1/n: `K_rel_sd`, `one_over_n_rel_sd` (lognormal);
+ *   - the DOC (design value and the whole series together): `doc_rel_sd` (lognormal).
+ * Every carbon uses the same seed (common random numbers: differences between carbons are not
+ * blurred by different draws). Compounds whose goal needs no carbon or is unreachable at the
+ * point estimate are left out (said so). Needs a fractionated background and fictive-component
+ * competition for every compound; otherwise the carbon is skipped with the reason.
+ *
+ * The removal band of the governing compound is traced from the first draws (at most
+ * CURVE_BAND_DRAWS) of the same random streams, so it belongs to the same draws as the percentiles.
+ */
+import { ComputationError } from '../core/errors.js';
+import type { BackgroundStep } from './backgroundStep.js';
+import type { CarbonResult, PipelineInput, PipelineResult, UncertaintyRunOptions } from './pipelineTypes.js';
+import type { CompoundGoal } from './compoundGoal.js';
+import type { ProjectSpec, UncertaintySpec } from '../project/projectTypes.js';
+import { DEFAULT_UNCERTAINTY } from '../project/projectTypes.js';
+import type { SiteSeries } from '../siteSeries/siteSeries.js';
+import type { MonteCarloProblem, ParameterCovariance, UncertainBackgroundComponent, UncertainTarget } from '../uncertainty/monteCarloProblem.js';
+import type { MonteCarloResult } from '../uncertainty/monteCarlo.js';
+import { planChunks } from '../uncertainty/monteCarlo.js';
+import { parallelMonteCarlo } from '../uncertainty/parallelMonteCarlo.js';
+import { compileDrawModel, sampleParameters } from '../uncertainty/monteCarloDraw.js';
+import { NormalSampler } from '../uncertainty/distributions.js';
+import { chunkRng } from '../uncertainty/prng.js';
+import { percentiles } from '../uncertainty/percentile.js';
+import { prepareMixture } from '../equilibrium/preparedMixture.js';
+import { solveBatchPrepared } from '../equilibrium/iastBatch.js';
+
+/** Two-sided 95 % quantile of the standard normal distribution. */
+export const Z95 = 1.959963984540054;
+export const CI_TO_SD_NOTE = 'fitted 95 % intervals converted to standard deviations as (upper − lower)/(2 × 1.96), normal approximation; fitted parameters drawn independently';
+/** Draws used for the removal band of the governing compound. */
+export const CURVE_BAND_DRAWS = 400;
+
+export interface UncertaintySettings extends UncertaintySpec {
+  /** Where draws and seed came from. */
+  source: string;
+}
+
+export interface UncertainParameter {
+  parameter: string;
+  distribution: 'lognormal' | 'normal';
+  /** Relative SD (lognormal) or SD (normal; fractions as fractions of the DOC, ln K for K). */
+  sd: number;
+  basis: string;
+}
+
+export interface CarbonUncertainty {
+  carbonName: string;
+  parameters: UncertainParameter[];
+  /** Compounds left out of the Monte Carlo, with the reason. */
+  excluded: string[];
+  problem: MonteCarloProblem;
+  result: MonteCarloResult;
+  /** P10–P90 band of the governing compound's removal against dose (percent). */
+  governingCurve?: { compoundId: string; draws: number; dosesMgPerL: number[]; p10Percent: number[]; p50Percent: number[]; p90Percent: number[] };
+  /** P10 and P90 of (governing dose of a draw)/(point estimate): the relative spread of the dose. */
+  governingDoseRatio?: { p10: number; p90: number };
+}
+
+/**
+ * The settings of the run: the project's section, with --draws / --seed overriding it. Undefined
+ * when the Monte Carlo is off (no section and no --draws, or draws 0).
+ */
+export function resolveUncertaintySettings(spec: UncertaintySpec | undefined, o: { draws?: number; seed?: number }): UncertaintySettings | undefined {
+  if (!spec && o.draws === undefined) return undefined;
+  const base: UncertaintySpec = spec ?? { ...DEFAULT_UNCERTAINTY };
+  const s: UncertaintySettings = { ...base, source: spec ? 'project file' : 'command line (no uncertainty section: relative SDs 0, fitted intervals only)' };
+  if (o.draws !== undefined) { s.draws = o.draws; s.source += ', --draws'; }
+  if (o.seed !== undefined) { s.seed = o.seed; s.source += ', --seed'; }
+  return s.draws > 0 ? s : undefined;
+}
+
+/** The Monte Carlo problem of one PAC carbon, or the reason it cannot be set up. */
+export function uncertaintyProblem(
+  project: ProjectSpec, cr: CarbonResult, bg: BackgroundStep, goals: readonly CompoundGoal[], series: SiteSeries | undefined, s: UncertaintySettings,
+): { problem: MonteCarloProblem; parameters: UncertainParameter[]; excluded: string[] } | { skipped: string } {
+  const bgFile = bg.background;
+  if (!bgFile) return { skipped: 'the Monte Carlo needs a fractionated background (fictive components); an EBC background is not sampled' };
+  const ebc = cr.systems.filter((x) => x.competition !== 'fictive').map((x) => x.compoundId);
+  if (ebc.length) return { skipped: `compound(s) ${ebc.join(', ')} compete with a calibrated EBC; the Monte Carlo samples the fictive DOC components only` };
+  if (!cr.required) return { skipped: 'no batch dose on this carbon' };
+  const parameters: UncertainParameter[] = [];
+  const excluded: string[] = [];
+  const targets: UncertainTarget[] = [];
+  cr.systems.forEach((sys, i) => {
+    const d = cr.required!.compounds[i]!;
+    if (d.status !== 'ok' || !(goals[i]!.removalFraction > 0)) { excluded.push(`${sys.compoundId} (${d.status === 'unreachable' ? 'goal unreachable at the point estimate' : 'met without carbon'})`); return; }
+    targets.push({ id: sys.compoundId, K: sys.inMixture.K, oneOverN: sys.inMixture.oneOverN, c0MgPerL: sys.c0MgPerL, removalGoal: goals[i]!.removalFraction, KRelSd: s.KRelSd, oneOverNRelSd: s.oneOverNRelSd });
+  });
+  if (targets.length === 0) return { skipped: 'no compound has a reachable goal that needs carbon' };
+  if (s.KRelSd > 0) parameters.push({ parameter: "compounds' K", distribution: 'lognormal', sd: s.KRelSd, basis: 'project uncertainty.K_rel_sd' });
+  if (s.oneOverNRelSd > 0) parameters.push({ parameter: "compounds' 1/n", distribution: 'lognormal', sd: s.oneOverNRelSd, basis: 'project uncertainty.one_over_n_rel_sd' });
+  const cov: { names: string[]; variances: number[] } = { names: [], variances: [] };
+  const f = cr.carbon.kFactor;
+  const background = bgFile.components.map((c): UncertainBackgroundComponent => {
+    const id = `bg:${c.id}`;
+    const comp: UncertainBackgroundComponent = { id, K: c.K * f, oneOverN: c.K > 0 ? c.one_over_n : 1, fraction: c.fraction };
+    const fci = c.fraction_ci95;
+    if (fci && fci[1] >= fci[0]) {
+      const sd = (fci[1] - fci[0]) / (2 * Z95);
+      cov.names.push(`fraction:${id}`); cov.variances.push(sd * sd);
+      parameters.push({ parameter: `fraction of ${c.id}`, distribution: 'normal', sd, basis: `fractionation 95 % interval ${fci[0].toPrecision(3)}–${fci[1].toPrecision(3)}` });
+    } else if (s.fractionRelSd > 0) {
+      comp.fractionRelSd = s.fractionRelSd;
+      parameters.push({ parameter: `fraction of ${c.id}`, distribution: 'lognormal', sd: s.fractionRelSd, basis: 'project uncertainty.fraction_rel_sd (no fitted interval)' });
+    }
+    const kci = c.K_ci95;
+    if (c.K > 0 && kci && kci[0] > 0 && kci[1] >= kci[0]) {
+      const sd = Math.log(kci[1] / kci[0]) / (2 * Z95);
+      cov.names.push(`lnK:${id}`); cov.variances.push(sd * sd);
+      parameters.push({ parameter: `ln K of ${c.id}`, distribution: 'normal', sd, basis: 'fractionation 95 % interval of K' });
+    } else if (c.K > 0 && s.backgroundKRelSd > 0) {
+      comp.KRelSd = s.backgroundKRelSd;
+      parameters.push({ parameter: `K of ${c.id}`, distribution: 'lognormal', sd: s.backgroundKRelSd, basis: 'project uncertainty.background_K_rel_sd' });
+    }
+    return comp;
+  });
+  if (s.docRelSd > 0) parameters.push({ parameter: 'DOC (design value and series)', distribution: 'lognormal', sd: s.docRelSd, basis: 'project uncertainty.doc_rel_sd' });
+  const doc = project.site.docMgPerL;
+  const problem: MonteCarloProblem = { targets, background, docMgPerL: doc, docRelSd: s.docRelSd };
+  if (cov.names.length) {
+    const covariance: ParameterCovariance = { parameters: cov.names, matrix: cov.variances.map((v, i) => cov.variances.map((_, j) => (i === j ? v : 0))) };
+    problem.covariance = covariance;
+  }
+  const a = bgFile.components.map((c) => c.specific_uv254_per_m_per_mg_per_L);
+  if (a.every((v): v is number => typeof v === 'number') && a.some((v) => v > 0)) problem.uv254AbsorbancePerM = a;
+  problem.yearly = series
+    ? { docSeriesMgPerL: series.docMgPerL.slice(), flowM3PerD: series.flowM3PerD.slice(), carbonPricePerKg: cr.carbon.pricePerKg, docLevels: s.docLevels }
+    : { docSeriesMgPerL: [doc], flowM3PerD: project.site.flowM3PerD, carbonPricePerKg: cr.carbon.pricePerKg, docLevels: s.docLevels };
+  return { problem, parameters, excluded };
+}
+
+/** P10/P50/P90 of a target's removal (percent) over the sweep doses, from the first draws. */
+export function removalBand(problem: MonteCarloProblem, seed: number, draws: number, targetId: string, dosesMgPerL: readonly number[]): NonNullable<CarbonUncertainty['governingCurve']> {
+  const model = compileDrawModel(problem);
+  const t = problem.targets.findIndex((x) => x.id === targetId);
+  if (t < 0) throw new ComputationError(`removal band: "${targetId}" is not a Monte Carlo target`);
+  const n = Math.min(draws, CURVE_BAND_DRAWS);
+  const columns = dosesMgPerL.map(() => new Float64Array(n));
+  let i = 0;
+  for (const { chunk, count } of planChunks(n)) {
+    const normal = new NormalSampler(chunkRng(seed, chunk)); // the streams of the Monte Carlo run
+    for (let k = 0; k < count; k++, i++) {
+      const d = sampleParameters(model, normal);
+      const target = d.targets[t]!;
+      const pm = prepareMixture([target, ...d.background]);
+      let warm: { u: number; theta: number } | undefined;
+      dosesMgPerL.forEach((dose, j) => {
+        const s = solveBatchPrepared(pm, dose / 1000, warm);
+        warm = s.state;
+        columns[j]![i] = 100 * (1 - s.cMgPerL[0]! / target.c0MgPerL);
+      });
+    }
+  }
+  const q = columns.map((c) => percentiles(c, [0.1, 0.5, 0.9]));
+  return { compoundId: targetId, draws: n, dosesMgPerL: dosesMgPerL.slice(), p10Percent: q.map((x) => x[0]!), p50Percent: q.map((x) => x[1]!), p90Percent: q.map((x) => x[2]!) };
+}
+
+/**
+ * Run the Monte Carlo on every PAC carbon of a pipeline result (adds `uncertainty` to each carbon
+ * and to the result). @throws InputError for an invalid problem; ComputationError if a solve fails
+ */
+export async function uncertaintyStep(result: PipelineResult, input: PipelineInput, settings: UncertaintySettings, o: Pick<UncertaintyRunOptions, 'onMonteCarloProgress' | 'workers'> = {}): Promise<void> {
+  const goals = result.project.compounds.map((c) => result.goals[c.id]!);
+  const planned = result.carbons.filter((c) => c.carbon.type === 'PAC').map((cr) => ({ cr, setup: uncertaintyProblem(result.project, cr, result.background, goals, input.series, settings) }));
+  const runs = planned.filter((p) => !('skipped' in p.setup));
+  const total = runs.length * settings.draws;
+  let offset = 0;
+  for (const { cr, setup } of planned) {
+    if ('skipped' in setup) { cr.warnings.push(`Monte Carlo skipped: ${setup.skipped}`); result.warnings.push(`${cr.carbon.name}: Monte Carlo skipped: ${setup.skipped}`); continue; }
+    const t0 = performance.now();
+    const base = offset;
+    const opts: Parameters<typeof parallelMonteCarlo>[1] = { draws: settings.draws, seed: settings.seed, keepSamples: true, onProgress: (done) => o.onMonteCarloProgress?.(base + done, total) };
+    if (o.workers !== undefined) opts.workers = o.workers;
+    const mc = await parallelMonteCarlo(setup.problem, opts);
+    offset += settings.draws;
+    const cu: CarbonUncertainty = { carbonName: cr.carbon.name, parameters: setup.parameters, excluded: setup.excluded, problem: setup.problem, result: mc };
+    const gov = mc.quantities.find((q) => q.key === 'governing_dose')!;
+    const samples = mc.samples?.governing_dose;
+    if (samples && gov.pointEstimate > 0 && Number.isFinite(gov.pointEstimate)) {
+      const [p10, p90] = percentiles(Float64Array.from(samples, (v) => v / gov.pointEstimate), [0.1, 0.9]);
+      cu.governingDoseRatio = { p10: p10!, p90: p90! };
+    }
+    delete mc.samples; // keep run.json small; the percentiles are the result
+    let govId: string | undefined;
+    let govDose = -Infinity;
+    for (const q of mc.quantities) if (q.key.startsWith('dose:') && q.pointEstimate > govDose) { govDose = q.pointEstimate; govId = q.key.slice(5); }
+    if (govId && cr.curves) cu.governingCurve = removalBand(setup.problem, settings.seed, settings.draws, govId, cr.curves.dosesMgPerL);
+    if (setup.excluded.length) cr.warnings.push(`Monte Carlo leaves out ${setup.excluded.join(', ')}`);
+    cr.uncertainty = cu;
+    result.timingMs['Monte Carlo'] = (result.timingMs['Monte Carlo'] ?? 0) + performance.now() - t0;
+  }
+  result.uncertainty = settings;
+}

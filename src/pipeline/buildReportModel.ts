@@ -153,7 +153,7 @@ function indicatorSection(r: PipelineResult): ReportSection | undefined {
   const withInd = pacCarbons(r).filter((c) => c.indicator);
   if (withInd.length === 0) return undefined;
   const tables: ReportTable[] = [];
-  const paragraphs: string[] = ['SR 814.201.231 Art. 3 (CHECKS.md): at least 6 indicator substances, category 1 to category 2 in the ratio 2:1, result the arithmetic mean of their percentage removals. Removals here are modelled, not measured.'];
+  const paragraphs: string[] = ['Swiss DETEC ordinance SR 814.201.231, Art. 3: at least 6 indicator substances, category 1 to category 2 in the ratio 2:1, result the arithmetic mean of their percentage removals. Removals here are modelled, not measured.'];
   for (const cr of withInd) {
     const ind = cr.indicator!;
     tables.push({

@@ -8,11 +8,11 @@
  *
  * Without /usr/bin/chromium the test is skipped, except in CI (CI set), where it fails.
  */
-import { existsSync, mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { existsSync, mkdirSync } from 'node:fs';
 import { join } from 'node:path';
-import { fileURLToPath, pathToFileURL } from 'node:url';
-import { afterAll, describe, expect, it } from 'vitest';
+import { fileURLToPath } from 'node:url';
+import { describe, expect, it } from 'vitest';
+import { CHROMIUM, HAVE_CHROMIUM as HAVE, IN_CI, openReport } from './browserHarness.js';
 import { renderHtmlReport } from '../../src/report/htmlReport.js';
 import type { PlotSpec } from '../../src/report/reportModel.js';
 import { reportPlotIds } from '../../src/report/reportPlotIds.js';
@@ -28,9 +28,6 @@ interface PageNode {
 }
 declare const document: { body: PageNode; querySelector(s: string): PageNode | null; querySelectorAll(s: string): ArrayLike<PageNode> & Iterable<PageNode> };
 
-const CHROMIUM = '/usr/bin/chromium';
-const HAVE = existsSync(CHROMIUM);
-const IN_CI = Boolean(process.env.CI);
 const ARTIFACTS = fileURLToPath(new URL('../.artifacts/', import.meta.url));
 const EVIL = '<script>alert(1)</script>';
 
@@ -48,38 +45,10 @@ describe('HTML report in headless Chromium', () => {
     expect.fail(`${CHROMIUM} is missing; CI must install it (apt-get install -y chromium).`);
   });
 
-  const dir = mkdtempSync(join(tmpdir(), 'sorbshare-report-'));
-  afterAll(() => rmSync(dir, { recursive: true, force: true }));
-
   it.skipIf(!HAVE)('renders cleanly, draws every plot and series, escapes injected script', async () => {
-    const { chromium } = await import('playwright-core');
     const model = syntheticModel();
-    const file = join(dir, 'report.html');
-    writeFileSync(file, renderHtmlReport(model));
-    const browser = await chromium.launch({
-      executablePath: CHROMIUM,
-      args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
-    });
+    const { browser, page, errors, requests } = await openReport(renderHtmlReport(model));
     try {
-      const page = await browser.newPage({ viewport: { width: 1100, height: 900 } });
-      const errors: string[] = [];
-      const requests: string[] = [];
-      page.on('console', (m) => {
-        if (m.type() === 'error') errors.push(`console: ${m.text()}`);
-      });
-      page.on('pageerror', (e) => errors.push(`page: ${e.message}`));
-      page.on('dialog', async (d) => {
-        errors.push(`dialog: ${d.message()}`);
-        await d.dismiss();
-      });
-      await page.route('**/*', async (route) => {
-        const url = route.request().url();
-        if (url.startsWith('file:')) return route.continue();
-        requests.push(url);
-        return route.abort();
-      });
-      await page.goto(pathToFileURL(file).href, { waitUntil: 'load' });
-
       const plots = model.sections.flatMap((s) => s.plots ?? []);
       expect(plots.map((p) => p.id)).toEqual(reportPlotIds(model));
       const found = await page.evaluate(

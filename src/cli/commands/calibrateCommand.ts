@@ -1,8 +1,7 @@
 /** `sorbshare calibrate JARTESTS.csv --model ebc|sebc|fictive-k --compound COMPOUND.json [--background FILE] [--doc Q] [--json] [--out FILE]` */
 import type { CommandSpec } from '../commandSpec.js';
 import { InputError } from '../../core/errors.js';
-import { calibrate, type CalibrationModel, type CalibrationResult } from '../../calibration/calibrate.js';
-import { readBackground } from '../../fractionation/backgroundFile.js';
+import type { CalibrationModel, CalibrationResult } from '../../calibration/calibrate.js';
 import { readComponent } from '../../scenario/readMixture.js';
 import { parseQuantity } from '../../units/parseQuantity.js';
 import { readJsonFile, readTextFile } from '../../io/readFiles.js';
@@ -25,7 +24,9 @@ export const calibrateCommand: CommandSpec = {
     { flags: '--out <file>', description: 'also write the calibration (JSON) to FILE' },
   ],
   examples: ['sorbshare calibrate jartests.csv --model ebc --compound carbamazepine.json --doc "8 mg/L"', 'sorbshare calibrate jartests.csv --model fictive-k --compound target.json --background background.json --json'],
-  action(args, opts, ctx) {
+  async action(args, opts, ctx) {
+    const { calibrate } = await import('../../calibration/calibrate.js');
+    const { readBackground } = await import('../../fractionation/backgroundFile.js');
     const file = args[0]!;
     const model = opts.model as string | undefined;
     if (model === undefined) throw new InputError(`missing --model; expected one of ${MODELS.join(', ')}`, { column: '--model' });

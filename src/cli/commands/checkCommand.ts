@@ -5,7 +5,7 @@ import { fileURLToPath } from 'node:url';
 import type { CommandSpec } from '../commandSpec.js';
 import { ComputationError, InputError } from '../../core/errors.js';
 import { readJsonFile } from '../../io/readFiles.js';
-import { readCheckCase, runCheckCase, type CheckOutcome } from '../../checks/checkCase.js';
+import type { CheckOutcome } from '../../checks/checkCase.js';
 import { fmt } from '../format.js';
 
 /** The shipped check cases, three folders above this file in both src/ and dist/ layouts. */
@@ -37,7 +37,8 @@ export const checkCommand: CommandSpec = {
   summary: 'Run the shipped published check cases and print expected and computed values with their sources',
   options: [{ flags: '--json', description: 'print JSON instead of text' }],
   examples: ['sorbshare check', 'sorbshare check --json'],
-  action(_args, opts, ctx) {
+  async action(_args, opts, ctx) {
+    const { readCheckCase, runCheckCase } = await import('../../checks/checkCase.js');
     const dir = checksDir();
     let names: string[];
     try {

@@ -1,8 +1,7 @@
 /** `sorbshare demo [--out DIR] [--json]` — the whole job on the built-in invented plant (fixtures/demo). */
 import { fileURLToPath } from 'node:url';
 import type { CommandSpec } from '../commandSpec.js';
-import { loadProject } from '../../project/loadProject.js';
-import { MONTE_CARLO_OPTIONS, monteCarloOverrides, runAndWrite } from './projectRun.js';
+import { MONTE_CARLO_OPTIONS, monteCarloOverrides } from './monteCarloOptions.js';
 
 /** The demo project, three folders above this file in both src/ and dist/ layouts. */
 export function demoProjectPath(): string {
@@ -21,6 +20,8 @@ export const demoCommand: CommandSpec = {
   examples: ['sorbshare demo', 'sorbshare demo --draws 0', 'sorbshare demo --out demo-output --json'],
   async action(_args, opts, ctx) {
     const mc = monteCarloOverrides(opts);
+    const { loadProject } = await import('../../project/loadProject.js');
+    const { runAndWrite } = await import('./projectRun.js');
     const input = loadProject(demoProjectPath(), { demo: true });
     await runAndWrite(input, String(opts.out), Boolean(opts.json), ctx, mc);
   },

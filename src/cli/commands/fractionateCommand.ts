@@ -1,7 +1,7 @@
 /** `sorbshare fractionate ISOTHERM.csv [--exponent 0.2] [--components 3|auto] [--fit-k] [--k-grid LIST] [--json] [--out FILE]` */
 import type { CommandSpec } from '../commandSpec.js';
 import { InputError } from '../../core/errors.js';
-import { fractionate, type FractionateResult } from '../../fractionation/fractionate.js';
+import type { FractionateResult } from '../../fractionation/fractionate.js';
 import { readTextFile } from '../../io/readFiles.js';
 import { writeFileAtomic } from '../../io/writeOutputs.js';
 import { fmt, table } from '../format.js';
@@ -35,7 +35,8 @@ export const fractionateCommand: CommandSpec = {
     { flags: '--out <file>', description: 'also write the background file (JSON) to FILE' },
   ],
   examples: ['sorbshare fractionate isotherm.csv --out background.json', 'sorbshare fractionate isotherm.csv --components auto --json'],
-  action(args, opts, ctx) {
+  async action(args, opts, ctx) {
+    const { fractionate } = await import('../../fractionation/fractionate.js');
     const file = args[0]!;
     const exponent = Number(opts.exponent);
     if (String(opts.exponent).trim() === '' || !Number.isFinite(exponent)) throw new InputError(`expected a number such as 0.2, got "${String(opts.exponent)}"`, { column: '--exponent' });

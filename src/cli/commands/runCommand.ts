@@ -1,7 +1,6 @@
 /** `sorbshare run PROJECT.json [--out DIR] [--json]` — the whole job from a project file. */
 import type { CommandSpec } from '../commandSpec.js';
-import { loadProject } from '../../project/loadProject.js';
-import { MONTE_CARLO_OPTIONS, monteCarloOverrides, runAndWrite } from './projectRun.js';
+import { MONTE_CARLO_OPTIONS, monteCarloOverrides } from './monteCarloOptions.js';
 
 export const runCommand: CommandSpec = {
   name: 'run',
@@ -15,6 +14,8 @@ export const runCommand: CommandSpec = {
   examples: ['sorbshare run project.json --out results', 'sorbshare run project.json --draws 2000 --seed 7', 'sorbshare run project.json --out results --json'],
   async action(args, opts, ctx) {
     const mc = monteCarloOverrides(opts);
+    const { loadProject } = await import('../../project/loadProject.js');
+    const { runAndWrite } = await import('./projectRun.js');
     const input = loadProject(args[0]!);
     await runAndWrite(input, String(opts.out), Boolean(opts.json), ctx, mc);
   },

@@ -3,7 +3,7 @@ import { readFileSync, readdirSync, existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { validateProject } from '../../src/project/validateProject.js';
 import { InputError } from '../../src/core/errors.js';
-import { validateAgainstSchema } from './jsonSchemaSubset.js';
+import { validateAgainstSchema } from './jsonSchemaCheck.js';
 
 const root = join(__dirname, '../..');
 const schema = JSON.parse(readFileSync(join(root, 'schema/project.schema.json'), 'utf8'));

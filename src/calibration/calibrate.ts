@@ -151,7 +151,7 @@ export function calibrate(input: JarTestInput, options: CalibrateOptions): Calib
       ci: ([lc], se, t) => ({ c0_EBC_mg_per_L: expCi(lc!, se[0]!, t) }),
     };
   } else {
-    if (options.background === undefined) throw new InputError('model fictive-k needs a background (the output of sorbshare fractionate); give --background FILE', { column: '--background' });
+    if (options.background === undefined) throw new InputError('model fictive-k needs a background (the output of sorbshare fractionate; on the command line --background FILE)', { path: 'background' });
     const bg = readBackground(options.background);
     background = bg;
     spec = {

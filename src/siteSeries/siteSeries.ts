@@ -5,7 +5,6 @@
  * increasing; DOC must be positive; a missing flow column means the site's design flow is used
  * every day. Parsing is pure (text in, typed arrays out); reading the file lives in src/project.
  */
-import { parse } from 'csv-parse/sync';
 import { InputError } from '../core/errors.js';
 import { readCsvTable, type CsvColumnSpec } from '../io/csvTable.js';
 
@@ -23,6 +22,8 @@ export interface SiteSeries {
 }
 
 const SERIES_COLUMNS: readonly CsvColumnSpec[] = [
+  // optional here only so that its absence gets the message below, which shows a whole header
+  { key: 'date', names: ['date', 'day'], kind: 'text', required: false, description: 'date (YYYY-MM-DD)' },
   { key: 'doc', names: ['DOC'], kind: 'massConcentration', required: true, description: 'daily effluent DOC' },
   { key: 'flow', names: ['flow', 'Q'], kind: 'flow', required: false, description: 'daily flow' },
 ];
@@ -39,15 +40,11 @@ const ISO_DATE = /^(\d{4})-(\d{2})-(\d{2})$/;
 export function parseSiteSeries(text: string, designFlowM3PerD: number, file?: string): SiteSeries {
   const table = readCsvTable(text, SERIES_COLUMNS, file);
   const loc = (row?: number, column?: string) => ({ ...(file !== undefined ? { file } : {}), ...(row !== undefined ? { row } : {}), ...(column !== undefined ? { column } : {}) });
-  // The date column is text, which the numeric table reader skips: read it with the same options.
-  const records = parse(text.replace(/^\uFEFF/, ''), { skip_empty_lines: true, trim: true, comment: '#', comment_no_infix: true }) as string[][];
-  const header = records[0] ?? [];
-  const dateIndex = header.findIndex((h) => h.trim().toLowerCase() === 'date' || h.trim().toLowerCase() === 'day');
-  if (dateIndex < 0) throw new InputError('missing the "date" column; expected a header such as "date,DOC (mg/L),flow (m3/d)" with ISO dates (YYYY-MM-DD)', loc(1, 'date'));
-  const dateHeader = header[dateIndex]!;
-  const dates = records.slice(1).map((r, k) => {
+  const dateCol = table.columns.date;
+  if (!dateCol) throw new InputError('missing the "date" column; expected a header such as "date,DOC (mg/L),flow (m3/d)" with ISO dates (YYYY-MM-DD)', loc(1, 'date'));
+  const dateHeader = dateCol.header;
+  const dates = dateCol.cells.map((d, k) => {
     const row = table.rowNumbers[k];
-    const d = (r[dateIndex] ?? '').trim();
     const m = ISO_DATE.exec(d);
     const t = m ? Date.UTC(Number(m[1]), Number(m[2]) - 1, Number(m[3])) : NaN;
     if (!m || new Date(t).toISOString().slice(0, 10) !== d) throw new InputError(`"${d}" is not a date; expected YYYY-MM-DD`, loc(row, dateHeader));

@@ -2,7 +2,7 @@
  * A seeded, reproducible pseudorandom number generator for the Monte Carlo runs.
  *
  * Generator: xoshiro128** (Blackman, D., Vigna, S. (2021) "Scrambled linear pseudorandom number
- * generators", ACM Trans. Math. Softw. 47(4):36; reference C code xoshiro128starstar.c, 2018),
+ * generators", ACM Trans. Math. Softw. 47(4):36),
  * 128 bits of state, period 2^128 − 1, 32-bit outputs. Doubles in [0, 1) take 53 bits from two
  * outputs (the usual (a·2^26 + b)/2^53 construction).
  *

@@ -74,7 +74,7 @@ describe('sorbshare calibrate', () => {
   it('option and compound-file errors exit 2 and name the option or JSON field', () => {
     const m = run('calibrate', JAR, '--compound', COMPOUND);
     expect(m.code).toBe(2);
-    expect(m.err).toMatch(/column "--model"/);
+    expect(m.err).toMatch(/option --model/);
     const u = run('calibrate', JAR, '--model', 'langmuir', '--compound', COMPOUND);
     expect(u.code).toBe(2);
     expect(u.err).toMatch(/unknown model "langmuir"/);
@@ -87,7 +87,7 @@ describe('sorbshare calibrate', () => {
     expect(fk.err).toMatch(/--background/);
     const d = run('calibrate', JAR, '--model', 'sebc', '--compound', COMPOUND, '--doc', 'lots');
     expect(d.code).toBe(2);
-    expect(d.err).toMatch(/column "--doc"/);
+    expect(d.err).toMatch(/option --doc/);
     const bgBad = write('bg.json', JSON.stringify({ doc0_mg_per_L: 8, components: [{ id: 'F0', K: 0, fraction: 0.5 }], fit: {} }));
     const b = run('calibrate', JAR, '--model', 'fictive-k', '--compound', COMPOUND, '--background', bgBad);
     expect(b.code).toBe(2);

@@ -69,7 +69,7 @@ describe('sorbshare fractionate', () => {
   it('bad options exit 2 naming the option', () => {
     const r = run('fractionate', ISO, '--components', 'many');
     expect(r.code).toBe(2);
-    expect(r.err).toMatch(/column "--components"/);
+    expect(r.err).toMatch(/option --components/);
     const g = run('fractionate', ISO, '--k-grid', '5,-1');
     expect(g.code).toBe(2);
     expect(g.err).toMatch(/--k-grid/);

@@ -8,27 +8,16 @@
  *
  * Without /usr/bin/chromium the test is skipped, except in CI (CI set), where it fails.
  */
-import { existsSync, mkdirSync } from 'node:fs';
-import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { existsSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { CHROMIUM, HAVE_CHROMIUM as HAVE, IN_CI, openReport } from './browserHarness.js';
+import { CHROMIUM, HAVE_CHROMIUM as HAVE, IN_CI, inspectPlots, openReport, saveScreenshot, type PageDocument } from './browserHarness.js';
 import { renderHtmlReport } from '../../src/report/htmlReport.js';
 import type { PlotSpec } from '../../src/report/reportModel.js';
 import { reportPlotIds } from '../../src/report/reportPlotIds.js';
 import { syntheticModel } from './syntheticModel.js';
 
-// Minimal shapes of the DOM used by the code that runs inside the page (the project's lib has no DOM types).
-interface PageNode {
-  textContent: string | null;
-  getAttribute(name: string): string | null;
-  getBoundingClientRect(): { width: number; height: number };
-  getBBox(): { width: number; height: number };
-  querySelectorAll(selector: string): ArrayLike<PageNode> & Iterable<PageNode>;
-}
-declare const document: { body: PageNode; querySelector(s: string): PageNode | null; querySelectorAll(s: string): ArrayLike<PageNode> & Iterable<PageNode> };
+declare const document: PageDocument;
 
-const ARTIFACTS = fileURLToPath(new URL('../.artifacts/', import.meta.url));
 const EVIL = '<script>alert(1)</script>';
 
 if (!HAVE && !IN_CI) console.warn(`[report browser test] SKIPPED: ${CHROMIUM} not found (apt-get install -y chromium to run it).`);
@@ -51,23 +40,7 @@ describe('HTML report in headless Chromium', () => {
     try {
       const plots = model.sections.flatMap((s) => s.plots ?? []);
       expect(plots.map((p) => p.id)).toEqual(reportPlotIds(model));
-      const found = await page.evaluate(
-        (specs) =>
-          specs.map(({ id, series }) => {
-            const svg = [...document.querySelectorAll('svg.plot')].find((e) => e.getAttribute('data-plot-id') === id);
-            if (!svg) return { id, present: false, w: 0, h: 0, drawn: [] as number[] };
-            const r = svg.getBoundingClientRect();
-            const drawn = series.map((k) => {
-              const shapes = svg.querySelectorAll(`[data-series="${k}"] path, [data-series="${k}"] rect, [data-series="${k}"] circle, [data-series="${k}"] line`);
-              return [...shapes].filter((s) => {
-                const b = s.getBBox();
-                return b.width > 0 || b.height > 0;
-              }).length;
-            });
-            return { id, present: true, w: r.width, h: r.height, drawn };
-          }),
-        plots.map((p) => ({ id: p.id, series: nonEmptySeries(p) })),
-      );
+      const found = await inspectPlots(page, plots.map((p) => ({ id: p.id, series: nonEmptySeries(p) })));
       for (const f of found) {
         expect(f.present, `plot ${f.id} present`).toBe(true);
         expect(f.w, `plot ${f.id} width`).toBeGreaterThan(100);
@@ -89,9 +62,7 @@ describe('HTML report in headless Chromium', () => {
       expect(errors).toEqual([]);
       expect(requests).toEqual([]);
 
-      mkdirSync(ARTIFACTS, { recursive: true });
-      await page.screenshot({ path: join(ARTIFACTS, 'report.png'), fullPage: true });
-      expect(existsSync(join(ARTIFACTS, 'report.png'))).toBe(true);
+      expect(existsSync(await saveScreenshot(page, 'report.png'))).toBe(true);
     } finally {
       await browser.close();
     }

@@ -3,10 +3,10 @@
  * playwright-core; never a downloaded browser), collecting console and page errors and any
  * request that would leave the file.
  */
-import { mkdtempSync, writeFileSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { pathToFileURL } from 'node:url';
+import { fileURLToPath, pathToFileURL } from 'node:url';
 import { existsSync } from 'node:fs';
 import type { Browser, Page } from 'playwright-core';
 
@@ -51,4 +51,51 @@ export async function openReport(html: string, viewport = { width: 1100, height:
   });
   await page.goto(pathToFileURL(file).href, { waitUntil: 'load' });
   return { browser, page, errors, requests };
+}
+
+/** Minimal DOM shapes for code that runs inside the page (the project's lib has no DOM types). */
+export interface PageNode {
+  textContent: string | null;
+  getAttribute(name: string): string | null;
+  getBoundingClientRect(): { width: number; height: number };
+  getBBox(): { width: number; height: number };
+  querySelectorAll(selector: string): ArrayLike<PageNode> & Iterable<PageNode>;
+}
+export interface PageDocument {
+  body: PageNode;
+  querySelector(s: string): PageNode | null;
+  querySelectorAll(s: string): ArrayLike<PageNode> & Iterable<PageNode>;
+}
+declare const document: PageDocument;
+
+export interface PlotInspection {
+  id: string;
+  present: boolean;
+  /** Rendered width and height of the svg, px. */
+  w: number;
+  h: number;
+  /** Drawn shapes with a non-empty box: one count per requested series, or one total when none named. */
+  drawn: number[];
+}
+
+/** Find each `svg.plot` by its data-plot-id and count what is drawn in its series groups. */
+export function inspectPlots(page: Page, specs: Array<{ id: string; series?: number[] }>): Promise<PlotInspection[]> {
+  return page.evaluate((want) => want.map(({ id, series }) => {
+    const svg = [...document.querySelectorAll('svg.plot')].find((e) => e.getAttribute('data-plot-id') === id);
+    if (!svg) return { id, present: false, w: 0, h: 0, drawn: [] as number[] };
+    const r = svg.getBoundingClientRect();
+    const count = (sel: string) => [...svg.querySelectorAll(['path', 'rect', 'circle', 'line'].map((t) => `${sel} ${t}`).join(', '))]
+      .filter((s) => { const b = s.getBBox(); return b.width > 0 || b.height > 0; }).length;
+    const drawn = series ? series.map((k) => count(`[data-series="${k}"]`)) : [count('[data-series]')];
+    return { id, present: true, w: r.width, h: r.height, drawn };
+  }), specs);
+}
+
+/** Full-page screenshot into tests/.artifacts/NAME; returns its path. */
+export async function saveScreenshot(page: Page, name: string): Promise<string> {
+  const dir = fileURLToPath(new URL('../.artifacts/', import.meta.url));
+  mkdirSync(dir, { recursive: true });
+  const path = join(dir, name);
+  await page.screenshot({ path, fullPage: true });
+  return path;
 }

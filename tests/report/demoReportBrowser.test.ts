@@ -5,29 +5,19 @@
  * drawn, user-supplied text is shown as text (HTML-escaped), and a full-page screenshot is kept in
  * tests/.artifacts/demo-report.png.
  */
-import { existsSync, mkdirSync } from 'node:fs';
-import { join } from 'node:path';
+import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
-import { HAVE_CHROMIUM, openReport } from './browserHarness.js';
+import { HAVE_CHROMIUM, inspectPlots, openReport, saveScreenshot, type PageDocument } from './browserHarness.js';
 import { loadProject } from '../../src/project/loadProject.js';
 import { runPipelineWithUncertainty } from '../../src/pipeline/runWithUncertainty.js';
 import { buildReportModel } from '../../src/pipeline/buildReportModel.js';
 import { renderHtmlReport } from '../../src/report/htmlReport.js';
 import { reportPlotIds } from '../../src/report/reportPlotIds.js';
 
-// Minimal DOM shapes used inside the page (the project's lib has no DOM types).
-interface PageNode {
-  textContent: string | null;
-  getAttribute(name: string): string | null;
-  getBoundingClientRect(): { width: number; height: number };
-  getBBox(): { width: number; height: number };
-  querySelectorAll(selector: string): ArrayLike<PageNode> & Iterable<PageNode>;
-}
-declare const document: { body: PageNode; querySelectorAll(s: string): ArrayLike<PageNode> & Iterable<PageNode> };
+declare const document: PageDocument;
 
 const EVIL = '<script>alert("x")</script> & <b>bold</b>';
-const ARTIFACTS = fileURLToPath(new URL('../.artifacts/', import.meta.url));
 
 describe('the demo report in headless Chromium', () => {
   it.skipIf(!HAVE_CHROMIUM)('loads cleanly, shows every plot with content, escapes names, and is screenshotted', async () => {
@@ -43,19 +33,12 @@ describe('the demo report in headless Chromium', () => {
     expect(ids.length).toBeGreaterThanOrEqual(10); // isotherm, fractions, removal, loadings, surrogates, pilot, daily dose, DOC, bands …
     const { browser, page, errors, requests } = await openReport(renderHtmlReport(model), { width: 1200, height: 900 });
     try {
-      const plots = await page.evaluate((want) => want.map((id) => {
-        const svg = [...document.querySelectorAll('svg.plot')].find((e) => e.getAttribute('data-plot-id') === id);
-        if (!svg) return { id, present: false, w: 0, h: 0, drawn: 0 };
-        const r = svg.getBoundingClientRect();
-        const drawn = [...svg.querySelectorAll('[data-series] path, [data-series] rect, [data-series] circle, [data-series] line')]
-          .filter((s) => { const b = s.getBBox(); return b.width > 0 || b.height > 0; }).length;
-        return { id, present: true, w: r.width, h: r.height, drawn };
-      }), ids);
+      const plots = await inspectPlots(page, ids.map((id) => ({ id })));
       for (const p of plots) {
         expect(p.present, `plot ${p.id} present`).toBe(true);
         expect(p.w, `plot ${p.id} width`).toBeGreaterThan(100);
         expect(p.h, `plot ${p.id} height`).toBeGreaterThan(100);
-        expect(p.drawn, `plot ${p.id} has drawn data`).toBeGreaterThan(0);
+        expect(p.drawn[0], `plot ${p.id} has drawn data`).toBeGreaterThan(0);
       }
       const dom = await page.evaluate(() => ({
         scripts: document.querySelectorAll('script').length,
@@ -69,9 +52,7 @@ describe('the demo report in headless Chromium', () => {
       expect(dom.body).toMatch(/licensed engineer/);
       expect(errors).toEqual([]);
       expect(requests).toEqual([]);
-      mkdirSync(ARTIFACTS, { recursive: true });
-      await page.screenshot({ path: join(ARTIFACTS, 'demo-report.png'), fullPage: true });
-      expect(existsSync(join(ARTIFACTS, 'demo-report.png'))).toBe(true);
+      expect(existsSync(await saveScreenshot(page, 'demo-report.png'))).toBe(true);
     } finally {
       await browser.close();
     }

@@ -4,7 +4,7 @@ import { cholesky, lognormalFromZ, lognormalSigma, multivariateNormalDeviation, 
 import { percentiles, percentileSorted } from '../../src/uncertainty/percentile.js';
 import { InputError } from '../../src/core/errors.js';
 
-/** xoshiro128** transcribed from the reference C code (Blackman & Vigna 2018, xoshiro128starstar.c) in BigInt, independent of the Math.imul version. */
+/** xoshiro128** written again in BigInt from the published algorithm (Blackman & Vigna 2021, ACM Trans. Math. Softw. 47(4):36), independent of the Math.imul version. */
 function referenceXoshiro(state: bigint[], count: number): number[] {
   const M = 0xffffffffn;
   const rotl = (x: bigint, k: bigint) => ((x << k) | (x >> (32n - k))) & M;
@@ -30,7 +30,7 @@ describe('seeded generator', () => {
     ]);
   });
 
-  it('xoshiro128** agrees with a BigInt transcription of the reference C code', () => {
+  it('xoshiro128** agrees with an independent BigInt implementation of the published algorithm (Blackman & Vigna 2021)', () => {
     const st = [0x12345678, 0x9abcdef0, 0x0fedcba9, 0x87654321] as const;
     const g = new Xoshiro128(st);
     const ours = Array.from({ length: 1000 }, () => g.nextUint32());

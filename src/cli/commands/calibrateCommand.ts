@@ -5,9 +5,8 @@ import type { CalibrationModel, CalibrationResult } from '../../calibration/cali
 import { readComponent } from '../../scenario/readMixture.js';
 import { parseQuantity } from '../../units/parseQuantity.js';
 import { readJsonFile, readTextFile } from '../../io/readFiles.js';
-import { writeFileAtomic } from '../../io/writeOutputs.js';
 import { fmt, fmtConc, table } from '../format.js';
-import { inFile } from './shared.js';
+import { emitJson, inFile } from './shared.js';
 
 const MODELS: CalibrationModel[] = ['ebc', 'sebc', 'fictive-k'];
 
@@ -29,15 +28,15 @@ export const calibrateCommand: CommandSpec = {
     const { readBackground } = await import('../../fractionation/backgroundFile.js');
     const file = args[0]!;
     const model = opts.model as string | undefined;
-    if (model === undefined) throw new InputError(`missing --model; expected one of ${MODELS.join(', ')}`, { column: '--model' });
-    if (!MODELS.includes(model as CalibrationModel)) throw new InputError(`unknown model "${model}"; expected one of ${MODELS.join(', ')}`, { column: '--model' });
-    if (typeof opts.compound !== 'string' || opts.compound === '') throw new InputError('missing --compound; expected a compound file { "id", "K", "one_over_n" }', { column: '--compound' });
+    if (model === undefined) throw new InputError(`missing --model; expected one of ${MODELS.join(', ')}`, { option: '--model' });
+    if (!MODELS.includes(model as CalibrationModel)) throw new InputError(`unknown model "${model}"; expected one of ${MODELS.join(', ')}`, { option: '--model' });
+    if (typeof opts.compound !== 'string' || opts.compound === '') throw new InputError('missing --compound; expected a compound file { "id", "K", "one_over_n" }', { option: '--compound' });
     let docMgPerL: number | undefined;
     if (opts.doc !== undefined) {
       try {
         docMgPerL = parseQuantity(String(opts.doc), 'massConcentration', { allowZero: false });
       } catch (e) {
-        if (e instanceof InputError) throw new InputError(e.expected, { column: '--doc' });
+        if (e instanceof InputError) throw new InputError(e.expected, { option: '--doc' });
         throw e;
       }
     }
@@ -48,12 +47,10 @@ export const calibrateCommand: CommandSpec = {
     if (opts.background !== undefined) {
       const bgFile = String(opts.background);
       background = inFile(bgFile, () => readBackground(readJsonFile(bgFile, 'background file')));
-    } else if (model === 'fictive-k') throw new InputError('model fictive-k needs --background FILE (the output of sorbshare fractionate)', { column: '--background' });
+    } else if (model === 'fictive-k') throw new InputError('model fictive-k needs --background FILE (the output of sorbshare fractionate)', { option: '--background' });
     const text = readTextFile(file, 'jar-test file');
     const result = inFile(file, () => calibrate(text, { model: model as CalibrationModel, compound, ...(background !== undefined ? { background } : {}), ...(docMgPerL !== undefined ? { docMgPerL } : {}), file }));
-    const json = JSON.stringify(result, null, 2);
-    if (opts.out !== undefined) writeFileAtomic(String(opts.out), json + '\n');
-    ctx.out(opts.json ? json : render(result, opts.out as string | undefined));
+    emitJson(result, opts, ctx, (out) => render(result, out));
   },
 };
 

@@ -3,24 +3,10 @@ import type { CommandSpec } from '../commandSpec.js';
 import { InputError } from '../../core/errors.js';
 import type { FractionateResult } from '../../fractionation/fractionate.js';
 import { readTextFile } from '../../io/readFiles.js';
-import { writeFileAtomic } from '../../io/writeOutputs.js';
 import { fmt, table } from '../format.js';
-import { inFile } from './shared.js';
+import { emitJson, inFile, optionValue } from './shared.js';
 
 const OPTION_OF_PATH: Record<string, string> = { exponent: '--exponent', components: '--components', kGrid: '--k-grid' };
-
-/** Run `f`; an InputError about an option (JSON path without a file) names the option. */
-function asOption<T>(f: () => T): T {
-  try {
-    return f();
-  } catch (e) {
-    if (e instanceof InputError && e.location.path && !e.location.file) {
-      const opt = OPTION_OF_PATH[e.location.path.replace(/\[.*$/, '').split('.')[0]!];
-      if (opt) throw new InputError(e.expected, { column: opt });
-    }
-    throw e;
-  }
-}
 
 export const fractionateCommand: CommandSpec = {
   name: 'fractionate',
@@ -28,7 +14,7 @@ export const fractionateCommand: CommandSpec = {
   summary: 'Reduce a DOC (and UV254) batch isotherm to fictive components: non-adsorbable share plus adsorbable components (adsorption analysis, IAST)',
   options: [
     { flags: '--exponent <value>', description: 'common Freundlich exponent 1/n of the fictive components (common practice 0.2)', default: '0.2' },
-    { flags: '--components <n>', description: 'number of adsorbable components, 1–5, or "auto" (AICc)', default: '3' },
+    { flags: '--components <n>', description: 'number of adsorbable components, 1–5, or "auto" (AICc); default 3, or the length of --k-grid' },
     { flags: '--fit-k', description: 'fit the K values instead of keeping the grid' },
     { flags: '--k-grid <list>', description: 'comma-separated K grid in (mg/g)/(mg/L)^(1/n), one per component, e.g. "10,30,100"' },
     { flags: '--json', description: 'print the background file (JSON) instead of text' },
@@ -39,28 +25,26 @@ export const fractionateCommand: CommandSpec = {
     const { fractionate } = await import('../../fractionation/fractionate.js');
     const file = args[0]!;
     const exponent = Number(opts.exponent);
-    if (String(opts.exponent).trim() === '' || !Number.isFinite(exponent)) throw new InputError(`expected a number such as 0.2, got "${String(opts.exponent)}"`, { column: '--exponent' });
+    if (String(opts.exponent).trim() === '' || !Number.isFinite(exponent)) throw new InputError(`expected a number such as 0.2, got "${String(opts.exponent)}"`, { option: '--exponent' });
     let components: number | 'auto' | undefined;
-    const rawComp = String(opts.components ?? '3').trim();
+    const rawComp = String(opts.components ?? '3').trim(); // default 3 (common practice), unless --k-grid sets it
     if (rawComp === 'auto') components = 'auto';
     else {
       components = Number(rawComp);
-      if (!/^\d+$/.test(rawComp)) throw new InputError(`expected a whole number 1–5 or "auto", got "${rawComp}"`, { column: '--components' });
+      if (!/^\d+$/.test(rawComp)) throw new InputError(`expected a whole number 1–5 or "auto", got "${rawComp}"`, { option: '--components' });
     }
     let kGrid: number[] | undefined;
     if (opts.kGrid !== undefined) {
       kGrid = String(opts.kGrid).split(/[,;\s]+/).filter((s) => s !== '').map((s) => {
         const v = Number(s);
-        if (!Number.isFinite(v) || !(v > 0)) throw new InputError(`expected positive numbers separated by commas, got "${s}"`, { column: '--k-grid' });
+        if (!Number.isFinite(v) || !(v > 0)) throw new InputError(`expected positive numbers separated by commas, got "${s}"`, { option: '--k-grid' });
         return v;
       });
-      if (opts.components === '3' && components === 3 && kGrid.length !== 3) components = kGrid.length; // the grid sets M when --components is left at its default
+      if (opts.components === undefined) components = kGrid.length; // the grid sets M unless --components is given
     }
     const text = readTextFile(file, 'isotherm file');
-    const result = inFile(file, () => asOption(() => fractionate(text, { exponent, components, fitK: Boolean(opts.fitK), ...(kGrid ? { kGrid } : {}), file })));
-    const json = JSON.stringify(result, null, 2);
-    if (opts.out !== undefined) writeFileAtomic(String(opts.out), json + '\n');
-    ctx.out(opts.json ? json : render(result, opts.out as string | undefined));
+    const result = inFile(file, () => optionValue(() => fractionate(text, { exponent, components, fitK: Boolean(opts.fitK), ...(kGrid ? { kGrid } : {}), file }), OPTION_OF_PATH));
+    emitJson(result, opts, ctx, (out) => render(result, out));
   },
 };
 

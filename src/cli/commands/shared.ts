@@ -1,4 +1,6 @@
 import { InputError } from '../../core/errors.js';
+import { writeFileAtomic } from '../../io/writeOutputs.js';
+import type { CommandContext } from '../commandSpec.js';
 
 /** Run `f`; an InputError without a file gains `file`. */
 export function inFile<T>(file: string, f: () => T): T {
@@ -10,17 +12,29 @@ export function inFile<T>(file: string, f: () => T): T {
   }
 }
 
-const OPTION_OF_PATH: Record<string, string> = { dose: '--dose', from: '--from', to: '--to', points: '--points', target: '--target', removal: '--removal', limit: '--limit' };
+/** Library argument names (the first JSON-path segment of an error) and the options that set them. */
+const DOSE_OPTIONS: Record<string, string> = { dose: '--dose', from: '--from', to: '--to', points: '--points', target: '--target', removal: '--removal', limit: '--limit' };
 
-/** Run `f`; an InputError about a command-line value names the option instead of a JSON path. */
-export function optionValue<T>(f: () => T): T {
+/**
+ * Run `f`; an InputError about a command-line value (a JSON path without a file) names the
+ * option instead of the path. `options` maps argument names to option flags.
+ */
+export function optionValue<T>(f: () => T, options: Record<string, string> = DOSE_OPTIONS): T {
   try {
     return f();
   } catch (e) {
     if (e instanceof InputError && e.location.path && !e.location.file) {
-      const opt = OPTION_OF_PATH[e.location.path.split('.')[0]!];
+      const opt = options[e.location.path.replace(/\[.*$/, '').split('.')[0]!];
       if (opt) throw new InputError(e.expected, { option: opt });
     }
     throw e;
   }
+}
+
+/** A JSON result: written whole to `--out` when given, printed as JSON or as `text(outPath)`. */
+export function emitJson(result: unknown, opts: Record<string, unknown>, ctx: CommandContext, text: (out: string | undefined) => string): void {
+  const json = JSON.stringify(result, null, 2);
+  const out = opts.out === undefined ? undefined : String(opts.out);
+  if (out !== undefined) writeFileAtomic(out, json + '\n');
+  ctx.out(opts.json ? json : text(out));
 }

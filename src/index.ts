@@ -30,9 +30,9 @@ export { makeIsothermModel, type IsothermModel } from './fractionation/isothermM
 export { calibrate, POOR_FIT_RMSE_LN, type CalibrateOptions, type CalibrationResult, type CalibrationModel, type CalibrationRow } from './calibration/calibrate.js';
 export { ebcComponent } from './calibration/ebcComponent.js';
 export { readJarTests, JAR_TEST_COLUMNS, type JarTestInput, type JarTestPoint, type JarTestData } from './calibration/jarTestData.js';
-export { fitLeastSquares, type LeastSquaresProblem, type LeastSquaresFit } from './calibration/leastSquares.js';
-export { nnls, type NnlsResult } from './calibration/nnls.js';
-export { studentTQuantile, studentTCdf } from './calibration/studentT.js';
+export { fitLeastSquares, type LeastSquaresProblem, type LeastSquaresFit } from './numerics/leastSquares.js';
+export { nnls, type NnlsResult } from './numerics/nnls.js';
+export { studentTQuantile, studentTCdf } from './numerics/studentT.js';
 
 // ── project, pipeline, report (capabilities 8–10, 14, 15) — add exports below this line
 export { validateProject, loadProject, DEFAULT_REMOVAL_PERCENT, DEFAULT_SWEEP, type ProjectSpec, type SiteSpec, type BackgroundSpec, type CarbonSpec, type CompoundSpec, type GoalsSpec, type CalibrationModelName } from './project/index.js';

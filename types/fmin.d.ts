@@ -1,6 +1,6 @@
 // Minimal typings for the untyped `fmin` package (Ben Frederickson's minimisers).
 // fmin 0.0.4 ships a UMD bundle under "type": "module": import it through
-// src/calibration/fminNelderMead.ts, which resolves the real export at run time.
+// src/numerics/fminNelderMead.ts, which resolves the real export at run time.
 declare module 'fmin' {
   export interface FminParams {
     maxIterations?: number;

@@ -24,9 +24,9 @@ import type { FreundlichComponent } from '../equilibrium/preparedMixture.js';
 import { readComponent } from '../scenario/readMixture.js';
 import { readBackground, type BackgroundFile } from '../fractionation/backgroundFile.js';
 import { backgroundComponents } from '../fractionation/backgroundPrediction.js';
-import { fitLeastSquares, forwardJacobian } from './leastSquares.js';
-import { invertSymmetric, normalEquations } from './linearSystem.js';
-import { studentTQuantile } from './studentT.js';
+import { fitLeastSquares, forwardJacobian } from '../numerics/leastSquares.js';
+import { invertSymmetric, normalEquations } from '../numerics/linearSystem.js';
+import { studentTQuantile } from '../numerics/studentT.js';
 import { readJarTests, type JarTestInput } from './jarTestData.js';
 import { makeJarTestModel, type MixtureBuilder } from './jarTestModel.js';
 

@@ -9,7 +9,7 @@
  * (the goal is infeasible for this mixture) and ComputationError if the search fails.
  */
 import { ComputationError, InputError } from '../core/errors.js';
-import { brentRoot } from '../core/brent.js';
+import { brentRoot } from '../numerics/brent.js';
 import type { PreparedMixture } from '../equilibrium/preparedMixture.js';
 import { solveBatchPrepared, type BatchSolution } from '../equilibrium/iastBatch.js';
 

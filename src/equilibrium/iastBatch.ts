@@ -23,7 +23,7 @@
  * in solution. Throws ComputationError if no converged root is found.
  */
 import { ComputationError, InputError } from '../core/errors.js';
-import { brentRoot, bracketMonotone } from '../core/brent.js';
+import { brentRoot, bracketMonotone } from '../numerics/brent.js';
 import { softplus } from '../core/logistic.js';
 import type { PreparedMixture } from './preparedMixture.js';
 import { directIastPrepared } from './iastDirect.js';

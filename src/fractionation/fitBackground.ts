@@ -16,9 +16,9 @@
  * @throws ComputationError when the fit does not converge
  */
 import { ComputationError } from '../core/errors.js';
-import { fitLeastSquares, forwardJacobian } from '../calibration/leastSquares.js';
-import { invertSymmetric, normalEquations } from '../calibration/linearSystem.js';
-import { studentTQuantile } from '../calibration/studentT.js';
+import { fitLeastSquares, forwardJacobian } from '../numerics/leastSquares.js';
+import { invertSymmetric, normalEquations } from '../numerics/linearSystem.js';
+import { studentTQuantile } from '../numerics/studentT.js';
 import { makeIsothermModel, type IsothermModel } from './isothermModel.js';
 import type { IsothermRow } from './isothermData.js';
 

@@ -7,7 +7,7 @@
  * UV254 values: equilibrium rows (dose > 0), dose-0 rows and UV254_0 values (c_i = φ_i·DOC0).
  * Units: UV254 in 1/m.
  */
-import { nnls } from '../calibration/nnls.js';
+import { nnls } from '../numerics/nnls.js';
 
 export interface Uv254Observation {
   row: number;

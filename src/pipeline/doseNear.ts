@@ -8,7 +8,7 @@
  * Doses g/L. Returns status 'unreachable' when h < 0 at the largest dose searched and
  * 'below-min' when h ≥ 0 at the smallest; throws ComputationError if Brent fails.
  */
-import { brentRoot } from '../core/brent.js';
+import { brentRoot } from '../numerics/brent.js';
 import { MAX_DOSE_G_PER_L, MIN_DOSE_G_PER_L } from '../dose/doseSearch.js';
 
 export interface DoseNearResult {

@@ -9,7 +9,7 @@
  * conservative choice). When more substances are available than needed, the best and worst
  * admissible subsets are reported too.
  */
-import { brentRoot } from '../core/brent.js';
+import { brentRoot } from '../numerics/brent.js';
 import { solveBatchPrepared } from '../equilibrium/iastBatch.js';
 import { MAX_DOSE_G_PER_L, MIN_DOSE_G_PER_L } from '../dose/doseSearch.js';
 import type { PreparedMixture } from '../equilibrium/preparedMixture.js';

@@ -35,7 +35,7 @@ import { parallelMonteCarlo } from '../uncertainty/parallelMonteCarlo.js';
 import { compileDrawModel, sampleParameters } from '../uncertainty/monteCarloDraw.js';
 import { NormalSampler } from '../uncertainty/distributions.js';
 import { chunkRng } from '../uncertainty/prng.js';
-import { percentiles } from '../uncertainty/percentile.js';
+import { percentiles } from '../numerics/percentile.js';
 import { prepareMixture } from '../equilibrium/preparedMixture.js';
 import { solveBatchPrepared } from '../equilibrium/iastBatch.js';
 

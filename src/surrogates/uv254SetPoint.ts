@@ -13,7 +13,7 @@
  * Units: doses mg/L; reductions and goals are fractions (0–1).
  */
 import { InputError } from '../core/errors.js';
-import { brentRoot } from '../core/brent.js';
+import { brentRoot } from '../numerics/brent.js';
 import type { FreundlichComponent } from '../equilibrium/preparedMixture.js';
 import { prepareMixture } from '../equilibrium/preparedMixture.js';
 import { doseForRemoval, MAX_DOSE_G_PER_L, MIN_DOSE_G_PER_L } from '../dose/doseSearch.js';

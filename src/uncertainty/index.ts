@@ -1,6 +1,5 @@
 export * from './prng.js';
 export * from './distributions.js';
-export * from './percentile.js';
 export * from './monteCarloProblem.js';
 export * from './yearlyCarbon.js';
 export { compileDrawModel, sampleParameters, evaluateDraw, runChunk, doseOrInfinity, type DrawModel, type DrawnParameters, type QuantityDef, type ChunkResult } from './monteCarloDraw.js';

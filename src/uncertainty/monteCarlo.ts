@@ -10,7 +10,7 @@
 import { InputError } from '../core/errors.js';
 import { compileDrawModel, evaluateDraw, runChunk, sampleParameters, type ChunkResult, type DrawModel } from './monteCarloDraw.js';
 import type { MonteCarloProblem } from './monteCarloProblem.js';
-import { PERCENTILE_METHOD, percentileSorted } from './percentile.js';
+import { PERCENTILE_METHOD, percentileSorted } from '../numerics/percentile.js';
 
 /** Draws per chunk (each chunk has its own random stream). */
 export const CHUNK_SIZE = 250;

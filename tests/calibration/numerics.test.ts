@@ -3,10 +3,10 @@
  * the linear solvers and the least-squares driver.
  */
 import { describe, expect, it } from 'vitest';
-import { studentTQuantile, studentTCdf } from '../../src/calibration/studentT.js';
-import { nnls } from '../../src/calibration/nnls.js';
-import { invertSymmetric, solveLinear, symmetricEigen } from '../../src/calibration/linearSystem.js';
-import { fitLeastSquares } from '../../src/calibration/leastSquares.js';
+import { studentTQuantile, studentTCdf } from '../../src/numerics/studentT.js';
+import { nnls } from '../../src/numerics/nnls.js';
+import { invertSymmetric, solveLinear, symmetricEigen } from '../../src/numerics/linearSystem.js';
+import { fitLeastSquares } from '../../src/numerics/leastSquares.js';
 
 describe('Student t quantiles', () => {
   it('match Abramowitz & Stegun (1964) Table 26.10, two-sided 95 % (Q = 0.025 per tail)', () => {

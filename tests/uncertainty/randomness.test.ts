@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { chunkRng, seededRng, SplitMix64, Xoshiro128 } from '../../src/uncertainty/prng.js';
 import { cholesky, lognormalFromZ, lognormalSigma, multivariateNormalDeviation, NormalSampler } from '../../src/uncertainty/distributions.js';
-import { percentiles, percentileSorted } from '../../src/uncertainty/percentile.js';
+import { percentiles, percentileSorted } from '../../src/numerics/percentile.js';
 import { InputError } from '../../src/core/errors.js';
 
 /** xoshiro128** written again in BigInt from the published algorithm (Blackman & Vigna 2021, ACM Trans. Math. Softw. 47(4):36), independent of the Math.imul version. */

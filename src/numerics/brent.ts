@@ -3,7 +3,7 @@
  * ch. 4): inverse quadratic interpolation and secant steps kept inside a sign-changing bracket,
  * with bisection whenever they stall, so the root cannot be lost.
  */
-import { ComputationError } from './errors.js';
+import { ComputationError } from '../core/errors.js';
 
 export interface RootResult {
   x: number;

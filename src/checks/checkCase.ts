@@ -1,8 +1,10 @@
 /**
- * Published check cases (capability 15): each case names its source, the quantity computed by
- * the library, the expected value from the source and a tolerance. `runCheckCase` computes the
- * value with the library's public functions and compares. Pure: the CLI reads the files
- * (fixtures/checks/*.json).
+ * Reference check cases (capability 15). A case is a fixture pair in `fixtures/checks/<case>/`:
+ * `input.json` names the source, the provenance of the expected value, the quantity the library
+ * computes and a tolerance; `expected.json` holds the expected value, computed independently of
+ * the library by `scripts/checkExpected.ts` and rewritten only with `UPDATE_FIXTURES=1`.
+ * `runCheckCase` computes the value with the library's public functions and compares. Pure: the
+ * CLI reads the files.
  */
 import { InputError } from '../core/errors.js';
 import { freundlichKFromInternal, freundlichKToInternal, type KUnit } from '../units/freundlichK.js';
@@ -10,10 +12,21 @@ import { equilibrium, loadingsAt } from '../api/equilibriumApi.js';
 import { indicatorMean } from '../indicators/indicatorRule.js';
 import { isObject } from '../scenario/readMixture.js';
 
+/**
+ * Where an expected value comes from, said honestly:
+ * - `published table`: the value itself is printed in the source;
+ * - `closed form`: an exact solution of the model's equations, evaluated to machine precision;
+ * - `computed from a published rule`: the source gives the equation or rule (and perhaps the
+ *   parameters), and the value was computed from it.
+ */
+export const PROVENANCES = ['published table', 'closed form', 'computed from a published rule'] as const;
+export type Provenance = (typeof PROVENANCES)[number];
+
 export interface CheckCase {
   id: string;
   title: string;
   source: string;
+  provenance: Provenance;
   kind: CheckKind;
   input: Record<string, unknown>;
   expected: number;
@@ -26,6 +39,7 @@ export interface CheckOutcome {
   id: string;
   title: string;
   source: string;
+  provenance: Provenance;
   unit: string;
   expected: number;
   computed: number | null;
@@ -95,23 +109,47 @@ function pick<T extends { id: string }>(list: T[], id: string): T {
   return x;
 }
 
-/** Check the shape of a parsed case file. @throws InputError naming the JSON path */
-export function readCheckCase(raw: unknown): CheckCase {
+const INPUT_KEYS = ['id', 'title', 'source', 'provenance', 'kind', 'input', 'unit', 'tolerance', 'note'];
+const EXPECTED_KEYS = ['expected', 'computed_by'];
+
+function onlyKnownKeys(raw: Record<string, unknown>, keys: string[], what: string): void {
+  for (const k of Object.keys(raw)) if (!keys.includes(k)) throw new InputError(`unknown key "${k}" in ${what}; expected ${keys.join(', ')}`, { path: k });
+}
+
+/** Check a parsed `input.json` (the case without its expected value). @throws InputError naming the JSON path */
+export function readCheckInput(raw: unknown): Omit<CheckCase, 'expected'> {
   if (!isObject(raw)) throw new InputError('expected a check case object', { path: '$' });
+  onlyKnownKeys(raw, INPUT_KEYS, 'a check case');
   for (const key of ['id', 'title', 'source', 'unit'] as const) {
     if (typeof raw[key] !== 'string' || raw[key] === '') throw new InputError(`expected "${key}" as text`, { path: key });
   }
+  if (typeof raw.provenance !== 'string' || !(PROVENANCES as readonly string[]).includes(raw.provenance)) throw new InputError(`expected "provenance" as one of ${PROVENANCES.map((p) => `"${p}"`).join(', ')}`, { path: 'provenance' });
   if (typeof raw.kind !== 'string' || !(CHECK_KINDS as string[]).includes(raw.kind)) throw new InputError(`expected "kind" as one of ${CHECK_KINDS.join(', ')}`, { path: 'kind' });
   if (!isObject(raw.input)) throw new InputError('expected "input" as an object', { path: 'input' });
-  if (typeof raw.expected !== 'number' || !Number.isFinite(raw.expected)) throw new InputError('expected "expected" as a number', { path: 'expected' });
+  if (raw.note !== undefined && typeof raw.note !== 'string') throw new InputError('expected "note" as text', { path: 'note' });
   const tol = raw.tolerance;
   if (!isObject(tol) || (typeof tol.relative !== 'number' && typeof tol.absolute !== 'number')) throw new InputError('expected "tolerance" with "relative" and/or "absolute"', { path: 'tolerance' });
-  return raw as unknown as CheckCase;
+  onlyKnownKeys(tol, ['relative', 'absolute'], 'the tolerance');
+  return raw as unknown as Omit<CheckCase, 'expected'>;
+}
+
+/** Check a parsed `expected.json`: `{ "expected": number, "computed_by": text }`. @throws InputError naming the JSON path */
+export function readCheckExpected(raw: unknown): number {
+  if (!isObject(raw)) throw new InputError('expected an object { "expected": number, "computed_by": text }', { path: '$' });
+  onlyKnownKeys(raw, EXPECTED_KEYS, 'an expected file');
+  if (typeof raw.expected !== 'number' || !Number.isFinite(raw.expected)) throw new InputError('expected "expected" as a finite number', { path: 'expected' });
+  if (typeof raw.computed_by !== 'string' || raw.computed_by === '') throw new InputError('expected "computed_by" naming the script that computed the value', { path: 'computed_by' });
+  return raw.expected;
+}
+
+/** A whole case from its two parsed files (input.json, expected.json). Unknown keys are errors. */
+export function readCheckCase(rawInput: unknown, rawExpected: unknown): CheckCase {
+  return { ...readCheckInput(rawInput), expected: readCheckExpected(rawExpected) };
 }
 
 /** Compute one case and compare: pass when within the relative or the absolute tolerance. */
 export function runCheckCase(c: CheckCase): CheckOutcome {
-  const out: CheckOutcome = { id: c.id, title: c.title, source: c.source, unit: c.unit, expected: c.expected, computed: null, absoluteError: null, relativeError: null, tolerance: c.tolerance, pass: false };
+  const out: CheckOutcome = { id: c.id, title: c.title, source: c.source, provenance: c.provenance, unit: c.unit, expected: c.expected, computed: null, absoluteError: null, relativeError: null, tolerance: c.tolerance, pass: false };
   try {
     const v = KINDS[c.kind](c.input);
     out.computed = v;

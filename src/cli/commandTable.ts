@@ -1,5 +1,5 @@
 /**
- * The README's command and option tables, generated from the command specs (STYLE.md rule 11):
+ * The README's command and option tables, generated from the command specs (DEVELOPERS.md, "Commands and options"):
  * `npm run readme` writes them between the markers; a test keeps README and specs in step.
  */
 import { COMMANDS } from './commands/index.js';

@@ -9,7 +9,7 @@
  *   CUR         = c0_T/q_T  in g carbon per L of water; ×1000 → g/m³, which is numerically the
  *               same as kg per 1000 m³ and as an equivalent continuous dose in mg/L
  *   bed volume  = EBCT·Q;  operating life = BV·bed volume/Q = BV·EBCT
- * (DESIGN.md "GAC equilibrium column estimate"; the mass balance of an ideal saturated column,
+ * (the mass balance of an ideal saturated column,
  * e.g. Crittenden et al., MWH's Water Treatment: Principles and Design, 3rd ed. 2012, ch. 15 —
  * from memory). Beside it the single-solute estimate (target alone, Freundlich q = K·c0^(1/n)).
  *

@@ -1,13 +1,13 @@
 /**
  * The indicator-substance averaging rule of the Swiss DETEC ordinance SR 814.201.231
- * (in force 1 Dec 2016), Art. 2–3, as summarised in CHECKS.md:
+ * (in force 1 Dec 2016), Art. 2–3 (docs/references.md):
  *
  *   - at least 6 substances,
  *   - category 1 and category 2 substances in the ratio 2:1,
  *   - the result is the arithmetic mean of their percentage removals:
  *       mean = (Σ R_i) / N   over the chosen substances (R_i in %).
  *
- * Worked example (CHECKS.md): category 1 at 90, 85, 88, 92 % and category 2 at 70, 75 % give
+ * Example, computed from the rule: category 1 at 90, 85, 88, 92 % and category 2 at 70, 75 % give
  * 83.33 %.
  *
  * Pure functions on percentages; they do not know about carbon or doses.

@@ -8,7 +8,7 @@
  * A^(1 − 1/n) when one amount unit changes on both axes). Molar units (mmol/g, umol/L, …) are
  * converted with the molar mass M in g/mol (1 mmol = M mg).
  *
- * Worked value (CHECKS.md): 28.0 (mg/g)(L/mg)^0.62 = 386.51 (µg/g)(L/µg)^0.62
+ * Worked value, computed from that rule (docs/references.md): 28.0 (mg/g)(L/mg)^0.62 = 386.51 (µg/g)(L/µg)^0.62
  * = 4.3864 (mmol/g)(L/mmol)^0.62 for M = 131.39 g/mol.
  */
 import { InputError } from '../core/errors.js';

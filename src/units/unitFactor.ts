@@ -1,7 +1,7 @@
 /**
  * Conversion factors from a unit written by the user to the tool's internal unit of a kind.
  *
- * Internal units (one set for the whole core, STYLE.md rule 4):
+ * Internal units (one set for the whole core; DEVELOPERS.md, "How to add a model"):
  *   mass concentration and carbon dose: mg/L (= g/m³)
  *   loading (mass per carbon mass):     mg/g
  *   molar concentration:                mmol/L

@@ -2,10 +2,10 @@
  * Calibration of competition models to jar tests: EBC (Najm, Snoeyink & Richard 1991, J. AWWA),
  * simplified EBC (Qi et al. 2007, Water Research, from memory) and fictive components with a
  * target-K factor (Schideman et al. 2006; Worch 2010; from memory), all through batch IAST
- * (Crittenden et al. 1985). Checks: the closed form of DESIGN.md for equal K and exponent,
+ * (Crittenden et al. 1985). Checks: the closed form for equal K and exponent (Sheindorf et al. 1981),
  * closed-loop recovery, and the independence of percent removal from the initial trace
  * concentration (Knappe et al. 1998, Environ. Sci. Technol. 32(11):1694–1698; Westerhoff et al.
- * 2005, Environ. Sci. Technol. 39 — see CHECKS.md).
+ * 2005, Environ. Sci. Technol. 39; docs/references.md).
  */
 import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
@@ -116,7 +116,7 @@ describe('calibrate ebc', () => {
 });
 
 describe('calibrate sebc', () => {
-  it('reproduces the closed form f·(1 + D·K·((c0_T + c0_B)·f)^(β − 1)) = 1 for equal K and exponent (DESIGN.md; Najm et al. 1991)', () => {
+  it('reproduces the closed form f·(1 + D·K·((c0_T + c0_B)·f)^(β − 1)) = 1 for equal K and exponent (Sheindorf et al. 1981; Najm et al. 1991)', () => {
     const c0B = 0.9, c0T = 200e-6, K = TARGET.K, b = TARGET.oneOverN;
     const pts: JarTestPoint[] = DOSES.map((dMgPerL) => {
       const D = dMgPerL / 1000;

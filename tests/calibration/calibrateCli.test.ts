@@ -19,7 +19,7 @@ beforeAll(() => {
 });
 
 describe('sorbshare calibrate', () => {
-  it('ebc --json prints { model, parameters, fit, warnings } with the DESIGN.md parameter names', () => {
+  it('ebc --json prints { model, parameters, fit, warnings } with the documented parameter names', () => {
     const out = join(dir, 'ebc.json');
     const r = run('calibrate', JAR, '--model', 'ebc', '--compound', COMPOUND, '--doc', '8.2 mg/L', '--json', '--out', out);
     expect(r.code).toBe(0);

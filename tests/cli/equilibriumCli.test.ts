@@ -25,7 +25,7 @@ beforeAll(() => {
 });
 
 describe('sorbshare equilibrium', () => {
-  it('prints the DESIGN.md JSON shape and a single solute matches the Freundlich batch balance', () => {
+  it('prints the documented JSON shape and a single solute matches the Freundlich batch balance', () => {
     const f = write('single.json', { components: [{ id: 'A', c0: '3 mg/L', K: 10, one_over_n: 0.5 }] });
     const r = run('equilibrium', f, '--dose', '50 mg/L', '--json');
     expect(r.code).toBe(0);

@@ -44,7 +44,7 @@ describe('batch IAST closed forms', () => {
     }
   });
 
-  it('equal K and exponent: fraction remaining f solves f·(1 + D·K·((c0T + c0B)·f)^(β−1)) = 1 (DESIGN.md), independent of c0T when c0T ≪ c0B', () => {
+  it('equal K and exponent: fraction remaining f solves f·(1 + D·K·((c0T + c0B)·f)^(β−1)) = 1 (Sheindorf et al. 1981 closed form), independent of c0T when c0T ≪ c0B', () => {
     const K = 30, beta = 0.3, c0B = 5, D = 0.03;
     const fRef = (c0T: number) => bisectIncreasing((f) => f * (1 + D * K * Math.pow((c0T + c0B) * f, beta - 1)) - 1, 1e-12, 1);
     const fs: number[] = [];

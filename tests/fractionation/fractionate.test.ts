@@ -99,7 +99,7 @@ describe('fractionate: the background file', () => {
   const csv = readFileSync(join(FIX, 'site-effluent-isotherm.csv'), 'utf8');
   const bg = fractionate(csv, { file: 'site-effluent-isotherm.csv' });
 
-  it('has the DESIGN.md shape; shares are non-negative, sum to 1, and c0 sums to DOC0', () => {
+  it('has the background-file shape; shares are non-negative, sum to 1, and c0 sums to DOC0', () => {
     expect(Object.keys(bg)).toEqual(expect.arrayContaining(['doc0_mg_per_L', 'one_over_n', 'components', 'fit']));
     expect(Object.keys(bg.components[0]!)).toEqual(expect.arrayContaining(['id', 'K', 'one_over_n', 'fraction', 'c0_mg_per_L']));
     expect(Object.keys(bg.fit)).toEqual(expect.arrayContaining(['rmse_mg_per_L', 'points', 'max_relative_error']));

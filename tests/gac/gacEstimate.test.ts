@@ -17,7 +17,7 @@ function background(docMgPerL: number): FreundlichComponent[] {
 describe('GAC equilibrium estimate', () => {
   it('single solute: BV = ρ·K·c0^(1/n)/c0 (Freundlich closed form); TCE on bituminous GAC', () => {
     // K = 28.0 (mg/g)(L/mg)^0.62, 1/n = 0.62: Love et al. 1983 as tabulated in Hendricks, Water
-    // Treatment Unit Processes (CHECKS.md). c0 = 0.5 mg/L → q = 18.2188 mg/g (CHECKS.md).
+    // Treatment Unit Processes (docs/references.md). c0 = 0.5 mg/L → q = 28.0 · 0.5^0.62 = 18.2188 mg/g (computed).
     const tce = { id: 'TCE', K: 28.0, oneOverN: 0.62, c0MgPerL: 0.5 };
     const r = gacEstimate({ targets: [tce], background: [{ id: 'NA', K: 0, oneOverN: 1, c0MgPerL: 5 }], bedDensityKgPerM3: 450, ebctMin: 15, flowM3PerD: 10000 });
     const t = r.targets[0]!;
@@ -38,7 +38,7 @@ describe('GAC equilibrium estimate', () => {
   });
 
   it('with one common exponent equals the Sheindorf–Rebhun–Sheintuch closed form (1981)', () => {
-    // q_i = c_i·K_i^(1/β)·(Σ_j c_j K_j^(1/β))^(β − 1), β = 0.2 for target and background (DESIGN.md)
+    // q_i = c_i·K_i^(1/β)·(Σ_j c_j K_j^(1/β))^(β − 1), β = 0.2 for target and background (Sheindorf et al. 1981)
     const target = { id: 'T', K: 30, oneOverN: 0.2, c0MgPerL: 2e-4 };
     const bg = background(8);
     const r = gacEstimate({ targets: [target], background: bg, bedDensityKgPerM3: 480 });

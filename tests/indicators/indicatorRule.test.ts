@@ -4,7 +4,7 @@ import { admissibleRange, evaluateIndicatorSet, indicatorMean, type IndicatorVal
 import { InputError } from '../../src/core/errors.js';
 
 // Worked example: Swiss DETEC ordinance SR 814.201.231 (in force 1 Dec 2016), Art. 3, as given in
-// CHECKS.md: category 1 at 90, 85, 88, 92 % and category 2 at 70, 75 % give 83.33 %.
+// SR 814.201.231 Art. 3 rule, example computed from it: category 1 at 90, 85, 88, 92 % and category 2 at 70, 75 % give 500/6 = 83.33 %.
 const EXAMPLE: IndicatorValue[] = [
   { id: 'carbamazepine', category: 1, removalPercent: 90 },
   { id: 'diclofenac', category: 1, removalPercent: 85 },
@@ -15,7 +15,7 @@ const EXAMPLE: IndicatorValue[] = [
 ];
 
 describe('SR 814.201.231 indicator averaging rule', () => {
-  it('gives 83.33 % for the worked example of CHECKS.md (published to two decimals)', () => {
+  it('gives 83.33 % for the example computed from the rule (500/6)', () => {
     expect(indicatorMean(EXAMPLE)).toBeCloseTo(83.33, 2);
     const ev = evaluateIndicatorSet(EXAMPLE);
     expect(ev.admissible).toBe(true);

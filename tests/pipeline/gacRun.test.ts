@@ -4,8 +4,8 @@
  * Independent recomputation: the compound T20 has the fictive components' exponent (1/n = 0.2),
  * so with a common exponent β its loading in equilibrium with the feed has the closed form
  *   q_i = c_i·K_i^(1/β)·(Σ_j c_j·K_j^(1/β))^(β − 1)
- * (Sheindorf, Rebhun & Sheintuch, J. Colloid Interface Sci. 1981; DESIGN.md "Closed forms"), and
- * BV = ρ_bed·q/c0, CUR = c0/q (DESIGN.md "GAC equilibrium column estimate").
+ * (Sheindorf, Rebhun & Sheintuch, J. Colloid Interface Sci. 1981), and
+ * BV = ρ_bed·q/c0, CUR = c0/q (mass balance of an ideal saturated column).
  */
 import { describe, expect, it } from 'vitest';
 import { join } from 'node:path';

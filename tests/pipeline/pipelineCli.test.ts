@@ -130,7 +130,7 @@ describe('sorbshare check', () => {
     expect(r.code).toBe(0);
     expect(r.out).toMatch(/PASS {2}sr814-indicator-mean/);
     expect(r.out).toMatch(/source: {3}Chen, Z\., Xing, B\., McGill/);
-    expect(r.out).toMatch(/expected: 83\.33 %/);
+    expect(r.out).toMatch(/provenance: computed from a published rule\n {6}expected: 83\.33333333 %/);
     expect(r.out).not.toMatch(/FAIL/);
   });
 

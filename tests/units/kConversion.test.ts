@@ -3,7 +3,7 @@ import fc from 'fast-check';
 import { freundlichKToInternal, freundlichKFromInternal } from '../../src/units/freundlichK.js';
 
 describe('Freundlich K unit conversion', () => {
-  it('DESIGN.md worked value: 10 (µg/mg)/(µg/L)^0.5 is 316.2 (mg/g)/(mg/L)^0.5 and both give q = 10 mg/g at 1 µg/L', () => {
+  it('worked value computed from the Chen et al. 1999 rule: 10 (µg/mg)/(µg/L)^0.5 is 316.2 (mg/g)/(mg/L)^0.5 and both give q = 10 mg/g at 1 µg/L', () => {
     // K' = K·f_q/f_c^(1/n) with f_q(µg/mg→mg/g) = 1 and f_c(µg/L→mg/L) = 1e-3: 10/1e-3^0.5 = 316.227766…
     const K = freundlichKToInternal(10, 0.5, { q: 'ug/mg', c: 'ug/L' });
     expect(K).toBeCloseTo(316.2277660168, 9);
@@ -11,13 +11,13 @@ describe('Freundlich K unit conversion', () => {
     expect(qMgPerG).toBeCloseTo(10, 12);
   });
 
-  it('Chen, Xing & McGill 1999 (J. Environ. Qual. 28:1422) rule, CHECKS.md worked TCE values', () => {
+  it('Chen, Xing & McGill 1999 (J. Environ. Qual. 28:1422) rule, worked TCE values computed from it', () => {
     // TCE K = 28.0 (mg/g)(L/mg)^0.62 (Love et al. 1983 via Hendricks, Water Treatment Unit Processes)
     const Kug = freundlichKFromInternal(28.0, 0.62, { q: 'ug/g', c: 'ug/L' });
-    expect(Kug).toBeCloseTo(386.51, 2); // CHECKS.md: 386.51 (µg/g)(L/µg)^0.62
+    expect(Kug).toBeCloseTo(386.51, 2); // 386.51 (µg/g)(L/µg)^0.62 to 5 digits, computed from the rule
     const Kmmol = freundlichKFromInternal(28.0, 0.62, { q: 'mmol/g', c: 'mmol/L' }, 131.39);
-    expect(Kmmol).toBeCloseTo(4.3864, 4); // CHECKS.md: 4.3864 (mmol/g)(L/mmol)^0.62
-    // all three give q = 18.2188 mg/g at c = 0.5 mg/L (CHECKS.md)
+    expect(Kmmol).toBeCloseTo(4.3864, 4); // 4.3864 (mmol/g)(L/mmol)^0.62 to 5 digits, computed from the rule
+    // all three give q = 18.2188 mg/g at c = 0.5 mg/L (computed: 28.0 · 0.5^0.62)
     expect(28.0 * Math.pow(0.5, 0.62)).toBeCloseTo(18.2188, 4);
     expect(Kug * Math.pow(500, 0.62) / 1000).toBeCloseTo(18.2188, 4); // µg/g → mg/g
     expect(Kmmol * Math.pow(0.5 / 131.39, 0.62) * 131.39).toBeCloseTo(18.2188, 4);

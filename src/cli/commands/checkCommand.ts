@@ -1,11 +1,12 @@
-/** `sorbshare check [--json]` — run the published check cases shipped in fixtures/checks/. */
+/** `sorbshare check [--json]` — run the reference check cases shipped in fixtures/checks/<case>/ (input.json, expected.json). */
 import { readdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { CommandSpec } from '../commandSpec.js';
 import { ComputationError, InputError } from '../../core/errors.js';
 import { readJsonFile } from '../../io/readFiles.js';
-import type { CheckOutcome } from '../../checks/checkCase.js';
+import { PROVENANCES, type CheckOutcome } from '../../checks/checkCase.js';
+import { inFile } from './shared.js';
 import { fmt } from '../format.js';
 
 /** The shipped check cases, three folders above this file in both src/ and dist/ layouts. */
@@ -24,36 +25,36 @@ function render(outcomes: CheckOutcome[]): string {
   for (const o of outcomes) {
     lines.push(`${o.pass ? 'PASS' : 'FAIL'}  ${o.id}: ${o.title}`);
     lines.push(`      source:   ${o.source}`);
+    lines.push(`      provenance: ${o.provenance}`);
     lines.push(`      expected: ${fmtValue(o.expected)} ${o.unit}   computed: ${fmtValue(o.computed)} ${o.unit}   ${o.error ? `error: ${o.error}` : `relative difference ${o.relativeError === null ? '—' : fmt(o.relativeError, 2)}`}`);
   }
   const failed = outcomes.filter((o) => !o.pass).length;
-  lines.push('', `${outcomes.length - failed} of ${outcomes.length} published check cases agree${failed ? `; ${failed} failed` : ''}.`);
+  const byProvenance = PROVENANCES.map((p) => [p, outcomes.filter((o) => o.provenance === p).length] as const).filter(([, n]) => n > 0);
+  lines.push('', `${outcomes.length - failed} of ${outcomes.length} check cases agree${failed ? `; ${failed} failed` : ''} (${byProvenance.map(([p, n]) => `${n} ${p}`).join(', ')}).`);
   return lines.join('\n');
 }
 
 export const checkCommand: CommandSpec = {
   name: 'check',
   args: [],
-  summary: 'Run the shipped published check cases and print expected and computed values with their sources',
+  summary: 'Run the shipped reference check cases and print expected and computed values with their sources and the provenance of each expected value',
   options: [{ flags: '--json', description: 'print JSON instead of text' }],
   examples: ['sorbshare check', 'sorbshare check --json'],
   async action(_args, opts, ctx) {
-    const { readCheckCase, runCheckCase } = await import('../../checks/checkCase.js');
+    const { readCheckInput, readCheckExpected, runCheckCase } = await import('../../checks/checkCase.js');
     const dir = checksDir();
     let names: string[];
     try {
-      names = readdirSync(dir).filter((n) => n.endsWith('.json')).sort();
+      names = readdirSync(dir, { withFileTypes: true }).filter((d) => d.isDirectory()).map((d) => d.name).sort();
     } catch {
       throw new InputError('check cases folder not found; expected fixtures/checks/ beside the installed package', { file: dir });
     }
     const outcomes = names.map((n) => {
-      const file = join(dir, n);
-      try {
-        return runCheckCase(readCheckCase(readJsonFile(file, 'check case')));
-      } catch (e) {
-        if (e instanceof InputError && !e.location.file) throw e.at({ file });
-        throw e;
-      }
+      const inputFile = join(dir, n, 'input.json');
+      const expectedFile = join(dir, n, 'expected.json');
+      const c = inFile(inputFile, () => readCheckInput(readJsonFile(inputFile, 'check case')));
+      const expected = inFile(expectedFile, () => readCheckExpected(readJsonFile(expectedFile, 'expected value of a check case')));
+      return runCheckCase({ ...c, expected });
     });
     const failed = outcomes.filter((o) => !o.pass);
     const text = opts.json ? JSON.stringify({ cases: outcomes, passed: outcomes.length - failed.length, failed: failed.length }, null, 2) : render(outcomes);

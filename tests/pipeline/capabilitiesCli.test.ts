@@ -5,17 +5,13 @@
  * where the problem is, and write nothing. Fixture: fixtures/project/surrogates-gac-mc (invented).
  */
 import { describe, expect, it } from 'vitest';
-import { spawnSync } from 'node:child_process';
 import { cpSync, existsSync, mkdtempSync, readFileSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { runBin } from '../helpers/cliHarness.js';
 import { FIXTURE, syntheticPilotCsv } from './syntheticPilot.js';
 
-const BIN = join(process.cwd(), 'dist/cli/bin.js');
-const run = (...args: string[]) => {
-  const r = spawnSync(process.execPath, [BIN, ...args], { encoding: 'utf8' });
-  return { code: r.status, out: r.stdout, err: r.stderr };
-};
+const run = runBin; // fails with a clear message when dist is missing or older than src
 function copy(): { dir: string; project: string } {
   const dir = mkdtempSync(join(tmpdir(), 'sorbshare-cap-'));
   cpSync(FIXTURE, join(dir, 'p'), { recursive: true });

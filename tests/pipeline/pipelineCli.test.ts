@@ -3,17 +3,13 @@
  * is spawned (build first: `npm run build`). Outputs go to temporary folders.
  */
 import { describe, expect, it } from 'vitest';
-import { spawnSync } from 'node:child_process';
 import { cpSync, existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { runBin } from '../helpers/cliHarness.js';
 
-const BIN = join(process.cwd(), 'dist/cli/bin.js');
 const DEMO = join(process.cwd(), 'fixtures/demo');
-const run = (...args: string[]) => {
-  const r = spawnSync(process.execPath, [BIN, ...args], { encoding: 'utf8' });
-  return { code: r.status, out: r.stdout, err: r.stderr };
-};
+const run = runBin; // fails with a clear message when dist is missing or older than src
 const tmp = () => mkdtempSync(join(tmpdir(), 'sorbshare-cli-'));
 const FILES = ['summary.md', 'report.html', 'compounds.csv', 'removal_curves.csv', 'carbons.csv', 'daily_doses.csv', 'indicators.csv',
   'surrogates.csv', 'setpoints.csv', 'pilot_check.csv', 'gac.csv', 'uncertainty.csv', 'run.json'];

@@ -6,11 +6,11 @@
  * series, and injected <script> text shown as text. Leaves a full-page screenshot in
  * tests/.artifacts/report.png.
  *
- * Without /usr/bin/chromium the test is skipped, except in CI (CI set), where it fails.
+ * Without /usr/bin/chromium the test is skipped, except in CI (CI=true), where it fails (itWithChromium).
  */
 import { existsSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { CHROMIUM, HAVE_CHROMIUM as HAVE, IN_CI, inspectPlots, openReport, saveScreenshot, type PageDocument } from './browserHarness.js';
+import { CHROMIUM, HAVE_CHROMIUM as HAVE, IN_CI, itWithChromium, inspectPlots, openReport, saveScreenshot, type PageDocument } from './browserHarness.js';
 import { renderHtmlReport } from '../../src/report/htmlReport.js';
 import type { PlotSpec } from '../../src/report/reportModel.js';
 import { reportPlotIds } from '../../src/report/reportPlotIds.js';
@@ -30,11 +30,7 @@ function nonEmptySeries(p: PlotSpec): number[] {
 }
 
 describe('HTML report in headless Chromium', () => {
-  it.runIf(!HAVE && IN_CI)('needs /usr/bin/chromium in CI', () => {
-    expect.fail(`${CHROMIUM} is missing; CI must install it (apt-get install -y chromium).`);
-  });
-
-  it.skipIf(!HAVE)('renders cleanly, draws every plot and series, escapes injected script', async () => {
+  itWithChromium('renders cleanly, draws every plot and series, escapes injected script', async () => {
     const model = syntheticModel();
     const { browser, page, errors, requests } = await openReport(renderHtmlReport(model));
     try {

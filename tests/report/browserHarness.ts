@@ -1,7 +1,8 @@
 /**
  * Opening a rendered report in headless Chromium (the system's /usr/bin/chromium through
  * playwright-core; never a downloaded browser), collecting console and page errors and any
- * request that would leave the file.
+ * request that would leave the file. Browser tests are declared with `itWithChromium`: without
+ * Chromium they fail in CI (CI=true) and are skipped with a warning elsewhere.
  */
 import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -9,10 +10,35 @@ import { join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { existsSync } from 'node:fs';
 import type { Browser, Page } from 'playwright-core';
+import { expect, it } from 'vitest';
 
-export const CHROMIUM = '/usr/bin/chromium';
+/** The system Chromium; SORBSHARE_CHROMIUM overrides the path (e.g. to check the missing-browser path). */
+export const CHROMIUM = process.env.SORBSHARE_CHROMIUM || '/usr/bin/chromium';
 export const HAVE_CHROMIUM = existsSync(CHROMIUM);
-export const IN_CI = Boolean(process.env.CI);
+
+/** True when CI is set to anything but "", "0" or "false" (CI services set CI=true). */
+export function isCi(value: string | undefined = process.env.CI): boolean {
+  return value !== undefined && !['', '0', 'false'].includes(value.trim().toLowerCase());
+}
+export const IN_CI = isCi();
+
+/** What a browser test does: run with Chromium; without it, fail in CI and skip elsewhere. */
+export function chromiumTestMode(haveChromium: boolean, inCi: boolean): 'run' | 'fail' | 'skip' {
+  return haveChromium ? 'run' : inCi ? 'fail' : 'skip';
+}
+
+let warned = false;
+/** Declare a test that needs Chromium (see chromiumTestMode). */
+export function itWithChromium(name: string, fn: () => Promise<void>, timeout?: number): void {
+  const mode = chromiumTestMode(HAVE_CHROMIUM, IN_CI);
+  if (mode === 'run') it(name, fn, timeout);
+  else if (mode === 'fail') it(name, () => expect.fail(`${CHROMIUM} is missing; CI must install it (apt-get install -y chromium)`));
+  else {
+    if (!warned) console.warn(`[browser tests] SKIPPED: ${CHROMIUM} not found (apt-get install -y chromium to run them; in CI they fail).`);
+    warned = true;
+    it.skip(name, fn);
+  }
+}
 
 export interface OpenedReport {
   browser: Browser;

@@ -7,8 +7,8 @@
  */
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import { describe, expect, it } from 'vitest';
-import { HAVE_CHROMIUM, inspectPlots, openReport, saveScreenshot, type PageDocument } from './browserHarness.js';
+import { describe, expect } from 'vitest';
+import { itWithChromium, inspectPlots, openReport, saveScreenshot, type PageDocument } from './browserHarness.js';
 import { loadProject } from '../../src/project/loadProject.js';
 import { runPipelineWithUncertainty } from '../../src/pipeline/runWithUncertainty.js';
 import { buildReportModel } from '../../src/pipeline/buildReportModel.js';
@@ -20,7 +20,7 @@ declare const document: PageDocument;
 const EVIL = '<script>alert("x")</script> & <b>bold</b>';
 
 describe('the demo report in headless Chromium', () => {
-  it.skipIf(!HAVE_CHROMIUM)('loads cleanly, shows every plot with content, escapes names, and is screenshotted', async () => {
+  itWithChromium('loads cleanly, shows every plot with content, escapes names, and is screenshotted', async () => {
     const input = loadProject(fileURLToPath(new URL('../../fixtures/demo/project.json', import.meta.url)), { demo: true });
     input.project.name = `Demo ${EVIL}`;
     const oldName = input.project.carbons[0]!.name;

@@ -1,7 +1,7 @@
 /**
  * Records the doses the dose searches gave before they were merged into one (src/design), so a
  * test can show the merged search returns the same doses within 1e-10 (relative):
- *   - the random problems of the dose-search property test (tests/dose/doseSearch.test.ts: the
+ *   - the random problems of the dose-search property test (tests/design/doseSearch.test.ts: the
  *     same generators and seed 5, sampled with fast-check);
  *   - every project in fixtures (demo and test projects): each PAC carbon's compound doses, the
  *     indicator-mean dose and the required dose at the design DOC, and the daily doses.
@@ -13,7 +13,7 @@ import fc from 'fast-check';
 import { writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { prepareMixture, type FreundlichComponent } from '../src/equilibrium/preparedMixture.js';
-import { doseForRemoval } from '../src/dose/doseSearch.js';
+import { doseForRemoval } from '../src/design/doseForRemoval.js';
 import { loadProject } from '../src/project/loadProject.js';
 import { runPipeline } from '../src/pipeline/runPipeline.js';
 

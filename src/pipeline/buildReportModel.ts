@@ -4,7 +4,7 @@
  * lay it out; every number here comes from the pipeline.
  */
 import { predictDoc } from '../fractionation/backgroundPrediction.js';
-import { logSpacedDoses } from '../api/equilibriumApi.js';
+import { logSpaced as logSpacedDoses } from '../numerics/logSpace.js';
 import type { KeyFigure, PlotSeries, PlotSpec, ReportModel, ReportSection, ReportTable } from '../report/reportModel.js';
 import { CAUTIONS } from './cautions.js';
 import { fmtConcentration as fc, fmtMoney, fmtNumber as fn, fmtWhole } from './formatting.js';
@@ -120,7 +120,7 @@ function carbonSection(r: PipelineResult, cr: CarbonResult, index: number): Repo
   const rows = req.compounds.map((d, i) => {
     const comp = r.project.compounds[i]!;
     const rl = cr.reducedLoadings?.[i];
-    return [comp.id, r.goals[comp.id]!.text, d.status === 'ok' ? fn(d.doseMgPerL!, 3) : d.status === 'no-carbon-needed' ? '0 (met without carbon)' : 'unreachable', req.governing?.compoundId === comp.id ? 'governing' : '',
+    return [comp.id, r.goals[comp.id]!.text, d.status === 'met' ? fn(d.doseMgPerL!, 3) : d.status === 'met without carbon' ? '0 (met without carbon)' : d.status === 'met below the smallest dose' ? '0 (met below the smallest dose)' : 'unreachable', req.governing?.compoundId === comp.id ? 'governing' : '',
       rl ? pct(rl.removalFraction * 100) : '—', rl ? fc(rl.cMgPerL) : '—', rl ? fn(rl.qSiteMgPerG, 3) : '—', rl ? fn(rl.qSingleMgPerG, 3) : '—', rl ? fn(rl.ratio, 3) : '—'];
   });
   const tables: ReportTable[] = [{

@@ -45,7 +45,7 @@ export function surrogateSection(r: PipelineResult): ReportSection | undefined {
     tables.push({
       caption: `${cr.carbon.name}: set-points per compound at DOC ${fn(r.project.site.docMgPerL, 3)} mg/L`,
       columns: ['compound', 'goal', 'dose (mg/L)', 'UV254 reduction', 'DOC reduction', 'role'],
-      rows: s.setPoints.map((sp) => [sp.compoundId, sp.goalText, sp.status === 'ok' ? fn(sp.doseMgPerL!, 3) : sp.status, pct(sp.uv254Reduction), pct(sp.docReduction), s.governing?.compoundId === sp.compoundId ? 'governing' : '']),
+      rows: s.setPoints.map((sp) => [sp.compoundId, sp.goalText, sp.status === 'met' ? fn(sp.doseMgPerL!, 3) : sp.status, pct(sp.uv254Reduction), pct(sp.docReduction), s.governing?.compoundId === sp.compoundId ? 'governing' : '']),
     });
     const pts = s.curve.points;
     const series: PlotSeries[] = r.project.compounds.map((c) => ({ name: c.id, points: pts.map((p) => [p.doseMgPerL, 100 * p.removal[c.id]!] as [number, number]) }));

@@ -1,16 +1,11 @@
 export * from './pipelineTypes.js';
-export { runPipeline, indicatorPlan } from './runPipeline.js';
+export { runPipeline, indicatorPlan, designProblem } from './runPipeline.js';
+export { carbonModel, competitionSets } from './carbonModel.js';
 export { backgroundStep, type BackgroundStep } from './backgroundStep.js';
 export { calibrationStep, type CompoundCalibration } from './calibrationStep.js';
 export { buildSystems } from './buildSystems.js';
 export { systemComponents, prepareSystem, scaleK, type CompoundSystem } from './competitionSystem.js';
-export { compoundGoal, type CompoundGoal } from './compoundGoal.js';
-export { compoundDose, type CompoundDose, type DoseStatus } from './compoundDose.js';
-export { requiredDose, type RequiredDose } from './requiredDose.js';
 export { reducedLoading, type ReducedLoading } from './reducedLoading.js';
-export { removalCurves, type RemovalCurves } from './removalCurves.js';
-export { indicatorCheckAt, indicatorDose, type IndicatorCheck, type IndicatorDose, type IndicatorPlan, type IndicatorSelection } from './indicatorCheck.js';
-export { dailyDoses, type DailyDoses, type DailyRow } from './dailyDoses.js';
 export { buildReportModel } from './buildReportModel.js';
 export { pipelineOutputs, OUTPUT_FILES } from './pipelineOutputs.js';
 export { runRecord, type RunEnvironment } from './runRecord.js';
@@ -20,5 +15,6 @@ export { surrogatesCsv, setpointsCsv, pilotCheckCsv, gacCsv, uncertaintyCsv } fr
 export { surrogateStep, surrogateModel, surrogatesAtDose, type SurrogateResult, type SetPointRow, type SurrogatePointAtDose } from './surrogateStep.js';
 export { pilotStep, predictedRelations, type PilotStepResult } from './pilotStep.js';
 export { gacStep, type GacStepResult } from './gacStep.js';
-export { uncertaintyStep, uncertaintyProblem, resolveUncertaintySettings, removalBand, CI_TO_SD_NOTE, CURVE_BAND_DRAWS, type UncertaintySettings, type CarbonUncertainty, type UncertainParameter } from './uncertaintyStep.js';
+export { uncertaintyStep, withUncertainty, runFigures, uncertaintyProblem, resolveUncertaintySettings, removalBand, CI_TO_SD_NOTE, CURVE_BAND_DRAWS, type UncertaintyOutcome } from './uncertaintyStep.js';
+export type { UncertaintySettings, CarbonUncertainty, UncertainParameter } from './uncertaintyTypes.js';
 export { runPipelineWithUncertainty } from './runWithUncertainty.js';

@@ -10,16 +10,16 @@ import type { PilotData } from '../surrogates/pilotCsv.js';
 import type { BackgroundStep } from './backgroundStep.js';
 import type { CompoundCalibration } from './calibrationStep.js';
 import type { CompoundSystem } from './competitionSystem.js';
-import type { CompoundGoal } from './compoundGoal.js';
-import type { DailyDoses } from './dailyDoses.js';
-import type { IndicatorCheck } from './indicatorCheck.js';
+import type { CompoundGoal } from '../design/compoundGoal.js';
+import type { DailyDoses } from '../design/dailyDoses.js';
+import type { IndicatorCheck } from '../design/indicatorGoal.js';
 import type { ReducedLoading } from './reducedLoading.js';
-import type { RemovalCurves } from './removalCurves.js';
-import type { RequiredDose } from './requiredDose.js';
+import type { RemovalCurves } from '../design/removalCurves.js';
+import type { Design } from '../design/designDose.js';
 import type { SurrogateResult } from './surrogateStep.js';
 import type { PilotStepResult } from './pilotStep.js';
 import type { GacStepResult } from './gacStep.js';
-import type { CarbonUncertainty, UncertaintySettings } from './uncertaintyStep.js';
+import type { CarbonUncertainty, UncertaintySettings } from './uncertaintyTypes.js';
 
 /** A file the project referenced, for run.json. */
 export interface InputFileRecord {
@@ -76,7 +76,7 @@ export interface CarbonResult {
   /** Systems of the compounds on this carbon (project order); PAC only. */
   systems: CompoundSystem[];
   /** Required dose at the site's design DOC (PAC only). */
-  required?: RequiredDose;
+  required?: Design;
   /** Dose the reduced loadings and the indicator check are reported at, mg/L. */
   designDoseMgPerL?: number;
   designDoseSource?: 'required dose' | 'goals.design_dose';
@@ -89,7 +89,7 @@ export interface CarbonResult {
   carbonKgPerDAtDesign?: number;
   daily?: DailyDoses;
   /** Yearly carbon and cost: from the DOC series, or design dose × design flow × 365. */
-  yearly?: { carbonKg: number; cost: number; basis: 'DOC series' | 'design DOC and flow' };
+  yearly?: { carbonKg: number; cost: number; basis: 'DOC series' | 'design DOC and flow'; annualised: boolean };
   /** DOC/UV254 reduction beside removal and the UV254 set-points (PAC with a fractionated background). */
   surrogates?: SurrogateResult;
   /** GAC equilibrium estimate (GAC carbons; an upper bound). */

@@ -82,7 +82,7 @@ export function runRecord(r: PipelineResult, env: RunEnvironment): Record<string
         carbon_kg_per_d_at_design_flow: cr.carbonKgPerDAtDesign ?? null,
         yearly: cr.yearly ?? null,
         daily_summary: cr.daily ? {
-          days: cr.daily.rows.length, days_with_dose: cr.daily.daysWithDose, distinct_doc_values: cr.daily.distinctDoc,
+          days: cr.daily.rows.length, days_with_dose: cr.daily.daysWithDose, annualised: cr.daily.annualised, dose_table: { doc_nodes_mg_per_L: cr.daily.table.docMgPerL, midpoint_error_rel: cr.daily.table.midpointErrorRel, tolerance_rel: cr.daily.table.toleranceRel },
           total_carbon_kg: cr.daily.totalCarbonKg, total_cost: cr.daily.totalCost, dose_mg_per_L: cr.daily.dose, carbon_kg_per_d: cr.daily.carbonKgPerD,
         } : null,
         daily: cr.daily?.rows ?? null,

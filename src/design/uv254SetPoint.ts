@@ -3,21 +3,21 @@
  * removal goal, per target and for the governing target (the one that needs the largest dose).
  *
  *   D*  = dose at which removal of the target (target + background, batch IAST) equals the goal
- *         (src/dose/doseSearch.ts: Brent on ln D)
+ *         (src/design/doseForRemoval.ts: the design layer's dose search)
  *   set-point = UV254 reduction at D* = 1 − Σ a_i c_i(D*)/Σ a_i c0_i (Beer–Lambert additivity)
  * UV254 reduction as a dosing control parameter: Altmann et al. 2016, Water Research 94:240–245
  * (the relation must be site-calibrated; the pilot check in pilotCheck.ts does that).
- * The inverse, `doseForUv254Reduction`, finds the dose that gives a UV254 reduction (Brent on ln D;
- * UV254 reduction rises monotonically with the dose).
+ * The inverse, `doseForUv254Reduction`, finds the dose that gives a UV254 reduction (the same dose
+ * search, src/design/doseSearch.ts; UV254 reduction rises monotonically with the dose).
  *
  * Units: doses mg/L; reductions and goals are fractions (0–1).
  */
 import { InputError } from '../core/errors.js';
-import { brentRoot } from '../numerics/brent.js';
 import type { FreundlichComponent } from '../equilibrium/preparedMixture.js';
 import { prepareMixture } from '../equilibrium/preparedMixture.js';
-import { doseForRemoval, MAX_DOSE_G_PER_L, MIN_DOSE_G_PER_L } from '../design/doseForRemoval.js';
-import { backgroundSurrogatesAt, checkAbsorbances, type SurrogateModel } from './surrogateCurve.js';
+import { doseForRemoval } from './doseForRemoval.js';
+import { MAX_DOSE_G_PER_L, MIN_DOSE_G_PER_L, searchDose } from './doseSearch.js';
+import { backgroundSurrogatesAt, checkAbsorbances, type SurrogateModel } from '../surrogates/surrogateCurve.js';
 
 export interface SetPointGoal {
   target: FreundlichComponent;
@@ -76,12 +76,14 @@ export function governingSetPoint(model: SurrogateModel, goals: readonly SetPoin
 export function doseForUv254Reduction(model: SurrogateModel, reduction: number): number {
   needAbsorbances(model);
   if (!(reduction > 0 && reduction < 1)) throw new InputError(`expected a UV254 reduction between 0 and 1 (exclusive), got ${reduction}`, { path: 'uv254Reduction' });
-  const g = (lnD: number) => backgroundSurrogatesAt(model, Math.exp(lnD) * 1000).point.uv254Reduction! - reduction;
-  const hi = Math.log(MAX_DOSE_G_PER_L);
-  const lo = Math.log(MIN_DOSE_G_PER_L);
-  const gHi = g(hi);
-  if (gHi < 0) throw new InputError(`a UV254 reduction of ${(reduction * 100).toPrecision(4)} % is not reached by any dose up to ${MAX_DOSE_G_PER_L * 1000} mg/L (it reaches ${((gHi + reduction) * 100).toPrecision(4)} % there)`, { path: 'uv254Reduction' });
-  const gLo = g(lo);
-  if (gLo > 0) throw new InputError(`a UV254 reduction of ${(reduction * 100).toPrecision(4)} % is already reached below ${MIN_DOSE_G_PER_L * 1000} mg/L`, { path: 'uv254Reduction' });
-  return Math.exp(brentRoot(g, lo, hi, { fa: gLo, fb: gHi, xTol: 1e-12, what: 'dose for a UV254 reduction' }).x) * 1000;
+  let warm: { u: number; theta: number } | undefined;
+  const excess = (doseGPerL: number) => {
+    const at = backgroundSurrogatesAt(model, doseGPerL * 1000, warm);
+    warm = at.state;
+    return at.point.uv254Reduction! - reduction;
+  };
+  const r = searchDose(excess, { what: 'dose for a UV254 reduction' });
+  if (r.status === 'unreachable') throw new InputError(`a UV254 reduction of ${(reduction * 100).toPrecision(4)} % is not reached by any dose up to ${MAX_DOSE_G_PER_L * 1000} mg/L (it reaches ${((r.excess + reduction) * 100).toPrecision(4)} % there)`, { path: 'uv254Reduction' });
+  if (r.status === 'met below the smallest dose') throw new InputError(`a UV254 reduction of ${(reduction * 100).toPrecision(4)} % is already reached below ${MIN_DOSE_G_PER_L * 1000} mg/L`, { path: 'uv254Reduction' });
+  return r.doseGPerL * 1000;
 }

@@ -26,6 +26,7 @@
 import { ComputationError, InputError } from '../core/errors.js';
 import { designDose, type Design, type DesignProblem } from './designDose.js';
 import { requiredDoseAt, type RequiredAtDoc } from './requiredDoseAt.js';
+import { isAnnualised } from './annualised.js';
 import type { RemovalModel } from './removalModel.js';
 
 export const START_NODES = 5;
@@ -169,6 +170,6 @@ export function seriesCarbon(segments: SeriesSegments, doses: ArrayLike<number |
     }
   }
   const totalKg = grams / 1000;
-  const annualised = !(segments.totalDays === 365 || segments.totalDays === 366);
+  const annualised = isAnnualised(segments.totalDays);
   return { totalKg, daysWithDose, yearlyKg: annualised ? (totalKg * 365) / segments.totalDays : totalKg, annualised };
 }

@@ -14,3 +14,4 @@ export * from './carbonCost.js';
 export * from './removalCurves.js';
 export * from './requiredDoseAt.js';
 export * from './removalModels.js';
+export * from './annualised.js';

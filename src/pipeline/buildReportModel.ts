@@ -4,6 +4,7 @@
  * lay it out; every number here comes from the pipeline.
  */
 import { predictDoc } from '../fractionation/backgroundPrediction.js';
+import { annualisedNote, isAnnualised } from '../design/annualised.js';
 import { logSpaced as logSpacedDoses } from '../numerics/logSpace.js';
 import type { KeyFigure, PlotSeries, PlotSpec, ReportModel, ReportSection, ReportTable } from '../report/reportModel.js';
 import { CAUTIONS } from './cautions.js';
@@ -183,7 +184,9 @@ function comparisonSection(r: PipelineResult): ReportSection {
  */
 function dailySeries(c: CarbonResult, dates: readonly string[], dayIndex: readonly number[]): PlotSeries {
   const rows = c.daily!.rows.filter((d) => d.doseMgPerL !== null);
-  const series: PlotSeries = { name: c.carbon.name, points: rows.map((d, k) => [dayIndex[dates.indexOf(d.date)] ?? k + 1, d.doseMgPerL!] as [number, number]) };
+  const position = new Map<string, number>();
+  dates.forEach((date, k) => { if (!position.has(date)) position.set(date, k); }); // one pass: no per-day search
+  const series: PlotSeries = { name: c.carbon.name, points: rows.map((d, k) => [dayIndex[position.get(d.date) ?? -1] ?? k + 1, d.doseMgPerL!] as [number, number]) };
   const ratio = c.uncertainty?.governingDoseRatio;
   if (ratio && Number.isFinite(ratio.p90)) series.band = { lower: rows.map((d) => d.doseMgPerL! * ratio.p10), upper: rows.map((d) => d.doseMgPerL! * ratio.p90), label: 'P10–P90' };
   return series;
@@ -204,7 +207,7 @@ function yearSection(r: PipelineResult): ReportSection | undefined {
   });
   return {
     id: 'year', heading: 'Carbon over the year',
-    paragraphs: [`${s.dates.length} days from ${s.dates[0]} to ${s.dates[s.dates.length - 1]}; the background is scaled to each day's DOC and the dose solved anew. Carbon kg/d = dose (mg/L) × flow (m³/d) / 1000; totals are sums over the days. Percentiles: Hyndman & Fan (1996) definition 7.${s.flowFromDesign ? ' The series has no flow column: the design flow is used every day.' : ''}${withDaily.some((c) => c.uncertainty?.governingDoseRatio) ? ' The band on the daily dose is the Monte Carlo P10–P90 of the governing dose relative to its point estimate at the design DOC, applied to every day (an approximation).' : ''}`],
+    paragraphs: [`${s.dates.length} days from ${s.dates[0]} to ${s.dates[s.dates.length - 1]}; the background is scaled to each day's DOC; the required dose is solved exactly at ${withDaily[0]?.daily!.table.docMgPerL.length ?? 0} DOC values spanning the series and read linearly in DOC between them (checked within ${fn(100 * (withDaily[0]?.daily!.table.toleranceRel ?? 0), 2)} % of the exact dose at every midpoint; the Monte Carlo reads the same table). Carbon kg/d = dose (mg/L) × flow (m³/d) / 1000; totals are sums over the days${isAnnualised(s.dates.length) ? `; yearly figures are ${annualisedNote(s.dates.length)} (× 365/${s.dates.length})` : ''}. Percentiles: Hyndman & Fan (1996) definition 7.${s.flowFromDesign ? ' The series has no flow column: the design flow is used every day.' : ''}${withDaily.some((c) => c.uncertainty?.governingDoseRatio) ? ' The band on the daily dose is the Monte Carlo P10–P90 of the governing dose relative to its point estimate at the design DOC, applied to every day (an approximation).' : ''}`],
     tables: [{ caption: 'Daily dose and carbon mass', columns: ['carbon', 'days', 'dose median (mg/L)', 'dose P90 (mg/L)', 'dose max (mg/L)', 'carbon median (kg/d)', 'carbon P90 (kg/d)', 'carbon total (kg)', 'carbon cost total'], rows }],
     plots,
   };

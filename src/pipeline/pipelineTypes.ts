@@ -89,7 +89,8 @@ export interface CarbonResult {
   carbonKgPerDAtDesign?: number;
   daily?: DailyDoses;
   /** Yearly carbon and cost: from the DOC series, or design dose × design flow × 365. */
-  yearly?: { carbonKg: number; cost: number; basis: 'DOC series' | 'design DOC and flow'; annualised: boolean };
+  /** Yearly carbon and cost; `basis` says where from and, when annualised, from how many days (src/design/annualised.ts). */
+  yearly?: { carbonKg: number; cost: number; basis: string; annualised: boolean };
   /** DOC/UV254 reduction beside removal and the UV254 set-points (PAC with a fractionated background). */
   surrogates?: SurrogateResult;
   /** GAC equilibrium estimate (GAC carbons; an upper bound). */

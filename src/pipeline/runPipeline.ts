@@ -21,6 +21,7 @@ import { dailyDoses } from '../design/dailyDoses.js';
 import { doseTable, seriesCarbon, seriesSegments } from '../design/doseTable.js';
 import { carbonCost, carbonKgPerD } from '../design/carbonCost.js';
 import { carbonModel } from './carbonModel.js';
+import { yearlyLabel } from '../design/annualised.js';
 import type { CompoundSystem } from './competitionSystem.js';
 import type { CarbonResult, PipelineInput, PipelineOptions, PipelineResult } from './pipelineTypes.js';
 import type { ProjectSpec } from '../project/projectTypes.js';
@@ -122,13 +123,13 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
       const table = timed('daily doses', () => doseTable(model, problem, series.docMgPerL, req));
       res.daily = timed('daily doses', () => dailyDoses(carbon, series, table));
       progress({ step: `${carbon.name}: daily doses`, done: series.dates.length, total: series.dates.length });
-      res.yearly = { carbonKg: res.daily.yearlyCarbonKg, cost: res.daily.yearlyCost, basis: 'DOC series', annualised: res.daily.annualised };
+      res.yearly = { carbonKg: res.daily.yearlyCarbonKg, cost: res.daily.yearlyCost, basis: yearlyLabel('DOC series', series.dates.length), annualised: res.daily.annualised };
       const missing = res.daily.rows.length - res.daily.daysWithDose;
       if (missing > 0) res.warnings.push(`${missing} day(s) of the DOC series have no reachable goal and no dose; totals cover the other days`);
     } else if (req.doseMgPerL !== null) {
       // one day at the design DOC and flow, annualised: the same segment sums as the series
       const y = seriesCarbon(seriesSegments([doc], [doc], project.site.flowM3PerD), [req.doseMgPerL]);
-      res.yearly = { carbonKg: y.yearlyKg, cost: carbonCost(y.yearlyKg, carbon.pricePerKg), basis: 'design DOC and flow', annualised: true };
+      res.yearly = { carbonKg: y.yearlyKg, cost: carbonCost(y.yearlyKg, carbon.pricePerKg), basis: yearlyLabel('design DOC and flow', 1), annualised: true };
     }
     return res;
   });

@@ -80,6 +80,23 @@ describe('run and Monte Carlo agree with zero uncertainty', () => {
   it('a year of days is not annualised; the labels say "yearly" in the run and the Monte Carlo alike', () => {
     const cr = mc.carbons[0]!;
     expect(cr.yearly!.annualised).toBe(false);
+    expect(cr.yearly!.basis).toBe('DOC series');
     expect(cr.uncertainty!.result.quantities.find((x) => x.key === 'yearly_carbon')!.label).toBe('yearly carbon mass');
+  });
+});
+
+describe('annualised yearly figures are labelled the same way in the run and the Monte Carlo', () => {
+  it('a 10-day series: run basis and Monte Carlo labels both say "annualised from 10 days"; the point estimate is the run\'s figure', async () => {
+    const input = loadProject(join(__dirname, '../../fixtures/project/background-file/project.json'));
+    const r = runPipeline(input);
+    const cr = r.carbons.find((c) => c.daily)!;
+    expect(r.series!.dates.length).toBe(10);
+    expect(cr.yearly!.basis).toBe('DOC series (annualised from 10 days)');
+    const settings = resolveUncertaintySettings(undefined, { draws: 3, seed: 1 })!;
+    const out = withUncertainty(r, await uncertaintyStep(r, input, settings, { workers: 0 }));
+    const u = out.carbons.find((c) => c.carbon.name === cr.carbon.name)!.uncertainty!;
+    const y = u.result.quantities.find((q) => q.key === 'yearly_carbon')!;
+    expect(y.label).toBe('yearly carbon mass (annualised from 10 days)');
+    expect(y.pointEstimate).toBe(cr.yearly!.carbonKg);
   });
 });

@@ -139,7 +139,7 @@ describe('yearly cost from the dose table', () => {
     const exact = (grams / 1000) * (365 / days);
     const approx = byKey(r, 'yearly_carbon').pointEstimate;
     // a 120-day series is annualised: × 365/120, and the label says so
-    expect(byKey(r, 'yearly_carbon').label).toBe('yearly (annualised from 120 days) carbon mass');
+    expect(byKey(r, 'yearly_carbon').label).toBe('yearly carbon mass (annualised from 120 days)');
     expect(Math.abs(approx / exact - 1)).toBeLessThan(1e-3);
     expect(byKey(r, 'yearly_cost').pointEstimate).toBeCloseTo(approx * 2.5, 6);
   }, 20000);

@@ -24,7 +24,7 @@ export {
 } from './api/equilibriumApi.js';
 
 // ── background characterisation (capabilities 4–7) — add exports below this line
-export { readCsvTable, csvUnitFactor, type CsvTable, type CsvColumn, type CsvColumnSpec, type CsvKind, type CsvHeaderRow, type CsvColumnSpecs } from './io/csvTable.js';
+export { readCsvTable, csvUnitFactor, type CsvTable, type CsvColumn, type CsvColumnSpec, type CsvKind, type CsvHeaderRow, type CsvColumnSpecs } from './tables/csvTable.js';
 export { fractionate, readIsotherm, DEFAULT_EXPONENT, DEFAULT_COMPONENTS, type FractionateOptions, type FractionateResult, type IsothermInput, type ModelAlternative } from './fractionation/fractionate.js';
 export { readBackground, type BackgroundFile, type BackgroundComponentRecord, type BackgroundFit } from './fractionation/backgroundFile.js';
 export { backgroundComponents, predictDoc, predictUv254, predictUv254Reduction } from './fractionation/backgroundPrediction.js';
@@ -39,10 +39,14 @@ export { nnls, type NnlsResult } from './numerics/nnls.js';
 export { studentTQuantile, studentTCdf } from './numerics/studentT.js';
 
 // ── project, pipeline, report (capabilities 8–10, 14, 15) — add exports below this line
-export { validateProject, loadProject, DEFAULT_REMOVAL_PERCENT, DEFAULT_SWEEP, type ProjectSpec, type SiteSpec, type BackgroundSpec, type CarbonSpec, type CompoundSpec, type GoalsSpec, type CalibrationModelName } from './project/index.js';
+export { loadProject } from './io/loadProject.js';
+export { validateProject, DEFAULT_REMOVAL_PERCENT, DEFAULT_SWEEP, type ProjectSpec, type SiteSpec, type BackgroundSpec, type CarbonSpec, type CompoundSpec, type GoalsSpec, type CalibrationModelName } from './project/index.js';
 export { evaluateIndicatorSet, indicatorMean, admissibleRange, ruleViolation, MIN_INDICATOR_SUBSTANCES, CATEGORY_RATIO, type IndicatorValue, type IndicatorCategory, type IndicatorEvaluation, type AdmissibleRange } from './indicators/index.js';
 export { parseSiteSeries, quantile as seriesQuantile, median as seriesMedian, summarise as summariseSeries, type SiteSeries, type SeriesSummary } from './siteSeries/index.js';
-export { runPipeline, runPipelineWithUncertainty, indicatorPlan, surrogateStep, surrogateModel, pilotStep, gacStep, uncertaintyStep, uncertaintyProblem, resolveUncertaintySettings, surrogatesCsv, setpointsCsv, pilotCheckCsv, gacCsv, uncertaintyCsv, pipelineOutputs, OUTPUT_FILES, buildReportModel, runRecord, CAUTIONS, reducedLoading, buildSystems, systemComponents, prepareSystem, type PipelineInput, type PipelineOptions, type UncertaintyRunOptions, type SurrogateResult, type SetPointRow, type PilotStepResult, type GacStepResult, type CarbonUncertainty, type UncertaintySettings, type PipelineResult, type CarbonResult, type ProgressEvent, type CompoundSystem, type ReducedLoading, type CompoundCalibration, type RunEnvironment, designProblem, carbonModel, competitionSets } from './pipeline/index.js';
+export { runPipeline, runPipelineWithUncertainty, indicatorPlan, surrogateStep, surrogateModel, pilotStep, gacStep, uncertaintyStep, uncertaintyProblem, resolveUncertaintySettings, reducedLoading, buildSystems, systemComponents, prepareSystem, type PipelineInput, type PipelineOptions, type UncertaintyRunOptions, type SurrogateResult, type SetPointRow, type PilotStepResult, type GacStepResult, type CarbonUncertainty, type UncertaintySettings, type PipelineResult, type CarbonResult, type ProgressEvent, type CompoundSystem, type ReducedLoading, type CompoundCalibration, designProblem, carbonModel, competitionSets } from './pipeline/index.js';
+// outputs: CSV tables, the run record, the report model, number formatting; and every output file
+export { surrogatesCsv, setpointsCsv, pilotCheckCsv, gacCsv, uncertaintyCsv, buildReportModel, runRecord, CAUTIONS, type RunEnvironment } from './output/index.js';
+export { pipelineOutputs, OUTPUT_FILES } from './outputFiles/pipelineOutputs.js';
 // the design of a carbon at a DOC (doses, governing goal, cost, surrogate set-point, daily doses)
 export {
   compoundGoal, compoundDose, designDose, surrogatesAt, indicatorCheckAt, indicatorDose, indicatorValuesAt, selectIndicatorSet, removalCurves, dailyDoses,
@@ -55,5 +59,6 @@ export { renderHtmlReport, renderMarkdownSummary, reportPlotIds, renderPlot } fr
 
 // ── surrogates, GAC, uncertainty (capabilities 11–13) — add exports below this line
 export * from './surrogates/index.js';
+export { readPilotCsv } from './io/readPilotCsv.js';
 export * from './gac/index.js';
 export * from './uncertainty/index.js';

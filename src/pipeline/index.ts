@@ -6,12 +6,6 @@ export { calibrationStep, type CompoundCalibration } from './calibrationStep.js'
 export { buildSystems } from './buildSystems.js';
 export { systemComponents, prepareSystem, scaleK, type CompoundSystem } from './competitionSystem.js';
 export { reducedLoading, type ReducedLoading } from './reducedLoading.js';
-export { buildReportModel } from './buildReportModel.js';
-export { pipelineOutputs, OUTPUT_FILES } from './pipelineOutputs.js';
-export { runRecord, type RunEnvironment } from './runRecord.js';
-export { CAUTIONS } from './cautions.js';
-export { toCsv, compoundsCsv, removalCurvesCsv, carbonsCsv, dailyDosesCsv, indicatorsCsv } from './outputTables.js';
-export { surrogatesCsv, setpointsCsv, pilotCheckCsv, gacCsv, uncertaintyCsv } from './capabilityTables.js';
 export { surrogateStep, surrogateModel, surrogatesAtDose, type SurrogateResult, type SetPointRow, type SurrogatePointAtDose } from './surrogateStep.js';
 export { pilotStep, predictedRelations, type PilotStepResult } from './pilotStep.js';
 export { gacStep, type GacStepResult } from './gacStep.js';

@@ -2,7 +2,7 @@
  * Inputs and results of the whole job (`sorbshare run`). The pipeline is pure: it receives the
  * validated project and the already-read tables; src/project/loadProject.ts reads the files.
  */
-import type { CsvTable } from '../io/csvTable.js';
+import type { CsvTable } from '../tables/csvTable.js';
 import type { BackgroundFile } from '../fractionation/backgroundFile.js';
 import type { CarbonSpec, ProjectSpec } from '../project/projectTypes.js';
 import type { SiteSeries } from '../siteSeries/siteSeries.js';

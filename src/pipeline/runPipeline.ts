@@ -25,7 +25,7 @@ import { yearlyLabel } from '../design/annualised.js';
 import type { CompoundSystem } from './competitionSystem.js';
 import type { CarbonResult, PipelineInput, PipelineOptions, PipelineResult } from './pipelineTypes.js';
 import type { ProjectSpec } from '../project/projectTypes.js';
-import { fmtConcentration } from './formatting.js';
+import { fmtConcentration } from '../units/formatQuantity.js';
 import { surrogateModel, surrogateStep } from './surrogateStep.js';
 import { pilotStep, type PilotStepResult } from './pilotStep.js';
 import { gacStep } from './gacStep.js';

@@ -6,7 +6,7 @@
  * Target (issue 8): ≤ 100 µs per draw on one core. Demo data invented.
  */
 import { join } from 'node:path';
-import { loadProject } from '../../src/project/loadProject.js';
+import { loadProject } from '../../src/io/loadProject.js';
 import { runPipeline } from '../../src/pipeline/runPipeline.js';
 import { resolveUncertaintySettings, uncertaintyProblem } from '../../src/pipeline/uncertaintyStep.js';
 import { monteCarlo } from '../../src/uncertainty/monteCarlo.js';

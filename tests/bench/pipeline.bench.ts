@@ -6,7 +6,7 @@ import { spawnSync } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { loadProject } from '../../src/project/loadProject.js';
+import { loadProject } from '../../src/io/loadProject.js';
 import { runPipeline } from '../../src/pipeline/runPipeline.js';
 import type { BenchFigure } from './run.js';
 

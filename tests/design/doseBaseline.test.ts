@@ -12,7 +12,7 @@ import { prepareMixture, type FreundlichComponent } from '../../src/equilibrium/
 import { fileURLToPath } from 'node:url';
 import { doseForRemoval } from '../../src/design/doseForRemoval.js';
 import { designDose } from '../../src/design/designDose.js';
-import { loadProject } from '../../src/project/loadProject.js';
+import { loadProject } from '../../src/io/loadProject.js';
 import { designProblem, runPipeline } from '../../src/pipeline/runPipeline.js';
 import { carbonModel } from '../../src/pipeline/carbonModel.js';
 

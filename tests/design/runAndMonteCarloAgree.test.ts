@@ -9,7 +9,7 @@
  */
 import { beforeAll, describe, expect, it } from 'vitest';
 import { join } from 'node:path';
-import { loadProject } from '../../src/project/loadProject.js';
+import { loadProject } from '../../src/io/loadProject.js';
 import { runPipeline } from '../../src/pipeline/runPipeline.js';
 import { resolveUncertaintySettings, uncertaintyStep, withUncertainty } from '../../src/pipeline/uncertaintyStep.js';
 import type { PipelineResult } from '../../src/pipeline/pipelineTypes.js';

@@ -5,7 +5,7 @@
  */
 import { beforeAll, describe, expect, it } from 'vitest';
 import { join } from 'node:path';
-import { loadProject } from '../../src/project/loadProject.js';
+import { loadProject } from '../../src/io/loadProject.js';
 import { runPipeline } from '../../src/pipeline/runPipeline.js';
 import { designDose } from '../../src/design/designDose.js';
 import { indicatorCheckAt, indicatorDose } from '../../src/design/indicatorGoal.js';
@@ -14,7 +14,7 @@ import { carbonModel } from '../../src/pipeline/carbonModel.js';
 import { prepareSystem } from '../../src/pipeline/competitionSystem.js';
 import { solveBatchPrepared } from '../../src/equilibrium/iastBatch.js';
 import { backgroundComponents } from '../../src/fractionation/backgroundPrediction.js';
-import { carbonsCsv, dailyDosesCsv } from '../../src/pipeline/outputTables.js';
+import { carbonsCsv, dailyDosesCsv } from '../../src/output/outputTables.js';
 import type { PipelineResult } from '../../src/pipeline/pipelineTypes.js';
 
 let r: PipelineResult;

@@ -6,7 +6,7 @@
  */
 import { beforeAll, describe, expect, it } from 'vitest';
 import { join } from 'node:path';
-import { loadProject } from '../../src/project/loadProject.js';
+import { loadProject } from '../../src/io/loadProject.js';
 import { runPipeline } from '../../src/pipeline/runPipeline.js';
 import { surrogatesAtDose } from '../../src/pipeline/surrogateStep.js';
 import { prepareSystem } from '../../src/pipeline/competitionSystem.js';

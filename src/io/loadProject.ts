@@ -9,14 +9,14 @@
 import { createHash } from 'node:crypto';
 import { dirname, resolve } from 'node:path';
 import { InputError } from '../core/errors.js';
-import { parseJsonText, readTextFile } from '../io/readFiles.js';
-import { readCsvTable } from '../io/csvTable.js';
+import { parseJsonText, readTextFile } from './readFiles.js';
+import { readCsvTable } from '../tables/csvTable.js';
 import { ISOTHERM_COLUMNS } from '../fractionation/isothermData.js';
 import { readBackground } from '../fractionation/backgroundFile.js';
 import { parseSiteSeries } from '../siteSeries/siteSeries.js';
 import type { InputFileRecord, PipelineInput } from '../pipeline/pipelineTypes.js';
 import { JAR_TEST_COLUMNS } from '../calibration/jarTestData.js';
-import { validateProject } from './validateProject.js';
+import { validateProject } from '../project/validateProject.js';
 import { parsePilotCsv } from '../surrogates/pilotCsv.js';
 
 /** Read a referenced file; a missing file names the JSON path that referenced it. */

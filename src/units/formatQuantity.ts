@@ -1,4 +1,7 @@
-/** Number formatting shared by the tables, the summary and the report (presentation only). */
+/**
+ * Numbers and concentrations as text for messages and labels (goal texts, error messages) and,
+ * through src/output/formatting.ts, for the tables and the report: one implementation.
+ */
 
 /** `sig` significant digits without exponent for everyday magnitudes. */
 export function fmtNumber(x: number, sig = 4): string {
@@ -19,15 +22,4 @@ export function fmtConcentration(cMgPerL: number, sig = 3): string {
   if (a < 1e-3) return `${fmtNumber(cMgPerL * 1e6, sig)} ng/L`;
   if (a < 1) return `${fmtNumber(cMgPerL * 1e3, sig)} µg/L`;
   return `${fmtNumber(cMgPerL, sig)} mg/L`;
-}
-
-/** Money with two decimals and thin grouping of thousands. */
-export function fmtMoney(x: number, currency: string): string {
-  const s = Math.abs(x) >= 100 ? Math.round(x).toLocaleString('en-US') : x.toFixed(Math.abs(x) < 1 ? 4 : 2);
-  return `${s} ${currency}`;
-}
-
-/** Whole numbers with grouping (kg, m³). */
-export function fmtWhole(x: number): string {
-  return Math.round(x).toLocaleString('en-US');
 }

@@ -6,11 +6,11 @@
 import { predictDoc } from '../fractionation/backgroundPrediction.js';
 import { annualisedNote, isAnnualised } from '../design/annualised.js';
 import { logSpaced as logSpacedDoses } from '../numerics/logSpace.js';
-import type { KeyFigure, PlotSeries, PlotSpec, ReportModel, ReportSection, ReportTable } from '../report/reportModel.js';
+import type { KeyFigure, PlotSeries, PlotSpec, ReportModel, ReportSection, ReportTable } from './reportModel.js';
 import { CAUTIONS } from './cautions.js';
 import { fmtConcentration as fc, fmtMoney, fmtNumber as fn, fmtWhole } from './formatting.js';
-import type { CarbonResult, PipelineResult } from './pipelineTypes.js';
-import { gacSection, loadingPlot, pilotSection, surrogateSection, uncertaintySection } from './capabilitySections.js';
+import type { CarbonResult, PipelineResult } from '../pipeline/pipelineTypes.js';
+import { gacSection, loadingPlot, pilotSection, surrogateSection, uncertaintySection } from './surrogateGacUncertaintySections.js';
 
 const pct = (x: number | null | undefined, sig = 4) => (x === null || x === undefined ? '—' : `${fn(x, sig)} %`);
 const mgL = (x: number | null | undefined, sig = 3) => (x === null || x === undefined ? '—' : `${fn(x, sig)} mg/L`);

@@ -4,11 +4,11 @@
  */
 import { renderHtmlReport } from '../report/htmlReport.js';
 import { renderMarkdownSummary } from '../report/markdownSummary.js';
-import { buildReportModel } from './buildReportModel.js';
-import { carbonsCsv, compoundsCsv, dailyDosesCsv, indicatorsCsv, removalCurvesCsv } from './outputTables.js';
-import { gacCsv, pilotCheckCsv, setpointsCsv, surrogatesCsv, uncertaintyCsv } from './capabilityTables.js';
-import { runRecord, type RunEnvironment } from './runRecord.js';
-import type { PipelineResult } from './pipelineTypes.js';
+import { buildReportModel } from '../output/buildReportModel.js';
+import { carbonsCsv, compoundsCsv, dailyDosesCsv, indicatorsCsv, removalCurvesCsv } from '../output/outputTables.js';
+import { gacCsv, pilotCheckCsv, setpointsCsv, surrogatesCsv, uncertaintyCsv } from '../output/surrogateGacUncertaintyTables.js';
+import { runRecord, type RunEnvironment } from '../output/runRecord.js';
+import type { PipelineResult } from '../pipeline/pipelineTypes.js';
 
 export const OUTPUT_FILES = [
   'summary.md', 'report.html', 'compounds.csv', 'removal_curves.csv', 'carbons.csv', 'daily_doses.csv', 'indicators.csv',

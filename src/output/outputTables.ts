@@ -2,7 +2,7 @@
  * The CSV tables of a run (compounds.csv, removal_curves.csv, carbons.csv, daily_doses.csv,
  * indicators.csv): plain text built from the pipeline result, units in the headers.
  */
-import type { PipelineResult } from './pipelineTypes.js';
+import type { PipelineResult } from '../pipeline/pipelineTypes.js';
 
 type Cell = string | number | null | undefined;
 

@@ -5,7 +5,7 @@
  * only, so the set of files is always the same.
  */
 import { toCsv } from './outputTables.js';
-import type { PipelineResult } from './pipelineTypes.js';
+import type { PipelineResult } from '../pipeline/pipelineTypes.js';
 
 type Cell = string | number | null | undefined;
 const pct = (x: number | null | undefined): number | null => (x === null || x === undefined ? null : x * 100);

@@ -4,9 +4,9 @@
  * reproduce and audit the run. Functions (the systems' background builders) are written out as
  * their components at the design DOC.
  */
-import { systemComponents } from './competitionSystem.js';
-import type { PipelineResult } from './pipelineTypes.js';
-import { CI_TO_SD_NOTE } from './uncertaintyStep.js';
+import { systemComponents } from '../pipeline/competitionSystem.js';
+import type { PipelineResult } from '../pipeline/pipelineTypes.js';
+import { CI_TO_SD_NOTE } from '../pipeline/uncertaintyStep.js';
 import type { ProjectSpec } from '../project/projectTypes.js';
 
 export interface RunEnvironment {

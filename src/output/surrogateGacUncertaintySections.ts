@@ -3,12 +3,12 @@
  * Monte Carlo percentiles) and the loading plot of capability 8, filled from a pipeline result.
  * Presentation only: every number comes from the pipeline.
  */
-import type { PlotSeries, PlotSpec, ReportSection, ReportTable, XYPlotSpec } from '../report/reportModel.js';
+import type { PlotSeries, PlotSpec, ReportSection, ReportTable, XYPlotSpec } from './reportModel.js';
 import { siteCurveRemoval } from '../surrogates/siteCurveFit.js';
 import { GAC_UPPER_BOUND_CAUTION } from '../gac/gacEstimate.js';
 import { fmtConcentration as fc, fmtMoney, fmtNumber as fn, fmtWhole } from './formatting.js';
-import type { CarbonResult, PipelineResult } from './pipelineTypes.js';
-import { CI_TO_SD_NOTE } from './uncertaintyStep.js';
+import type { CarbonResult, PipelineResult } from '../pipeline/pipelineTypes.js';
+import { CI_TO_SD_NOTE } from '../pipeline/uncertaintyStep.js';
 
 const pct = (x: number | null | undefined, sig = 3) => (x === null || x === undefined ? '—' : `${fn(x * 100, sig)} %`);
 

@@ -14,7 +14,7 @@ import { writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { prepareMixture, type FreundlichComponent } from '../src/equilibrium/preparedMixture.js';
 import { doseForRemoval } from '../src/design/doseForRemoval.js';
-import { loadProject } from '../src/project/loadProject.js';
+import { loadProject } from '../src/io/loadProject.js';
 import { runPipeline } from '../src/pipeline/runPipeline.js';
 
 const logUniform = (lo: number, hi: number) => fc.double({ min: Math.log10(lo), max: Math.log10(hi), noNaN: true }).map((e) => Math.pow(10, e));

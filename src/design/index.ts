@@ -15,3 +15,4 @@ export * from './removalCurves.js';
 export * from './requiredDoseAt.js';
 export * from './removalModels.js';
 export * from './annualised.js';
+export * from './reducedLoading.js';

@@ -5,7 +5,7 @@ export { backgroundStep, type BackgroundStep } from './backgroundStep.js';
 export { calibrationStep, type CompoundCalibration } from './calibrationStep.js';
 export { buildSystems } from './buildSystems.js';
 export { systemComponents, prepareSystem, scaleK, type CompoundSystem } from './competitionSystem.js';
-export { reducedLoading, type ReducedLoading } from './reducedLoading.js';
+export { reducedLoading, type ReducedLoading } from '../design/reducedLoading.js';
 export { surrogateStep, surrogateModel, surrogatesAtDose, type SurrogateResult, type SetPointRow, type SurrogatePointAtDose } from './surrogateStep.js';
 export { pilotStep, predictedRelations, type PilotStepResult } from './pilotStep.js';
 export { gacStep, type GacStepResult } from './gacStep.js';

@@ -13,7 +13,7 @@ import type { CompoundSystem } from './competitionSystem.js';
 import type { CompoundGoal } from '../design/compoundGoal.js';
 import type { DailyDoses } from '../design/dailyDoses.js';
 import type { IndicatorCheck } from '../design/indicatorGoal.js';
-import type { ReducedLoading } from './reducedLoading.js';
+import type { ReducedLoading } from '../design/reducedLoading.js';
 import type { RemovalCurves } from '../design/removalCurves.js';
 import type { Design } from '../design/designDose.js';
 import type { SurrogateResult } from './surrogateStep.js';

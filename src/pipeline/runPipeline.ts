@@ -14,7 +14,7 @@ import { calibrationStep, type CompoundCalibration } from './calibrationStep.js'
 import { buildSystems } from './buildSystems.js';
 import { compoundGoal, type CompoundGoal } from '../design/compoundGoal.js';
 import { designDose, type DesignProblem } from '../design/designDose.js';
-import { reducedLoading } from './reducedLoading.js';
+import { reducedLoading } from '../design/reducedLoading.js';
 import { removalCurves } from '../design/removalCurves.js';
 import { indicatorCheckAt, type IndicatorGoal } from '../design/indicatorGoal.js';
 import { dailyDoses } from '../design/dailyDoses.js';
@@ -108,7 +108,7 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
     if (design !== undefined && design > 0) {
       res.designDoseMgPerL = design;
       res.designDoseSource = project.goals.designDoseMgPerL !== undefined ? 'goals.design_dose' : 'required dose';
-      res.reducedLoadings = timed('reduced loading', () => systems.map((s) => reducedLoading(s, doc, design)));
+      res.reducedLoadings = timed('reduced loading', () => systems.map((s, i) => reducedLoading(model, i, s.c0MgPerL, s.single, design)));
       if (problem.indicator) { const plan = problem.indicator; res.indicator = timed('indicators', () => indicatorCheckAt(model, plan, design)); }
     }
     if (req.doseMgPerL !== null) {

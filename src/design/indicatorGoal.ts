@@ -55,16 +55,22 @@ export function indicatorValuesAt(model: RemovalModel, goal: IndicatorGoal, dose
   });
 }
 
-/** The set the rule is applied to, from the values at one dose. */
-export function selectIndicatorSet(goal: IndicatorGoal, values: IndicatorValue[]): { selection: IndicatorSelection; set: IndicatorEvaluation; range?: AdmissibleRange } {
-  let range: AdmissibleRange | undefined;
-  try { range = admissibleRange(values); } catch { range = undefined; }
-  const withRange = <T extends object>(o: T) => (range ? { ...o, range } : o);
+/**
+ * The set the rule is applied to, from the values at one dose. With `withRange` false the best and
+ * worst admissible subsets are only formed when the worst one is the set (the dose searches need
+ * the set's mean only); the set is the same either way.
+ */
+export function selectIndicatorSet(goal: IndicatorGoal, values: IndicatorValue[], withRange = true): { selection: IndicatorSelection; set: IndicatorEvaluation; range?: AdmissibleRange } {
+  const rangeOf = (): AdmissibleRange | undefined => { try { return admissibleRange(values); } catch { return undefined; } };
   if (goal.chosen) {
-    return withRange({ selection: 'chosen set' as const, set: evaluateIndicatorSet(values.filter((v) => goal.chosen!.includes(v.id))) });
+    const set = evaluateIndicatorSet(values.filter((v) => goal.chosen!.includes(v.id)));
+    const range = withRange ? rangeOf() : undefined;
+    return range ? { selection: 'chosen set', set, range } : { selection: 'chosen set', set };
   }
   const all = evaluateIndicatorSet(values);
-  if (all.admissible || !range) return withRange({ selection: 'all indicator compounds' as const, set: all });
+  if (all.admissible && !withRange) return { selection: 'all indicator compounds', set: all };
+  const range = rangeOf();
+  if (all.admissible || !range) return range ? { selection: 'all indicator compounds', set: all, range } : { selection: 'all indicator compounds', set: all };
   return { selection: 'worst admissible subset', set: range.worst, range };
 }
 
@@ -111,7 +117,7 @@ export function indicatorDose(model: RemovalModel, goal: IndicatorGoal, hintMgPe
   let selection: IndicatorSelection | undefined;
   const warm: WarmStart[] = goal.members.map(() => undefined);
   const excess = (doseGPerL: number) => {
-    const sel = selectIndicatorSet(goal, indicatorValuesAt(model, goal, doseGPerL, warm));
+    const sel = selectIndicatorSet(goal, indicatorValuesAt(model, goal, doseGPerL, warm), false);
     selection = sel.selection;
     return sel.set.meanRemovalPercent - goal.goalPercent;
   };

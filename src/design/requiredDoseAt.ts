@@ -52,7 +52,7 @@ export function requiredDoseAt(model: RemovalModel, problem: DesignProblem, refe
     if (removal < goal.removalFraction - 1e-9) return full();
   }
   if (problem.indicator) {
-    const sel = selectIndicatorSet(problem.indicator, indicatorValuesAt(model, problem.indicator, dose / 1000));
+    const sel = selectIndicatorSet(problem.indicator, indicatorValuesAt(model, problem.indicator, dose / 1000), false);
     if (sel.set.meanRemovalPercent < problem.indicator.goalPercent - 1e-7) return full();
   }
   return { docMgPerL, doseMgPerL: dose, governedBy: base.governedBy };

@@ -8,8 +8,9 @@
  */
 import { compoundDose } from './compoundDose.js';
 import { designDose, type Design, type DesignProblem } from './designDose.js';
-import { indicatorDose, indicatorValuesAt, selectIndicatorSet } from './indicatorGoal.js';
-import type { RemovalModel } from './removalModel.js';
+import { indicatorDose, selectIndicatorSet } from './indicatorGoal.js';
+import type { IndicatorValue } from '../indicators/indicatorRule.js';
+import type { RemovalModel, WarmStart } from './removalModel.js';
 
 export interface RequiredAtDoc {
   docMgPerL: number;
@@ -17,6 +18,8 @@ export interface RequiredAtDoc {
   doseMgPerL: number | null;
   /** "compound HCT", "indicator mean" or "nothing reachable". */
   governedBy: string;
+  /** Each compound's solve state at the dose (warm starts for the next DOC; only a speed-up). */
+  warm?: WarmStart[];
 }
 
 /**
@@ -45,15 +48,21 @@ export function requiredDoseAt(model: RemovalModel, problem: DesignProblem, refe
     dose = d.status === 'met' ? d.doseMgPerL : null;
   }
   if (dose === null || !(dose > 0)) return full();
+  // every compound's removal at that dose, once (the indicator mean uses the same values)
+  const warm: WarmStart[] = [];
+  const removal = problem.goals.map((_, i) => {
+    const r = model.remaining(i, dose / 1000, near?.warm?.[i]);
+    warm[i] = r.warm;
+    return 1 - r.remainingFraction;
+  });
   for (let i = 0; i < problem.goals.length; i++) {
     const goal = problem.goals[i]!;
-    if (goal.removalFraction <= 0) continue;
-    const removal = 1 - model.remaining(i, dose / 1000).remainingFraction;
-    if (removal < goal.removalFraction - 1e-9) return full();
+    if (goal.removalFraction > 0 && removal[i]! < goal.removalFraction - 1e-9) return full();
   }
   if (problem.indicator) {
-    const sel = selectIndicatorSet(problem.indicator, indicatorValuesAt(model, problem.indicator, dose / 1000), false);
+    const values: IndicatorValue[] = problem.indicator.members.map((m) => ({ id: model.compoundIds[m.index]!, category: m.category, removalPercent: 100 * removal[m.index]! }));
+    const sel = selectIndicatorSet(problem.indicator, values, false);
     if (sel.set.meanRemovalPercent < problem.indicator.goalPercent - 1e-7) return full();
   }
-  return { docMgPerL, doseMgPerL: dose, governedBy: base.governedBy };
+  return { docMgPerL, doseMgPerL: dose, governedBy: base.governedBy, warm };
 }

@@ -40,12 +40,14 @@ export function compoundDose(model: RemovalModel, index: number, goal: CompoundG
     return { compoundId, status: 'met without carbon', doseMgPerL: 0, removalFraction: 0, message: `${goal.text} is met without carbon (c0 is already at or below it)` };
   }
   let warm: WarmStart;
-  let remaining = 1;
+  let lastDose = NaN;
+  let lastRemaining = 1;
   const excess = (doseGPerL: number) => {
     const r = model.remaining(index, doseGPerL, warm);
     warm = r.warm;
-    remaining = r.remainingFraction;
-    return removalExcess(remaining, goal.removalFraction);
+    lastDose = doseGPerL;
+    lastRemaining = r.remainingFraction;
+    return removalExcess(lastRemaining, goal.removalFraction);
   };
   const opts: Parameters<typeof searchDose>[1] = { what: `dose search for "${compoundId}"` };
   if (hintMgPerL !== undefined && hintMgPerL > 0) opts.hintGPerL = hintMgPerL / 1000;
@@ -58,7 +60,8 @@ export function compoundDose(model: RemovalModel, index: number, goal: CompoundG
   if (r.status === 'met below the smallest dose') {
     return { compoundId, status: 'met below the smallest dose', doseMgPerL: 0, removalFraction: null, message: `the goal of ${pct(goal.removalFraction)} removal of "${compoundId}" is already met below ${MIN_DOSE_G_PER_L * 1000} mg/L of carbon` };
   }
-  const reached = 1 - model.remaining(index, r.doseGPerL, warm).remainingFraction;
+  // Brent's answer is normally its last evaluation: reuse it rather than solve again
+  const reached = 1 - (lastDose === r.doseGPerL ? lastRemaining : model.remaining(index, r.doseGPerL, warm).remainingFraction);
   if (!(Math.abs(reached - goal.removalFraction) <= 1e-9)) throw new ComputationError(`dose search for "${compoundId}" ended at ${(reached * 100).toPrecision(6)} % instead of ${(goal.removalFraction * 100).toPrecision(6)} %`);
   return { compoundId, status: 'met', doseMgPerL: r.doseGPerL * 1000, removalFraction: reached };
 }

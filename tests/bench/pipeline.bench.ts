@@ -41,6 +41,6 @@ export async function bench(): Promise<BenchFigure[]> {
   ];
   for (const [step, ms] of Object.entries(cold.timingMs)) figs.push({ name: `  first run: ${step}`, value: ms, unit: 'ms' });
   const days = warm.carbons.reduce((s, c) => s + (c.daily?.table.docMgPerL.length ?? 0), 0);
-  figs.push({ name: 'daily doses, DOC nodes of the dose tables (both carbons)', value: days, unit: 'solves' });
+  figs.push({ name: 'daily doses, DOC nodes of the dose tables (both carbons)', value: days, unit: 'nodes' });
   return figs;
 }

@@ -50,7 +50,9 @@ export { pipelineOutputs, OUTPUT_FILES } from './outputFiles/pipelineOutputs.js'
 // the design of a carbon at a DOC (doses, governing goal, cost, surrogate set-point, daily doses)
 export {
   compoundGoal, compoundDose, designDose, surrogatesAt, indicatorCheckAt, indicatorDose, indicatorValuesAt, selectIndicatorSet, removalCurves, dailyDoses,
-  doseTable, interpolateDose, seriesSegments, seriesCarbon, carbonKgPerD, costPerM3, carbonCost,
+  doseTable, interpolateDose, seriesSegments, seriesCarbon, carbonKgPerD, costPerM3, carbonCost, requiredDoseAt, REMOVAL_MODELS,
+  uv254SetPoint, governingSetPoint, doseForUv254Reduction, annualisedNote, isAnnualised, yearlyLabel,
+  type RequiredAtDoc, type SetPointGoal, type Uv254SetPoint, type GoverningSetPoint,
   type CompoundGoal, type CompoundDose, type CompoundDoseStatus, type Design, type DesignProblem, type SurrogateSetPoint, type IndicatorGoal, type IndicatorMember,
   type IndicatorCheck, type IndicatorDose, type IndicatorDoseStatus, type RemovalCurves, type DailyDoses, type DailyRow, type DoseTable, type SeriesSegments, type SeriesCarbon,
 } from './design/index.js';

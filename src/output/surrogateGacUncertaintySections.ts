@@ -143,11 +143,11 @@ export function uncertaintySection(r: PipelineResult): ReportSection | undefined
   withU.forEach((cr, k) => {
     const u = cr.uncertainty!;
     const money = (x: number) => (Number.isFinite(x) ? fmtMoney(x, cr.carbon.currency) : 'unreachable');
-    const val = (unit: string, x: number) => (!Number.isFinite(x) ? 'unreachable' : unit === 'fraction' ? pct(x) : unit === 'currency/a' ? money(x) : unit === 'kg/a' ? `${fmtWhole(x / 1000)} t` : fn(x, 3));
+    const val = (unit: string, x: number) => (!Number.isFinite(x) ? 'unreachable' : unit === 'fraction' ? pct(x) : unit === 'currency/a' || unit === 'currency/m3' ? money(x) : unit === 'kg/a' ? `${fmtWhole(x / 1000)} t` : fn(x, 3));
     tables.push({
       caption: `${cr.carbon.name}: point estimate and P10 / P50 / P90${u.excluded.length ? ` (left out: ${u.excluded.join(', ')})` : ''}`,
       columns: ['quantity', 'unit', 'point', 'P10', 'P50', 'P90'],
-      rows: u.result.quantities.map((q) => [q.label, q.unit === 'fraction' ? '%' : q.unit === 'currency/a' ? `${cr.carbon.currency}/a` : q.unit === 'kg/a' ? 't/a' : q.unit, val(q.unit, q.pointEstimate), val(q.unit, q.p10), val(q.unit, q.p50), val(q.unit, q.p90)]),
+      rows: u.result.quantities.map((q) => [q.label, q.unit === 'fraction' ? '%' : q.unit === 'currency/a' ? `${cr.carbon.currency}/a` : q.unit === 'currency/m3' ? `${cr.carbon.currency}/m³` : q.unit === 'kg/a' ? 't/a' : q.unit, val(q.unit, q.pointEstimate), val(q.unit, q.p10), val(q.unit, q.p50), val(q.unit, q.p90)]),
     });
     const gc = u.governingCurve;
     if (gc) {

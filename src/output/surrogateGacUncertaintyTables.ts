@@ -78,7 +78,7 @@ export function uncertaintyCsv(r: PipelineResult): string {
     if (!u) continue;
     for (const q of u.result.quantities) {
       const f = q.unit === 'fraction' ? 100 : 1;
-      const unit = q.unit === 'fraction' ? '%' : q.unit === 'currency/a' ? `${cr.carbon.currency}/a` : q.unit;
+      const unit = q.unit === 'fraction' ? '%' : q.unit === 'currency/a' ? `${cr.carbon.currency}/a` : q.unit === 'currency/m3' ? `${cr.carbon.currency}/m3` : q.unit;
       const v = (x: number) => (Number.isFinite(x) ? x * f : 'unreachable');
       rows.push([cr.carbon.name, q.key, q.label, unit, v(q.pointEstimate), v(q.p10), v(q.p50), v(q.p90), q.unreachableDraws, u.result.draws, u.result.seed]);
     }

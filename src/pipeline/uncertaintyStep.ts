@@ -1,7 +1,7 @@
 /**
  * The Monte Carlo step (capability 13): per PAC carbon, the isotherm and background parameters
- * are drawn and the doses, the governing dose, the UV254 set-point and the yearly carbon and cost
- * are solved again in every draw (src/uncertainty: monteCarlo / parallelMonteCarlo), giving the
+ * are drawn and the doses, the required dose, the indicator-mean dose, the UV254 set-point, the
+ * cost per m³ and the yearly carbon and cost are solved again in every draw (src/uncertainty: monteCarlo / parallelMonteCarlo), giving the
  * 10th, 50th and 90th percentiles (Hyndman & Fan 1996, type 7).
  *
  * What is uncertain, and how (stated in the report and run.json):
@@ -14,9 +14,12 @@
  *   - each compound's K and 1/n: `K_rel_sd`, `one_over_n_rel_sd` (lognormal);
  *   - the DOC (design value and the whole series together): `doc_rel_sd` (lognormal).
  * Every carbon uses the same seed (common random numbers: differences between carbons are not
- * blurred by different draws). Compounds whose goal needs no carbon or is unreachable at the
- * point estimate are left out (said so). Needs a fractionated background and fictive-component
- * competition for every compound; otherwise the carbon is skipped with the reason.
+ * blurred by different draws). Every draw designs the carbon with the design layer's model
+ * (src/design/designDose.ts) like the run: every compound is kept (a goal unreachable in a draw
+ * counts as an unreachable draw, a goal met without carbon as 0), the indicator goal is designed
+ * in every draw, and the yearly figures come from the run's dose-table nodes. Needs a
+ * fractionated background and fictive-component competition for every compound; otherwise the
+ * carbon is skipped with the reason.
  *
  * The removal band of the governing compound is traced from the first draws (at most
  * CURVE_BAND_DRAWS) of the same random streams, so it belongs to the same draws as the percentiles.

@@ -12,7 +12,11 @@ export * from './units/index.js';
 export { prepareMixture, type FreundlichComponent, type PreparedMixture } from './equilibrium/preparedMixture.js';
 export { solveBatchPrepared, type BatchSolution } from './equilibrium/iastBatch.js';
 export { directIastPrepared, type DirectSolution } from './equilibrium/iastDirect.js';
-export { doseForRemoval, MAX_DOSE_G_PER_L, MIN_DOSE_G_PER_L, type DoseResult } from './dose/doseSearch.js';
+export { doseForRemoval, MAX_DOSE_G_PER_L, MIN_DOSE_G_PER_L, type DoseResult } from './design/doseForRemoval.js';
+// ── design layer: the removal-at-dose model interface and the one dose search
+export { EquilibriumRemoval, equilibriumRemoval } from './design/equilibriumRemoval.js';
+export { searchDose, DEFAULT_DOSE_HINT_G_PER_L, type DoseSearchOutcome, type DoseSearchOptions, type DoseSearchStatus } from './design/doseSearch.js';
+export type { RemovalModel, RemovalModelFactory, CompetitionSet, WarmStart, RemainingAtDose, BackgroundAtDose } from './design/removalModel.js';
 export { readMixture, readComponent, parseConcentration, parseDose, type MixtureInput, type ComponentInput, type ParsedMixture } from './scenario/readMixture.js';
 export {
   equilibrium, equilibriumCurve, doseFor, loadingsAt, logSpacedDoses, goalToRemovalFraction, formatSolution,
@@ -20,7 +24,7 @@ export {
 } from './api/equilibriumApi.js';
 
 // ── background characterisation (capabilities 4–7) — add exports below this line
-export { readCsvTable, csvUnitFactor, type CsvTable, type CsvColumn, type CsvColumnSpec, type CsvKind, type CsvHeaderRow, type CsvColumnSpecs } from './io/csvTable.js';
+export { readCsvTable, csvUnitFactor, type CsvTable, type CsvColumn, type CsvColumnSpec, type CsvKind, type CsvHeaderRow, type CsvColumnSpecs } from './tables/csvTable.js';
 export { fractionate, readIsotherm, DEFAULT_EXPONENT, DEFAULT_COMPONENTS, type FractionateOptions, type FractionateResult, type IsothermInput, type ModelAlternative } from './fractionation/fractionate.js';
 export { readBackground, type BackgroundFile, type BackgroundComponentRecord, type BackgroundFit } from './fractionation/backgroundFile.js';
 export { backgroundComponents, predictDoc, predictUv254, predictUv254Reduction } from './fractionation/backgroundPrediction.js';
@@ -35,14 +39,28 @@ export { nnls, type NnlsResult } from './numerics/nnls.js';
 export { studentTQuantile, studentTCdf } from './numerics/studentT.js';
 
 // ── project, pipeline, report (capabilities 8–10, 14, 15) — add exports below this line
-export { validateProject, loadProject, DEFAULT_REMOVAL_PERCENT, DEFAULT_SWEEP, type ProjectSpec, type SiteSpec, type BackgroundSpec, type CarbonSpec, type CompoundSpec, type GoalsSpec, type CalibrationModelName } from './project/index.js';
+export { loadProject } from './io/loadProject.js';
+export { validateProject, DEFAULT_REMOVAL_PERCENT, DEFAULT_SWEEP, type ProjectSpec, type SiteSpec, type BackgroundSpec, type CarbonSpec, type CompoundSpec, type GoalsSpec, type CalibrationModelName } from './project/index.js';
 export { evaluateIndicatorSet, indicatorMean, admissibleRange, ruleViolation, MIN_INDICATOR_SUBSTANCES, CATEGORY_RATIO, type IndicatorValue, type IndicatorCategory, type IndicatorEvaluation, type AdmissibleRange } from './indicators/index.js';
 export { parseSiteSeries, quantile as seriesQuantile, median as seriesMedian, summarise as summariseSeries, type SiteSeries, type SeriesSummary } from './siteSeries/index.js';
-export { runPipeline, runPipelineWithUncertainty, indicatorPlan, surrogateStep, surrogateModel, pilotStep, gacStep, uncertaintyStep, uncertaintyProblem, resolveUncertaintySettings, surrogatesCsv, setpointsCsv, pilotCheckCsv, gacCsv, uncertaintyCsv, pipelineOutputs, OUTPUT_FILES, buildReportModel, runRecord, CAUTIONS, requiredDose, compoundDose, reducedLoading, removalCurves, indicatorCheckAt, indicatorDose, dailyDoses, buildSystems, systemComponents, prepareSystem, compoundGoal, type PipelineInput, type PipelineOptions, type UncertaintyRunOptions, type SurrogateResult, type SetPointRow, type PilotStepResult, type GacStepResult, type CarbonUncertainty, type UncertaintySettings, type PipelineResult, type CarbonResult, type ProgressEvent, type CompoundSystem, type CompoundGoal, type CompoundDose, type RequiredDose, type ReducedLoading, type RemovalCurves, type IndicatorCheck, type IndicatorDose, type IndicatorPlan, type DailyDoses, type DailyRow, type CompoundCalibration, type RunEnvironment } from './pipeline/index.js';
+export { runPipeline, runPipelineWithUncertainty, indicatorPlan, surrogateStep, surrogateModel, pilotStep, gacStep, uncertaintyStep, uncertaintyProblem, resolveUncertaintySettings, reducedLoading, buildSystems, systemComponents, prepareSystem, type PipelineInput, type PipelineOptions, type UncertaintyRunOptions, type SurrogateResult, type SetPointRow, type PilotStepResult, type GacStepResult, type CarbonUncertainty, type UncertaintySettings, type PipelineResult, type CarbonResult, type ProgressEvent, type CompoundSystem, type ReducedLoading, type CompoundCalibration, designProblem, carbonModel, competitionSets } from './pipeline/index.js';
+// outputs: CSV tables, the run record, the report model, number formatting; and every output file
+export { surrogatesCsv, setpointsCsv, pilotCheckCsv, gacCsv, uncertaintyCsv, buildReportModel, runRecord, CAUTIONS, type RunEnvironment } from './output/index.js';
+export { pipelineOutputs, OUTPUT_FILES } from './outputFiles/pipelineOutputs.js';
+// the design of a carbon at a DOC (doses, governing goal, cost, surrogate set-point, daily doses)
+export {
+  compoundGoal, compoundDose, designDose, surrogatesAt, indicatorCheckAt, indicatorDose, indicatorValuesAt, selectIndicatorSet, removalCurves, dailyDoses,
+  doseTable, interpolateDose, seriesSegments, seriesCarbon, carbonKgPerD, costPerM3, carbonCost, requiredDoseAt, REMOVAL_MODELS,
+  uv254SetPoint, governingSetPoint, doseForUv254Reduction, annualisedNote, isAnnualised, yearlyLabel,
+  type RequiredAtDoc, type SetPointGoal, type Uv254SetPoint, type GoverningSetPoint,
+  type CompoundGoal, type CompoundDose, type CompoundDoseStatus, type Design, type DesignProblem, type SurrogateSetPoint, type IndicatorGoal, type IndicatorMember,
+  type IndicatorCheck, type IndicatorDose, type IndicatorDoseStatus, type RemovalCurves, type DailyDoses, type DailyRow, type DoseTable, type SeriesSegments, type SeriesCarbon,
+} from './design/index.js';
 export { readCheckCase, runCheckCase, CHECK_KINDS, type CheckCase, type CheckOutcome, type CheckKind } from './checks/index.js';
 export { renderHtmlReport, renderMarkdownSummary, reportPlotIds, renderPlot } from './report/index.js';
 
 // ── surrogates, GAC, uncertainty (capabilities 11–13) — add exports below this line
 export * from './surrogates/index.js';
+export { readPilotCsv } from './io/readPilotCsv.js';
 export * from './gac/index.js';
 export * from './uncertainty/index.js';

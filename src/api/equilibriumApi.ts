@@ -6,7 +6,8 @@ import { InputError } from '../core/errors.js';
 import { prepareMixture, type FreundlichComponent, type PreparedMixture } from '../equilibrium/preparedMixture.js';
 import { solveBatchPrepared, type BatchSolution } from '../equilibrium/iastBatch.js';
 import { directIastPrepared } from '../equilibrium/iastDirect.js';
-import { doseForRemoval, MAX_DOSE_G_PER_L } from '../dose/doseSearch.js';
+import { logSpaced } from '../numerics/logSpace.js';
+import { doseForRemoval } from '../design/doseForRemoval.js';
 import { atPath, parseConcentration, parseDose, readComponent, readMixture, type MixtureInput, type ParsedMixture } from '../scenario/readMixture.js';
 
 export interface EquilibriumComponentResult {
@@ -77,10 +78,7 @@ export function equilibrium(mixture: MixtureLike, dose?: string | number): Equil
 
 /** Log-spaced doses from `from` to `to` inclusive (mg/L). */
 export function logSpacedDoses(fromMgPerL: number, toMgPerL: number, points: number): number[] {
-  if (!(fromMgPerL > 0) || !(toMgPerL > fromMgPerL)) throw new InputError(`expected 0 < from < to for a dose sweep, got from ${fromMgPerL} mg/L and to ${toMgPerL} mg/L`, { path: 'from' });
-  if (!Number.isInteger(points) || points < 2 || points > 100000) throw new InputError(`expected a whole number of points from 2 to 100000, got ${points}`, { path: 'points' });
-  const l0 = Math.log(fromMgPerL), l1 = Math.log(toMgPerL);
-  return Array.from({ length: points }, (_, k) => (k === 0 ? fromMgPerL : k === points - 1 ? toMgPerL : Math.exp(l0 + ((l1 - l0) * k) / (points - 1))));
+  return logSpaced(fromMgPerL, toMgPerL, points, 'from');
 }
 
 /** Removal-against-dose curve: one equilibrium per log-spaced dose. */
@@ -122,7 +120,7 @@ export function doseFor(mixture: MixtureLike, targetId: string, goal: DoseGoal):
   const comp = parsed.components[idx]!;
   const R = goalToRemovalFraction(goal, comp.c0MgPerL, targetId);
   const pm = prepareMixture(parsed.components);
-  const r = doseForRemoval(pm, idx, R, MAX_DOSE_G_PER_L);
+  const r = doseForRemoval(pm, idx, R);
   return { target: targetId, dose_mg_per_L: r.doseGPerL * 1000, removal_fraction: r.removalFraction };
 }
 

@@ -9,7 +9,7 @@
  * analyses); DOC > 0.
  */
 import { InputError } from '../core/errors.js';
-import { readCsvTable, type CsvColumnSpec, type CsvTable } from '../io/csvTable.js';
+import { readCsvTable, type CsvColumnSpec, type CsvTable } from '../tables/csvTable.js';
 
 export const JAR_TEST_COLUMNS: readonly CsvColumnSpec[] = [
   { key: 'c0', names: ['C0', 'initial concentration'], kind: 'massConcentration', required: true, description: 'initial target concentration C0' },

@@ -1,6 +1,6 @@
 /** Plain-text tables and number formatting for terminal output. */
 
-import { fmtConcentration, fmtNumber } from '../pipeline/formatting.js';
+import { fmtConcentration, fmtNumber } from '../output/formatting.js';
 
 /** Number with `sig` significant digits, no exponent for everyday magnitudes. */
 export const fmt = (x: number, sig = 4): string => fmtNumber(x, sig);

@@ -10,7 +10,7 @@
  * @throws InputError on bad data (file, row, column) or options; ComputationError if no fit converges
  */
 import { ComputationError, InputError } from '../core/errors.js';
-import { readCsvTable, type CsvTable } from '../io/csvTable.js';
+import { readCsvTable, type CsvTable } from '../tables/csvTable.js';
 import { checkIsotherm, ISOTHERM_COLUMNS, pointsFromTable, type IsothermData, type IsothermPoint } from './isothermData.js';
 import { defaultKGrid, MAX_COMPONENTS, MIN_COMPONENTS } from './defaultKGrid.js';
 import { fitBackground, type BackgroundFitResult } from './fitBackground.js';

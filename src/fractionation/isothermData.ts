@@ -9,7 +9,7 @@
  * is a few percent for DOC (common practice); DOC0 > 0.
  */
 import { InputError } from '../core/errors.js';
-import type { CsvColumnSpec, CsvTable } from '../io/csvTable.js';
+import type { CsvColumnSpec, CsvTable } from '../tables/csvTable.js';
 
 export const ISOTHERM_COLUMNS: readonly CsvColumnSpec[] = [
   { key: 'dose', names: ['dose', 'carbon dose', 'PAC dose', 'PAC'], kind: 'massConcentration', required: true, description: 'carbon dose' },

@@ -4,3 +4,4 @@ export * from './linearSystem.js';
 export * from './nnls.js';
 export * from './studentT.js';
 export * from './percentile.js';
+export * from './logSpace.js';

@@ -3,7 +3,7 @@
  * fractionate a DOC isotherm (adsorption analysis, src/fractionation), take a background file as
  * it is, or keep one EBC per compound (Najm, Snoeyink & Richard 1991, J. AWWA).
  */
-import type { CsvTable } from '../io/csvTable.js';
+import type { CsvTable } from '../tables/csvTable.js';
 import { fractionate, type FractionateResult } from '../fractionation/fractionate.js';
 import type { BackgroundFile } from '../fractionation/backgroundFile.js';
 import type { BackgroundSpec } from '../project/projectTypes.js';

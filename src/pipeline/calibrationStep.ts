@@ -8,7 +8,7 @@
  * The jar tests' DOC comes from their DOC column; without one, the site's design DOC is assumed
  * (and said so in a warning).
  */
-import type { CsvTable } from '../io/csvTable.js';
+import type { CsvTable } from '../tables/csvTable.js';
 import { calibrate, type CalibrationResult, type CalibrateOptions } from '../calibration/calibrate.js';
 import type { CalibrationModelName, ProjectSpec } from '../project/projectTypes.js';
 import type { BackgroundStep } from './backgroundStep.js';

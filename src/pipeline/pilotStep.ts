@@ -14,7 +14,7 @@
  *   `pilot`) or the pilot data name an unknown compound
  */
 import { InputError } from '../core/errors.js';
-import { logSpacedDoses } from '../api/equilibriumApi.js';
+import { logSpaced as logSpacedDoses } from '../numerics/logSpace.js';
 import { solveBatchPrepared } from '../equilibrium/iastBatch.js';
 import type { PilotData } from '../surrogates/pilotCsv.js';
 import { checkPilotPairs, type PilotCheckResult, type PredictedRelation } from '../surrogates/pilotCheck.js';

@@ -2,7 +2,7 @@
  * Inputs and results of the whole job (`sorbshare run`). The pipeline is pure: it receives the
  * validated project and the already-read tables; src/project/loadProject.ts reads the files.
  */
-import type { CsvTable } from '../io/csvTable.js';
+import type { CsvTable } from '../tables/csvTable.js';
 import type { BackgroundFile } from '../fractionation/backgroundFile.js';
 import type { CarbonSpec, ProjectSpec } from '../project/projectTypes.js';
 import type { SiteSeries } from '../siteSeries/siteSeries.js';
@@ -10,16 +10,16 @@ import type { PilotData } from '../surrogates/pilotCsv.js';
 import type { BackgroundStep } from './backgroundStep.js';
 import type { CompoundCalibration } from './calibrationStep.js';
 import type { CompoundSystem } from './competitionSystem.js';
-import type { CompoundGoal } from './compoundGoal.js';
-import type { DailyDoses } from './dailyDoses.js';
-import type { IndicatorCheck } from './indicatorCheck.js';
-import type { ReducedLoading } from './reducedLoading.js';
-import type { RemovalCurves } from './removalCurves.js';
-import type { RequiredDose } from './requiredDose.js';
+import type { CompoundGoal } from '../design/compoundGoal.js';
+import type { DailyDoses } from '../design/dailyDoses.js';
+import type { IndicatorCheck } from '../design/indicatorGoal.js';
+import type { ReducedLoading } from '../design/reducedLoading.js';
+import type { RemovalCurves } from '../design/removalCurves.js';
+import type { Design } from '../design/designDose.js';
 import type { SurrogateResult } from './surrogateStep.js';
 import type { PilotStepResult } from './pilotStep.js';
 import type { GacStepResult } from './gacStep.js';
-import type { CarbonUncertainty, UncertaintySettings } from './uncertaintyStep.js';
+import type { CarbonUncertainty, UncertaintySettings } from './uncertaintyTypes.js';
 
 /** A file the project referenced, for run.json. */
 export interface InputFileRecord {
@@ -76,7 +76,7 @@ export interface CarbonResult {
   /** Systems of the compounds on this carbon (project order); PAC only. */
   systems: CompoundSystem[];
   /** Required dose at the site's design DOC (PAC only). */
-  required?: RequiredDose;
+  required?: Design;
   /** Dose the reduced loadings and the indicator check are reported at, mg/L. */
   designDoseMgPerL?: number;
   designDoseSource?: 'required dose' | 'goals.design_dose';
@@ -89,7 +89,8 @@ export interface CarbonResult {
   carbonKgPerDAtDesign?: number;
   daily?: DailyDoses;
   /** Yearly carbon and cost: from the DOC series, or design dose × design flow × 365. */
-  yearly?: { carbonKg: number; cost: number; basis: 'DOC series' | 'design DOC and flow' };
+  /** Yearly carbon and cost; `basis` says where from and, when annualised, from how many days (src/design/annualised.ts). */
+  yearly?: { carbonKg: number; cost: number; basis: string; annualised: boolean };
   /** DOC/UV254 reduction beside removal and the UV254 set-points (PAC with a fractionated background). */
   surrogates?: SurrogateResult;
   /** GAC equilibrium estimate (GAC carbons; an upper bound). */

@@ -9,37 +9,49 @@
  *
  * @throws InputError on inconsistent inputs; ComputationError if a solver fails.
  */
-import { backgroundStep } from './backgroundStep.js';
+import { backgroundStep, type BackgroundStep } from './backgroundStep.js';
 import { calibrationStep, type CompoundCalibration } from './calibrationStep.js';
 import { buildSystems } from './buildSystems.js';
-import { compoundGoal, type CompoundGoal } from './compoundGoal.js';
-import { requiredDose } from './requiredDose.js';
-import { reducedLoading } from './reducedLoading.js';
-import { removalCurves } from './removalCurves.js';
-import { indicatorCheckAt, type IndicatorPlan } from './indicatorCheck.js';
-import { dailyDoses } from './dailyDoses.js';
-import { dayDose } from './dayDose.js';
+import { compoundGoal, type CompoundGoal } from '../design/compoundGoal.js';
+import { designDose, type DesignProblem } from '../design/designDose.js';
+import { reducedLoading } from '../design/reducedLoading.js';
+import { removalCurves } from '../design/removalCurves.js';
+import { indicatorCheckAt, type IndicatorGoal } from '../design/indicatorGoal.js';
+import { dailyDoses } from '../design/dailyDoses.js';
+import { doseTable, seriesCarbon, seriesSegments } from '../design/doseTable.js';
+import { carbonCost, carbonKgPerD } from '../design/carbonCost.js';
+import { carbonModel } from './carbonModel.js';
+import { yearlyLabel } from '../design/annualised.js';
 import type { CompoundSystem } from './competitionSystem.js';
 import type { CarbonResult, PipelineInput, PipelineOptions, PipelineResult } from './pipelineTypes.js';
 import type { ProjectSpec } from '../project/projectTypes.js';
-import { fmtConcentration } from './formatting.js';
+import { fmtConcentration } from '../units/formatQuantity.js';
 import { surrogateModel, surrogateStep } from './surrogateStep.js';
 import { pilotStep, type PilotStepResult } from './pilotStep.js';
 import { gacStep } from './gacStep.js';
 import { GAC_UPPER_BOUND_CAUTION } from '../gac/gacEstimate.js';
 import { InputError } from '../core/errors.js';
 
-/** The indicator plan of one carbon, when the project sets an indicator goal. */
-export function indicatorPlan(project: ProjectSpec, systems: readonly CompoundSystem[]): IndicatorPlan | undefined {
+/** The indicator goal of the project (compound indices in project order), when it sets one. */
+export function indicatorPlan(project: ProjectSpec): IndicatorGoal | undefined {
   const goal = project.goals.indicator;
   if (!goal) return undefined;
   const members = project.compounds
-    .map((c, i) => ({ c, sys: systems[i]! }))
-    .filter(({ c }) => c.indicatorCategory !== undefined)
-    .map(({ c, sys }) => ({ system: sys, category: c.indicatorCategory! }));
-  const plan: IndicatorPlan = { members, goalPercent: goal.meanRemovalPercent };
+    .map((c, index) => ({ index, category: c.indicatorCategory }))
+    .filter((m): m is IndicatorGoal['members'][number] => m.category !== undefined);
+  const plan: IndicatorGoal = { members, goalPercent: goal.meanRemovalPercent };
   if (goal.compounds) plan.chosen = goal.compounds;
   return plan;
+}
+
+/** The design problem of one carbon: the goals, the indicator goal, the price and UV254 absorbances. */
+export function designProblem(project: ProjectSpec, carbon: { pricePerKg: number }, goals: readonly CompoundGoal[], bg: BackgroundStep): DesignProblem {
+  const problem: DesignProblem = { goals, pricePerKg: carbon.pricePerKg };
+  const plan = indicatorPlan(project);
+  if (plan) problem.indicator = plan;
+  const a = bg.background?.components.map((c) => c.specific_uv254_per_m_per_mg_per_L);
+  if (a && a.every((v): v is number => typeof v === 'number') && a.some((v) => v > 0)) problem.uv254AbsorbancePerM = a;
+  return problem;
 }
 
 export function runPipeline(input: PipelineInput, options: PipelineOptions = {}): PipelineResult {
@@ -61,7 +73,7 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
   const calMap = new Map(calibrations.map((c) => [c.compoundId, c] as const));
 
   const goals: Record<string, CompoundGoal> = {};
-  for (const c of project.compounds) goals[c.id] = compoundGoal(c, project.goals, fmtConcentration);
+  for (const c of project.compounds) goals[c.id] = compoundGoal(c, project.goals.removalPercent, fmtConcentration);
   const goalList = project.compounds.map((c) => goals[c.id]!);
   const doc = project.site.docMgPerL;
 
@@ -75,16 +87,17 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
       res.warnings.push(`GAC: ${GAC_UPPER_BOUND_CAUTION}`);
       return res;
     }
-    const plan = indicatorPlan(project, systems);
+    const problem = designProblem(project, carbon, goalList, bg);
+    const model = carbonModel(systems, doc, bg.background ? surrogateModel(bg.background, doc, carbon.kFactor).background : undefined);
     progress({ step: `${carbon.name}: doses at the design DOC`, done: ci, total: project.carbons.length });
-    const req = timed('doses', () => requiredDose(systems, goalList, plan, doc));
+    const req = timed('doses', () => designDose(model, problem));
     res.required = req;
     for (const c of req.compounds) {
       if (c.status === 'unreachable') res.warnings.push(`${c.compoundId}: ${c.message}; it is left out of the required dose`);
-      if (c.status === 'no-carbon-needed') res.warnings.push(`${c.compoundId}: ${c.message}`);
+      if (c.status === 'met without carbon' || c.status === 'met below the smallest dose') res.warnings.push(`${c.compoundId}: ${c.message}`);
     }
-    if (req.indicator && req.indicator.status !== 'ok') res.warnings.push(`indicator goal: ${req.indicator.message}`);
-    const curves = timed('curves', () => removalCurves(carbon.name, systems, doc, project.goals.sweep));
+    if (req.indicator && req.indicator.status !== 'met') res.warnings.push(`indicator goal: ${req.indicator.message}`);
+    const curves = timed('curves', () => removalCurves(carbon.name, model, project.goals.sweep));
     res.curves = curves;
     if (bg.background) {
       const background = bg.background;
@@ -95,26 +108,28 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
     if (design !== undefined && design > 0) {
       res.designDoseMgPerL = design;
       res.designDoseSource = project.goals.designDoseMgPerL !== undefined ? 'goals.design_dose' : 'required dose';
-      res.reducedLoadings = timed('reduced loading', () => systems.map((s) => reducedLoading(s, doc, design)));
-      if (plan) res.indicator = timed('indicators', () => indicatorCheckAt(plan, doc, design));
+      res.reducedLoadings = timed('reduced loading', () => systems.map((s, i) => reducedLoading(model, i, s.c0MgPerL, s.single, design)));
+      if (problem.indicator) { const plan = problem.indicator; res.indicator = timed('indicators', () => indicatorCheckAt(model, plan, design)); }
     }
     if (req.doseMgPerL !== null) {
-      res.costPerM3 = (req.doseMgPerL / 1000) * carbon.pricePerKg; // g/m³ → kg/m³ × price per kg
-      res.carbonKgPerDAtDesign = (req.doseMgPerL * project.site.flowM3PerD) / 1000;
+      res.costPerM3 = req.costPerM3!;
+      res.carbonKgPerDAtDesign = carbonKgPerD(req.doseMgPerL, project.site.flowM3PerD);
     } else {
       res.warnings.push('no goal is reachable with this carbon; no dose or cost');
     }
     if (input.series) {
       const series = input.series;
-      res.daily = timed('daily doses', () => dailyDoses(carbon, series, (d, near) => dayDose(systems, goalList, plan, d, req, near), (done, total) => {
-        if (done % 30 === 0 || done === total) progress({ step: `${carbon.name}: daily doses`, done, total });
-      }));
-      res.yearly = { carbonKg: res.daily.yearlyCarbonKg, cost: res.daily.yearlyCost, basis: 'DOC series' };
+      progress({ step: `${carbon.name}: daily doses`, done: 0, total: series.dates.length });
+      const table = timed('daily doses', () => doseTable(model, problem, series.docMgPerL, req));
+      res.daily = timed('daily doses', () => dailyDoses(carbon, series, table));
+      progress({ step: `${carbon.name}: daily doses`, done: series.dates.length, total: series.dates.length });
+      res.yearly = { carbonKg: res.daily.yearlyCarbonKg, cost: res.daily.yearlyCost, basis: yearlyLabel('DOC series', series.dates.length), annualised: res.daily.annualised };
       const missing = res.daily.rows.length - res.daily.daysWithDose;
       if (missing > 0) res.warnings.push(`${missing} day(s) of the DOC series have no reachable goal and no dose; totals cover the other days`);
     } else if (req.doseMgPerL !== null) {
-      const kg = (req.doseMgPerL * project.site.flowM3PerD * 365) / 1000;
-      res.yearly = { carbonKg: kg, cost: kg * carbon.pricePerKg, basis: 'design DOC and flow' };
+      // one day at the design DOC and flow, annualised: the same segment sums as the series
+      const y = seriesCarbon(seriesSegments([doc], [doc], project.site.flowM3PerD), [req.doseMgPerL]);
+      res.yearly = { carbonKg: y.yearlyKg, cost: carbonCost(y.yearlyKg, carbon.pricePerKg), basis: yearlyLabel('design DOC and flow', 1), annualised: true };
     }
     return res;
   });

@@ -8,7 +8,7 @@
  * @throws InputError on inconsistent inputs; ComputationError if a solver fails.
  */
 import { runPipeline } from './runPipeline.js';
-import { resolveUncertaintySettings, uncertaintyStep } from './uncertaintyStep.js';
+import { resolveUncertaintySettings, uncertaintyStep, withUncertainty } from './uncertaintyStep.js';
 import type { PipelineInput, PipelineResult, UncertaintyRunOptions } from './pipelineTypes.js';
 
 export async function runPipelineWithUncertainty(input: PipelineInput, options: UncertaintyRunOptions = {}): Promise<PipelineResult> {
@@ -21,6 +21,5 @@ export async function runPipelineWithUncertainty(input: PipelineInput, options: 
   const o: Parameters<typeof uncertaintyStep>[3] = {};
   if (options.onMonteCarloProgress) o.onMonteCarloProgress = options.onMonteCarloProgress;
   if (options.workers !== undefined) o.workers = options.workers;
-  await uncertaintyStep(result, input, settings, o);
-  return result;
+  return withUncertainty(result, await uncertaintyStep(result, input, settings, o));
 }

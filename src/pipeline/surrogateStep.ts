@@ -20,16 +20,17 @@ import { backgroundComponents } from '../fractionation/backgroundPrediction.js';
 import type { BackgroundFile } from '../fractionation/backgroundFile.js';
 import { backgroundSurrogatesAt, type SurrogateCurve, type SurrogateModel } from '../surrogates/surrogateCurve.js';
 import { scaleK } from './competitionSystem.js';
-import type { CompoundGoal } from './compoundGoal.js';
-import type { RemovalCurves } from './removalCurves.js';
-import type { RequiredDose } from './requiredDose.js';
+import type { CompoundGoal } from '../design/compoundGoal.js';
+import type { CompoundDoseStatus } from '../design/compoundDose.js';
+import type { RemovalCurves } from '../design/removalCurves.js';
+import type { Design } from '../design/designDose.js';
 
 export interface SetPointRow {
   compoundId: string;
   goalText: string;
   /** Removal goal, fraction (≤ 0 when met without carbon). */
   removalGoal: number;
-  status: 'ok' | 'no-carbon-needed' | 'unreachable';
+  status: CompoundDoseStatus;
   doseMgPerL: number | null;
   /** UV254 reduction at that dose, fraction (null without absorbances or dose). */
   uv254Reduction: number | null;
@@ -77,7 +78,7 @@ export function surrogatesAtDose(model: SurrogateModel, doseMgPerL: number): Sur
  */
 export function surrogateStep(
   carbonName: string, background: BackgroundFile, kFactor: number, docMgPerL: number,
-  curves: RemovalCurves, required: RequiredDose, goals: readonly CompoundGoal[],
+  curves: RemovalCurves, required: Design, goals: readonly CompoundGoal[],
 ): SurrogateResult {
   const model = surrogateModel(background, docMgPerL, kFactor);
   const doc0 = model.background.reduce((s, c) => s + c.c0MgPerL, 0);
@@ -93,7 +94,7 @@ export function surrogateStep(
   const hasUv254 = model.uv254AbsorbancePerM !== undefined;
   if (hasUv254) curve.uv254_0PerM = model.background.reduce((s, c, i) => s + c.c0MgPerL * model.uv254AbsorbancePerM![i]!, 0);
   const setPoints = required.compounds.map((d, i): SetPointRow => {
-    const at = d.status === 'ok' && d.doseMgPerL !== null && d.doseMgPerL > 0 ? surrogatesAtDose(model, d.doseMgPerL) : undefined;
+    const at = d.status === 'met' && d.doseMgPerL !== null && d.doseMgPerL > 0 ? surrogatesAtDose(model, d.doseMgPerL) : undefined;
     return {
       compoundId: d.compoundId, goalText: goals[i]!.text, removalGoal: goals[i]!.removalFraction, status: d.status, doseMgPerL: d.doseMgPerL,
       uv254Reduction: at ? at.uv254Reduction : null, docReduction: at ? at.docReduction : null,

@@ -1,7 +1,7 @@
 /**
  * The Monte Carlo step (capability 13): per PAC carbon, the isotherm and background parameters
- * are drawn and the doses, the governing dose, the UV254 set-point and the yearly carbon and cost
- * are solved again in every draw (src/uncertainty: monteCarlo / parallelMonteCarlo), giving the
+ * are drawn and the doses, the required dose, the indicator-mean dose, the UV254 set-point, the
+ * cost per m³ and the yearly carbon and cost are solved again in every draw (src/uncertainty: monteCarlo / parallelMonteCarlo), giving the
  * 10th, 50th and 90th percentiles (Hyndman & Fan 1996, type 7).
  *
  * What is uncertain, and how (stated in the report and run.json):
@@ -14,9 +14,12 @@
  *   - each compound's K and 1/n: `K_rel_sd`, `one_over_n_rel_sd` (lognormal);
  *   - the DOC (design value and the whole series together): `doc_rel_sd` (lognormal).
  * Every carbon uses the same seed (common random numbers: differences between carbons are not
- * blurred by different draws). Compounds whose goal needs no carbon or is unreachable at the
- * point estimate are left out (said so). Needs a fractionated background and fictive-component
- * competition for every compound; otherwise the carbon is skipped with the reason.
+ * blurred by different draws). Every draw designs the carbon with the design layer's model
+ * (src/design/designDose.ts) like the run: every compound is kept (a goal unreachable in a draw
+ * counts as an unreachable draw, a goal met without carbon as 0), the indicator goal is designed
+ * in every draw, and the yearly figures come from the run's dose-table nodes. Needs a
+ * fractionated background and fictive-component competition for every compound; otherwise the
+ * carbon is skipped with the reason.
  *
  * The removal band of the governing compound is traced from the first draws (at most
  * CURVE_BAND_DRAWS) of the same random streams, so it belongs to the same draws as the percentiles.
@@ -24,52 +27,26 @@
 import { ComputationError } from '../core/errors.js';
 import type { BackgroundStep } from './backgroundStep.js';
 import type { CarbonResult, PipelineInput, PipelineResult, UncertaintyRunOptions } from './pipelineTypes.js';
-import type { CompoundGoal } from './compoundGoal.js';
+import type { CarbonUncertainty, UncertainParameter, UncertaintySettings } from './uncertaintyTypes.js';
+import type { CompoundGoal } from '../design/compoundGoal.js';
+import { indicatorPlan } from './runPipeline.js';
 import type { ProjectSpec, UncertaintySpec } from '../project/projectTypes.js';
 import { DEFAULT_UNCERTAINTY } from '../project/projectTypes.js';
 import type { SiteSeries } from '../siteSeries/siteSeries.js';
 import type { MonteCarloProblem, ParameterCovariance, UncertainBackgroundComponent, UncertainTarget } from '../uncertainty/monteCarloProblem.js';
-import type { MonteCarloResult } from '../uncertainty/monteCarlo.js';
 import { planChunks } from '../uncertainty/monteCarlo.js';
 import { parallelMonteCarlo } from '../uncertainty/parallelMonteCarlo.js';
-import { compileDrawModel, sampleParameters } from '../uncertainty/monteCarloDraw.js';
+import { compileDrawModel, drawModel, sampleParameters } from '../uncertainty/monteCarloDraw.js';
+import type { WarmStart } from '../design/removalModel.js';
 import { NormalSampler } from '../uncertainty/distributions.js';
 import { chunkRng } from '../uncertainty/prng.js';
 import { percentiles } from '../numerics/percentile.js';
-import { prepareMixture } from '../equilibrium/preparedMixture.js';
-import { solveBatchPrepared } from '../equilibrium/iastBatch.js';
 
 /** Two-sided 95 % quantile of the standard normal distribution. */
 export const Z95 = 1.959963984540054;
 export const CI_TO_SD_NOTE = 'fitted 95 % intervals converted to standard deviations as (upper − lower)/(2 × 1.96), normal approximation; fitted parameters drawn independently';
 /** Draws used for the removal band of the governing compound. */
 export const CURVE_BAND_DRAWS = 400;
-
-export interface UncertaintySettings extends UncertaintySpec {
-  /** Where draws and seed came from. */
-  source: string;
-}
-
-export interface UncertainParameter {
-  parameter: string;
-  distribution: 'lognormal' | 'normal';
-  /** Relative SD (lognormal) or SD (normal; fractions as fractions of the DOC, ln K for K). */
-  sd: number;
-  basis: string;
-}
-
-export interface CarbonUncertainty {
-  carbonName: string;
-  parameters: UncertainParameter[];
-  /** Compounds left out of the Monte Carlo, with the reason. */
-  excluded: string[];
-  problem: MonteCarloProblem;
-  result: MonteCarloResult;
-  /** P10–P90 band of the governing compound's removal against dose (percent). */
-  governingCurve?: { compoundId: string; draws: number; dosesMgPerL: number[]; p10Percent: number[]; p50Percent: number[]; p90Percent: number[] };
-  /** P10 and P90 of (governing dose of a draw)/(point estimate): the relative spread of the dose. */
-  governingDoseRatio?: { p10: number; p90: number };
-}
 
 /**
  * The settings of the run: the project's section, with --draws / --seed overriding it. Undefined
@@ -96,12 +73,12 @@ export function uncertaintyProblem(
   const parameters: UncertainParameter[] = [];
   const excluded: string[] = [];
   const targets: UncertainTarget[] = [];
+  // every compound, whatever its status at the point estimate: unreachable goals count as
+  // unreachable draws, goals met without carbon as 0, so each band sits beside the run's figure
   cr.systems.forEach((sys, i) => {
-    const d = cr.required!.compounds[i]!;
-    if (d.status !== 'ok' || !(goals[i]!.removalFraction > 0)) { excluded.push(`${sys.compoundId} (${d.status === 'unreachable' ? 'goal unreachable at the point estimate' : 'met without carbon'})`); return; }
     targets.push({ id: sys.compoundId, K: sys.inMixture.K, oneOverN: sys.inMixture.oneOverN, c0MgPerL: sys.c0MgPerL, removalGoal: goals[i]!.removalFraction, KRelSd: s.KRelSd, oneOverNRelSd: s.oneOverNRelSd });
   });
-  if (targets.length === 0) return { skipped: 'no compound has a reachable goal that needs carbon' };
+  if (targets.length === 0) return { skipped: 'no compound on this carbon' };
   if (s.KRelSd > 0) parameters.push({ parameter: "compounds' K", distribution: 'lognormal', sd: s.KRelSd, basis: 'project uncertainty.K_rel_sd' });
   if (s.oneOverNRelSd > 0) parameters.push({ parameter: "compounds' 1/n", distribution: 'lognormal', sd: s.oneOverNRelSd, basis: 'project uncertainty.one_over_n_rel_sd' });
   const cov: { names: string[]; variances: number[] } = { names: [], variances: [] };
@@ -131,16 +108,19 @@ export function uncertaintyProblem(
   });
   if (s.docRelSd > 0) parameters.push({ parameter: 'DOC (design value and series)', distribution: 'lognormal', sd: s.docRelSd, basis: 'project uncertainty.doc_rel_sd' });
   const doc = project.site.docMgPerL;
-  const problem: MonteCarloProblem = { targets, background, docMgPerL: doc, docRelSd: s.docRelSd };
+  const problem: MonteCarloProblem = { targets, background, docMgPerL: doc, docRelSd: s.docRelSd, carbonPricePerKg: cr.carbon.pricePerKg };
+  const plan = indicatorPlan(project);
+  if (plan) problem.indicator = { members: plan.members.map((m) => ({ index: m.index, category: m.category })), goalPercent: plan.goalPercent, ...(plan.chosen ? { chosen: plan.chosen } : {}) };
   if (cov.names.length) {
     const covariance: ParameterCovariance = { parameters: cov.names, matrix: cov.variances.map((v, i) => cov.variances.map((_, j) => (i === j ? v : 0))) };
     problem.covariance = covariance;
   }
   const a = bgFile.components.map((c) => c.specific_uv254_per_m_per_mg_per_L);
   if (a.every((v): v is number => typeof v === 'number') && a.some((v) => v > 0)) problem.uv254AbsorbancePerM = a;
-  problem.yearly = series
-    ? { docSeriesMgPerL: series.docMgPerL.slice(), flowM3PerD: series.flowM3PerD.slice(), carbonPricePerKg: cr.carbon.pricePerKg, docLevels: s.docLevels }
-    : { docSeriesMgPerL: [doc], flowM3PerD: project.site.flowM3PerD, carbonPricePerKg: cr.carbon.pricePerKg, docLevels: s.docLevels };
+  // the run's dose-table nodes and series, so that the draws' yearly figures use the run's arithmetic
+  problem.yearly = series && cr.daily
+    ? { docSeriesMgPerL: series.docMgPerL.slice(), flowM3PerD: series.flowM3PerD.slice(), carbonPricePerKg: cr.carbon.pricePerKg, docNodesMgPerL: cr.daily.table.docMgPerL.slice() }
+    : { docSeriesMgPerL: [doc], flowM3PerD: project.site.flowM3PerD, carbonPricePerKg: cr.carbon.pricePerKg, docNodesMgPerL: [doc] };
   return { problem, parameters, excluded };
 }
 
@@ -155,14 +135,12 @@ export function removalBand(problem: MonteCarloProblem, seed: number, draws: num
   for (const { chunk, count } of planChunks(n)) {
     const normal = new NormalSampler(chunkRng(seed, chunk)); // the streams of the Monte Carlo run
     for (let k = 0; k < count; k++, i++) {
-      const d = sampleParameters(model, normal);
-      const target = d.targets[t]!;
-      const pm = prepareMixture([target, ...d.background]);
-      let warm: { u: number; theta: number } | undefined;
+      const removal = drawModel(model, sampleParameters(model, normal));
+      let warm: WarmStart;
       dosesMgPerL.forEach((dose, j) => {
-        const s = solveBatchPrepared(pm, dose / 1000, warm);
-        warm = s.state;
-        columns[j]![i] = 100 * (1 - s.cMgPerL[0]! / target.c0MgPerL);
+        const r = removal.remaining(t, dose / 1000, warm);
+        warm = r.warm;
+        columns[j]![i] = 100 * (1 - r.remainingFraction);
       });
     }
   }
@@ -170,39 +148,80 @@ export function removalBand(problem: MonteCarloProblem, seed: number, draws: num
   return { compoundId: targetId, draws: n, dosesMgPerL: dosesMgPerL.slice(), p10Percent: q.map((x) => x[0]!), p50Percent: q.map((x) => x[1]!), p90Percent: q.map((x) => x[2]!) };
 }
 
+/** The run's own figure for each Monte Carlo quantity (the point estimate printed beside its band). */
+export function runFigures(cr: CarbonResult, problem: MonteCarloProblem): Record<string, number> {
+  const req = cr.required!;
+  const inf = (v: number | null | undefined) => (v === null || v === undefined ? Infinity : v);
+  const out: Record<string, number> = {};
+  problem.targets.forEach((t, i) => { out[`dose:${t.id}`] = inf(req.compounds[i]!.doseMgPerL); });
+  out.governing_dose = inf(req.doseMgPerL);
+  if (req.indicator) out.indicator_dose = inf(req.indicator.doseMgPerL);
+  const required = req.doseMgPerL;
+  out.doc_reduction = required === null ? Infinity : req.surrogate?.docReduction ?? 0;
+  out.uv254_setpoint = required === null ? Infinity : req.surrogate?.uv254Reduction ?? 0;
+  out.cost_per_m3 = inf(req.costPerM3);
+  if (cr.yearly) { out.yearly_carbon = cr.yearly.carbonKg; out.yearly_cost = cr.yearly.cost; }
+  return out;
+}
+
+export interface UncertaintyOutcome {
+  settings: UncertaintySettings;
+  /** Per carbon name: its Monte Carlo result, or why it was skipped. */
+  carbons: Map<string, { uncertainty: CarbonUncertainty; warnings: string[] } | { skipped: string }>;
+  timingMs: number;
+}
+
 /**
- * Run the Monte Carlo on every PAC carbon of a pipeline result (adds `uncertainty` to each carbon
- * and to the result). @throws InputError for an invalid problem; ComputationError if a solve fails
+ * Run the Monte Carlo on every PAC carbon of a pipeline result. Returns the results (the caller
+ * assembles the final result; nothing is patched). The point estimate of every quantity is the
+ * run's own figure; with every deviation zero the draws reproduce it (tested).
+ * @throws InputError for an invalid problem; ComputationError if a solve fails
  */
-export async function uncertaintyStep(result: PipelineResult, input: PipelineInput, settings: UncertaintySettings, o: Pick<UncertaintyRunOptions, 'onMonteCarloProgress' | 'workers'> = {}): Promise<void> {
+export async function uncertaintyStep(result: PipelineResult, input: PipelineInput, settings: UncertaintySettings, o: Pick<UncertaintyRunOptions, 'onMonteCarloProgress' | 'workers'> = {}): Promise<UncertaintyOutcome> {
   const goals = result.project.compounds.map((c) => result.goals[c.id]!);
   const planned = result.carbons.filter((c) => c.carbon.type === 'PAC').map((cr) => ({ cr, setup: uncertaintyProblem(result.project, cr, result.background, goals, input.series, settings) }));
   const runs = planned.filter((p) => !('skipped' in p.setup));
   const total = runs.length * settings.draws;
   let offset = 0;
+  const carbons: UncertaintyOutcome['carbons'] = new Map();
+  const t0 = performance.now();
   for (const { cr, setup } of planned) {
-    if ('skipped' in setup) { cr.warnings.push(`Monte Carlo skipped: ${setup.skipped}`); result.warnings.push(`${cr.carbon.name}: Monte Carlo skipped: ${setup.skipped}`); continue; }
-    const t0 = performance.now();
+    if ('skipped' in setup) { carbons.set(cr.carbon.name, { skipped: setup.skipped }); continue; }
     const base = offset;
     const opts: Parameters<typeof parallelMonteCarlo>[1] = { draws: settings.draws, seed: settings.seed, keepSamples: true, onProgress: (done) => o.onMonteCarloProgress?.(base + done, total) };
     if (o.workers !== undefined) opts.workers = o.workers;
     const mc = await parallelMonteCarlo(setup.problem, opts);
     offset += settings.draws;
-    const cu: CarbonUncertainty = { carbonName: cr.carbon.name, parameters: setup.parameters, excluded: setup.excluded, problem: setup.problem, result: mc };
-    const gov = mc.quantities.find((q) => q.key === 'governing_dose')!;
-    const samples = mc.samples?.governing_dose;
-    if (samples && gov.pointEstimate > 0 && Number.isFinite(gov.pointEstimate)) {
-      const [p10, p90] = percentiles(Float64Array.from(samples, (v) => v / gov.pointEstimate), [0.1, 0.9]);
+    const figures = runFigures(cr, setup.problem);
+    const quantities = mc.quantities.map((q) => (q.key in figures ? { ...q, pointEstimate: figures[q.key]! } : q));
+    const { samples, ...kept } = mc; // keep run.json small; the percentiles are the result
+    const cu: CarbonUncertainty = { carbonName: cr.carbon.name, parameters: setup.parameters, excluded: setup.excluded, problem: setup.problem, result: { ...kept, quantities } };
+    const gov = quantities.find((q) => q.key === 'governing_dose')!;
+    const govSamples = samples?.governing_dose;
+    if (govSamples && gov.pointEstimate > 0 && Number.isFinite(gov.pointEstimate)) {
+      const [p10, p90] = percentiles(Float64Array.from(govSamples, (v) => v / gov.pointEstimate), [0.1, 0.9]);
       cu.governingDoseRatio = { p10: p10!, p90: p90! };
     }
-    delete mc.samples; // keep run.json small; the percentiles are the result
-    let govId: string | undefined;
-    let govDose = -Infinity;
-    for (const q of mc.quantities) if (q.key.startsWith('dose:') && q.pointEstimate > govDose) { govDose = q.pointEstimate; govId = q.key.slice(5); }
+    const govId = cr.required?.governing?.compoundId;
     if (govId && cr.curves) cu.governingCurve = removalBand(setup.problem, settings.seed, settings.draws, govId, cr.curves.dosesMgPerL);
-    if (setup.excluded.length) cr.warnings.push(`Monte Carlo leaves out ${setup.excluded.join(', ')}`);
-    cr.uncertainty = cu;
-    result.timingMs['Monte Carlo'] = (result.timingMs['Monte Carlo'] ?? 0) + performance.now() - t0;
+    carbons.set(cr.carbon.name, { uncertainty: cu, warnings: setup.excluded.length ? [`Monte Carlo leaves out ${setup.excluded.join(', ')}`] : [] });
   }
-  result.uncertainty = settings;
+  return { settings, carbons, timingMs: performance.now() - t0 };
+}
+
+/** The pipeline result with the Monte Carlo outcome added (a new object; `result` is unchanged). */
+export function withUncertainty(result: PipelineResult, outcome: UncertaintyOutcome): PipelineResult {
+  const warnings = result.warnings.slice();
+  const carbons = result.carbons.map((cr): CarbonResult => {
+    const o = outcome.carbons.get(cr.carbon.name);
+    if (!o) return cr;
+    if ('skipped' in o) {
+      warnings.push(`${cr.carbon.name}: Monte Carlo skipped: ${o.skipped}`);
+      return { ...cr, warnings: [...cr.warnings, `Monte Carlo skipped: ${o.skipped}`] };
+    }
+    return { ...cr, uncertainty: o.uncertainty, warnings: [...cr.warnings, ...o.warnings] };
+  });
+  const out: PipelineResult = { ...result, carbons, warnings, uncertainty: outcome.settings, timingMs: { ...result.timingMs } };
+  if (outcome.carbons.size) out.timingMs['Monte Carlo'] = outcome.timingMs;
+  return out;
 }

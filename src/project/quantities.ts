@@ -4,7 +4,7 @@
  */
 import { InputError } from '../core/errors.js';
 import { parseQuantity } from '../units/parseQuantity.js';
-import { csvUnitFactor } from '../io/csvTable.js';
+import { csvUnitFactor } from '../tables/csvTable.js';
 import { at, describeValue } from './jsonChecks.js';
 
 /** `x` when positive; otherwise an InputError at `path` saying `what` was expected. */

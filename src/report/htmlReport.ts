@@ -5,9 +5,9 @@
  */
 import { cautionsOf } from './defaultCautions.js';
 import { escapeHtml } from './escapeHtml.js';
-import { formatNumber } from './formatNumber.js';
+import { formatNumber } from '../output/formatNumber.js';
 import { formatRunDate } from './formatRunDate.js';
-import type { PlotSpec, ReportModel, ReportSection, ReportTable } from './reportModel.js';
+import type { PlotSpec, ReportModel, ReportSection, ReportTable } from '../output/reportModel.js';
 import { REPORT_CSS } from './reportStyles.js';
 import { SlugRegistry } from './slug.js';
 import { renderPlot } from './svg/renderPlot.js';

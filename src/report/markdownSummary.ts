@@ -6,7 +6,7 @@ import { cautionsOf } from './defaultCautions.js';
 import { escapeMarkdown, markdownTable } from './escapeMarkdown.js';
 import { formatRunDate } from './formatRunDate.js';
 import { cellText, isNumericColumn } from './htmlReport.js';
-import type { ReportModel } from './reportModel.js';
+import type { ReportModel } from '../output/reportModel.js';
 
 /** The report as CommonMark/GitHub-flavoured Markdown text (ends with a newline). */
 export function renderMarkdownSummary(model: ReportModel): string {

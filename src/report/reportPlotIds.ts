@@ -1,4 +1,4 @@
-import type { ReportModel } from './reportModel.js';
+import type { ReportModel } from '../output/reportModel.js';
 
 /** The ids of all plots of the report, in document order. */
 export function reportPlotIds(model: ReportModel): string[] {

@@ -6,7 +6,7 @@
  * every day. Parsing is pure (text in, typed arrays out); reading the file lives in src/project.
  */
 import { InputError } from '../core/errors.js';
-import { readCsvTable, type CsvColumnSpec } from '../io/csvTable.js';
+import { readCsvTable, type CsvColumnSpec } from '../tables/csvTable.js';
 
 export interface SiteSeries {
   /** ISO dates, one per row. */

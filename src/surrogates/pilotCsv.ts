@@ -18,8 +18,7 @@
  * @throws InputError naming file, row and column for every bad value.
  */
 import { InputError } from '../core/errors.js';
-import { readCsvTable, type CsvColumnSpec, type CsvHeaderRow } from '../io/csvTable.js';
-import { readTextFile } from '../io/readFiles.js';
+import { readCsvTable, type CsvColumnSpec, type CsvHeaderRow } from '../tables/csvTable.js';
 import { splitHeader } from '../units/parseQuantity.js';
 import type { PilotPair } from './pilotCheck.js';
 
@@ -85,12 +84,4 @@ export function parsePilotCsv(text: string, file?: string, knownCompoundIds?: re
   const out: PilotData = { compounds, pairs };
   if (file !== undefined) out.file = file;
   return out;
-}
-
-/**
- * Read a pilot CSV file (file access through src/io/readFiles.ts) and parse it with
- * `parsePilotCsv`. @throws InputError naming the file (and row and column).
- */
-export function readPilotCsv(path: string, knownCompoundIds?: readonly string[]): PilotData {
-  return parsePilotCsv(readTextFile(path, 'pilot CSV file'), path, knownCompoundIds);
 }

@@ -1,7 +1,6 @@
 export * from './prng.js';
 export * from './distributions.js';
 export * from './monteCarloProblem.js';
-export * from './yearlyCarbon.js';
-export { compileDrawModel, sampleParameters, evaluateDraw, runChunk, doseOrInfinity, type DrawModel, type DrawnParameters, type QuantityDef, type ChunkResult } from './monteCarloDraw.js';
+export { compileDrawModel, sampleParameters, evaluateDraw, runChunk, drawModel, type DrawModel, type DrawnParameters, type QuantityDef, type ChunkResult } from './monteCarloDraw.js';
 export * from './monteCarlo.js';
 export * from './parallelMonteCarlo.js';

@@ -82,13 +82,15 @@ export function summarise(model: DrawModel, chunks: ChunkResult[], options: Mont
   const nq = model.quantities.length;
   const draws = ordered.reduce((s, c) => s + c.count, 0);
   const point = pointEstimate(model);
-  const counts = new Array<number>(model.problem.targets.length).fill(0);
+  const T = model.problem.targets.length;
+  const counts = new Array<number>(T + 1).fill(0);
   const columns = model.quantities.map(() => new Float64Array(draws));
   let i = 0;
   for (const c of ordered) {
     for (let k = 0; k < c.count; k++, i++) {
       for (let q = 0; q < nq; q++) columns[q]![i] = c.values[k * nq + q]!;
-      counts[c.governing[k]!]!++;
+      const g = c.governing[k]!;
+      if (g >= 0) counts[g]!++;
     }
   }
   const samples: Record<string, Float64Array> = {};
@@ -114,7 +116,7 @@ export function summarise(model: DrawModel, chunks: ChunkResult[], options: Mont
     percentileMethod: PERCENTILE_METHOD,
     sampling: SAMPLING_NOTE,
     quantities,
-    governingShare: model.problem.targets.map((t, k) => ({ id: t.id, share: counts[k]! / draws })),
+    governingShare: [...model.problem.targets.map((t, k) => ({ id: t.id, share: counts[k]! / draws })), ...(model.problem.indicator ? [{ id: 'indicator mean', share: counts[T]! / draws }] : [])],
     execution,
   };
   if (options.keepSamples) result.samples = samples;

@@ -1,23 +1,33 @@
 /**
- * One Monte Carlo draw: sample the uncertain parameters, then compute the quantities (dose for
- * each target's goal, governing dose, UV254 set-point, DOC reduction, yearly carbon and cost).
- * `runChunk` runs a block of draws from the chunk's own random stream; the serial and the
- * parallel runner both call it, so their results are identical.
+ * One Monte Carlo draw: sample the uncertain parameters, then design the carbon again with the
+ * design layer's one model (src/design/designDose.ts on the problem's removal model): each
+ * compound's goal dose, the indicator-mean dose, the required dose, the DOC/UV254 reduction at
+ * it, the cost per m³, and the yearly carbon and cost over the DOC series from the dose table
+ * (src/design/doseTable.ts: the same DOC nodes and segment sums as the run, so with every
+ * deviation zero the draw reproduces the run's figures). `runChunk` runs a block of draws from
+ * the chunk's own random stream; the serial and the parallel runner both call it, so their
+ * results are identical.
  *
  * Sampling (stated in the output): positive parameters with a relative SD are lognormal with the
  * point value as median (σ_ln = √(ln(1 + cv²))); parameters named in a covariance are drawn
  * jointly normal (ln K, fraction, 1/n) around the point values; fractions are renormalised to
- * sum to 1 in every draw and the background is c0_i = fraction_i·DOC.
- * A goal that no dose up to 5 g/L reaches gives +Infinity for that draw (counted as unreachable).
+ * sum to 1 in every draw and the background is c0_i = fraction_i·DOC; the DOC factor applies to
+ * the design DOC and the whole series (the table's nodes move with it).
+ * Values: a goal that no dose up to 5 g/L reaches gives +Infinity for that draw (counted as
+ * unreachable); a goal met without carbon or below the smallest dose gives 0.
  */
-import { ComputationError, InputError } from '../core/errors.js';
-import { prepareMixture, type FreundlichComponent } from '../equilibrium/preparedMixture.js';
-import { solveBatchPrepared } from '../equilibrium/iastBatch.js';
-import { doseForRemoval } from '../dose/doseSearch.js';
+import { ComputationError } from '../core/errors.js';
+import type { FreundlichComponent } from '../equilibrium/preparedMixture.js';
+import { designDose, type Design, type DesignProblem } from '../design/designDose.js';
+import { requiredDoseAt, type RequiredAtDoc } from '../design/requiredDoseAt.js';
+import { seriesCarbon, seriesSegments, doseTable, type SeriesSegments } from '../design/doseTable.js';
+import { REMOVAL_MODELS } from '../design/removalModels.js';
+import type { RemovalModel, RemovalModelFactory } from '../design/removalModel.js';
+import { carbonCost } from '../design/carbonCost.js';
+import { yearlyLabel } from '../design/annualised.js';
 import { cholesky, lognormalFromZ, lognormalSigma, multivariateNormalDeviation, NormalSampler } from './distributions.js';
 import { chunkRng } from './prng.js';
 import { targetGoal, validateMonteCarloProblem, type MonteCarloProblem } from './monteCarloProblem.js';
-import { docLevelsLogSpaced, interpolateDoseLogDoc, yearlyCarbon } from './yearlyCarbon.js';
 
 export interface QuantityDef {
   key: string;
@@ -34,7 +44,14 @@ export interface DrawModel {
   /** Position in the covariance vector of `lnK:id`, `fraction:id`, `one_over_n:id`. */
   covIndex: Map<string, number>;
   sigma: { bgK: number[]; bgF: number[]; tK: number[]; tN: number[]; doc: number };
-  index: { uv: number; docRed: number; yearlyKg: number; yearlyCost: number; governing: number };
+  index: { uv: number; docRed: number; yearlyKg: number; yearlyCost: number; governing: number; indicator: number; costPerM3: number };
+  /** The design problem every draw solves (goals, indicator goal, price, absorbances). */
+  design: DesignProblem;
+  factory: RemovalModelFactory;
+  /** DOC nodes of the dose table at the design DOC (scaled by each draw's DOC factor) and the series' segment sums. */
+  yearly?: { nodes: number[]; segments: SeriesSegments };
+  /** The design at the point estimate: starting hints for every draw's searches (only a speed-up). */
+  pointDesign?: Design;
 }
 
 export interface DrawnParameters {
@@ -47,19 +64,38 @@ export interface DrawnParameters {
 export function compileDrawModel(problem: MonteCarloProblem): DrawModel {
   validateMonteCarloProblem(problem);
   const T = problem.targets.length;
+  const factory = REMOVAL_MODELS[problem.model ?? 'equilibrium']!;
+  const goals = problem.targets.map((t, i) => targetGoal(t, `targets[${i}]`));
+  const design: DesignProblem = {
+    goals: goals.map((R, i) => ({ kind: 'removal' as const, removalFraction: R, text: `${(R * 100).toPrecision(4)} % removal of ${problem.targets[i]!.id}` })),
+    pricePerKg: problem.carbonPricePerKg ?? problem.yearly?.carbonPricePerKg ?? 0,
+  };
+  if (problem.indicator) design.indicator = { members: problem.indicator.members.map((m) => ({ ...m })), goalPercent: problem.indicator.goalPercent, ...(problem.indicator.chosen ? { chosen: problem.indicator.chosen.slice() } : {}) };
+  if (problem.uv254AbsorbancePerM) design.uv254AbsorbancePerM = problem.uv254AbsorbancePerM;
   const quantities: QuantityDef[] = problem.targets.map((t) => ({ key: `dose:${t.id}`, label: `dose for the goal of ${t.id}`, unit: 'mg/L' }));
-  quantities.push({ key: 'governing_dose', label: 'governing dose (largest over targets)', unit: 'mg/L' });
-  quantities.push({ key: 'doc_reduction', label: 'DOC reduction at the governing dose', unit: 'fraction' });
-  const index = { governing: T, docRed: T + 1, uv: -1, yearlyKg: -1, yearlyCost: -1 };
+  quantities.push({ key: 'governing_dose', label: 'required dose (governing goal)', unit: 'mg/L' });
+  quantities.push({ key: 'doc_reduction', label: 'DOC reduction at the required dose', unit: 'fraction' });
+  const index = { governing: T, docRed: T + 1, uv: -1, yearlyKg: -1, yearlyCost: -1, indicator: -1, costPerM3: -1 };
+  if (problem.indicator) {
+    index.indicator = quantities.length;
+    quantities.push({ key: 'indicator_dose', label: 'dose for the indicator-mean goal', unit: 'mg/L' });
+  }
   if (problem.uv254AbsorbancePerM) {
     index.uv = quantities.length;
-    quantities.push({ key: 'uv254_setpoint', label: 'UV254 reduction at the governing dose (set-point)', unit: 'fraction' });
+    quantities.push({ key: 'uv254_setpoint', label: 'UV254 reduction at the required dose (set-point)', unit: 'fraction' });
   }
+  index.costPerM3 = quantities.length;
+  quantities.push({ key: 'cost_per_m3', label: 'carbon cost per m³ treated', unit: 'currency/m3' });
+  let yearly: DrawModel['yearly'];
   if (problem.yearly) {
+    const y = problem.yearly;
+    const nodes = y.docNodesMgPerL ?? pointNodes(problem, factory, design);
+    const segments = seriesSegments(nodes, y.docSeriesMgPerL, y.flowM3PerD);
+    yearly = { nodes, segments };
     index.yearlyKg = quantities.length;
-    quantities.push({ key: 'yearly_carbon', label: 'yearly carbon mass', unit: 'kg/a' });
+    quantities.push({ key: 'yearly_carbon', label: yearlyLabel('yearly carbon mass', segments.totalDays), unit: 'kg/a' });
     index.yearlyCost = quantities.length;
-    quantities.push({ key: 'yearly_cost', label: 'yearly carbon cost', unit: 'currency/a' });
+    quantities.push({ key: 'yearly_cost', label: yearlyLabel('yearly carbon cost', segments.totalDays), unit: 'currency/a' });
   }
   const covIndex = new Map<string, number>();
   let L: number[][] = [];
@@ -67,9 +103,9 @@ export function compileDrawModel(problem: MonteCarloProblem): DrawModel {
     problem.covariance.parameters.forEach((n, i) => covIndex.set(n, i));
     L = cholesky(problem.covariance.matrix);
   }
-  return {
+  const out: DrawModel = {
     problem,
-    goals: problem.targets.map((t, i) => targetGoal(t, `targets[${i}]`)),
+    goals,
     quantities,
     L,
     covIndex,
@@ -81,7 +117,19 @@ export function compileDrawModel(problem: MonteCarloProblem): DrawModel {
       doc: lognormalSigma(problem.docRelSd ?? 0),
     },
     index,
+    design,
+    factory,
   };
+  if (yearly) out.yearly = yearly;
+  out.pointDesign = designDose(drawModel(out, sampleParameters(out, undefined)), design);
+  return out;
+}
+
+/** The dose-table nodes at the point estimate, when the problem does not give the run's. */
+function pointNodes(problem: MonteCarloProblem, factory: RemovalModelFactory, design: DesignProblem): number[] {
+  const bg = problem.background.map((b): FreundlichComponent => ({ id: b.id, K: b.K, oneOverN: b.oneOverN, c0MgPerL: b.fraction * problem.docMgPerL }));
+  const model = factory(problem.targets.map((t) => ({ target: { id: t.id, c0MgPerL: t.c0MgPerL, K: t.K, oneOverN: t.oneOverN }, competitors: bg })), problem.docMgPerL, bg);
+  return doseTable(model, design, problem.yearly!.docSeriesMgPerL).docMgPerL;
 }
 
 /**
@@ -135,64 +183,46 @@ export function sampleParameters(model: DrawModel, normal: NormalSampler | undef
   return { background, targets, docMgPerL };
 }
 
-function scaleBackground(bg: readonly FreundlichComponent[], factor: number): FreundlichComponent[] {
-  return bg.map((c) => ({ ...c, c0MgPerL: c.c0MgPerL * factor }));
+/** The removal model of one draw at its DOC. */
+export function drawModel(model: DrawModel, d: DrawnParameters): RemovalModel {
+  return model.factory(d.targets.map((t) => ({ target: t, competitors: d.background })), d.docMgPerL, d.background);
 }
 
-/** Dose in mg/L for a removal goal; +Infinity when no dose up to 5 g/L reaches it. */
-export function doseOrInfinity(target: FreundlichComponent, background: readonly FreundlichComponent[], goal: number): number {
-  const pm = prepareMixture([target, ...background]);
-  try {
-    return doseForRemoval(pm, 0, goal).doseGPerL * 1000;
-  } catch (e) {
-    if (e instanceof InputError) return Infinity;
-    throw e;
-  }
-}
+const orInfinity = (v: number | null): number => (v === null ? Infinity : v);
 
-/** The quantities of one draw, written into `out` (length = model.quantities.length). */
+/**
+ * The quantities of one draw, written into `out` (length = model.quantities.length).
+ * @returns the index of the governing target, targets.length for the indicator mean, −1 when nothing is reachable
+ */
 export function evaluateDraw(model: DrawModel, d: DrawnParameters, out: Float64Array): number {
   const p = model.problem;
   const T = p.targets.length;
-  let governing = 0;
-  for (let t = 0; t < T; t++) {
-    out[t] = doseOrInfinity(d.targets[t]!, d.background, model.goals[t]!);
-    if (out[t]! > out[governing]!) governing = t;
-  }
-  const dGov = out[governing]!;
-  out[model.index.governing] = dGov;
-  if (dGov === Infinity) {
-    out[model.index.docRed] = Infinity;
-    if (model.index.uv >= 0) out[model.index.uv] = Infinity;
-  } else {
-    const pmBg = prepareMixture(d.background);
-    const s = solveBatchPrepared(pmBg, dGov / 1000);
-    let doc0 = 0, doc = 0, uv0 = 0, uv = 0;
-    const a = p.uv254AbsorbancePerM;
-    d.background.forEach((c, i) => {
-      doc0 += c.c0MgPerL;
-      doc += s.cMgPerL[i]!;
-      if (a) { uv0 += a[i]! * c.c0MgPerL; uv += a[i]! * s.cMgPerL[i]!; } // Beer–Lambert additivity
+  const removal = drawModel(model, d);
+  const design: Design = designDose(removal, model.design, model.pointDesign);
+  for (let t = 0; t < T; t++) out[t] = orInfinity(design.compounds[t]!.doseMgPerL);
+  const required = orInfinity(design.doseMgPerL);
+  out[model.index.governing] = required;
+  if (model.index.indicator >= 0) out[model.index.indicator] = orInfinity(design.indicator?.doseMgPerL ?? null);
+  const s = design.surrogate;
+  out[model.index.docRed] = required === Infinity ? Infinity : s ? s.docReduction : 0;
+  if (model.index.uv >= 0) out[model.index.uv] = required === Infinity ? Infinity : s ? s.uv254Reduction ?? 0 : 0;
+  out[model.index.costPerM3] = orInfinity(design.costPerM3);
+  if (model.yearly) {
+    const factor = d.docMgPerL / p.docMgPerL;
+    let near: RequiredAtDoc | undefined;
+    const doses = model.yearly.nodes.map((node) => {
+      const doc = node * factor;
+      near = requiredDoseAt(doc === removal.docMgPerL ? removal : removal.atDoc(doc), model.design, design, near);
+      return near.doseMgPerL;
     });
-    out[model.index.docRed] = 1 - doc / doc0;
-    if (model.index.uv >= 0) out[model.index.uv] = 1 - uv / uv0;
+    const y = seriesCarbon(model.yearly.segments, doses);
+    const nothing = y.daysWithDose === 0;
+    out[model.index.yearlyKg] = nothing ? Infinity : y.yearlyKg;
+    out[model.index.yearlyCost] = nothing ? Infinity : carbonCost(y.yearlyKg, model.design.pricePerKg);
   }
-  if (p.yearly) {
-    const y = p.yearly;
-    const mult = d.docMgPerL / p.docMgPerL;
-    let lo = Infinity, hi = 0;
-    for (const v of y.docSeriesMgPerL) { lo = Math.min(lo, v); hi = Math.max(hi, v); }
-    const levels = docLevelsLogSpaced(lo * mult, hi * mult, y.docLevels ?? 5);
-    const table = d.targets.map((tc, t) => Float64Array.from(levels, (lv) => doseOrInfinity(tc, scaleBackground(d.background, lv / d.docMgPerL), model.goals[t]!)));
-    const yc = yearlyCarbon(y.docSeriesMgPerL, y.flowM3PerD, (docDay) => {
-      let m = 0;
-      for (const row of table) m = Math.max(m, interpolateDoseLogDoc(levels, row, docDay * mult));
-      return m;
-    });
-    out[model.index.yearlyKg] = yc.yearlyKg;
-    out[model.index.yearlyCost] = yc.yearlyKg * y.carbonPricePerKg;
-  }
-  return governing;
+  if (design.governedBy === 'indicator mean') return T;
+  if (!design.governing) return -1;
+  return p.targets.findIndex((t) => t.id === design.governing!.compoundId);
 }
 
 export interface ChunkResult {

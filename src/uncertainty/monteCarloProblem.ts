@@ -7,6 +7,7 @@
  * fractions (0.2 = 20 %).
  */
 import { InputError } from '../core/errors.js';
+import { REMOVAL_MODELS } from '../design/removalModels.js';
 
 export interface UncertainTarget {
   id: string;
@@ -15,9 +16,9 @@ export interface UncertainTarget {
   oneOverN: number;
   /** Feed concentration, mg/L (trace removal does not depend on it; it sets the limit goal). */
   c0MgPerL: number;
-  /** Removal goal as a fraction (0 < R < 1); or give `limitMgPerL`. */
+  /** Removal goal as a fraction (R < 1; R ≤ 0 is met without carbon); or give `limitMgPerL`. */
   removalGoal?: number;
-  /** Effluent limit, mg/L: the goal becomes R = 1 − limit/c0. */
+  /** Effluent limit, mg/L: the goal becomes R = 1 − limit/c0 (≤ 0 when the limit is at or above c0). */
   limitMgPerL?: number;
   /** Relative SD of K (lognormal, median K). Default 0. */
   KRelSd?: number;
@@ -55,8 +56,8 @@ export interface YearlyCostInput {
   flowM3PerD: number[] | number;
   /** Carbon price per kg (currency of the project). */
   carbonPricePerKg: number;
-  /** Number of DOC levels per draw at which doses are solved exactly (default 5). */
-  docLevels?: number;
+  /** DOC nodes of the dose table, mg/L ascending (the run's; default: tabulated at the point estimate). */
+  docNodesMgPerL?: number[];
 }
 
 export interface MonteCarloProblem {
@@ -70,6 +71,12 @@ export interface MonteCarloProblem {
   /** Specific UV254 absorbance of each background component, 1/m per (mg/L), in background order. */
   uv254AbsorbancePerM?: number[];
   yearly?: YearlyCostInput;
+  /** The indicator goal: members by target index with their category, the chosen set, the goal in percent. */
+  indicator?: { members: Array<{ index: number; category: 1 | 2 }>; chosen?: string[]; goalPercent: number };
+  /** Carbon price per kg (cost per m³; default the yearly price). */
+  carbonPricePerKg?: number;
+  /** Removal model by name (src/design/removalModels.ts; default "equilibrium"). */
+  model?: string;
 }
 
 function finiteNonNeg(v: unknown, path: string, what: string): number {
@@ -85,12 +92,11 @@ function positive(v: unknown, path: string, what: string): number {
 /** The removal goal of a target as a fraction. @throws InputError when absent or out of range. */
 export function targetGoal(t: UncertainTarget, path: string): number {
   if (t.removalGoal !== undefined) {
-    if (!(t.removalGoal > 0 && t.removalGoal < 1)) throw new InputError(`expected a removal goal between 0 and 1 (exclusive), got ${t.removalGoal}`, { path: `${path}.removalGoal` });
+    if (!(t.removalGoal < 1) || !Number.isFinite(t.removalGoal)) throw new InputError(`expected a removal goal below 1 (≤ 0 = met without carbon), got ${t.removalGoal}`, { path: `${path}.removalGoal` });
     return t.removalGoal;
   }
   if (t.limitMgPerL !== undefined) {
     const lim = positive(t.limitMgPerL, `${path}.limitMgPerL`, 'an effluent limit in mg/L');
-    if (!(lim < t.c0MgPerL)) throw new InputError(`expected an effluent limit below the feed concentration ${t.c0MgPerL} mg/L, got ${lim} mg/L`, { path: `${path}.limitMgPerL` });
     return 1 - lim / t.c0MgPerL;
   }
   throw new InputError('expected a removal goal (removalGoal) or an effluent limit (limitMgPerL)', { path });
@@ -149,9 +155,24 @@ export function validateMonteCarloProblem(p: MonteCarloProblem): void {
       y.flowM3PerD.forEach((f, i) => finiteNonNeg(f, `yearly.flowM3PerD[${i}]`, 'a flow in m³/d'));
     } else positive(y.flowM3PerD, 'yearly.flowM3PerD', 'a flow in m³/d');
     finiteNonNeg(y.carbonPricePerKg, 'yearly.carbonPricePerKg', 'a carbon price per kg');
-    if (y.docLevels !== undefined && !(Number.isInteger(y.docLevels) && y.docLevels >= 2 && y.docLevels <= 50)) {
-      throw new InputError(`expected docLevels as an integer from 2 to 50, got ${y.docLevels}`, { path: 'yearly.docLevels' });
+    if (y.docNodesMgPerL !== undefined) {
+      if (!Array.isArray(y.docNodesMgPerL) || y.docNodesMgPerL.length === 0) throw new InputError('expected a non-empty list of DOC nodes', { path: 'yearly.docNodesMgPerL' });
+      y.docNodesMgPerL.forEach((d, i) => {
+        positive(d, `yearly.docNodesMgPerL[${i}]`, 'a DOC node in mg/L');
+        if (i > 0 && !(d > y.docNodesMgPerL![i - 1]!)) throw new InputError('expected ascending DOC nodes', { path: `yearly.docNodesMgPerL[${i}]` });
+      });
     }
+  }
+  if (p.carbonPricePerKg !== undefined) finiteNonNeg(p.carbonPricePerKg, 'carbonPricePerKg', 'a carbon price per kg');
+  if (p.model !== undefined && !(p.model in REMOVAL_MODELS)) throw new InputError(`expected a removal model among ${Object.keys(REMOVAL_MODELS).join(', ')}, got "${p.model}"`, { path: 'model' });
+  if (p.indicator) {
+    const ind = p.indicator;
+    if (!Array.isArray(ind.members) || ind.members.length === 0) throw new InputError('expected indicator members', { path: 'indicator.members' });
+    ind.members.forEach((m, i) => {
+      if (!Number.isInteger(m.index) || m.index < 0 || m.index >= p.targets.length) throw new InputError(`expected a target index from 0 to ${p.targets.length - 1}, got ${m.index}`, { path: `indicator.members[${i}].index` });
+      if (m.category !== 1 && m.category !== 2) throw new InputError(`expected category 1 or 2, got ${String(m.category)}`, { path: `indicator.members[${i}].category` });
+    });
+    if (!(ind.goalPercent > 0 && ind.goalPercent < 100)) throw new InputError(`expected an indicator goal between 0 and 100 %, got ${ind.goalPercent}`, { path: 'indicator.goalPercent' });
   }
   if (p.covariance) {
     const c = p.covariance;

@@ -104,7 +104,7 @@ export async function parallelMonteCarlo(problem: MonteCarloProblem, options: Pa
     return r;
   };
   if (nWorkers === 0) return inThread('workers = 0');
-  const searches = options.draws * problem.targets.length * (1 + (problem.yearly ? problem.yearly.docLevels ?? 5 : 0));
+  const searches = options.draws * problem.targets.length * (1 + (problem.yearly ? problem.yearly.docNodesMgPerL?.length ?? 5 : 0));
   if (!options.force && (searches < PARALLEL_MIN_SEARCHES || nWorkers < 2)) return inThread(nWorkers < 2 ? 'one core or one chunk' : `fewer than ${PARALLEL_MIN_SEARCHES} dose searches; workers would not pay`);
   const entry = resolveWorkerEntry();
   if (!entry) return inThread('worker file not found (run from the built library for parallel runs)');

@@ -7,7 +7,7 @@ import { equilibrium } from '../../src/index.js';
 import { join } from 'node:path';
 import { prepareMixture, type FreundlichComponent } from '../../src/equilibrium/preparedMixture.js';
 import { solveBatchPrepared } from '../../src/equilibrium/iastBatch.js';
-import { doseForRemoval } from '../../src/dose/doseSearch.js';
+import { doseForRemoval } from '../../src/design/doseForRemoval.js';
 import type { BenchFigure } from './run.js';
 
 /** The mixture: non-adsorbable + 4 fictive DOC components (1/n = 0.2) + trace target 100 ng/L (1/n = 0.3). */

@@ -6,7 +6,7 @@ import { spawnSync } from 'node:child_process';
 import { mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { loadProject } from '../../src/project/loadProject.js';
+import { loadProject } from '../../src/io/loadProject.js';
 import { runPipeline } from '../../src/pipeline/runPipeline.js';
 import type { BenchFigure } from './run.js';
 
@@ -40,7 +40,7 @@ export async function bench(): Promise<BenchFigure[]> {
     { name: 'demo pipeline in-process, warm', value: warmMs, unit: 'ms' },
   ];
   for (const [step, ms] of Object.entries(cold.timingMs)) figs.push({ name: `  first run: ${step}`, value: ms, unit: 'ms' });
-  const days = warm.carbons.reduce((s, c) => s + (c.daily?.distinctDoc ?? 0), 0);
-  figs.push({ name: 'daily doses, distinct DOC values solved (both carbons)', value: days, unit: 'solves' });
+  const days = warm.carbons.reduce((s, c) => s + (c.daily?.table.docMgPerL.length ?? 0), 0);
+  figs.push({ name: 'daily doses, DOC nodes of the dose tables (both carbons)', value: days, unit: 'nodes' });
   return figs;
 }

@@ -5,7 +5,7 @@
  */
 import { renderHtmlReport } from '../../src/report/htmlReport.js';
 import { renderMarkdownSummary } from '../../src/report/markdownSummary.js';
-import type { ReportModel, XYPlotSpec } from '../../src/report/reportModel.js';
+import type { ReportModel, XYPlotSpec } from '../../src/output/reportModel.js';
 
 function benchModel(): ReportModel {
   const plots: XYPlotSpec[] = Array.from({ length: 20 }, (_, p) => {

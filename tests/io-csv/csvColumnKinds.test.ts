@@ -5,7 +5,7 @@
  * digits (one rounding of the product).
  */
 import { describe, expect, it } from 'vitest';
-import { readCsvTable, csvUnitFactor, type CsvColumnSpec } from '../../src/io/csvTable.js';
+import { readCsvTable, csvUnitFactor, type CsvColumnSpec } from '../../src/tables/csvTable.js';
 import { InputError } from '../../src/core/errors.js';
 
 const PILOT: CsvColumnSpec[] = [

@@ -4,7 +4,7 @@
  * the exact SI definitions (1 ng = 1e-9 g; 1 m = 100 cm), so the expected values are exact.
  */
 import { describe, expect, it } from 'vitest';
-import { readCsvTable, type CsvColumnSpec } from '../../src/io/csvTable.js';
+import { readCsvTable, type CsvColumnSpec } from '../../src/tables/csvTable.js';
 import { InputError } from '../../src/core/errors.js';
 
 const SPECS: CsvColumnSpec[] = [

@@ -9,7 +9,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { join } from 'node:path';
-import { loadProject } from '../../src/project/loadProject.js';
+import { loadProject } from '../../src/io/loadProject.js';
 import { runPipeline } from '../../src/pipeline/runPipeline.js';
 import { backgroundComponents } from '../../src/fractionation/backgroundPrediction.js';
 import type { PipelineResult } from '../../src/pipeline/pipelineTypes.js';

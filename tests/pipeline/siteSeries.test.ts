@@ -1,7 +1,11 @@
 import { describe, expect, it } from 'vitest';
 import { parseSiteSeries } from '../../src/siteSeries/siteSeries.js';
 import { median, quantile, summarise } from '../../src/siteSeries/seriesStats.js';
-import { dailyDoses } from '../../src/pipeline/dailyDoses.js';
+import { dailyDoses } from '../../src/design/dailyDoses.js';
+import type { DoseTable } from '../../src/design/doseTable.js';
+
+/** A dose table with the given dose at each DOC node (doses linear in DOC are then exact). */
+const tableOf = (docs: number[], dose: (doc: number) => number): DoseTable => ({ docMgPerL: docs, nodes: docs.map((d) => ({ docMgPerL: d, doseMgPerL: dose(d), governedBy: 'compound T' })), midpointErrorRel: 0, toleranceRel: 1e-3 });
 
 describe('percentiles (Hyndman & Fan 1996, definition 7 — the default of R quantile(type = 7) and NumPy)', () => {
   // Values from definition 7 worked by hand: h = (n − 1)·p, linear between order statistics.
@@ -45,13 +49,15 @@ describe('daily doses arithmetic', () => {
   it('kg/d = dose × flow / 1000; totals are sums; 366 days count as a year; shorter series are scaled to 365 days', () => {
     const dates = Array.from({ length: 366 }, (_, k) => new Date(Date.UTC(2024, 0, 1 + k)).toISOString().slice(0, 10));
     const series = { dates, docMgPerL: dates.map((_, k) => 6 + (k % 5)), flowM3PerD: dates.map(() => 10000), flowFromDesign: true };
-    const d = dailyDoses({ name: 'X', currency: 'EUR', pricePerKg: 2 }, series, (doc) => ({ docMgPerL: doc, doseMgPerL: 2 * doc, governedBy: 'compound T' }));
+    const d = dailyDoses({ name: 'X', currency: 'EUR', pricePerKg: 2 }, series, tableOf([6, 7, 8, 9, 10], (doc) => 2 * doc));
     const kg = series.docMgPerL.reduce((s, doc) => s + (2 * doc * 10000) / 1000, 0);
     expect(d.totalCarbonKg).toBeCloseTo(kg, 9);
     expect(d.yearlyCarbonKg).toBe(d.totalCarbonKg);
     expect(d.totalCost).toBeCloseTo(2 * kg, 9);
-    expect(d.distinctDoc).toBe(5);
-    const short = dailyDoses({ name: 'X', currency: 'EUR', pricePerKg: 2 }, { ...series, dates: dates.slice(0, 73), docMgPerL: series.docMgPerL.slice(0, 73), flowM3PerD: series.flowM3PerD.slice(0, 73) }, (doc) => ({ docMgPerL: doc, doseMgPerL: 10, governedBy: 'compound T' }));
+    expect(d.annualised).toBe(false);
+    d.rows.forEach((row) => expect(row.doseMgPerL).toBe(2 * row.docMgPerL)); // at the nodes: exact
+    const short = dailyDoses({ name: 'X', currency: 'EUR', pricePerKg: 2 }, { ...series, dates: dates.slice(0, 73), docMgPerL: series.docMgPerL.slice(0, 73), flowM3PerD: series.flowM3PerD.slice(0, 73) }, tableOf([6, 10], () => 10));
     expect(short.yearlyCarbonKg).toBeCloseTo(100 * 365, 9); // 10 mg/L × 10 000 m³/d / 1000 = 100 kg/d
+    expect(short.annualised).toBe(true);
   });
 });

@@ -6,12 +6,12 @@
  */
 import { beforeAll, describe, expect, it } from 'vitest';
 import { join } from 'node:path';
-import { loadProject } from '../../src/project/loadProject.js';
+import { loadProject } from '../../src/io/loadProject.js';
 import { runPipeline } from '../../src/pipeline/runPipeline.js';
 import { surrogatesAtDose } from '../../src/pipeline/surrogateStep.js';
 import { prepareSystem } from '../../src/pipeline/competitionSystem.js';
 import { solveBatchPrepared } from '../../src/equilibrium/iastBatch.js';
-import { doseForUv254Reduction } from '../../src/surrogates/uv254SetPoint.js';
+import { doseForUv254Reduction } from '../../src/design/uv254SetPoint.js';
 import { predictUv254Reduction } from '../../src/fractionation/backgroundPrediction.js';
 import type { PipelineResult } from '../../src/pipeline/pipelineTypes.js';
 
@@ -79,7 +79,7 @@ describe('UV254-reduction set-points', () => {
     for (const cr of r.carbons.filter((c) => c.surrogates)) {
       const s = cr.surrogates!;
       s.setPoints.forEach((sp, i) => {
-        expect(sp.status).toBe('ok');
+        expect(sp.status).toBe('met');
         const dose = doseForUv254Reduction(s.model, sp.uv254Reduction!);
         expect(Math.abs(dose / sp.doseMgPerL! - 1)).toBeLessThan(1e-7);
         expect(Math.abs(removalAt(cr.systems[i]!, doc, dose) - sp.removalGoal)).toBeLessThan(1e-6);

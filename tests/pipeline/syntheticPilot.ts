@@ -7,7 +7,7 @@
 import { writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { loadProject } from '../../src/project/loadProject.js';
+import { loadProject } from '../../src/io/loadProject.js';
 import { runPipeline } from '../../src/pipeline/runPipeline.js';
 import { surrogatesAtDose } from '../../src/pipeline/surrogateStep.js';
 import { prepareSystem } from '../../src/pipeline/competitionSystem.js';

@@ -5,7 +5,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { join } from 'node:path';
-import { loadProject } from '../../src/project/loadProject.js';
+import { loadProject } from '../../src/io/loadProject.js';
 import { runPipelineWithUncertainty } from '../../src/pipeline/runWithUncertainty.js';
 import { resolveUncertaintySettings, Z95 } from '../../src/pipeline/uncertaintyStep.js';
 import { monteCarloProgress } from '../../src/cli/commands/projectRun.js';

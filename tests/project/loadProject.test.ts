@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { cpSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { loadProject } from '../../src/project/loadProject.js';
+import { loadProject } from '../../src/io/loadProject.js';
 import { InputError } from '../../src/core/errors.js';
 
 const demoDir = join(__dirname, '../../fixtures/demo');

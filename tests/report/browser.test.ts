@@ -12,7 +12,7 @@ import { existsSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { CHROMIUM, HAVE_CHROMIUM as HAVE, IN_CI, itWithChromium, inspectPlots, openReport, saveScreenshot, type PageDocument } from './browserHarness.js';
 import { renderHtmlReport } from '../../src/report/htmlReport.js';
-import type { PlotSpec } from '../../src/report/reportModel.js';
+import type { PlotSpec } from '../../src/output/reportModel.js';
 import { reportPlotIds } from '../../src/report/reportPlotIds.js';
 import { syntheticModel } from './syntheticModel.js';
 

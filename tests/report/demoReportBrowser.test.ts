@@ -9,9 +9,9 @@ import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { describe, expect } from 'vitest';
 import { itWithChromium, inspectPlots, openReport, saveScreenshot, type PageDocument } from './browserHarness.js';
-import { loadProject } from '../../src/project/loadProject.js';
+import { loadProject } from '../../src/io/loadProject.js';
 import { runPipelineWithUncertainty } from '../../src/pipeline/runWithUncertainty.js';
-import { buildReportModel } from '../../src/pipeline/buildReportModel.js';
+import { buildReportModel } from '../../src/output/buildReportModel.js';
 import { renderHtmlReport } from '../../src/report/htmlReport.js';
 import { reportPlotIds } from '../../src/report/reportPlotIds.js';
 

@@ -7,7 +7,7 @@ import { escapeHtml } from '../../src/report/escapeHtml.js';
 import { escapeMarkdown } from '../../src/report/escapeMarkdown.js';
 import { renderHtmlReport } from '../../src/report/htmlReport.js';
 import { renderMarkdownSummary } from '../../src/report/markdownSummary.js';
-import type { ReportModel } from '../../src/report/reportModel.js';
+import type { ReportModel } from '../../src/output/reportModel.js';
 
 const EVIL = '<script>alert(1)</script>';
 const AMP = 'A&B "x"';

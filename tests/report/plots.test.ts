@@ -4,7 +4,7 @@
  * of the output, no published numbers involved (common practice).
  */
 import { describe, expect, it } from 'vitest';
-import type { BarPlotSpec, ReportModel, XYPlotSpec } from '../../src/report/reportModel.js';
+import type { BarPlotSpec, ReportModel, XYPlotSpec } from '../../src/output/reportModel.js';
 import { reportPlotIds } from '../../src/report/reportPlotIds.js';
 import { renderBarPlot } from '../../src/report/svg/barPlot.js';
 import { SERIES_COLOURS } from '../../src/report/svg/palette.js';

@@ -5,7 +5,7 @@
  */
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import type { ReportModel } from '../../src/report/reportModel.js';
+import type { ReportModel } from '../../src/output/reportModel.js';
 
 export const FIXTURE = fileURLToPath(new URL('../../fixtures/report/synthetic-model.json', import.meta.url));
 

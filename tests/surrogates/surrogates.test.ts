@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { surrogateCurve, uv254PerM } from '../../src/surrogates/surrogateCurve.js';
-import { doseForUv254Reduction, governingSetPoint, uv254SetPoint } from '../../src/surrogates/uv254SetPoint.js';
+import { doseForUv254Reduction, governingSetPoint, uv254SetPoint } from '../../src/design/uv254SetPoint.js';
 import { prepareMixture, type FreundlichComponent } from '../../src/equilibrium/preparedMixture.js';
 import { solveBatchPrepared } from '../../src/equilibrium/iastBatch.js';
 import { InputError } from '../../src/core/errors.js';

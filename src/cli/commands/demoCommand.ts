@@ -21,7 +21,7 @@ export const demoCommand: CommandSpec = {
   examples: ['sorbshare demo', 'sorbshare demo --draws 0', 'sorbshare demo --out demo-output --json'],
   async action(_args, opts, ctx) {
     const mc = monteCarloOverrides(opts);
-    const { loadProject } = await import('../../project/loadProject.js');
+    const { loadProject } = await import('../../io/loadProject.js');
     const { runAndWrite } = await import('./projectRun.js');
     const input = loadProject(demoProjectPath(), { demo: true });
     await runAndWrite(input, opts.out as string, Boolean(opts.json), ctx, mc);

@@ -6,7 +6,7 @@
 import type { CommandContext } from '../commandSpec.js';
 import { runPipelineWithUncertainty } from '../../pipeline/runWithUncertainty.js';
 import { createProgressBar, type ProgressBar } from '../progressBar.js';
-import { pipelineOutputs } from '../../pipeline/pipelineOutputs.js';
+import { pipelineOutputs } from '../../outputFiles/pipelineOutputs.js';
 import type { PipelineInput, PipelineResult, ProgressEvent } from '../../pipeline/pipelineTypes.js';
 import { writeOutputDir } from '../../io/writeOutputs.js';
 import { VERSION } from '../../version.js';

@@ -15,7 +15,7 @@ export const runCommand: CommandSpec = {
   examples: ['sorbshare run project.json --out results', 'sorbshare run project.json --draws 2000 --seed 7', 'sorbshare run project.json --out results --json'],
   async action(args, opts, ctx) {
     const mc = monteCarloOverrides(opts);
-    const { loadProject } = await import('../../project/loadProject.js');
+    const { loadProject } = await import('../../io/loadProject.js');
     const { runAndWrite } = await import('./projectRun.js');
     const input = loadProject(args[0]!);
     await runAndWrite(input, opts.out as string, Boolean(opts.json), ctx, mc);

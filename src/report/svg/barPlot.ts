@@ -3,7 +3,7 @@
  * per sample). Segments stack upwards from zero; a value that cannot be stacked (negative, NaN,
  * infinite, missing) is skipped and counted in a note. Segments tall enough carry their value.
  */
-import type { BarPlotSpec } from '../reportModel.js';
+import type { BarPlotSpec } from '../../output/reportModel.js';
 import { escapeHtml } from '../escapeHtml.js';
 import { makeScale } from './axisScale.js';
 import { INK, seriesColour, textOn } from './palette.js';

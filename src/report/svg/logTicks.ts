@@ -3,7 +3,7 @@
  * (common practice for log-scaled engineering plots). The domain is snapped outwards to the
  * 1–2–5 sequence so short ranges do not waste a whole decade.
  */
-import { toSuperscript } from '../formatNumber.js';
+import { toSuperscript } from '../../output/formatNumber.js';
 import type { Tick } from './linearTicks.js';
 
 /** Exact decimal m·10^k (parsed from text, so 5·10^-7 is the double nearest 5e-7). */

@@ -1,5 +1,5 @@
 /** One entry point for any plot of the report model. */
-import type { PlotSpec } from '../reportModel.js';
+import type { PlotSpec } from '../../output/reportModel.js';
 import { renderBarPlot } from './barPlot.js';
 import { type PlotRenderOptions, renderXYPlot } from './xyPlot.js';
 

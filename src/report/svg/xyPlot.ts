@@ -4,7 +4,7 @@
  * Values that cannot be drawn (NaN, infinite, ≤ 0 on a log axis) are skipped and counted in a
  * note under the plot. Output is deterministic for a given spec and `uid`.
  */
-import type { XYPlotSpec } from '../reportModel.js';
+import type { XYPlotSpec } from '../../output/reportModel.js';
 import { slug } from '../slug.js';
 import { makeScale } from './axisScale.js';
 import { LabelPlacer } from './labelPlacer.js';

@@ -1,0 +1,67 @@
+/**
+ * The carbon dose that meets one compound's goal on a removal model: the design layer's one dose
+ * search (src/design/doseSearch.ts) on e(D) = ln(1 − R) − ln(c(D)/c0), warm-starting each solve
+ * from the previous one. Doses mg/L at this layer (g/L into the model).
+ *
+ * Statuses, never exceptions: 'met' (the dose and the removal reached there), 'met without
+ * carbon' (a limit at or above the feed concentration: dose 0), 'met below the smallest dose'
+ * (the goal holds at 1e-9 mg/L: dose 0), 'unreachable' (not met at 5000 mg/L: no dose).
+ * Throws ComputationError if a solve or the search fails, or the dose found misses the goal by
+ * more than 1e-9.
+ */
+import { ComputationError } from '../core/errors.js';
+import type { CompoundGoal } from './compoundGoal.js';
+import { MAX_DOSE_G_PER_L, MIN_DOSE_G_PER_L, searchDose } from './doseSearch.js';
+import { removalExcess } from './removalExcess.js';
+import type { RemovalModel, WarmStart } from './removalModel.js';
+
+export type CompoundDoseStatus = 'met' | 'met without carbon' | 'met below the smallest dose' | 'unreachable';
+
+export interface CompoundDose {
+  compoundId: string;
+  status: CompoundDoseStatus;
+  /** Dose that meets the goal, mg/L (0 when met without carbon or below the smallest dose; null when unreachable). */
+  doseMgPerL: number | null;
+  /** Removal reached at that dose (fraction; at 5000 mg/L when unreachable). */
+  removalFraction: number | null;
+  /** Why the goal is unreachable or needs no carbon. */
+  message?: string;
+}
+
+/**
+ * @param model       the removal model at the water's DOC
+ * @param index       the compound's index in the model
+ * @param goal        its goal
+ * @param hintMgPerL  a dose near the answer (e.g. the dose at another DOC scaled by DOC)
+ */
+export function compoundDose(model: RemovalModel, index: number, goal: CompoundGoal, hintMgPerL?: number): CompoundDose {
+  const compoundId = model.compoundIds[index]!;
+  if (goal.removalFraction <= 0) {
+    return { compoundId, status: 'met without carbon', doseMgPerL: 0, removalFraction: 0, message: `${goal.text} is met without carbon (c0 is already at or below it)` };
+  }
+  let warm: WarmStart;
+  let lastDose = NaN;
+  let lastRemaining = 1;
+  const excess = (doseGPerL: number) => {
+    const r = model.remaining(index, doseGPerL, warm);
+    warm = r.warm;
+    lastDose = doseGPerL;
+    lastRemaining = r.remainingFraction;
+    return removalExcess(lastRemaining, goal.removalFraction);
+  };
+  const opts: Parameters<typeof searchDose>[1] = { what: `dose search for "${compoundId}"` };
+  if (hintMgPerL !== undefined && hintMgPerL > 0) opts.hintGPerL = hintMgPerL / 1000;
+  const r = searchDose(excess, opts);
+  const pct = (f: number) => `${(f * 100).toPrecision(4)} %`;
+  if (r.status === 'unreachable') {
+    const reached = 1 - model.remaining(index, MAX_DOSE_G_PER_L).remainingFraction;
+    return { compoundId, status: 'unreachable', doseMgPerL: null, removalFraction: reached, message: `the goal of ${pct(goal.removalFraction)} removal of "${compoundId}" is not reached by any dose up to ${MAX_DOSE_G_PER_L * 1000} mg/L (it reaches ${pct(reached)} there)` };
+  }
+  if (r.status === 'met below the smallest dose') {
+    return { compoundId, status: 'met below the smallest dose', doseMgPerL: 0, removalFraction: null, message: `the goal of ${pct(goal.removalFraction)} removal of "${compoundId}" is already met below ${MIN_DOSE_G_PER_L * 1000} mg/L of carbon` };
+  }
+  // Brent's answer is normally its last evaluation: reuse it rather than solve again
+  const reached = 1 - (lastDose === r.doseGPerL ? lastRemaining : model.remaining(index, r.doseGPerL, warm).remainingFraction);
+  if (!(Math.abs(reached - goal.removalFraction) <= 1e-9)) throw new ComputationError(`dose search for "${compoundId}" ended at ${(reached * 100).toPrecision(6)} % instead of ${(goal.removalFraction * 100).toPrecision(6)} %`);
+  return { compoundId, status: 'met', doseMgPerL: r.doseGPerL * 1000, removalFraction: reached };
+}

@@ -1,0 +1,26 @@
+/**
+ * The goal of one compound: its effluent limit when it has one, otherwise the project's removal
+ * goal (default 80 %, CHECKS.md "Regulation and practice"). A limit becomes the removal fraction
+ * R = 1 − limit/c0; a limit at or above c0 needs no carbon.
+ */
+export interface CompoundGoal {
+  kind: 'removal' | 'limit';
+  /** Removal fraction to reach (0–1); ≤ 0 when a limit is already met without carbon. */
+  removalFraction: number;
+  /** Effluent limit, mg/L (limit goals only). */
+  limitMgPerL?: number;
+  /** "80 % removal" or "limit 500 ng/L". */
+  text: string;
+}
+
+/**
+ * @param compound     feed concentration and optional limit, mg/L
+ * @param removalPercent the project's removal goal, percent
+ * @param fmtConc      formats a concentration in mg/L for the goal's text
+ */
+export function compoundGoal(compound: { c0MgPerL: number; limitMgPerL?: number | undefined }, removalPercent: number, fmtConc: (mgPerL: number) => string): CompoundGoal {
+  if (compound.limitMgPerL !== undefined) {
+    return { kind: 'limit', removalFraction: 1 - compound.limitMgPerL / compound.c0MgPerL, limitMgPerL: compound.limitMgPerL, text: `effluent limit ${fmtConc(compound.limitMgPerL)}` };
+  }
+  return { kind: 'removal', removalFraction: removalPercent / 100, text: `${removalPercent} % removal` };
+}

@@ -1,0 +1,108 @@
+/**
+ * The design of one carbon at one DOC: the dose each compound's goal needs, the dose at which the
+ * indicator mean reaches its goal, the required dose (the largest of those: the governing goal is
+ * the one needing the most carbon; unreachable goals are left out and said so), the carbon cost
+ * per m³ treated and the DOC/UV254 surrogate set-point at the required dose.
+ *
+ *   cost per m³ = dose (mg/L = g/m³) / 1000 × price per kg           (carbonCost.ts)
+ *   DOC reduction = 1 − Σ c_i(D)/Σ c0_i over the fictive components
+ *   UV254 reduction = 1 − Σ a_i·c_i(D)/Σ a_i·c0_i (Beer–Lambert additivity; UV254 reduction as a
+ *   dosing control parameter: Altmann et al. 2016, Water Research 94:240–245)
+ *
+ * The same function serves the run at the design DOC, every distinct DOC of the series and every
+ * Monte Carlo draw, on any removal model (src/design/removalModel.ts). Units: doses mg/L.
+ * Throws ComputationError if a solve fails; statuses (not exceptions) for unreachable goals.
+ */
+import type { CompoundGoal } from './compoundGoal.js';
+import { compoundDose, type CompoundDose } from './compoundDose.js';
+import { indicatorDose, type IndicatorDose, type IndicatorGoal } from './indicatorGoal.js';
+import type { RemovalModel } from './removalModel.js';
+import { costPerM3 } from './carbonCost.js';
+
+export interface DesignProblem {
+  /** Goal of every compound of the model (model order). */
+  goals: readonly CompoundGoal[];
+  indicator?: IndicatorGoal;
+  /** Carbon price per kg (the carbon's currency). */
+  pricePerKg: number;
+  /** Specific UV254 absorbance of each fictive DOC component, 1/m per (mg/L), when known. */
+  uv254AbsorbancePerM?: readonly number[];
+}
+
+export interface SurrogateSetPoint {
+  doseMgPerL: number;
+  docReduction: number;
+  /** null without absorbances. */
+  uv254Reduction: number | null;
+}
+
+export interface Design {
+  docMgPerL: number;
+  compounds: CompoundDose[];
+  /** The reachable compound needing the most carbon. */
+  governing?: { compoundId: string; doseMgPerL: number };
+  indicator?: IndicatorDose;
+  /** The dose meeting every reachable goal, mg/L (null when nothing is reachable). */
+  doseMgPerL: number | null;
+  /** "compound CBZ", "indicator mean" or "nothing reachable". */
+  governedBy: string;
+  /** Carbon cost per m³ treated at the required dose (null without a dose). */
+  costPerM3: number | null;
+  /** DOC/UV254 reduction at the required dose (models with a fractionated background, dose > 0). */
+  surrogate?: SurrogateSetPoint;
+}
+
+/** DOC and UV254 reduction of the model's fictive background at a dose (mg/L). */
+export function surrogatesAt(model: RemovalModel, doseMgPerL: number, uv254AbsorbancePerM?: readonly number[]): SurrogateSetPoint | undefined {
+  const c0 = model.backgroundC0MgPerL;
+  if (!c0 || !model.backgroundRemaining) return undefined;
+  const c = model.backgroundRemaining(doseMgPerL / 1000).cMgPerL;
+  let doc0 = 0, doc = 0, uv0 = 0, uv = 0;
+  for (let i = 0; i < c0.length; i++) {
+    doc0 += c0[i]!;
+    doc += c[i]!;
+    if (uv254AbsorbancePerM) { uv0 += uv254AbsorbancePerM[i]! * c0[i]!; uv += uv254AbsorbancePerM[i]! * c[i]!; }
+  }
+  return { doseMgPerL, docReduction: doc0 > 0 ? 1 - doc / doc0 : 0, uv254Reduction: uv254AbsorbancePerM && uv0 > 0 ? 1 - uv / uv0 : null };
+}
+
+/**
+ * @param model the removal model of the carbon at the water's DOC
+ * @param near  the design at another DOC, for starting guesses only (doses scaled by DOC:
+ *              the dose per mg DOC is roughly constant, Zietzschmann et al. 2016)
+ */
+export function designDose(model: RemovalModel, problem: DesignProblem, near?: Design): Design {
+  const docMgPerL = model.docMgPerL;
+  const scale = near ? docMgPerL / near.docMgPerL : 1;
+  const compounds = problem.goals.map((goal, i) => {
+    const prior = near?.compounds[i];
+    const hint = prior && prior.status === 'met' && prior.doseMgPerL ? prior.doseMgPerL * scale : undefined;
+    return compoundDose(model, i, goal, hint);
+  });
+  let governing: Design['governing'];
+  for (const c of compounds) {
+    if (c.doseMgPerL !== null && (!governing || c.doseMgPerL > governing.doseMgPerL)) governing = { compoundId: c.compoundId, doseMgPerL: c.doseMgPerL };
+  }
+  const out: Design = {
+    docMgPerL, compounds, doseMgPerL: governing?.doseMgPerL ?? null,
+    governedBy: governing ? `compound ${governing.compoundId}` : 'nothing reachable', costPerM3: null,
+  };
+  if (governing) out.governing = governing;
+  if (problem.indicator) {
+    const prior = near?.indicator;
+    const ind = indicatorDose(model, problem.indicator, prior && prior.status === 'met' && prior.doseMgPerL ? prior.doseMgPerL * scale : undefined);
+    out.indicator = ind;
+    if (ind.doseMgPerL !== null && (out.doseMgPerL === null || ind.doseMgPerL > out.doseMgPerL)) {
+      out.doseMgPerL = ind.doseMgPerL;
+      out.governedBy = 'indicator mean';
+    }
+  }
+  if (out.doseMgPerL !== null) {
+    out.costPerM3 = costPerM3(out.doseMgPerL, problem.pricePerKg);
+    if (out.doseMgPerL > 0) {
+      const s = surrogatesAt(model, out.doseMgPerL, problem.uv254AbsorbancePerM);
+      if (s) out.surrogate = s;
+    }
+  }
+  return out;
+}

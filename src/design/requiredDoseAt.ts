@@ -1,0 +1,68 @@
+/**
+ * The required dose at another DOC, solved exactly but cheaply: the governing goal rarely changes
+ * from one DOC to the next, so the dose of the goal that governed at the nearest DOC solved (a
+ * compound's or the indicator mean's) is searched first, from a hint scaled by DOC; then every
+ * other goal is checked at that dose (one solve per compound). If all are met, that dose is the
+ * largest of the goal doses, i.e. what designDose returns; otherwise the full designDose runs.
+ * Used for the dose table's nodes by the run and by every Monte Carlo draw alike.
+ */
+import { compoundDose } from './compoundDose.js';
+import { designDose, type Design, type DesignProblem } from './designDose.js';
+import { indicatorDose, selectIndicatorSet } from './indicatorGoal.js';
+import type { IndicatorValue } from '../indicators/indicatorRule.js';
+import type { RemovalModel, WarmStart } from './removalModel.js';
+
+export interface RequiredAtDoc {
+  docMgPerL: number;
+  /** Required dose, mg/L (null when no goal is reachable). */
+  doseMgPerL: number | null;
+  /** "compound HCT", "indicator mean" or "nothing reachable". */
+  governedBy: string;
+  /** Each compound's solve state at the dose (warm starts for the next DOC; only a speed-up). */
+  warm?: WarmStart[];
+}
+
+/**
+ * @param model     the model at this DOC
+ * @param reference the full design at the design DOC (its statuses decide whether the fast path applies)
+ * @param near      the answer at a nearby DOC (hint and governing goal); default the reference
+ */
+export function requiredDoseAt(model: RemovalModel, problem: DesignProblem, reference: Design, near?: RequiredAtDoc): RequiredAtDoc {
+  const docMgPerL = model.docMgPerL;
+  const full = (): RequiredAtDoc => {
+    const d = designDose(model, problem, reference);
+    return { docMgPerL, doseMgPerL: d.doseMgPerL, governedBy: d.governedBy };
+  };
+  const base = near && near.doseMgPerL !== null ? near : reference;
+  if (base.doseMgPerL === null || !(base.doseMgPerL > 0) || reference.compounds.some((c) => c.status !== 'met') || (reference.indicator && reference.indicator.status !== 'met')) return full();
+  const hint = base.doseMgPerL * (docMgPerL / base.docMgPerL);
+  let dose: number | null;
+  if (base.governedBy === 'indicator mean') {
+    if (!problem.indicator) return full();
+    const r = indicatorDose(model, problem.indicator, hint);
+    dose = r.status === 'met' ? r.doseMgPerL : null;
+  } else {
+    const i = model.compoundIds.indexOf(base.governedBy.replace(/^compound /, ''));
+    if (i < 0) return full();
+    const d = compoundDose(model, i, problem.goals[i]!, hint);
+    dose = d.status === 'met' ? d.doseMgPerL : null;
+  }
+  if (dose === null || !(dose > 0)) return full();
+  // every compound's removal at that dose, once (the indicator mean uses the same values)
+  const warm: WarmStart[] = [];
+  const removal = problem.goals.map((_, i) => {
+    const r = model.remaining(i, dose / 1000, near?.warm?.[i]);
+    warm[i] = r.warm;
+    return 1 - r.remainingFraction;
+  });
+  for (let i = 0; i < problem.goals.length; i++) {
+    const goal = problem.goals[i]!;
+    if (goal.removalFraction > 0 && removal[i]! < goal.removalFraction - 1e-9) return full();
+  }
+  if (problem.indicator) {
+    const values: IndicatorValue[] = problem.indicator.members.map((m) => ({ id: model.compoundIds[m.index]!, category: m.category, removalPercent: 100 * removal[m.index]! }));
+    const sel = selectIndicatorSet(problem.indicator, values, false);
+    if (sel.set.meanRemovalPercent < problem.indicator.goalPercent - 1e-7) return full();
+  }
+  return { docMgPerL, doseMgPerL: dose, governedBy: base.governedBy, warm };
+}

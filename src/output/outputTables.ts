@@ -1,0 +1,97 @@
+/**
+ * The CSV tables of a run (compounds.csv, removal_curves.csv, carbons.csv, daily_doses.csv,
+ * indicators.csv): plain text built from the pipeline result, units in the headers.
+ */
+import type { PipelineResult } from '../pipeline/pipelineTypes.js';
+
+type Cell = string | number | null | undefined;
+
+/** Numbers to 8 significant digits (ample for planning figures, free of binary noise). */
+function cell(v: Cell): string {
+  if (v === null || v === undefined) return '';
+  if (typeof v === 'number') return Number.isFinite(v) ? String(Number(v.toPrecision(8))) : '';
+  return /[",\n\r]/.test(v) ? `"${v.replace(/"/g, '""')}"` : v;
+}
+
+/** RFC 4180 CSV text (Shafranovich 2005): comma-separated, quoted where needed, CRLF-free. */
+export function toCsv(headers: readonly string[], rows: readonly Cell[][]): string {
+  return [headers.map(cell).join(','), ...rows.map((r) => r.map(cell).join(','))].join('\n') + '\n';
+}
+
+export function compoundsCsv(r: PipelineResult): string {
+  const rows: Cell[][] = [];
+  for (const cr of r.carbons) {
+    if (!cr.required) continue;
+    cr.required.compounds.forEach((d, i) => {
+      const comp = r.project.compounds[i]!;
+      const goal = r.goals[comp.id]!;
+      const rl = cr.reducedLoadings?.[i];
+      const sys = cr.systems[i]!;
+      rows.push([
+        cr.carbon.name, comp.id, comp.name, comp.indicatorCategory ?? '', comp.c0MgPerL * 1e6, goal.text, Math.max(0, goal.removalFraction * 100),
+        d.doseMgPerL, d.status, cr.required!.governing?.compoundId === comp.id ? 'yes' : 'no',
+        cr.designDoseMgPerL, rl ? rl.cMgPerL * 1e6 : null, rl ? rl.removalFraction * 100 : null, rl?.qSiteMgPerG, rl?.qSingleMgPerG, rl?.ratio,
+        sys.single.K, sys.single.oneOverN, sys.inMixture.K, sys.competition,
+      ]);
+    });
+  }
+  return toCsv([
+    'carbon', 'compound', 'name', 'indicator category', 'c0 (ng/L)', 'goal', 'goal removal (%)',
+    'dose for goal (mg/L)', 'status', 'governing', 'design dose (mg/L)', 'c at design dose (ng/L)', 'removal at design dose (%)',
+    'q in site water (mg/g)', 'q single-solute at same c (mg/g)', 'reduced loading ratio',
+    'K single-solute ((mg/g)/(mg/L)^(1/n))', '1/n', 'K in IAST ((mg/g)/(mg/L)^(1/n))', 'competition model',
+  ], rows);
+}
+
+export function removalCurvesCsv(r: PipelineResult): string {
+  const ids = r.project.compounds.map((c) => c.id);
+  const rows: Cell[][] = [];
+  for (const cr of r.carbons) {
+    const cv = cr.curves;
+    if (!cv) continue;
+    cv.dosesMgPerL.forEach((d, k) => rows.push([cr.carbon.name, d, ...ids.map((id) => cv.removalPercent[id]![k])]));
+  }
+  return toCsv(['carbon', 'dose (mg/L)', ...ids.map((id) => `${id} removal (%)`)], rows);
+}
+
+export function carbonsCsv(r: PipelineResult): string {
+  const rows: Cell[][] = r.carbons.map((cr) => {
+    const req = cr.required;
+    const ind = cr.indicator;
+    return [
+      cr.carbon.name, cr.carbon.type, cr.carbon.pricePerKg, cr.carbon.currency, cr.carbon.kFactor,
+      req?.doseMgPerL, req?.governedBy, req?.governing?.compoundId, req?.governing?.doseMgPerL, req?.indicator?.doseMgPerL,
+      cr.costPerM3, cr.carbonKgPerDAtDesign, cr.yearly?.carbonKg, cr.yearly?.cost, cr.yearly?.basis,
+      cr.daily?.dose?.median, cr.daily?.dose?.p90, cr.daily?.carbonKgPerD?.median, cr.daily?.carbonKgPerD?.p90,
+      cr.designDoseMgPerL, ind?.set.meanRemovalPercent, ind ? (ind.set.admissible ? 'yes' : 'no') : null, ind?.range?.best.meanRemovalPercent, ind?.range?.worst.meanRemovalPercent,
+    ];
+  });
+  return toCsv([
+    'carbon', 'type', 'price per kg', 'currency', 'K factor',
+    'required dose (mg/L)', 'governed by', 'governing compound', 'governing compound dose (mg/L)', 'indicator mean dose (mg/L)',
+    'carbon cost per m3 treated', 'carbon at design flow (kg/d)', 'yearly carbon (kg)', 'yearly carbon cost', 'yearly basis',
+    'daily dose median (mg/L)', 'daily dose P90 (mg/L)', 'daily carbon median (kg/d)', 'daily carbon P90 (kg/d)',
+    'design dose (mg/L)', 'indicator mean at design dose (%)', 'indicator set admissible', 'best admissible mean (%)', 'worst admissible mean (%)',
+  ], rows);
+}
+
+export function dailyDosesCsv(r: PipelineResult): string {
+  const rows: Cell[][] = [];
+  for (const cr of r.carbons) {
+    for (const d of cr.daily?.rows ?? []) rows.push([d.date, cr.carbon.name, d.docMgPerL, d.flowM3PerD, d.doseMgPerL, d.governedBy, d.carbonKgPerD, d.cost, cr.carbon.currency]);
+  }
+  return toCsv(['date', 'carbon', 'DOC (mg/L)', 'flow (m3/d)', 'dose (mg/L)', 'governed by', 'carbon (kg/d)', 'carbon cost per day', 'currency'], rows);
+}
+
+export function indicatorsCsv(r: PipelineResult): string {
+  const rows: Cell[][] = [];
+  for (const cr of r.carbons) {
+    const ind = cr.indicator;
+    if (!ind) continue;
+    for (const v of ind.values) {
+      rows.push([cr.carbon.name, ind.doseMgPerL, v.id, v.category, v.removalPercent,
+        ind.set.ids.includes(v.id) ? 'yes' : 'no', ind.range ? (ind.range.best.ids.includes(v.id) ? 'yes' : 'no') : '', ind.range ? (ind.range.worst.ids.includes(v.id) ? 'yes' : 'no') : '']);
+    }
+  }
+  return toCsv(['carbon', 'dose (mg/L)', 'compound', 'category', 'removal (%)', 'in evaluated set', 'in best admissible subset', 'in worst admissible subset'], rows);
+}

@@ -1,0 +1,35 @@
+/**
+ * Every output file of a run as text, keyed by file name, ready for writeOutputDir (outputs are
+ * written whole or not at all).
+ */
+import { renderHtmlReport } from '../report/htmlReport.js';
+import { renderMarkdownSummary } from '../report/markdownSummary.js';
+import { buildReportModel } from '../output/buildReportModel.js';
+import { carbonsCsv, compoundsCsv, dailyDosesCsv, indicatorsCsv, removalCurvesCsv } from '../output/outputTables.js';
+import { gacCsv, pilotCheckCsv, setpointsCsv, surrogatesCsv, uncertaintyCsv } from '../output/surrogateGacUncertaintyTables.js';
+import { runRecord, type RunEnvironment } from '../output/runRecord.js';
+import type { PipelineResult } from '../pipeline/pipelineTypes.js';
+
+export const OUTPUT_FILES = [
+  'summary.md', 'report.html', 'compounds.csv', 'removal_curves.csv', 'carbons.csv', 'daily_doses.csv', 'indicators.csv',
+  'surrogates.csv', 'setpoints.csv', 'pilot_check.csv', 'gac.csv', 'uncertainty.csv', 'run.json',
+] as const;
+
+export function pipelineOutputs(r: PipelineResult, env: RunEnvironment): Record<(typeof OUTPUT_FILES)[number], string> {
+  const model = buildReportModel(r, env.toolVersion);
+  return {
+    'summary.md': renderMarkdownSummary(model),
+    'report.html': renderHtmlReport(model),
+    'compounds.csv': compoundsCsv(r),
+    'removal_curves.csv': removalCurvesCsv(r),
+    'carbons.csv': carbonsCsv(r),
+    'daily_doses.csv': dailyDosesCsv(r),
+    'indicators.csv': indicatorsCsv(r),
+    'surrogates.csv': surrogatesCsv(r),
+    'setpoints.csv': setpointsCsv(r),
+    'pilot_check.csv': pilotCheckCsv(r),
+    'gac.csv': gacCsv(r),
+    'uncertainty.csv': uncertaintyCsv(r),
+    'run.json': JSON.stringify(runRecord(r, env), null, 2) + '\n',
+  };
+}

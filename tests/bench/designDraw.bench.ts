@@ -1,0 +1,36 @@
+/**
+ * Speed of one Monte Carlo draw of the whole design of one carbon: the demo's carbon A (nine
+ * compounds, the indicator goal, the yearly carbon over the 365-day DOC series), with the demo's
+ * uncertainty settings; and the same draw over the series repeated 100 times (36,500 days), to
+ * show that a draw's cost does not grow with the number of days (the dose table's segment sums).
+ * Target (issue 8): ≤ 100 µs per draw on one core. Demo data invented.
+ */
+import { join } from 'node:path';
+import { loadProject } from '../../src/io/loadProject.js';
+import { runPipeline } from '../../src/pipeline/runPipeline.js';
+import { resolveUncertaintySettings, uncertaintyProblem } from '../../src/pipeline/uncertaintyStep.js';
+import { monteCarlo } from '../../src/uncertainty/monteCarlo.js';
+
+export async function bench(): Promise<Array<{ name: string; value: number; unit: string; target?: string }>> {
+  const input = loadProject(join(import.meta.dirname, '../../fixtures/demo/project.json'), { demo: true });
+  const run = runPipeline(input);
+  const settings = resolveUncertaintySettings(input.project.uncertainty, {})!;
+  const cr = run.carbons[0]!;
+  const goals = input.project.compounds.map((c) => run.goals[c.id]!);
+  const setup = uncertaintyProblem(input.project, cr, run.background, goals, input.series, settings);
+  if ('skipped' in setup) throw new Error(setup.skipped);
+  const long = structuredClone(setup.problem);
+  long.yearly!.docSeriesMgPerL = Array.from({ length: 100 }, () => setup.problem.yearly!.docSeriesMgPerL).flat();
+  long.yearly!.flowM3PerD = Array.from({ length: 100 }, () => setup.problem.yearly!.flowM3PerD as number[]).flat();
+  const draws = 500;
+  monteCarlo(setup.problem, { draws: 100, seed: 1 }); // warm-up (JIT)
+  // CPU time of this process (one thread here), less disturbed than wall time on a shared machine
+  const cpuMs = (f: () => void) => { const c = process.cpuUsage(); f(); const d = process.cpuUsage(c); return (d.user + d.system) / 1000; };
+  const perDraw = (cpuMs(() => monteCarlo(setup.problem, { draws, seed: 2026 })) / draws) * 1000;
+  const perDrawLong = (cpuMs(() => monteCarlo(long, { draws, seed: 2026 })) / draws) * 1000;
+  return [
+    { name: 'Monte Carlo draw of the whole design of one carbon (9 compounds, indicator goal, 365-day year; CPU time, in-thread)', value: +perDraw.toFixed(1), unit: 'µs', target: '≤ 100 µs' },
+    { name: 'the same draw over a 36,500-day series (cost must not grow with the days)', value: +perDrawLong.toFixed(1), unit: 'µs', target: '≈ the 365-day figure' },
+    { name: 'dose-table nodes of the demo series (carbon A)', value: setup.problem.yearly!.docNodesMgPerL!.length, unit: 'nodes' },
+  ];
+}

@@ -7,6 +7,8 @@ import { predictDoc } from '../fractionation/backgroundPrediction.js';
 import { logSpacedDoses } from '../api/equilibriumApi.js';
 import type { KeyFigure, PlotSeries, PlotSpec, ReportModel, ReportSection, ReportTable } from '../report/reportModel.js';
 import { CAUTIONS } from './cautions.js';
+import { applyCompoundLooks } from '../report/applyCompoundLooks.js';
+import { dayNumber } from '../report/svg/timeTicks.js';
 import { fmtConcentration as fc, fmtMoney, fmtNumber as fn, fmtWhole } from './formatting.js';
 import type { CarbonResult, PipelineResult } from './pipelineTypes.js';
 import { gacSection, loadingPlot, pilotSection, surrogateSection, uncertaintySection } from './capabilitySections.js';
@@ -79,7 +81,7 @@ function backgroundSection(r: PipelineResult): ReportSection {
       columns: ['component', 'K ((mg/g)/(mg/L)^(1/n))', '1/n', 'share of DOC', 'c0 (mg/L)'],
       rows: b.components.map((c) => [c.id, c.K === 0 ? '0 (non-adsorbable)' : fn(c.K, 4), c.K === 0 ? '—' : fn(c.one_over_n, 3), pct(c.fraction * 100), fn(c.c0_mg_per_L, 3)]),
     });
-    sec.plots!.push({ kind: 'bars', id: 'background-fractions', title: 'Fictive DOC components (mg/L at DOC0)', yLabel: 'DOC (mg/L)', categories: ['DOC0'], stacks: b.components.map((c) => ({ name: `${c.id} (K ${fn(c.K, 3)})`, values: [c.c0_mg_per_L] })) });
+    sec.plots!.push({ kind: 'bars', compact: true, id: 'background-fractions', title: 'Fictive DOC components (mg/L at DOC0)', yLabel: 'DOC (mg/L)', categories: ['DOC0'], stacks: b.components.map((c) => ({ name: `${c.id} (K ${fn(c.K, 3)})`, values: [c.c0_mg_per_L] })) });
     const fr = bg.fractionation;
     if (fr) {
       const residuals = (fr.residuals ?? []) as Array<Record<string, number>>;
@@ -92,7 +94,7 @@ function backgroundSection(r: PipelineResult): ReportSection {
         kind: 'xy', id: 'doc-isotherm', title: 'DOC against carbon dose: measured and fictive-component model', xLabel: 'carbon dose (mg/L)', yLabel: 'equilibrium DOC (mg/L)', xLog: true,
         series: [{ name: 'model (batch IAST)', points: doses.map((d) => [d, predictDoc(b, d)]) }],
       };
-      if (measured.length) plot.series.push({ name: 'measured', points: measured, style: 'points' });
+      if (measured.length) plot.series.push({ name: 'measured', points: measured, style: 'points', key: 'reference' });
       sec.plots!.push(plot);
     }
   } else {
@@ -138,7 +140,7 @@ function carbonSection(r: PipelineResult, cr: CarbonResult, index: number): Repo
     const cv = cr.curves;
     const spec: PlotSpec = {
       kind: 'xy', id: `removal-${index + 1}`, title: `Removal against carbon dose — ${cr.carbon.name}`, xLabel: 'carbon dose (mg/L)', yLabel: 'removal (%)', xLog: true, yRange: [0, 100],
-      series: r.project.compounds.map((c) => ({ name: c.id, points: cv.dosesMgPerL.map((d, k) => [d, cv.removalPercent[c.id]![k]!] as [number, number]) })),
+      series: r.project.compounds.map((c) => ({ name: req.governing?.compoundId === c.id ? `${c.id} (governing)` : c.id, key: c.id, emphasis: req.governing?.compoundId === c.id, points: cv.dosesMgPerL.map((d, k) => [d, cv.removalPercent[c.id]![k]!] as [number, number]) })),
       hLines: [{ y: r.project.goals.removalPercent, label: `${r.project.goals.removalPercent} % goal` }],
     };
     if (req.doseMgPerL !== null) spec.vLines = [{ x: req.doseMgPerL, label: `required ${fn(req.doseMgPerL, 3)} mg/L` }];
@@ -193,10 +195,10 @@ function yearSection(r: PipelineResult): ReportSection | undefined {
   const s = r.series;
   if (!s) return undefined;
   const withDaily = r.carbons.filter((c) => c.daily);
-  const dayIndex = s.dates.map((_, k) => k + 1);
+  const dayIndex = s.dates.map((d) => dayNumber(d));
   const plots: PlotSpec[] = [
-    { kind: 'xy', id: 'daily-dose', title: `Required dose over the DOC series${withDaily.some((c) => c.uncertainty?.governingDoseRatio) ? ' (band: Monte Carlo P10–P90)' : ''}`, xLabel: `day (from ${s.dates[0]})`, yLabel: 'dose (mg/L)', series: withDaily.map((c) => dailySeries(c, s.dates, dayIndex)) },
-    { kind: 'xy', id: 'daily-doc', title: 'Effluent DOC over the series', xLabel: `day (from ${s.dates[0]})`, yLabel: 'DOC (mg/L)', series: [{ name: 'DOC', points: s.docMgPerL.map((v, k) => [k + 1, v] as [number, number]) }] },
+    { kind: 'xy', id: 'daily-dose', title: `Required dose over the DOC series${withDaily.some((c) => c.uncertainty?.governingDoseRatio) ? ' (band: Monte Carlo P10–P90)' : ''}`, xLabel: 'date', xTime: true, yLabel: 'dose (mg/L)', series: withDaily.map((c) => dailySeries(c, s.dates, dayIndex)) },
+    { kind: 'xy', id: 'daily-doc', title: 'Effluent DOC over the series', xLabel: 'date', xTime: true, yLabel: 'DOC (mg/L)', series: [{ name: 'DOC', key: 'reference', points: s.docMgPerL.map((v, k) => [dayIndex[k]!, v] as [number, number]) }] },
   ];
   const rows = withDaily.map((c) => {
     const d = c.daily!;
@@ -237,5 +239,5 @@ export function buildReportModel(r: PipelineResult, version: string): ReportMode
     keyFigures: keyFigures(r),
     sections,
   };
-  return model;
+  return applyCompoundLooks(model, r.project.compounds.map((c) => c.id));
 }

@@ -26,6 +26,7 @@ import { fmtConcentration } from './formatting.js';
 import { surrogateModel, surrogateStep } from './surrogateStep.js';
 import { pilotStep, type PilotStepResult } from './pilotStep.js';
 import { gacStep } from './gacStep.js';
+import { sweepCovering } from './sweepCovering.js';
 import { GAC_UPPER_BOUND_CAUTION } from '../gac/gacEstimate.js';
 import { InputError } from '../core/errors.js';
 
@@ -84,7 +85,7 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
       if (c.status === 'no-carbon-needed') res.warnings.push(`${c.compoundId}: ${c.message}`);
     }
     if (req.indicator && req.indicator.status !== 'ok') res.warnings.push(`indicator goal: ${req.indicator.message}`);
-    const curves = timed('curves', () => removalCurves(carbon.name, systems, doc, project.goals.sweep));
+    const curves = timed('curves', () => removalCurves(carbon.name, systems, doc, sweepCovering(project.goals.sweep, req.doseMgPerL)));
     res.curves = curves;
     if (bg.background) {
       const background = bg.background;

@@ -9,6 +9,7 @@ import type { KeyFigure, PlotSeries, PlotSpec, ReportModel, ReportSection, Repor
 import { CAUTIONS } from './cautions.js';
 import { applyCompoundLooks } from '../report/applyCompoundLooks.js';
 import { dayNumber } from '../report/svg/timeTicks.js';
+import { decisionSection } from './decisionSections.js';
 import { fmtConcentration as fc, fmtMoney, fmtNumber as fn, fmtWhole } from './formatting.js';
 import type { CarbonResult, PipelineResult } from './pipelineTypes.js';
 import { gacSection, loadingPlot, pilotSection, surrogateSection, uncertaintySection } from './capabilitySections.js';
@@ -228,6 +229,8 @@ export function buildReportModel(r: PipelineResult, version: string): ReportMode
   pacCarbons(r).forEach((cr) => sections.push(carbonSection(r, cr, r.carbons.indexOf(cr))));
   for (const sec of [surrogateSection(r), pilotSection(r), indicatorSection(r)]) if (sec) sections.push(sec);
   sections.push(comparisonSection(r));
+  const decisions = decisionSection(r);
+  if (decisions) sections.push(decisions);
   for (const sec of [gacSection(r), yearSection(r), uncertaintySection(r)]) if (sec) sections.push(sec);
   sections.push(inputsSection(r));
   const model: ReportModel = {

@@ -27,6 +27,9 @@ import { surrogateModel, surrogateStep } from './surrogateStep.js';
 import { pilotStep, type PilotStepResult } from './pilotStep.js';
 import { gacStep } from './gacStep.js';
 import { sweepCovering } from './sweepCovering.js';
+import { yearlyCarbonAtDose } from './yearlyCarbon.js';
+import { docRange, doseAgainstDocStep } from './doseAgainstDocStep.js';
+import { sensitivityStep } from './sensitivityStep.js';
 import { GAC_UPPER_BOUND_CAUTION } from '../gac/gacEstimate.js';
 import { InputError } from '../core/errors.js';
 
@@ -114,8 +117,13 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
       const missing = res.daily.rows.length - res.daily.daysWithDose;
       if (missing > 0) res.warnings.push(`${missing} day(s) of the DOC series have no reachable goal and no dose; totals cover the other days`);
     } else if (req.doseMgPerL !== null) {
-      const kg = (req.doseMgPerL * project.site.flowM3PerD * 365) / 1000;
-      res.yearly = { carbonKg: kg, cost: kg * carbon.pricePerKg, basis: 'design DOC and flow' };
+      res.yearly = { ...yearlyCarbonAtDose(req.doseMgPerL, project.site.flowM3PerD, carbon.pricePerKg), basis: 'design DOC and flow' };
+    }
+    if (req.doseMgPerL !== null) {
+      progress({ step: `${carbon.name}: dose against DOC and sensitivity`, done: ci, total: project.carbons.length });
+      res.doseAgainstDoc = timed('dose against DOC', () => doseAgainstDocStep(carbon.name, req, (d) => requiredDose(systems, goalList, plan, d, req), docRange(doc, input.series?.docMgPerL)));
+      const sens = timed('sensitivity', () => sensitivityStep({ carbon, systems, goals: goalList, planOf: (s) => indicatorPlan(project, s), docMgPerL: doc, flowM3PerD: project.site.flowM3PerD, ...(input.series ? { series: input.series } : {}), required: req, yearly: res.yearly! }));
+      if (sens) res.sensitivity = sens;
     }
     return res;
   });

@@ -59,7 +59,7 @@ function renderFigure(p: PlotSpec, n: Counters): string {
   n.figure++;
   const id = n.ids.id(p.id, 'fig-');
   return (
-    `<figure id="${id}">${renderPlot(p, { uid: id })}` +
+    `<figure id="${id}"${p.kind === 'bars' && p.compact ? ' class="compact"' : ''}>${renderPlot(p, { uid: id })}` +
     `<figcaption><span class="num">Figure ${n.figure}.</span> ${escapeHtml(p.title)}</figcaption></figure>`
   );
 }

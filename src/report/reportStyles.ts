@@ -62,6 +62,8 @@ table.very-wide th, table.very-wide td { padding: 3px 4px; }
 td.empty { color: var(--muted); font-style: italic; }
 figure { margin: 18px 0; padding: 12px 12px 6px; border: 1px solid var(--line); border-radius: 4px; }
 figure svg.plot { display: block; width: 100%; height: auto; max-width: 720px; margin: 0 auto; }
+figure.compact { display: inline-block; vertical-align: top; width: calc(33.3% - 10px); min-width: 220px; margin: 10px 10px 10px 0; box-sizing: border-box; }
+figure.compact svg.plot { max-width: 300px; }
 figcaption { font-size: 13.5px; margin: 8px 4px 4px; }
 footer { padding: 16px 40px 24px; border-top: 1px solid var(--line); font-size: 12.5px; color: var(--muted); }
 footer p { margin: 3px 0; }

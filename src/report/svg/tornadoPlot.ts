@@ -11,7 +11,6 @@ import { INK } from './palette.js';
 import { planAxis } from './planAxis.js';
 import { FONT, PLOT_WIDTH } from './plotStyle.js';
 import { type Frame, renderXAxis, X_AXIS_BAND } from './svgAxes.js';
-import { formatSegmentValue } from './barPlot.js';
 import { fitText, layoutLegend, renderLegend } from './svgLegend.js';
 import { svgOpen } from './svgRoot.js';
 import { r2 } from './svgNumber.js';
@@ -21,6 +20,14 @@ import { textWidth } from './textWidth.js';
 export const TORNADO_COLOURS = { low: '#3d7f8c', high: '#c08a2e' } as const;
 
 const ROW_HEIGHT = 26;
+
+/** Bar-end value: 3 significant digits, thousands grouped, never an exponent for everyday magnitudes. */
+export function formatTornadoValue(v: number): string {
+  if (v === 0) return '0';
+  const a = Math.abs(v);
+  if (a >= 1e-3 && a < 1e12) return Number(v.toPrecision(3)).toLocaleString('en-US', { maximumSignificantDigits: 3 });
+  return v.toExponential(2);
+}
 
 /** SVG of a tornado plot. Rows with a non-finite value are drawn without that bar. */
 export function renderTornadoPlot(spec: TornadoPlotSpec): string {
@@ -47,7 +54,7 @@ export function renderTornadoPlot(spec: TornadoPlotSpec): string {
       const x0 = Math.min(x, bx);
       bars.push(`<rect data-row="${i}" data-side="${side}" data-value="${v}" x="${r2(x0)}" y="${r2(y)}" width="${r2(Math.max(0.8, Math.abs(x - bx)))}" height="${r2(h)}" fill="${colour}"/>`);
       const right = x >= bx;
-      texts.push(`<text x="${r2(x + (right ? 4 : -4))}" y="${r2(y + h / 2)}" dy="0.35em" text-anchor="${right ? 'start' : 'end'}" font-size="${FONT.bar}" fill="${INK.muted}">${escapeHtml(formatSegmentValue(v))}</text>`);
+      texts.push(`<text x="${r2(x + (right ? 4 : -4))}" y="${r2(y + h / 2)}" dy="0.35em" text-anchor="${right ? 'start' : 'end'}" font-size="${FONT.bar}" fill="${INK.muted}">${escapeHtml(formatTornadoValue(v))}</text>`);
     }
   });
   const axis = renderXAxis(frame, { scale: xs, ticks: plan.ticks, label: spec.xLabel });

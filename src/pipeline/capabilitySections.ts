@@ -6,7 +6,8 @@
 import type { PlotSeries, PlotSpec, ReportSection, ReportTable, XYPlotSpec } from '../report/reportModel.js';
 import { siteCurveRemoval } from '../surrogates/siteCurveFit.js';
 import { GAC_UPPER_BOUND_CAUTION } from '../gac/gacEstimate.js';
-import { fmtConcentration as fc, fmtMoney, fmtNumber as fn, fmtWhole } from './formatting.js';
+import { fmtConcentration as fc, fmtFixed, fmtMoney, fmtNumber as fn, fmtWhole } from './formatting.js';
+import { monteCarloNote } from './monteCarloNote.js';
 import type { CarbonResult, PipelineResult } from './pipelineTypes.js';
 import { CI_TO_SD_NOTE } from './uncertaintyStep.js';
 
@@ -68,7 +69,7 @@ export function pilotSection(r: PipelineResult): ReportSection | undefined {
   const p = r.pilot;
   if (!p) return undefined;
   const ch = p.check;
-  const rows = ch.compounds.map((c) => [c.compound, c.points, `${fn(c.meanResidual * 100, 3)}`, fn(c.rmse * 100, 3), c.outliers.length ? c.outliers.map((o) => o.sample).join(', ') : '—',
+  const rows = ch.compounds.map((c) => [c.compound, c.points, fmtFixed(c.meanResidual * 100, 1), fmtFixed(c.rmse * 100, 1), c.outliers.length ? c.outliers.map((o) => o.sample).join(', ') : '—',
     `${fn(c.siteCurve.k, 3)}${Number.isFinite(c.siteCurve.standardErrorK) ? ` ± ${fn(c.siteCurve.standardErrorK, 2)}` : ''}`, fn(c.modelCurve.k, 3)]);
   const maxUv = Math.min(1, Math.max(...ch.residuals.map((x) => x.uv254Reduction)) * 1.15);
   const xs = Array.from({ length: 41 }, (_, i) => (maxUv * i) / 40);
@@ -134,6 +135,7 @@ export function uncertaintySection(r: PipelineResult): ReportSection | undefined
   const first = withU[0]!.uncertainty!;
   const paragraphs = [
     `Monte Carlo: ${first.result.draws} draws per carbon, seed ${first.result.seed} (${s.source}); the same draws for every carbon. Sampling: ${first.result.sampling}. Percentiles: ${first.result.percentileMethod}. ${CI_TO_SD_NOTE[0]!.toUpperCase()}${CI_TO_SD_NOTE.slice(1)}. The governing dose here is the largest compound dose (the indicator-mean goal is not sampled).`,
+    ...withU.flatMap((cr) => monteCarloNote(cr)),
   ];
   const tables: ReportTable[] = [{
     caption: 'Uncertain parameters',

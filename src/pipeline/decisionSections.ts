@@ -6,7 +6,7 @@
  */
 import type { BarPlotSpec, PlotSpec, ReportSection, ReportTable, TornadoPlotSpec } from '../report/reportModel.js';
 import { NEUTRAL_STYLES } from '../report/svg/palette.js';
-import { fmtMoney, fmtNumber as fn } from './formatting.js';
+import { fmtFixed, fmtMoney, fmtNumber as fn } from './formatting.js';
 import { pacGacComparison } from './pacGacComparison.js';
 import type { PipelineResult } from './pipelineTypes.js';
 import type { Sensitivity } from './sensitivityStep.js';
@@ -64,7 +64,7 @@ export function decisionSection(r: PipelineResult): ReportSection | undefined {
         rows: idx.map((i) => {
           const req = d.requiredDoseMgPerL[i] ?? null;
           const rule = d.constantRuleDoseMgPerL[i]!;
-          return [fn(d.docMgPerL[i]!, 3), req === null ? 'unreachable' : fn(req, 3), req === null ? '—' : fn(req / d.docMgPerL[i]!, 3), fn(rule, 3), req === null ? '—' : fn(req - rule, 2), req === null ? '—' : `${fn((100 * (req - rule)) / rule, 2)}`];
+          return [fn(d.docMgPerL[i]!, 3), req === null ? 'unreachable' : fn(req, 3), req === null ? '—' : fn(req / d.docMgPerL[i]!, 3), fn(rule, 3), req === null ? '—' : fmtFixed(req - rule, 1), req === null ? '—' : fmtFixed((100 * (req - rule)) / rule, 0)];
         }),
       });
     }

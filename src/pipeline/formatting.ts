@@ -5,7 +5,7 @@ export function fmtNumber(x: number, sig = 4): string {
   if (!Number.isFinite(x)) return String(x);
   if (x === 0) return '0';
   const ax = Math.abs(x);
-  if (ax >= 1e-3 && ax < 1e7) {
+  if (ax >= 1e-6 && ax < 1e7) {
     const digits = Math.max(0, sig - 1 - Math.floor(Math.log10(ax)));
     return x.toFixed(Math.min(digits, 12));
   }
@@ -30,4 +30,11 @@ export function fmtMoney(x: number, currency: string): string {
 /** Whole numbers with grouping (kg, m³). */
 export function fmtWhole(x: number): string {
   return Math.round(x).toLocaleString('en-US');
+}
+
+/** Fixed decimals without a negative zero ("-0.0" becomes "0.0"): for differences and residuals. */
+export function fmtFixed(x: number, decimals: number): string {
+  if (!Number.isFinite(x)) return String(x);
+  const s = x.toFixed(decimals);
+  return /^-0\.?0*$/.test(s) ? s.slice(1) : s;
 }

@@ -11,6 +11,8 @@ export interface ReportModel {
   version: string;
   /** The cautions of DESIGN.md, shown prominently. */
   cautions: string[];
+  /** Cover block from the project file, in order. */
+  cover?: CoverLine[];
   /** A few headline numbers (governing compound, dose, yearly cost …). */
   keyFigures: KeyFigure[];
   sections: ReportSection[];
@@ -30,6 +32,16 @@ export interface ReportSection {
   plots?: PlotSpec[];
   /** Warnings shown in this section (identifiability, poor fit, upper bounds …). */
   warnings?: string[];
+  /** Small-print notes after the content (method notes). */
+  notes?: string[];
+  /** Paragraphs are a list of references (rendered as an ordered list). */
+  referenceList?: boolean;
+}
+
+/** One line of the cover block (client, project number, author, checker, revision, date). */
+export interface CoverLine {
+  label: string;
+  value: string;
 }
 
 export interface ReportTable {

@@ -13,6 +13,7 @@ import { decisionSection } from './decisionSections.js';
 import { doseWithSpecific, headlineFigures, yearlyBasisText } from './headlineFigures.js';
 import { referencesSection } from '../report/referencesSection.js';
 import { coverLines } from './coverLines.js';
+import { calibrationPlot } from './calibrationPlots.js';
 import { fmtConcentration as fc, fmtMoney, fmtNumber as fn, fmtWhole } from './formatting.js';
 import type { CarbonResult, PipelineResult } from './pipelineTypes.js';
 import { gacSection, loadingPlot, pilotSection, surrogateSection, uncertaintySection } from './capabilitySections.js';
@@ -84,6 +85,7 @@ function calibrationSection(r: PipelineResult): ReportSection | undefined {
       rows: r.calibrations.map((c) => [c.compoundId, c.model, c.targetKFactor !== undefined ? fn(c.targetKFactor, 4) : '—', c.ebc ? fn(c.ebc.K, 4) : '—', c.ebc ? fn(c.ebc.oneOverN, 3) : '—', c.ebc ? fn(c.ebc.c0MgPerL, 4) : '—', c.ebc ? fn(c.ebc.docMgPerL, 3) : '—']),
     }],
     warnings: r.calibrations.flatMap((c) => c.warnings.map((w) => `${c.compoundId}: ${w}`)),
+    plots: r.calibrations.flatMap((c, i) => calibrationPlot(c, i) ?? []),
   };
 }
 

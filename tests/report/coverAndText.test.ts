@@ -87,3 +87,18 @@ describe('references and client text', () => {
     expect(fmtFixed(-21.23, 1)).toBe('-21.2');
   });
 });
+
+describe('Monte Carlo note', () => {
+  it('explains a governing-dose median above the point estimate with the numbers, and says nothing when it is not above', async () => {
+    const { monteCarloNote } = await import('../../src/pipeline/monteCarloNote.js');
+    const q = (key: string, point: number, p50: number) => ({ key, label: key, unit: 'mg/L', pointEstimate: point, p10: p50 * 0.8, p50, p90: p50 * 1.3, unreachableDraws: 0 });
+    const cr = { carbon: { name: 'C1' }, uncertainty: { result: { quantities: [q('governing_dose', 20, 22.6), q('dose:A', 20, 20.1), q('dose:B', 18, 18.2), q('dose:C', 5, 5)] } } } as never;
+    const [note] = monteCarloNote(cr);
+    expect(note).toMatch(/^C1: the median governing dose \(22\.6 mg\/L\) is 13 % above the point estimate \(20\.0 mg\/L\)/);
+    expect(note).toMatch(/2 compounds need within 30 % of the governing dose/);
+    expect(note).toMatch(/largest of the compound doses/);
+    expect(note).toMatch(/\(A\) has a median of 20\.1 mg\/L/);
+    const flat = { carbon: { name: 'C1' }, uncertainty: { result: { quantities: [q('governing_dose', 20, 19.5)] } } } as never;
+    expect(monteCarloNote(flat)).toEqual([]);
+  });
+});

@@ -45,8 +45,8 @@ export function surrogateSection(r: PipelineResult): ReportSection | undefined {
     if (a) paragraphs.push(`${cr.carbon.name}: dose to a UV254 reduction of ${pct(a.uv254Reduction)} (DOC reduction ${pct(a.docReduction)}) — the required dose ${fn(a.doseMgPerL, 3)} mg/L, governed by ${a.governedBy}.`);
     tables.push({
       caption: `${cr.carbon.name}: set-points per compound at DOC ${fn(r.project.site.docMgPerL, 3)} mg/L`,
-      columns: ['compound', 'goal', 'dose (mg/L)', 'UV254 reduction', 'DOC reduction', 'role'],
-      rows: s.setPoints.map((sp) => [sp.compoundId, sp.goalText, sp.status === 'ok' ? fn(sp.doseMgPerL!, 3) : sp.status, pct(sp.uv254Reduction), pct(sp.docReduction), s.governing?.compoundId === sp.compoundId ? 'governing' : '']),
+      columns: ['compound', 'goal', 'dose (mg/L)', 'mg carbon per mg DOC', 'UV254 reduction', 'DOC reduction', 'role'],
+      rows: s.setPoints.map((sp) => [sp.compoundId, sp.goalText, sp.status === 'ok' ? fn(sp.doseMgPerL!, 3) : sp.status, sp.status === 'ok' ? fn(sp.doseMgPerL! / r.project.site.docMgPerL, 3) : '—', pct(sp.uv254Reduction), pct(sp.docReduction), s.governing?.compoundId === sp.compoundId ? 'governing' : '']),
     });
     const pts = s.curve.points;
     const gov = s.governing?.compoundId;

@@ -77,6 +77,12 @@ export function decisionSection(r: PipelineResult): ReportSection | undefined {
         rows: s.rows.map((x) => [x.input, x.doseLowMgPerL === null ? 'unreachable' : fn(x.doseLowMgPerL, 3), x.doseHighMgPerL === null ? 'unreachable' : fn(x.doseHighMgPerL, 3), x.yearlyCostLow === null ? '—' : fmtMoney(x.yearlyCostLow, ''), x.yearlyCostHigh === null ? '—' : fmtMoney(x.yearlyCostHigh, '')]),
       });
       if (k === 0) paragraphs.push(`Sensitivity: one input at a time, the rest at their design values; K and 1/n of the governing compound (${s.governingCompound}), DOC (the design value and every day of the series), the adsorbable part of the background (DOC kept; the non-adsorbable part takes the difference) and the carbon price. Not modelled in this equilibrium run: ${s.notModelled.join(' and ')}.`);
+      const docRow = s.rows.find((x) => x.key === 'doc');
+      const bgRow = s.rows.find((x) => x.key === 'background');
+      const same = (x: number | null | undefined, y: number | null | undefined) => x != null && y != null && Math.abs(x - y) <= 1e-3 * Math.abs(y);
+      if (docRow && bgRow && same(docRow.doseLowMgPerL, bgRow.doseLowMgPerL) && same(docRow.doseHighMgPerL, bgRow.doseHighMgPerL)) {
+        paragraphs.push(`${cr.carbon.name}: DOC and the adsorbable background move the dose alike, because the non-adsorbable part of the DOC does not compete for the carbon; only the adsorbable part matters.`);
+      }
     }
   });
   const cmp = pacGacComparison(r.carbons);

@@ -105,3 +105,14 @@ describe('removal sweep covering the required dose', () => {
     expect(sweepCovering({ fromMgPerL: 1, toMgPerL: 100, points: 41 }, null).toMgPerL).toBe(100);
   });
 });
+
+describe('linear tick labels on client figures', () => {
+  it('group thousands from 10,000 and keep exponents only for extreme magnitudes', async () => {
+    const { formatLinearLabel } = await import('../../src/report/svg/linearTicks.js');
+    expect(formatLinearLabel(300000, 0)).toBe('300,000');
+    expect(formatLinearLabel(1250000, 0)).toBe('1,250,000');
+    expect(formatLinearLabel(5000, 0)).toBe('5000');
+    expect(formatLinearLabel(-20000, 0)).toBe('−20,000');
+    expect(formatLinearLabel(2.5e13, 0)).toBe('2.5e+13');
+  });
+});

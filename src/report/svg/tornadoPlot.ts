@@ -39,7 +39,7 @@ export function renderTornadoPlot(spec: TornadoPlotSpec): string {
   const pad = (hi - lo) * 0.12 || Math.abs(spec.base) * 0.1 || 1;
   const plan = planAxis([lo - pad, hi + pad], { targetTicks: 6 });
   const frame: Frame = { left: Math.round(labelW + 16), top: 10, width: 0, height: Math.max(1, spec.rows.length) * ROW_HEIGHT };
-  frame.width = PLOT_WIDTH - frame.left - 20;
+  frame.width = PLOT_WIDTH - frame.left - 32; // room for half of the last tick label
   const xs = makeScale(plan.domain, [frame.left, frame.left + frame.width], false);
   const bx = xs.map(spec.base);
   const bars: string[] = [];

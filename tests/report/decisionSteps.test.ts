@@ -126,3 +126,24 @@ describe('PAC against GAC', () => {
     expect(m.cheapestByCurrency[0]!.of).toBe(2);
   });
 });
+
+describe('decision steps on a project with EBC backgrounds and no DOC series', () => {
+  it('uses the design DOC ±50 %, yearly figures at the design DOC and flow, and renders every decision figure', async () => {
+    const { buildReportModel } = await import('../../src/pipeline/buildReportModel.js');
+    const { yearlyCarbonAtDose } = await import('../../src/pipeline/yearlyCarbon.js');
+    const res = runPipeline(loadProject(join(__dirname, '../../fixtures/project/ebc-background/project.json')), { now: new Date('2026-01-01T00:00:00Z') });
+    const cr = res.carbons.find((c) => c.doseAgainstDoc)!;
+    const doc = res.project.site.docMgPerL;
+    expect(cr.doseAgainstDoc!.rangeSource).toBe('design DOC ±50 %');
+    expect(cr.doseAgainstDoc!.docMgPerL[0]).toBeCloseTo(doc * 0.5, 12);
+    expect(cr.doseAgainstDoc!.docMgPerL.at(-1)).toBeCloseTo(doc * 1.5, 12);
+    const s = cr.sensitivity!;
+    // closed form of the yearly figures without a series: dose × flow × 365 / 1000 × price
+    const dr = s.rows.find((x) => x.key === 'doc')!;
+    expect(dr.yearlyCostHigh!).toBeCloseTo(yearlyCarbonAtDose(dr.doseHighMgPerL!, res.project.site.flowM3PerD, cr.carbon.pricePerKg).cost, 6);
+    expect(dr.doseHighMgPerL!).toBeGreaterThan(s.baseDoseMgPerL); // more DOC, more EBC, more carbon
+    const model = buildReportModel(res, 'test');
+    const ids = model.sections.flatMap((x) => (x.plots ?? []).map((p) => p.id));
+    expect(ids).toEqual(expect.arrayContaining(['dose-against-doc-1', 'sensitivity-dose-1', 'sensitivity-cost-1']));
+  }, 60_000);
+});

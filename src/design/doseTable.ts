@@ -28,6 +28,7 @@ import { designDose, type Design, type DesignProblem } from './designDose.js';
 import { requiredDoseAt, type RequiredAtDoc } from './requiredDoseAt.js';
 import { isAnnualised } from './annualised.js';
 import type { RemovalModel } from './removalModel.js';
+import { carbonCost } from './carbonCost.js';
 
 export const START_NODES = 5;
 export const MAX_NODES = 65;
@@ -172,4 +173,14 @@ export function seriesCarbon(segments: SeriesSegments, doses: ArrayLike<number |
   const totalKg = grams / 1000;
   const annualised = isAnnualised(segments.totalDays);
   return { totalKg, daysWithDose, yearlyKg: annualised ? (totalKg * 365) / segments.totalDays : totalKg, annualised };
+}
+
+/**
+ * Carbon over a year at one constant dose and flow (no DOC series): one day at that dose,
+ * annualised through the same segment sums as a series (kg/a = dose × flow × 365 / 1000), so the
+ * run, the sensitivity step and the Monte Carlo agree by construction.
+ */
+export function yearlyAtOneDose(doseMgPerL: number, flowM3PerD: number, pricePerKg: number): { carbonKg: number; cost: number } {
+  const y = seriesCarbon(seriesSegments([0], [0], flowM3PerD), [doseMgPerL]);
+  return { carbonKg: y.yearlyKg, cost: carbonCost(y.yearlyKg, pricePerKg) };
 }

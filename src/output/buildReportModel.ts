@@ -6,8 +6,15 @@
 import { predictDoc } from '../fractionation/backgroundPrediction.js';
 import { annualisedNote, isAnnualised } from '../design/annualised.js';
 import { logSpaced as logSpacedDoses } from '../numerics/logSpace.js';
-import type { KeyFigure, PlotSeries, PlotSpec, ReportModel, ReportSection, ReportTable } from './reportModel.js';
+import type { PlotSeries, PlotSpec, ReportModel, ReportSection, ReportTable } from './reportModel.js';
 import { CAUTIONS } from './cautions.js';
+import { applyCompoundLooks } from './applyCompoundLooks.js';
+import { dayNumber } from './dayNumber.js';
+import { decisionSection } from './decisionSections.js';
+import { doseWithSpecific, headlineFigures, yearlyBasisText } from './headlineFigures.js';
+import { referencesSection } from './referencesSection.js';
+import { coverLines } from './coverLines.js';
+import { calibrationPlot } from './calibrationPlots.js';
 import { fmtConcentration as fc, fmtMoney, fmtNumber as fn, fmtWhole } from './formatting.js';
 import type { CarbonResult, PipelineResult } from '../pipeline/pipelineTypes.js';
 import { gacSection, loadingPlot, pilotSection, surrogateSection, uncertaintySection } from './surrogateGacUncertaintySections.js';
@@ -17,40 +24,6 @@ const mgL = (x: number | null | undefined, sig = 3) => (x === null || x === unde
 
 function pacCarbons(r: PipelineResult): CarbonResult[] {
   return r.carbons.filter((c) => c.required);
-}
-
-function keyFigures(r: PipelineResult): KeyFigure[] {
-  const figs: KeyFigure[] = [];
-  const pac = pacCarbons(r);
-  for (const cr of pac) {
-    const req = cr.required!;
-    if (req.doseMgPerL === null) { figs.push({ label: `${cr.carbon.name}: required dose`, value: 'no reachable goal' }); continue; }
-    const others = [
-      req.governedBy !== 'indicator mean' || !req.governing ? '' : `; governing compound ${req.governing.compoundId} at ${mgL(req.governing.doseMgPerL)}`,
-      req.governedBy === 'indicator mean' || req.indicator?.doseMgPerL == null ? '' : `; indicator mean reached at ${mgL(req.indicator.doseMgPerL)}`,
-    ].join('');
-    const gd = cr.uncertainty?.result.quantities.find((q) => q.key === 'governing_dose');
-    const band = gd && Number.isFinite(gd.p90) ? `; P10–P90 ${fn(gd.p10, 3)}–${fn(gd.p90, 3)} mg/L (Monte Carlo)` : '';
-    figs.push({ label: `${cr.carbon.name}: dose`, value: mgL(req.doseMgPerL), note: `required at DOC ${fn(req.docMgPerL, 3)} mg/L, governed by ${req.governedBy}${others}${band}` });
-    if (cr.costPerM3 !== undefined) figs.push({ label: `${cr.carbon.name}: cost per m³`, value: fmtMoney(cr.costPerM3, cr.carbon.currency), note: 'carbon only, at the required dose' });
-    if (cr.yearly) {
-      const yc = cr.uncertainty?.result.quantities.find((q) => q.key === 'yearly_cost');
-      const ycBand = yc && Number.isFinite(yc.p90) ? `; P10–P90 ${fmtMoney(yc.p10, cr.carbon.currency)}–${fmtMoney(yc.p90, cr.carbon.currency)}` : '';
-      figs.push({ label: `${cr.carbon.name}: carbon per year`, value: `${fmtWhole(cr.yearly.carbonKg / 1000)} t`, note: `${fmtMoney(cr.yearly.cost, cr.carbon.currency)} per year (${cr.yearly.basis})${ycBand}` });
-    }
-  }
-  const cheapest = pac.filter((c) => c.yearly).sort((a, b) => a.yearly!.cost - b.yearly!.cost)[0];
-  if (cheapest && pac.length > 1) figs.push({ label: 'Cheapest carbon', value: cheapest.carbon.name, note: 'over the year, carbon cost only; compare currencies yourself if they differ' });
-  const sp = pac.find((c) => c.surrogates?.atRequiredDose?.uv254Reduction != null);
-  if (sp) figs.push({ label: 'UV254 set-point', value: pct(sp.surrogates!.atRequiredDose!.uv254Reduction! * 100, 3), note: `UV254 reduction to dose to with ${sp.carbon.name} (required dose ${mgL(sp.surrogates!.atRequiredDose!.doseMgPerL)}, governed by ${sp.surrogates!.atRequiredDose!.governedBy})` });
-  const first = pac[0];
-  if (first?.indicator) figs.push({ label: 'Indicator mean', value: pct(first.indicator.set.meanRemovalPercent), note: `${first.carbon.name} at ${mgL(first.indicator.doseMgPerL)}; goal ${first.indicator.goalPercent} %; ${first.indicator.set.admissible ? 'admissible set' : `not admissible: ${first.indicator.set.reason}`}` });
-  for (const cr of r.carbons.filter((c) => c.gac)) {
-    const g = cr.gac!.governing;
-    figs.push({ label: `${cr.carbon.name}: bed life`, value: g.lifeDays !== undefined ? `≤ ${fn(g.lifeDays, 3)} d` : `≤ ${fmtWhole(g.bedVolumes)} BV`, note: `equilibrium upper bound: ${fmtWhole(g.bedVolumes)} bed volumes, governed by ${g.id}; preloading and kinetics shorten real runs` });
-  }
-  if (r.pilot) figs.push({ label: 'Pilot check', value: r.pilot.check.outlierCompounds.length === 0 ? 'all within band' : r.pilot.check.outlierCompounds.length <= 3 ? `${r.pilot.check.outlierCompounds.join(', ')} off` : `${r.pilot.check.outlierCompounds.length} compounds off`, note: r.pilot.check.outlierCompounds.length ? `outside ±${r.pilot.bandPercent} percentage points: ${r.pilot.check.outlierCompounds.join(', ')}` : `±${r.pilot.bandPercent} percentage points` });
-  return figs;
 }
 
 function siteSection(r: PipelineResult): ReportSection {
@@ -73,14 +46,14 @@ function backgroundSection(r: PipelineResult): ReportSection {
   if (bg.background) {
     const b = bg.background;
     sec.paragraphs!.push(bg.source === 'isotherm'
-      ? `The DOC isotherm was reduced to fictive components (adsorption analysis; common exponent 1/n = ${fn(b.one_over_n, 3)}). Fractions scale with DOC on other days (Zietzschmann et al. 2016).`
+      ? `The DOC isotherm was reduced to fictive components (adsorption analysis, Worch 2012; common exponent 1/n = ${fn(b.one_over_n, 3)}). Fractions scale with DOC on other days (Zietzschmann et al. 2016). Competition between the compounds and the background: IAST (Radke & Prausnitz 1972) with Freundlich isotherms in batch form (Crittenden et al. 1985).`
       : 'Fictive components taken from the background file as given.');
     sec.tables!.push({
       caption: `Fictive components at DOC0 = ${fn(b.doc0_mg_per_L, 3)} mg/L (fit RMSE ${fn(b.fit.rmse_mg_per_L, 3)} mg/L over ${b.fit.points} points)`,
       columns: ['component', 'K ((mg/g)/(mg/L)^(1/n))', '1/n', 'share of DOC', 'c0 (mg/L)'],
       rows: b.components.map((c) => [c.id, c.K === 0 ? '0 (non-adsorbable)' : fn(c.K, 4), c.K === 0 ? '—' : fn(c.one_over_n, 3), pct(c.fraction * 100), fn(c.c0_mg_per_L, 3)]),
     });
-    sec.plots!.push({ kind: 'bars', id: 'background-fractions', title: 'Fictive DOC components (mg/L at DOC0)', yLabel: 'DOC (mg/L)', categories: ['DOC0'], stacks: b.components.map((c) => ({ name: `${c.id} (K ${fn(c.K, 3)})`, values: [c.c0_mg_per_L] })) });
+    sec.plots!.push({ kind: 'bars', compact: true, id: 'background-fractions', title: 'Fictive DOC components (mg/L at DOC0)', yLabel: 'DOC (mg/L)', categories: ['DOC0'], stacks: b.components.map((c) => ({ name: `${c.id} (K ${fn(c.K, 3)})`, values: [c.c0_mg_per_L] })) });
     const fr = bg.fractionation;
     if (fr) {
       const residuals = (fr.residuals ?? []) as Array<Record<string, number>>;
@@ -93,7 +66,7 @@ function backgroundSection(r: PipelineResult): ReportSection {
         kind: 'xy', id: 'doc-isotherm', title: 'DOC against carbon dose: measured and fictive-component model', xLabel: 'carbon dose (mg/L)', yLabel: 'equilibrium DOC (mg/L)', xLog: true,
         series: [{ name: 'model (batch IAST)', points: doses.map((d) => [d, predictDoc(b, d)]) }],
       };
-      if (measured.length) plot.series.push({ name: 'measured', points: measured, style: 'points' });
+      if (measured.length) plot.series.push({ name: 'measured', points: measured, style: 'points', key: 'reference' });
       sec.plots!.push(plot);
     }
   } else {
@@ -106,13 +79,14 @@ function calibrationSection(r: PipelineResult): ReportSection | undefined {
   if (r.calibrations.length === 0) return undefined;
   return {
     id: 'calibration', heading: 'Calibration to jar tests',
-    paragraphs: ['Competition calibrated to jar tests of the compound spiked into the site water: EBC (Najm et al. 1991), simplified EBC (Qi et al. 2007, from memory) or a target-K factor beside the fictive DOC components (Schideman et al. 2006, from memory).'],
+    paragraphs: ['Competition calibrated to jar tests of the compound spiked into the site water: EBC (Najm et al. 1991), simplified EBC (Qi et al. 2007) or a target-K factor beside the fictive DOC components (Schideman et al. 2006).'],
     tables: [{
       caption: 'Calibrated parameters',
       columns: ['compound', 'model', 'target K factor', 'K_EBC', '1/n_EBC', 'c0_EBC (mg/L)', 'at DOC (mg/L)'],
       rows: r.calibrations.map((c) => [c.compoundId, c.model, c.targetKFactor !== undefined ? fn(c.targetKFactor, 4) : '—', c.ebc ? fn(c.ebc.K, 4) : '—', c.ebc ? fn(c.ebc.oneOverN, 3) : '—', c.ebc ? fn(c.ebc.c0MgPerL, 4) : '—', c.ebc ? fn(c.ebc.docMgPerL, 3) : '—']),
     }],
     warnings: r.calibrations.flatMap((c) => c.warnings.map((w) => `${c.compoundId}: ${w}`)),
+    plots: r.calibrations.flatMap((c, i) => calibrationPlot(c, i) ?? []),
   };
 }
 
@@ -121,16 +95,16 @@ function carbonSection(r: PipelineResult, cr: CarbonResult, index: number): Repo
   const rows = req.compounds.map((d, i) => {
     const comp = r.project.compounds[i]!;
     const rl = cr.reducedLoadings?.[i];
-    return [comp.id, r.goals[comp.id]!.text, d.status === 'met' ? fn(d.doseMgPerL!, 3) : d.status === 'met without carbon' ? '0 (met without carbon)' : d.status === 'met below the smallest dose' ? '0 (met below the smallest dose)' : 'unreachable', req.governing?.compoundId === comp.id ? 'governing' : '',
-      rl ? pct(rl.removalFraction * 100) : '—', rl ? fc(rl.cMgPerL) : '—', rl ? fn(rl.qSiteMgPerG, 3) : '—', rl ? fn(rl.qSingleMgPerG, 3) : '—', rl ? fn(rl.ratio, 3) : '—'];
+    return [comp.id, r.goals[comp.id]!.text, d.status === 'met' ? fn(d.doseMgPerL!, 3) : d.status === 'met without carbon' ? '0 (met without carbon)' : d.status === 'met below the smallest dose' ? '0 (met below the smallest dose)' : 'unreachable', d.status === 'met' ? fn(d.doseMgPerL! / req.docMgPerL, 3) : '—', req.governing?.compoundId === comp.id ? 'governing' : '',
+      rl ? pct(rl.removalFraction * 100, 3) : '—', rl ? fc(rl.cMgPerL) : '—', rl ? fn(rl.qSiteMgPerG, 3) : '—', rl ? fn(rl.qSingleMgPerG, 3) : '—', rl ? pct(rl.ratio * 100, 2) : '—'];
   });
   const tables: ReportTable[] = [{
     caption: `Dose per compound and reduced loading at the design dose ${mgL(cr.designDoseMgPerL)} (${cr.designDoseSource ?? '—'}), DOC ${fn(req.docMgPerL, 3)} mg/L`,
-    columns: ['compound', 'goal', 'dose for goal (mg/L)', 'role', 'removal at design dose', 'c at design dose', 'q site water (mg/g)', 'q single-solute, same c (mg/g)', 'ratio'],
+    columns: ['compound', 'goal', 'dose for goal (mg/L)', 'mg carbon per mg DOC', 'role', 'removal at design dose', 'c at design dose', 'q site water (mg/g)', 'q single-solute, same c (mg/g)', 'loading ratio (site / single)'],
     rows,
   }];
   const paragraphs = [
-    `Required dose ${mgL(req.doseMgPerL)}, governed by ${req.governedBy}.${req.indicator?.doseMgPerL != null ? ` The indicator mean reaches its goal at ${mgL(req.indicator.doseMgPerL)}.` : ''}`,
+    `Required dose ${doseWithSpecific(req.doseMgPerL, req.docMgPerL)}, governed by ${req.governedBy}.${req.indicator?.doseMgPerL != null ? ` The indicator mean reaches its goal at ${mgL(req.indicator.doseMgPerL)}.` : ''}`,
     'Reduced loading: the loading a compound reaches in the site water (batch IAST beside the background) against its single-solute loading at the same liquid concentration; the ratio is the capacity lost to competition.',
   ];
   if (cr.costPerM3 !== undefined) paragraphs.push(`Carbon cost ${fmtMoney(cr.costPerM3, cr.carbon.currency)} per m³ treated (${fn(req.doseMgPerL!, 3)} g/m³ at ${fmtMoney(cr.carbon.pricePerKg, cr.carbon.currency)}/kg); ${fmtWhole(cr.carbonKgPerDAtDesign!)} kg/d at the design flow.`);
@@ -139,7 +113,7 @@ function carbonSection(r: PipelineResult, cr: CarbonResult, index: number): Repo
     const cv = cr.curves;
     const spec: PlotSpec = {
       kind: 'xy', id: `removal-${index + 1}`, title: `Removal against carbon dose — ${cr.carbon.name}`, xLabel: 'carbon dose (mg/L)', yLabel: 'removal (%)', xLog: true, yRange: [0, 100],
-      series: r.project.compounds.map((c) => ({ name: c.id, points: cv.dosesMgPerL.map((d, k) => [d, cv.removalPercent[c.id]![k]!] as [number, number]) })),
+      series: r.project.compounds.map((c) => ({ name: req.governing?.compoundId === c.id ? `${c.id} (governing)` : c.id, key: c.id, emphasis: req.governing?.compoundId === c.id, points: cv.dosesMgPerL.map((d, k) => [d, cv.removalPercent[c.id]![k]!] as [number, number]) })),
       hLines: [{ y: r.project.goals.removalPercent, label: `${r.project.goals.removalPercent} % goal` }],
     };
     if (req.doseMgPerL !== null) spec.vLines = [{ x: req.doseMgPerL, label: `required ${fn(req.doseMgPerL, 3)} mg/L` }];
@@ -168,12 +142,13 @@ function indicatorSection(r: PipelineResult): ReportSection | undefined {
 }
 
 function comparisonSection(r: PipelineResult): ReportSection {
-  const rows = r.carbons.map((cr) => [cr.carbon.name, cr.carbon.type, fmtMoney(cr.carbon.pricePerKg, cr.carbon.currency), mgL(cr.required?.doseMgPerL), cr.required?.governedBy ?? (cr.gac ? 'GAC: see the GAC estimate' : '—'),
-    cr.costPerM3 !== undefined ? fmtMoney(cr.costPerM3, cr.carbon.currency) : '—', cr.yearly ? fmtWhole(cr.yearly.carbonKg) : '—', cr.yearly ? fmtMoney(cr.yearly.cost, cr.carbon.currency) : '—',
+  const doc = r.project.site.docMgPerL;
+  const rows = r.carbons.map((cr) => [cr.carbon.name, cr.carbon.type, fmtMoney(cr.carbon.pricePerKg, cr.carbon.currency), mgL(cr.required?.doseMgPerL), cr.required?.doseMgPerL != null ? fn(cr.required.doseMgPerL / doc, 3) : '—', cr.required?.governedBy ?? (cr.gac ? 'GAC: see the GAC estimate' : '—'),
+    cr.costPerM3 !== undefined ? fmtMoney(cr.costPerM3, cr.carbon.currency) : '—', cr.yearly ? fn(cr.yearly.carbonKg / 1000, 3) : '—', cr.yearly ? fmtMoney(cr.yearly.cost, cr.carbon.currency) : '—', cr.yearly ? yearlyBasisText(cr) : '—',
     cr.daily?.dose ? fn(cr.daily.dose.median, 3) : '—', cr.daily?.dose ? fn(cr.daily.dose.p90, 3) : '—']);
   return {
     id: 'carbons', heading: 'Carbons side by side',
-    tables: [{ caption: 'Required dose and carbon cost per carbon (carbon only; no energy, handling or sludge costs)', columns: ['carbon', 'type', 'price per kg', 'required dose', 'governed by', 'cost per m³', 'carbon per year (kg)', 'cost per year', 'daily dose median (mg/L)', 'daily dose P90 (mg/L)'], rows }],
+    tables: [{ caption: 'Required dose and carbon cost per carbon (carbon only; no energy, handling or sludge costs)', columns: ['carbon', 'type', 'price per kg', 'required dose', 'mg carbon per mg DOC', 'governed by', 'cost per m³', 'carbon per year (t)', 'cost per year', 'yearly basis', 'daily dose median (mg/L)', 'daily dose P90 (mg/L)'], rows }],
   };
 }
 
@@ -196,19 +171,19 @@ function yearSection(r: PipelineResult): ReportSection | undefined {
   const s = r.series;
   if (!s) return undefined;
   const withDaily = r.carbons.filter((c) => c.daily);
-  const dayIndex = s.dates.map((_, k) => k + 1);
+  const dayIndex = s.dates.map((d) => dayNumber(d));
   const plots: PlotSpec[] = [
-    { kind: 'xy', id: 'daily-dose', title: `Required dose over the DOC series${withDaily.some((c) => c.uncertainty?.governingDoseRatio) ? ' (band: Monte Carlo P10–P90)' : ''}`, xLabel: `day (from ${s.dates[0]})`, yLabel: 'dose (mg/L)', series: withDaily.map((c) => dailySeries(c, s.dates, dayIndex)) },
-    { kind: 'xy', id: 'daily-doc', title: 'Effluent DOC over the series', xLabel: `day (from ${s.dates[0]})`, yLabel: 'DOC (mg/L)', series: [{ name: 'DOC', points: s.docMgPerL.map((v, k) => [k + 1, v] as [number, number]) }] },
+    { kind: 'xy', id: 'daily-dose', title: `Required dose over the DOC series${withDaily.some((c) => c.uncertainty?.governingDoseRatio) ? ' (band: Monte Carlo P10–P90)' : ''}`, xLabel: 'date', xTime: true, yLabel: 'dose (mg/L)', series: withDaily.map((c) => dailySeries(c, s.dates, dayIndex)) },
+    { kind: 'xy', id: 'daily-doc', title: 'Effluent DOC over the series', xLabel: 'date', xTime: true, yLabel: 'DOC (mg/L)', series: [{ name: 'DOC', key: 'reference', points: s.docMgPerL.map((v, k) => [dayIndex[k]!, v] as [number, number]) }] },
   ];
   const rows = withDaily.map((c) => {
     const d = c.daily!;
-    return [c.carbon.name, d.rows.length, fn(d.dose!.median, 3), fn(d.dose!.p90, 3), fn(d.dose!.max, 3), fmtWhole(d.carbonKgPerD!.median), fmtWhole(d.carbonKgPerD!.p90), fmtWhole(d.totalCarbonKg), fmtMoney(d.totalCost, d.currency)];
+    return [c.carbon.name, d.rows.length, `${fn(d.dose!.median, 3)} (${fn(d.dose!.median / s.docMgPerL.slice().sort((x, y) => x - y)[Math.floor(s.docMgPerL.length / 2)]!, 3)})`, fn(d.dose!.p90, 3), fn(d.dose!.max, 3), fmtWhole(d.carbonKgPerD!.median), fmtWhole(d.carbonKgPerD!.p90), fmtWhole(d.totalCarbonKg), fmtMoney(d.totalCost, d.currency), `${fmtWhole(d.yearlyCarbonKg)} kg, ${fmtMoney(d.yearlyCost, d.currency)} (${yearlyBasisText(c)})`];
   });
   return {
     id: 'year', heading: 'Carbon over the year',
     paragraphs: [`${s.dates.length} days from ${s.dates[0]} to ${s.dates[s.dates.length - 1]}; the background is scaled to each day's DOC; the required dose is solved exactly at ${withDaily[0]?.daily!.table.docMgPerL.length ?? 0} DOC values spanning the series and read linearly in DOC between them (checked within ${fn(100 * (withDaily[0]?.daily!.table.toleranceRel ?? 0), 2)} % of the exact dose at every midpoint; the Monte Carlo reads the same table). Carbon kg/d = dose (mg/L) × flow (m³/d) / 1000; totals are sums over the days${isAnnualised(s.dates.length) ? `; yearly figures are ${annualisedNote(s.dates.length)} (× 365/${s.dates.length})` : ''}. Percentiles: Hyndman & Fan (1996) definition 7.${s.flowFromDesign ? ' The series has no flow column: the design flow is used every day.' : ''}${withDaily.some((c) => c.uncertainty?.governingDoseRatio) ? ' The band on the daily dose is the Monte Carlo P10–P90 of the governing dose relative to its point estimate at the design DOC, applied to every day (an approximation).' : ''}`],
-    tables: [{ caption: 'Daily dose and carbon mass', columns: ['carbon', 'days', 'dose median (mg/L)', 'dose P90 (mg/L)', 'dose max (mg/L)', 'carbon median (kg/d)', 'carbon P90 (kg/d)', 'carbon total (kg)', 'carbon cost total'], rows }],
+    tables: [{ caption: 'Daily dose and carbon mass', columns: ['carbon', 'days', 'dose median (mg/L; mg/mg DOC at the median DOC)', 'dose P90 (mg/L)', 'dose max (mg/L)', 'carbon median (kg/d)', 'carbon P90 (kg/d)', 'carbon total over the series (kg)', 'carbon cost over the series', 'per year'], rows }],
     plots,
   };
 }
@@ -229,6 +204,8 @@ export function buildReportModel(r: PipelineResult, version: string): ReportMode
   pacCarbons(r).forEach((cr) => sections.push(carbonSection(r, cr, r.carbons.indexOf(cr))));
   for (const sec of [surrogateSection(r), pilotSection(r), indicatorSection(r)]) if (sec) sections.push(sec);
   sections.push(comparisonSection(r));
+  const decisions = decisionSection(r);
+  if (decisions) sections.push(decisions);
   for (const sec of [gacSection(r), yearSection(r), uncertaintySection(r)]) if (sec) sections.push(sec);
   sections.push(inputsSection(r));
   const model: ReportModel = {
@@ -237,8 +214,11 @@ export function buildReportModel(r: PipelineResult, version: string): ReportMode
     generatedAt: r.generatedAt,
     version,
     cautions: [...CAUTIONS],
-    keyFigures: keyFigures(r),
+    keyFigures: headlineFigures(r),
     sections,
   };
-  return model;
+  const cover = coverLines(r.project.cover);
+  if (cover.length) model.cover = cover;
+  sections.push(referencesSection(model));
+  return applyCompoundLooks(model, r.project.compounds.map((c) => c.id));
 }

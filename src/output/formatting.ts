@@ -12,3 +12,10 @@ export function fmtMoney(x: number, currency: string): string {
 export function fmtWhole(x: number): string {
   return Math.round(x).toLocaleString('en-US');
 }
+
+/** Fixed decimals without a negative zero ("-0.0" becomes "0.0"): for differences and residuals. */
+export function fmtFixed(x: number, decimals: number): string {
+  if (!Number.isFinite(x)) return String(x);
+  const s = x.toFixed(decimals);
+  return /^-0\.?0*$/.test(s) ? s.slice(1) : s;
+}

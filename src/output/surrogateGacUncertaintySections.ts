@@ -6,7 +6,8 @@
 import type { PlotSeries, PlotSpec, ReportSection, ReportTable, XYPlotSpec } from './reportModel.js';
 import { siteCurveRemoval } from '../surrogates/siteCurveFit.js';
 import { GAC_UPPER_BOUND_CAUTION } from '../gac/gacEstimate.js';
-import { fmtConcentration as fc, fmtMoney, fmtNumber as fn, fmtWhole } from './formatting.js';
+import { fmtConcentration as fc, fmtFixed, fmtMoney, fmtNumber as fn, fmtWhole } from './formatting.js';
+import { monteCarloNote } from './monteCarloNote.js';
 import type { CarbonResult, PipelineResult } from '../pipeline/pipelineTypes.js';
 import { CI_TO_SD_NOTE } from '../pipeline/uncertaintyStep.js';
 
@@ -23,8 +24,8 @@ export function loadingPlot(cr: CarbonResult, index: number): XYPlotSpec | undef
     kind: 'xy', id: `loading-${index + 1}`, title: `Loading in the site water against single-solute loading at the same c — ${cr.carbon.name}, ${fn(cr.designDoseMgPerL!, 3)} mg/L`,
     xLabel: 'q single-solute at the same c (mg/g)', yLabel: 'q in the site water (mg/g)', xLog: true, yLog: true,
     series: [
-      { name: 'equal loading (no competition)', points: [[lo, lo], [hi, hi]], style: 'dashed' },
-      ...rl.map((x): PlotSeries => ({ name: x.compoundId, points: [[x.qSingleMgPerG, x.qSiteMgPerG]], style: 'points' })),
+      { name: 'equal loading (no competition)', points: [[lo, lo], [hi, hi]], style: 'dashed', key: 'reference' },
+      ...rl.map((x): PlotSeries => ({ name: x.compoundId, key: x.compoundId, points: [[x.qSingleMgPerG, x.qSiteMgPerG]], style: 'points' })),
     ],
   };
 }
@@ -44,13 +45,14 @@ export function surrogateSection(r: PipelineResult): ReportSection | undefined {
     if (a) paragraphs.push(`${cr.carbon.name}: dose to a UV254 reduction of ${pct(a.uv254Reduction)} (DOC reduction ${pct(a.docReduction)}) — the required dose ${fn(a.doseMgPerL, 3)} mg/L, governed by ${a.governedBy}.`);
     tables.push({
       caption: `${cr.carbon.name}: set-points per compound at DOC ${fn(r.project.site.docMgPerL, 3)} mg/L`,
-      columns: ['compound', 'goal', 'dose (mg/L)', 'UV254 reduction', 'DOC reduction', 'role'],
-      rows: s.setPoints.map((sp) => [sp.compoundId, sp.goalText, sp.status === 'met' ? fn(sp.doseMgPerL!, 3) : sp.status, pct(sp.uv254Reduction), pct(sp.docReduction), s.governing?.compoundId === sp.compoundId ? 'governing' : '']),
+      columns: ['compound', 'goal', 'dose (mg/L)', 'mg carbon per mg DOC', 'UV254 reduction', 'DOC reduction', 'role'],
+      rows: s.setPoints.map((sp) => [sp.compoundId, sp.goalText, sp.status === 'met' ? fn(sp.doseMgPerL!, 3) : sp.status, sp.status === 'met' ? fn(sp.doseMgPerL! / r.project.site.docMgPerL, 3) : '—', pct(sp.uv254Reduction), pct(sp.docReduction), s.governing?.compoundId === sp.compoundId ? 'governing' : '']),
     });
     const pts = s.curve.points;
-    const series: PlotSeries[] = r.project.compounds.map((c) => ({ name: c.id, points: pts.map((p) => [p.doseMgPerL, 100 * p.removal[c.id]!] as [number, number]) }));
-    if (s.hasUv254) series.push({ name: 'UV254 reduction', points: pts.map((p) => [p.doseMgPerL, 100 * p.uv254Reduction!] as [number, number]), style: 'dashed' });
-    series.push({ name: 'DOC reduction', points: pts.map((p) => [p.doseMgPerL, 100 * p.docReduction] as [number, number]), style: 'dashed' });
+    const gov = s.governing?.compoundId;
+    const series: PlotSeries[] = r.project.compounds.map((c) => ({ name: gov === c.id ? `${c.id} (governing)` : c.id, key: c.id, emphasis: gov === c.id, points: pts.map((p) => [p.doseMgPerL, 100 * p.removal[c.id]!] as [number, number]) }));
+    if (s.hasUv254) series.push({ name: 'UV254 reduction', key: 'uv254-reduction', points: pts.map((p) => [p.doseMgPerL, 100 * p.uv254Reduction!] as [number, number]), style: 'dashed' });
+    series.push({ name: 'DOC reduction', key: 'doc-reduction', points: pts.map((p) => [p.doseMgPerL, 100 * p.docReduction] as [number, number]), style: 'dashed' });
     const plot: XYPlotSpec = { kind: 'xy', id: `surrogates-${k + 1}`, title: `Removal, UV254 and DOC reduction against dose — ${cr.carbon.name}`, xLabel: 'carbon dose (mg/L)', yLabel: 'removal or reduction (%)', xLog: true, yRange: [0, 100], series };
     if (a) {
       plot.vLines = [{ x: a.doseMgPerL, label: `required ${fn(a.doseMgPerL, 3)} mg/L` }];
@@ -67,7 +69,7 @@ export function pilotSection(r: PipelineResult): ReportSection | undefined {
   const p = r.pilot;
   if (!p) return undefined;
   const ch = p.check;
-  const rows = ch.compounds.map((c) => [c.compound, c.points, `${fn(c.meanResidual * 100, 3)}`, fn(c.rmse * 100, 3), c.outliers.length ? c.outliers.map((o) => o.sample).join(', ') : '—',
+  const rows = ch.compounds.map((c) => [c.compound, c.points, fmtFixed(c.meanResidual * 100, 1), fmtFixed(c.rmse * 100, 1), c.outliers.length ? c.outliers.map((o) => o.sample).join(', ') : '—',
     `${fn(c.siteCurve.k, 3)}${Number.isFinite(c.siteCurve.standardErrorK) ? ` ± ${fn(c.siteCurve.standardErrorK, 2)}` : ''}`, fn(c.modelCurve.k, 3)]);
   const maxUv = Math.min(1, Math.max(...ch.residuals.map((x) => x.uv254Reduction)) * 1.15);
   const xs = Array.from({ length: 41 }, (_, i) => (maxUv * i) / 40);
@@ -77,10 +79,10 @@ export function pilotSection(r: PipelineResult): ReportSection | undefined {
     kind: 'xy', id: 'pilot-measured-predicted', title: `Measured against predicted removal at the pilot's UV254 reduction — ${p.carbonName}`,
     xLabel: 'predicted removal (%)', yLabel: 'measured removal (%)', xRange: [0, 100], yRange: [0, 100],
     series: [
-      { name: 'measured = predicted', points: [[0, 0], [100, 100]], style: 'dashed' },
-      { name: `−${fn(band, 3)} percentage points`, points: [[band, 0], [100, 100 - band]], style: 'dashed' },
-      { name: `+${fn(band, 3)} percentage points`, points: [[0, band], [100 - band, 100]], style: 'dashed' },
-      ...ch.compounds.map((c): PlotSeries => ({ name: c.compound, points: ch.residuals.filter((x) => x.compound === c.compound).map((x) => [100 * x.predictedRemoval, 100 * x.measuredRemoval] as [number, number]), style: 'points' })),
+      { name: 'measured = predicted', points: [[0, 0], [100, 100]], style: 'dashed', key: 'reference' },
+      { name: `−${fn(band, 3)} percentage points`, points: [[band, 0], [100, 100 - band]], style: 'dashed', key: 'reference', dash: '2 3' },
+      { name: `+${fn(band, 3)} percentage points`, points: [[0, band], [100 - band, 100]], style: 'dashed', key: 'reference', dash: '2 3' },
+      ...ch.compounds.map((c): PlotSeries => ({ name: c.compound, key: c.compound, points: ch.residuals.filter((x) => x.compound === c.compound).map((x) => [100 * x.predictedRemoval, 100 * x.measuredRemoval] as [number, number]), style: 'points' })),
     ],
   };
   // B: against UV254 reduction for the compound that fits worst (an outlier when there is one)
@@ -90,10 +92,10 @@ export function pilotSection(r: PipelineResult): ReportSection | undefined {
     kind: 'xy', id: 'pilot-check', title: `Removal of ${worst.compound} against UV254 reduction: pilot, model and site curves — ${p.carbonName}`,
     xLabel: 'UV254 reduction (%)', yLabel: 'removal (%)', xRange: [0, 100 * maxUv], yRange: [0, 100],
     series: [
-      { name: `${worst.compound} model`, points: rel.uv254Reduction.map((u, i) => [100 * u, 100 * rel.removal[i]!] as [number, number]).filter(([u]) => u <= 100 * maxUv) },
-      { name: `${worst.compound} pilot`, points: ch.residuals.filter((x) => x.compound === worst.compound).map((x) => [100 * x.uv254Reduction, 100 * x.measuredRemoval] as [number, number]), style: 'points' },
-      { name: `site curve ${worst.compound} (k = ${fn(worst.siteCurve.k, 3)})`, points: xs.map((u) => [100 * u, 100 * siteCurveRemoval(worst.siteCurve.k, u)] as [number, number]), style: 'dashed' },
-      { name: `site curve, all compounds (k = ${fn(ch.overall.siteCurve.k, 3)})`, points: xs.map((u) => [100 * u, 100 * siteCurveRemoval(ch.overall.siteCurve.k, u)] as [number, number]), style: 'dashed' },
+      { name: `${worst.compound} model`, key: worst.compound, points: rel.uv254Reduction.map((u, i) => [100 * u, 100 * rel.removal[i]!] as [number, number]).filter(([u]) => u <= 100 * maxUv) },
+      { name: `${worst.compound} pilot`, key: worst.compound, points: ch.residuals.filter((x) => x.compound === worst.compound).map((x) => [100 * x.uv254Reduction, 100 * x.measuredRemoval] as [number, number]), style: 'points' },
+      { name: `site curve ${worst.compound} (k = ${fn(worst.siteCurve.k, 3)})`, points: xs.map((u) => [100 * u, 100 * siteCurveRemoval(worst.siteCurve.k, u)] as [number, number]), style: 'dashed', key: worst.compound },
+      { name: `site curve, all compounds (k = ${fn(ch.overall.siteCurve.k, 3)})`, key: 'reference', points: xs.map((u) => [100 * u, 100 * siteCurveRemoval(ch.overall.siteCurve.k, u)] as [number, number]), style: 'dashed' },
     ],
   };
   return {
@@ -133,6 +135,7 @@ export function uncertaintySection(r: PipelineResult): ReportSection | undefined
   const first = withU[0]!.uncertainty!;
   const paragraphs = [
     `Monte Carlo: ${first.result.draws} draws per carbon, seed ${first.result.seed} (${s.source}); the same draws for every carbon. Sampling: ${first.result.sampling}. Percentiles: ${first.result.percentileMethod}. ${CI_TO_SD_NOTE[0]!.toUpperCase()}${CI_TO_SD_NOTE.slice(1)}. The governing dose here is the largest compound dose (the indicator-mean goal is not sampled).`,
+    ...withU.flatMap((cr) => monteCarloNote(cr)),
   ];
   const tables: ReportTable[] = [{
     caption: 'Uncertain parameters',
@@ -154,7 +157,7 @@ export function uncertaintySection(r: PipelineResult): ReportSection | undefined
       plots.push({
         kind: 'xy', id: `uncertainty-removal-${k + 1}`, title: `Removal of ${gc.compoundId} against dose, P10–P90 band of ${gc.draws} draws — ${cr.carbon.name}`,
         xLabel: 'carbon dose (mg/L)', yLabel: 'removal (%)', xLog: true, yRange: [0, 100],
-        series: [{ name: `${gc.compoundId} (median of draws)`, points: gc.dosesMgPerL.map((d, i) => [d, gc.p50Percent[i]!] as [number, number]), band: { lower: gc.p10Percent, upper: gc.p90Percent, label: 'P10–P90' } }],
+        series: [{ name: `${gc.compoundId} (median of draws)`, key: gc.compoundId, points: gc.dosesMgPerL.map((d, i) => [d, gc.p50Percent[i]!] as [number, number]), band: { lower: gc.p10Percent, upper: gc.p90Percent, label: 'P10–P90' } }],
         hLines: [{ y: 100 * (u.problem.targets.find((t) => t.id === gc.compoundId)?.removalGoal ?? 0.8), label: 'goal' }],
       });
     }

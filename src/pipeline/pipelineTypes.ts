@@ -19,6 +19,8 @@ import type { Design } from '../design/designDose.js';
 import type { SurrogateResult } from './surrogateStep.js';
 import type { PilotStepResult } from './pilotStep.js';
 import type { GacStepResult } from './gacStep.js';
+import type { DoseAgainstDoc } from './doseAgainstDocStep.js';
+import type { Sensitivity } from './sensitivityStep.js';
 import type { CarbonUncertainty, UncertaintySettings } from './uncertaintyTypes.js';
 
 /** A file the project referenced, for run.json. */
@@ -97,6 +99,10 @@ export interface CarbonResult {
   gac?: GacStepResult;
   /** Monte Carlo percentiles (PAC; runPipelineWithUncertainty only). */
   uncertainty?: CarbonUncertainty;
+  /** Required dose against DOC beside the constant-specific-dose rule (PAC with a reachable dose). */
+  doseAgainstDoc?: DoseAgainstDoc;
+  /** Dose and yearly cost for each main input ±20 % (PAC with a reachable dose). */
+  sensitivity?: Sensitivity;
   warnings: string[];
 }
 

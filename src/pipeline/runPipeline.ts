@@ -18,8 +18,8 @@ import { reducedLoading } from '../design/reducedLoading.js';
 import { removalCurves } from '../design/removalCurves.js';
 import { indicatorCheckAt, type IndicatorGoal } from '../design/indicatorGoal.js';
 import { dailyDoses } from '../design/dailyDoses.js';
-import { doseTable, seriesCarbon, seriesSegments } from '../design/doseTable.js';
-import { carbonCost, carbonKgPerD } from '../design/carbonCost.js';
+import { doseTable, yearlyAtOneDose } from '../design/doseTable.js';
+import { carbonKgPerD } from '../design/carbonCost.js';
 import { carbonModel } from './carbonModel.js';
 import { yearlyLabel } from '../design/annualised.js';
 import type { CompoundSystem } from './competitionSystem.js';
@@ -29,6 +29,9 @@ import { fmtConcentration } from '../units/formatQuantity.js';
 import { surrogateModel, surrogateStep } from './surrogateStep.js';
 import { pilotStep, type PilotStepResult } from './pilotStep.js';
 import { gacStep } from './gacStep.js';
+import { sweepCovering } from '../design/sweepCovering.js';
+import { docRange, doseAgainstDocStep } from './doseAgainstDocStep.js';
+import { sensitivityStep } from './sensitivityStep.js';
 import { GAC_UPPER_BOUND_CAUTION } from '../gac/gacEstimate.js';
 import { InputError } from '../core/errors.js';
 
@@ -97,7 +100,7 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
       if (c.status === 'met without carbon' || c.status === 'met below the smallest dose') res.warnings.push(`${c.compoundId}: ${c.message}`);
     }
     if (req.indicator && req.indicator.status !== 'met') res.warnings.push(`indicator goal: ${req.indicator.message}`);
-    const curves = timed('curves', () => removalCurves(carbon.name, model, project.goals.sweep));
+    const curves = timed('curves', () => removalCurves(carbon.name, model, sweepCovering(project.goals.sweep, req.doseMgPerL)));
     res.curves = curves;
     if (bg.background) {
       const background = bg.background;
@@ -127,9 +130,13 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
       const missing = res.daily.rows.length - res.daily.daysWithDose;
       if (missing > 0) res.warnings.push(`${missing} day(s) of the DOC series have no reachable goal and no dose; totals cover the other days`);
     } else if (req.doseMgPerL !== null) {
-      // one day at the design DOC and flow, annualised: the same segment sums as the series
-      const y = seriesCarbon(seriesSegments([doc], [doc], project.site.flowM3PerD), [req.doseMgPerL]);
-      res.yearly = { carbonKg: y.yearlyKg, cost: carbonCost(y.yearlyKg, carbon.pricePerKg), basis: yearlyLabel('design DOC and flow', 1), annualised: true };
+      res.yearly = { ...yearlyAtOneDose(req.doseMgPerL, project.site.flowM3PerD, carbon.pricePerKg), basis: yearlyLabel('design DOC and flow', 1), annualised: true };
+    }
+    if (req.doseMgPerL !== null) {
+      progress({ step: `${carbon.name}: dose against DOC and sensitivity`, done: ci, total: project.carbons.length });
+      res.doseAgainstDoc = timed('dose against DOC', () => doseAgainstDocStep(carbon.name, req, (d) => designDose(model.atDoc(d), problem, req), docRange(doc, input.series?.docMgPerL)));
+      const sens = timed('sensitivity', () => sensitivityStep({ carbon, systems, problem, modelOf: (s, d) => carbonModel(s, d), docMgPerL: doc, flowM3PerD: project.site.flowM3PerD, ...(input.series ? { series: input.series } : {}), required: req, yearly: res.yearly! }));
+      if (sens) res.sensitivity = sens;
     }
     return res;
   });

@@ -123,9 +123,22 @@ export interface UncertaintySpec {
   docLevels: number;
 }
 
+/** Cover block of the report (all optional project-file keys). */
+export interface ProjectCover {
+  client?: string;
+  projectNumber?: string;
+  author?: string;
+  checker?: string;
+  revision?: string;
+  /** Date of the issue, ISO YYYY-MM-DD. */
+  date?: string;
+}
+
 export interface ProjectSpec {
   name: string;
   note?: string;
+  /** Client, project number, author, checker, revision and date for the report's cover. */
+  cover?: ProjectCover;
   site: SiteSpec;
   background: BackgroundSpec;
   carbons: CarbonSpec[];

@@ -10,7 +10,7 @@ import { InputError } from '../core/errors.js';
 import { readComponent } from '../scenario/readMixture.js';
 import { parseQuantity } from '../units/parseQuantity.js';
 import { at, describeValue, expectArray, expectObject, expectString, onlyKeys, required } from './jsonChecks.js';
-import type { CalibrationModelName, CompoundSpec, ProjectSpec, SiteSpec } from './projectTypes.js';
+import type { CalibrationModelName, CompoundSpec, ProjectCover, ProjectSpec, SiteSpec } from './projectTypes.js';
 import { positive, readAbsorbance, readLimit } from './quantities.js';
 import { readBackground } from './readBackgroundSpec.js';
 import { readCarbons } from './readCarbons.js';
@@ -23,7 +23,7 @@ const CALIBRATION_MODELS: readonly CalibrationModelName[] = ['ebc', 'sebc', 'fic
 /** Validate a parsed project file. */
 export function validateProject(raw: unknown): ProjectSpec {
   const root = expectObject(raw, '$', 'a project');
-  onlyKeys(root, ['$schema', 'name', 'note', 'site', 'background', 'carbons', 'compounds', 'goals', 'pilot', 'uncertainty'], '');
+  onlyKeys(root, ['$schema', 'name', 'note', ...COVER_KEYS.map((k) => k[0]), 'site', 'background', 'carbons', 'compounds', 'goals', 'pilot', 'uncertainty'], '');
   const name = expectString(required(root, 'name', '', 'the project name as text'), 'name', 'the project name as text');
   const site = readSite(required(root, 'site', '', 'the site object { name, flow, doc }'));
   const compounds = readCompounds(required(root, 'compounds', '', 'an array of compounds'));
@@ -32,9 +32,27 @@ export function validateProject(raw: unknown): ProjectSpec {
   const goals = readGoals(root.goals, compounds);
   const out: ProjectSpec = { name, site, background, carbons, compounds, goals };
   if (root.note !== undefined) out.note = expectString(root.note, 'note', 'a note as text');
+  const cover = readCover(root);
+  if (cover) out.cover = cover;
   if (root.pilot !== undefined) out.pilot = readPilot(root.pilot, carbons);
   if (root.uncertainty !== undefined) out.uncertainty = readUncertainty(root.uncertainty);
   return out;
+}
+
+/** Optional cover keys of the project file and their ProjectCover fields. */
+const COVER_KEYS = [['client', 'client'], ['project_number', 'projectNumber'], ['author', 'author'], ['checker', 'checker'], ['revision', 'revision'], ['date', 'date']] as const;
+
+function readCover(root: Record<string, unknown>): ProjectCover | undefined {
+  const cover: ProjectCover = {};
+  for (const [key, field] of COVER_KEYS) {
+    if (root[key] === undefined) continue;
+    const v = expectString(root[key], key, key === 'date' ? 'the issue date as YYYY-MM-DD' : `the ${key.replace('_', ' ')} as text`);
+    if (key === 'date' && (!/^\d{4}-\d{2}-\d{2}$/.test(v) || Number.isNaN(Date.parse(`${v}T00:00:00Z`)) || new Date(`${v}T00:00:00Z`).toISOString().slice(0, 10) !== v)) {
+      throw new InputError(`expected the issue date as YYYY-MM-DD, got "${v}"`, { path: 'date' });
+    }
+    cover[field] = v;
+  }
+  return Object.keys(cover).length ? cover : undefined;
 }
 
 function readSite(raw: unknown): SiteSpec {

@@ -59,7 +59,7 @@ function renderFigure(p: PlotSpec, n: Counters): string {
   n.figure++;
   const id = n.ids.id(p.id, 'fig-');
   return (
-    `<figure id="${id}">${renderPlot(p, { uid: id })}` +
+    `<figure id="${id}"${p.kind === 'bars' && p.compact ? ' class="compact"' : ''}>${renderPlot(p, { uid: id })}` +
     `<figcaption><span class="num">Figure ${n.figure}.</span> ${escapeHtml(p.title)}</figcaption></figure>`
   );
 }
@@ -67,9 +67,11 @@ function renderFigure(p: PlotSpec, n: Counters): string {
 function renderSection(s: ReportSection, index: number, anchor: string, n: Counters): string {
   const parts: string[] = [`<h2><span class="num">${index + 1}</span>${escapeHtml(s.heading)}</h2>`];
   for (const w of s.warnings ?? []) parts.push(`<div class="warning" role="note"><strong>Warning</strong>${escapeHtml(w)}</div>`);
-  for (const para of s.paragraphs ?? []) parts.push(`<p>${escapeHtml(para)}</p>`);
+  if (s.referenceList) parts.push(`<ol class="references">${(s.paragraphs ?? []).map((para) => `<li>${escapeHtml(para)}</li>`).join('')}</ol>`);
+  else for (const para of s.paragraphs ?? []) parts.push(`<p>${escapeHtml(para)}</p>`);
   for (const t of s.tables ?? []) parts.push(renderTable(t, n));
   for (const p of s.plots ?? []) parts.push(renderFigure(p, n));
+  for (const note of s.notes ?? []) parts.push(`<p class="method-note">${escapeHtml(note)}</p>`);
   return `<section class="report-section" id="${anchor}">\n${parts.join('\n')}\n</section>`;
 }
 
@@ -92,6 +94,7 @@ export function renderHtmlReport(model: ReportModel): string {
     `<h1>${title}</h1>`,
     model.subtitle ? `<p class="subtitle">${escapeHtml(model.subtitle)}</p>` : '',
     `<p class="meta"><span>sorbshare ${escapeHtml(model.version)}</span><span>Generated <time datetime="${escapeHtml(model.generatedAt)}">${escapeHtml(date)}</time></span></p>`,
+    model.cover?.length ? `<dl class="cover">${model.cover.map((c) => `<div><dt>${escapeHtml(c.label)}</dt><dd>${escapeHtml(c.value)}</dd></div>`).join('')}</dl>` : '',
     `</header>`,
   ].join('\n');
   const cautions = `<aside class="cautions" role="note" aria-labelledby="cautions-h"><h2 id="cautions-h">Before you use these numbers</h2><ul>${cautionsOf(model.cautions)

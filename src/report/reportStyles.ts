@@ -62,6 +62,14 @@ table.very-wide th, table.very-wide td { padding: 3px 4px; }
 td.empty { color: var(--muted); font-style: italic; }
 figure { margin: 18px 0; padding: 12px 12px 6px; border: 1px solid var(--line); border-radius: 4px; }
 figure svg.plot { display: block; width: 100%; height: auto; max-width: 720px; margin: 0 auto; }
+.cover { display: grid; grid-template-columns: repeat(auto-fit, minmax(200px, 1fr)); gap: 4px 18px; margin: 12px 0 0; font-size: 0.92em; }
+.cover div { display: flex; gap: 8px; border-bottom: 1px solid var(--line); padding: 3px 0; }
+.cover dt { font-weight: 600; min-width: 8.5em; }
+.cover dd { margin: 0; }
+ol.references li { margin: 0 0 6px; }
+.method-note { font-size: 0.88em; color: #5b6870; }
+figure.compact { display: inline-block; vertical-align: top; width: calc(33.3% - 10px); min-width: 220px; margin: 10px 10px 10px 0; box-sizing: border-box; }
+figure.compact svg.plot { max-width: 300px; }
 figcaption { font-size: 13.5px; margin: 8px 4px 4px; }
 footer { padding: 16px 40px 24px; border-top: 1px solid var(--line); font-size: 12.5px; color: var(--muted); }
 footer p { margin: 3px 0; }
@@ -80,6 +88,8 @@ footer p { margin: 3px 0; }
   main, footer { padding-left: 0; padding-right: 0; }
   nav.toc a { color: inherit; }
   figure, .card, .cautions, .warning, tr, caption { break-inside: avoid; page-break-inside: avoid; }
+  .report-section { break-before: page; page-break-before: always; }
+  figure.compact { width: 31%; min-width: 0; }
   h2, caption { break-after: avoid; page-break-after: avoid; }
   thead { display: table-header-group; }
   .table-wrap { overflow: visible; }

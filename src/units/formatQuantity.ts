@@ -8,7 +8,7 @@ export function fmtNumber(x: number, sig = 4): string {
   if (!Number.isFinite(x)) return String(x);
   if (x === 0) return '0';
   const ax = Math.abs(x);
-  if (ax >= 1e-3 && ax < 1e7) {
+  if (ax >= 1e-6 && ax < 1e7) {
     const digits = Math.max(0, sig - 1 - Math.floor(Math.log10(ax)));
     return x.toFixed(Math.min(digits, 12));
   }

@@ -25,6 +25,7 @@ if (!HAVE && !IN_CI) console.warn(`[report browser test] SKIPPED: ${CHROMIUM} no
 /** Indices of the series/stacks that have at least one drawable value (independent of the renderer). */
 function nonEmptySeries(p: PlotSpec): number[] {
   if (p.kind === 'bars') return p.stacks.flatMap((s, k) => (s.values.some((v) => Number.isFinite(v) && v > 0) ? [k] : []));
+  if (p.kind === 'tornado') return p.rows.length ? [0] : [];
   const ok = (v: number, log?: boolean) => Number.isFinite(v) && (!log || v > 0);
   return p.series.flatMap((s, k) => (s.points.some(([x, y]) => ok(x, p.xLog) && ok(y, p.yLog)) ? [k] : []));
 }

@@ -7,7 +7,7 @@ import { describe, expect, it } from 'vitest';
 import type { BarPlotSpec, ReportModel, XYPlotSpec } from '../../src/output/reportModel.js';
 import { reportPlotIds } from '../../src/report/reportPlotIds.js';
 import { renderBarPlot } from '../../src/report/svg/barPlot.js';
-import { SERIES_COLOURS } from '../../src/report/svg/palette.js';
+import { SERIES_COLOURS } from '../../src/output/palette.js';
 import { renderXYPlot } from '../../src/report/svg/xyPlot.js';
 import { validRuns } from '../../src/report/svg/validRuns.js';
 

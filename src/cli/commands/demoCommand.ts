@@ -16,6 +16,7 @@ export const demoCommand: CommandSpec = {
   options: [
     { flags: '--out <dir>', description: 'output folder (written whole or not at all)', parse: nonEmptyText, default: 'sorbshare-demo' },
     { flags: '--json', description: 'print a JSON summary instead of text' },
+    { flags: '--pdf', description: 'also write report.pdf (A4), printed by the installed Chromium' },
     ...MONTE_CARLO_OPTIONS,
   ],
   examples: ['sorbshare demo', 'sorbshare demo --draws 0', 'sorbshare demo --out demo-output --json'],
@@ -24,6 +25,6 @@ export const demoCommand: CommandSpec = {
     const { loadProject } = await import('../../io/loadProject.js');
     const { runAndWrite } = await import('./projectRun.js');
     const input = loadProject(demoProjectPath(), { demo: true });
-    await runAndWrite(input, opts.out as string, Boolean(opts.json), ctx, mc);
+    await runAndWrite(input, String(opts.out), Boolean(opts.json), ctx, mc, { pdf: Boolean(opts.pdf) });
   },
 };

@@ -9,6 +9,8 @@ import { createProgressBar, type ProgressBar } from '../progressBar.js';
 import { pipelineOutputs } from '../../outputFiles/pipelineOutputs.js';
 import type { PipelineInput, PipelineResult, ProgressEvent } from '../../pipeline/pipelineTypes.js';
 import { writeOutputDir } from '../../io/writeOutputs.js';
+import { reportPdf } from '../../io/reportPdf.js';
+import { resultsWorkbook } from '../../report/resultsWorkbook.js';
 import { VERSION } from '../../version.js';
 import { fmt, table } from '../format.js';
 
@@ -95,14 +97,22 @@ export function monteCarloProgress(ctx: CommandContext, thresholdMs = 1000, now:
   };
 }
 
+/** The CSV tables among the output texts, in output order (the sheets of results.xlsx). */
+export function csvTables(texts: Record<string, string>): Record<string, string> {
+  return Object.fromEntries(Object.entries(texts).filter(([name]) => name.endsWith('.csv')));
+}
+
 /** Run, write and print. */
-export async function runAndWrite(input: PipelineInput, outDir: string, json: boolean, ctx: CommandContext, mc: { draws?: number; seed?: number } = {}): Promise<void> {
+export async function runAndWrite(input: PipelineInput, outDir: string, json: boolean, ctx: CommandContext, mc: { draws?: number; seed?: number } = {}, formats: { pdf?: boolean } = {}): Promise<void> {
   const progress = progressPrinter(ctx);
   const bar = monteCarloProgress(ctx);
   const result = await runPipelineWithUncertainty(input, { ...mc, onProgress: progress.onProgress, onMonteCarloProgress: (d, t) => bar.update(d, t) });
   bar.finish();
   progress.done();
-  const files = pipelineOutputs(result, { toolVersion: VERSION, nodeVersion: process.version, platform: `${process.platform}-${process.arch}` });
+  const texts = pipelineOutputs(result, { toolVersion: VERSION, nodeVersion: process.version, platform: `${process.platform}-${process.arch}` });
+  // every output is made before anything is written (whole or nothing)
+  const files: Record<string, string | Uint8Array> = { ...texts, 'results.xlsx': await resultsWorkbook(csvTables(texts), { created: new Date(result.generatedAt) }) };
+  if (formats.pdf) files['report.pdf'] = await reportPdf(texts['report.html']);
   writeOutputDir(outDir, files);
   const names = Object.keys(files);
   const s = summaryJson(result, outDir, names);

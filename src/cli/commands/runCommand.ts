@@ -10,14 +10,15 @@ export const runCommand: CommandSpec = {
   options: [
     { flags: '--out <dir>', description: 'output folder (written whole or not at all)', parse: nonEmptyText, default: 'sorbshare-output' },
     { flags: '--json', description: 'print a JSON summary instead of text' },
+    { flags: '--pdf', description: 'also write report.pdf (A4), printed by the installed Chromium' },
     ...MONTE_CARLO_OPTIONS,
   ],
-  examples: ['sorbshare run project.json --out results', 'sorbshare run project.json --draws 2000 --seed 7', 'sorbshare run project.json --out results --json'],
+  examples: ['sorbshare run project.json --out results', 'sorbshare run project.json --draws 2000 --seed 7', 'sorbshare run project.json --out results --json', 'sorbshare run project.json --out results --pdf'],
   async action(args, opts, ctx) {
     const mc = monteCarloOverrides(opts);
     const { loadProject } = await import('../../io/loadProject.js');
     const { runAndWrite } = await import('./projectRun.js');
     const input = loadProject(args[0]!);
-    await runAndWrite(input, opts.out as string, Boolean(opts.json), ctx, mc);
+    await runAndWrite(input, String(opts.out), Boolean(opts.json), ctx, mc, { pdf: Boolean(opts.pdf) });
   },
 };

@@ -6,9 +6,9 @@
 import type { BarPlotSpec } from '../../output/reportModel.js';
 import { escapeHtml } from '../escapeHtml.js';
 import { makeScale } from './axisScale.js';
-import { INK, seriesColour, textOn } from './palette.js';
+import { INK, seriesColour, textOn } from '../../output/palette.js';
 import { planAxis } from './planAxis.js';
-import { FONT, PLOT_AREA_HEIGHT, PLOT_WIDTH, TICK } from './plotStyle.js';
+import { COMPACT_WIDTH, FONT, PLOT_AREA_HEIGHT, PLOT_WIDTH, TICK } from './plotStyle.js';
 import { type Frame, maxTickLabelWidth, renderYAxis } from './svgAxes.js';
 import { type LegendItem, fitText, layoutLegend, renderLegend } from './svgLegend.js';
 import { plural, renderNotes, svgOpen } from './svgRoot.js';
@@ -41,36 +41,38 @@ export function renderBarPlot(spec: BarPlotSpec): string {
   }
   const maxTotal = Math.max(0, ...totals);
   const yPlan = planAxis(maxTotal > 0 ? [0, maxTotal] : [], { targetTicks: 6 });
+  const width = spec.compact ? COMPACT_WIDTH : PLOT_WIDTH;
+  const areaHeight = spec.compact ? Math.round(PLOT_AREA_HEIGHT * 0.75) : PLOT_AREA_HEIGHT;
 
   const titleX = 6 + FONT.axis;
   const left = Math.round(titleX + 10 + maxTickLabelWidth(yPlan.ticks) + TICK.length + TICK.gap);
-  const frameWidth = PLOT_WIDTH - left - 16;
+  const frameWidth = width - left - 16;
   const band = nCat > 0 ? frameWidth / nCat : frameWidth;
   const barW = Math.min(72, band * 0.62);
   const catLabels = spec.categories.map((c) => fitText(c, 150, FONT.tick));
   const widest = Math.max(0, ...catLabels.map((c) => textWidth(c, FONT.tick)));
   const rotate = widest > band - 6;
   const catBand = rotate ? widest * 0.6 + 20 : FONT.tick + 14;
-  const frame: Frame = { left, top: 14, width: frameWidth, height: PLOT_AREA_HEIGHT };
+  const frame: Frame = { left, top: 14, width: frameWidth, height: areaHeight };
   const bottom = frame.top + frame.height;
   const ys = makeScale(yPlan.domain, [bottom, frame.top], false);
 
   const legendItems: LegendItem[] = spec.stacks.map((s, k) => ({
     name: s.values.some((_, c) => value(k, c) !== null && value(k, c)! > 0) ? s.name : `${s.name} (no data)`,
-    colour: seriesColour(k),
+    colour: s.colour ?? seriesColour(k),
     kind: 'swatch',
   }));
   const legendTop = bottom + catBand + 4;
-  const legend = layoutLegend(legendItems, frame.left, legendTop, PLOT_WIDTH - frame.left - 8);
+  const legend = layoutLegend(legendItems, spec.compact ? 8 : frame.left, legendTop, width - (spec.compact ? 8 : frame.left) - 8);
   const notes = skipped ? [`${plural(skipped, 'value')} that cannot be stacked (negative or not a finite number) omitted.`] : [];
-  const noteBlock = renderNotes(notes, frame.left, legendTop + legend.height + 2, PLOT_WIDTH - frame.left - 8);
+  const noteBlock = renderNotes(notes, frame.left, legendTop + legend.height + 2, width - frame.left - 8);
   const height = legendTop + legend.height + noteBlock.height + 8;
 
   const segs: string[] = [];
   const segLabels: string[] = [];
   const base = new Array<number>(nCat).fill(0);
   for (let k = 0; k < spec.stacks.length; k++) {
-    const colour = seriesColour(k);
+    const colour = spec.stacks[k]!.colour ?? seriesColour(k);
     const rects: string[] = [];
     for (let c = 0; c < nCat; c++) {
       const v = value(k, c);
@@ -102,7 +104,7 @@ export function renderBarPlot(spec: BarPlotSpec): string {
   const desc = `Stacked bars; categories: ${spec.categories.join(', ') || 'none'}; stacks: ${spec.stacks.map((s) => s.name).join(', ') || 'none'}; y: ${spec.yLabel}.`;
 
   return [
-    svgOpen(spec.id, spec.title, desc, height),
+    svgOpen(spec.id, spec.title, desc, height, width),
     `<rect class="plot-area" x="${r2(frame.left)}" y="${r2(frame.top)}" width="${r2(frame.width)}" height="${r2(frame.height)}" fill="#ffffff"/>`,
     yAxis.grid,
     segs.join(''),

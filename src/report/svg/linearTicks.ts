@@ -62,10 +62,14 @@ export function linearTicks(min: number, max: number, targetCount = 6, fixed = f
   return { domain, step, ticks };
 }
 
-/** Tick label with `decimals` decimals; exponent notation for very large or tiny magnitudes. */
+/**
+ * Tick label with `decimals` decimals; thousands grouped with commas from 10,000 (money and
+ * masses on client figures); exponent notation for very large or tiny magnitudes.
+ */
 export function formatLinearLabel(value: number, decimals: number): string {
   if (value === 0) return '0';
   const a = Math.abs(value);
-  if (a >= 1e6 || decimals > 6) return value.toExponential(2).replace(/\.?0+e/, 'e');
+  if (a >= 1e12 || decimals > 6) return value.toExponential(2).replace(/\.?0+e/, 'e');
+  if (a >= 1e4) return value.toLocaleString('en-US', { minimumFractionDigits: decimals, maximumFractionDigits: decimals }).replace('-', '−');
   return value.toFixed(decimals).replace('-', '−');
 }

@@ -2,6 +2,8 @@
 
 export const PLOT_WIDTH = 720;
 export const PLOT_AREA_HEIGHT = 300;
+/** Width of a compact figure (one or two bars; three of them fit side by side on A4). */
+export const COMPACT_WIDTH = 300;
 
 export const FONT_FAMILY = "system-ui, 'Segoe UI', 'Helvetica Neue', 'DejaVu Sans', Arial, sans-serif";
 

@@ -5,7 +5,7 @@
 import { escapeHtml } from '../escapeHtml.js';
 import type { AxisScale } from './axisScale.js';
 import type { Tick } from './linearTicks.js';
-import { INK } from './palette.js';
+import { INK } from '../../output/palette.js';
 import { FONT, TICK } from './plotStyle.js';
 import { r2 } from './svgNumber.js';
 import { textWidth } from './textWidth.js';

@@ -4,7 +4,7 @@
  */
 import { escapeHtml } from '../escapeHtml.js';
 import { markerPath } from './markers.js';
-import type { MarkerShape } from './palette.js';
+import type { MarkerShape } from '../../output/palette.js';
 import { FONT } from './plotStyle.js';
 import { r2 } from './svgNumber.js';
 import { textWidth } from './textWidth.js';
@@ -16,6 +16,10 @@ export interface LegendItem {
   marker?: MarkerShape;
   /** Dash pattern of the line swatch (overrides the default of 'dashed'). */
   dash?: string;
+  /** A line that also carries markers: the swatch shows the marker on the line. */
+  lineMarker?: boolean;
+  /** A heavier line (the governing compound). */
+  emphasis?: boolean;
 }
 
 interface PlacedItem {
@@ -77,10 +81,11 @@ export function renderLegend(layout: LegendLayout): string {
         swatch = `<path d="${markerPath(item.marker ?? 'circle', x + SWATCH / 2, cy, 8)}" fill="${c}" stroke="#fff" stroke-width="0.8"/>`;
         break;
       default:
-        swatch = `<path d="M${r2(x)} ${r2(cy)}h${SWATCH}" stroke="${c}" stroke-width="2.4"${item.dash ? ` stroke-dasharray="${item.dash}"` : item.kind === 'dashed' ? ' stroke-dasharray="7 4"' : ''} fill="none"/>`;
+        swatch = `<path d="M${r2(x)} ${r2(cy)}h${SWATCH}" stroke="${c}" stroke-width="${item.emphasis ? 3.8 : 2.4}"${item.dash ? ` stroke-dasharray="${item.dash}"` : item.kind === 'dashed' && item.dash === undefined ? ' stroke-dasharray="7 4"' : ''} fill="none"/>`;
+        if (item.lineMarker && item.marker) swatch += `<path d="${markerPath(item.marker, x + SWATCH / 2, cy, 7.5)}" fill="${c}" stroke="#fff" stroke-width="0.8"/>`;
     }
     const title = text === item.name ? '' : `<title>${escapeHtml(item.name)}</title>`;
-    return `<g class="legend-item">${title}${swatch}<text x="${r2(x + SWATCH + 6)}" y="${r2(cy)}" dy="0.35em">${escapeHtml(text)}</text></g>`;
+    return `<g class="legend-item"${item.emphasis ? ' font-weight="bold"' : ''}>${title}${swatch}<text x="${r2(x + SWATCH + 6)}" y="${r2(cy)}" dy="0.35em">${escapeHtml(text)}</text></g>`;
   });
   return `<g class="legend" font-size="${FONT.legend}">${parts.join('')}</g>`;
 }

@@ -7,7 +7,7 @@ import { escapeHtml } from '../escapeHtml.js';
 import type { AxisScale } from './axisScale.js';
 import type { Frame } from './svgAxes.js';
 import { type Box, LabelPlacer } from './labelPlacer.js';
-import { INK } from './palette.js';
+import { INK } from '../../output/palette.js';
 import { FONT } from './plotStyle.js';
 import { inDomain } from './planAxis.js';
 import { r2 } from './svgNumber.js';

@@ -4,17 +4,17 @@
  * attributes, no external references).
  */
 import { escapeHtml } from '../escapeHtml.js';
-import { INK } from './palette.js';
+import { INK } from '../../output/palette.js';
 import { FONT, FONT_FAMILY, PLOT_WIDTH } from './plotStyle.js';
 import { r2 } from './svgNumber.js';
 import { fitText } from './svgLegend.js';
 
 /** Opening tag with title and description, for a plot `height` units tall. */
-export function svgOpen(plotId: string, title: string, desc: string, height: number): string {
+export function svgOpen(plotId: string, title: string, desc: string, height: number, width: number = PLOT_WIDTH): string {
   const t = escapeHtml(title);
   return (
     `<svg xmlns="http://www.w3.org/2000/svg" class="plot" role="img" aria-label="${t}" data-plot-id="${escapeHtml(plotId)}" ` +
-    `viewBox="0 0 ${PLOT_WIDTH} ${r2(height)}" width="${PLOT_WIDTH}" height="${r2(height)}" ` +
+    `viewBox="0 0 ${width} ${r2(height)}" width="${width}" height="${r2(height)}"${width !== PLOT_WIDTH ? ` style="max-width:${width}px"` : ''} ` +
     `font-family="${escapeHtml(FONT_FAMILY)}" font-size="${FONT.tick}" fill="${INK.text}">` +
     `<title>${t}</title><desc>${escapeHtml(desc)}</desc>`
   );

@@ -4,11 +4,12 @@
  * Values that cannot be drawn (NaN, infinite, ≤ 0 on a log axis) are skipped and counted in a
  * note under the plot. Output is deterministic for a given spec and `uid`.
  */
-import type { XYPlotSpec } from '../../output/reportModel.js';
+import type { PlotSeries, XYPlotSpec } from '../../output/reportModel.js';
 import { slug } from '../slug.js';
 import { makeScale } from './axisScale.js';
 import { LabelPlacer } from './labelPlacer.js';
-import { cycleDash, seriesColour, seriesMarker, INK } from './palette.js';
+import { seriesColour, seriesMarker, INK, type MarkerShape } from '../../output/palette.js';
+import { planTimeAxis } from './timeTicks.js';
 import { planAxis } from './planAxis.js';
 import { FONT, PLOT_AREA_HEIGHT, PLOT_WIDTH, TICK } from './plotStyle.js';
 import { type Frame, maxTickLabelWidth, renderXAxis, renderYAxis, X_AXIS_BAND } from './svgAxes.js';
@@ -50,7 +51,7 @@ export function renderXYPlot(spec: XYPlotSpec, opts: PlotRenderOptions = {}): st
     for (const v of spec.vLines ?? []) if (ok(v.x, xLog)) xv.push(v.x);
     for (const h of spec.hLines ?? []) if (ok(h.y, yLog)) yv.push(h.y);
   }
-  const xPlan = planAxis(xv, { log: xLog, fixed: spec.xRange, targetTicks: 7 });
+  const xPlan = spec.xTime ? planTimeAxis(xv, spec.xRange) : planAxis(xv, { log: xLog, fixed: spec.xRange, targetTicks: 7 });
   const yPlan = planAxis(yv, { log: yLog, fixed: spec.yRange, targetTicks: 6 });
 
   // Layout.
@@ -66,9 +67,9 @@ export function renderXYPlot(spec: XYPlotSpec, opts: PlotRenderOptions = {}): st
   series.forEach(({ s, runs }, i) => {
     const kind = s.style === 'points' ? 'points' : s.style === 'dashed' ? 'dashed' : 'line';
     const empty = runs.runs.length === 0;
-    const dash = kind === 'points' ? '' : cycleDash(i);
-    legendItems.push({ name: empty ? `${s.name} (no data)` : s.name, colour: seriesColour(i), kind, marker: seriesMarker(i), ...(dash ? { dash } : {}) });
-    if (s.band?.label) legendItems.push({ name: s.band.label, colour: seriesColour(i), kind: 'band' });
+    const dash = kind === 'points' ? '' : (dashOf(s, i) ?? '');
+    legendItems.push({ name: empty ? `${s.name} (no data)` : s.name, colour: colourOf(s, i), kind, marker: markerOf(s, i), ...(dash ? { dash } : {}), ...(s.marker && kind !== 'points' ? { lineMarker: true } : {}), ...(s.emphasis ? { emphasis: true } : {}) });
+    if (s.band?.label) legendItems.push({ name: s.band.label, colour: colourOf(s, i), kind: 'band' });
   });
   const legendTop = frame.top + frame.height + X_AXIS_BAND + 4;
   const legend = layoutLegend(legendItems, frame.left, legendTop, PLOT_WIDTH - frame.left - 8);
@@ -101,9 +102,17 @@ export function renderXYPlot(spec: XYPlotSpec, opts: PlotRenderOptions = {}): st
   const pad = 5;
   const xAxis = renderXAxis(frame, { scale: xs, ticks: xPlan.ticks, label: spec.xLabel });
   const yAxis = renderYAxis(frame, { scale: ys, ticks: yPlan.ticks, label: spec.yLabel, titleX });
-  const bands = series.map(({ band }, i) => (band ? renderBand(band.runs, seriesColour(i), i, xs, ys) : '')).join('');
-  const order = series.map((e, i) => ({ e, i })).sort((a, b) => Number(a.e.s.style === 'points') - Number(b.e.s.style === 'points'));
-  const drawn = order.map(({ e, i }) => renderSeries(e.runs.runs, e.s.style ?? 'line', seriesColour(i), seriesMarker(i), i, xs, ys)).join('');
+  const bands = series.map(({ s, band }, i) => (band ? renderBand(band.runs, colourOf(s, i), i, xs, ys) : '')).join('');
+  // points above lines, and the emphasised series above the others
+  const order = series.map((e, i) => ({ e, i })).sort((a, b) => Number(a.e.s.style === 'points') - Number(b.e.s.style === 'points') || Number(a.e.s.emphasis === true) - Number(b.e.s.emphasis === true));
+  const drawn = order
+    .map(({ e, i }) => {
+      const d = dashOf(e.s, i);
+      return renderSeries(e.runs.runs, e.s.style ?? 'line', colourOf(e.s, i), markerOf(e.s, i), i, xs, ys, {
+        ...(d !== undefined ? { dash: d } : {}), ...(e.s.emphasis ? { emphasis: true } : {}), ...(e.s.marker ? { markLine: true } : {}), ...(e.s.key !== undefined ? { key: e.s.key } : {}),
+      });
+    })
+    .join('');
   const emptyMsg = hasData
     ? ''
     : `<text x="${r2(frame.left + frame.width / 2)}" y="${r2(frame.top + frame.height / 2)}" text-anchor="middle" fill="${INK.muted}" font-size="${FONT.axis}">No data to plot</text>`;
@@ -123,6 +132,23 @@ export function renderXYPlot(spec: XYPlotSpec, opts: PlotRenderOptions = {}): st
     noteBlock.svg,
     '</svg>',
   ].join('');
+}
+
+/** A series' colour: its own, or the palette's by position. */
+function colourOf(s: PlotSeries, i: number): string {
+  return s.colour ?? seriesColour(i);
+}
+
+/** A series' marker: its own, or the shapes' by position. */
+function markerOf(s: PlotSeries, i: number): MarkerShape {
+  return s.marker ?? seriesMarker(i);
+}
+
+/** A series' dash pattern: its own; none for a series with its own colour (it needs no cycle dash); else by position. */
+function dashOf(s: PlotSeries, i: number): string | undefined {
+  if (s.dash !== undefined) return s.dash;
+  if (s.colour !== undefined) return s.style === 'dashed' ? '7 4' : '';
+  return undefined;
 }
 
 /** Notes on skipped values, e.g. "3 points at or below zero omitted (log axis)". */

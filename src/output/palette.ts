@@ -17,8 +17,8 @@ export const SERIES_COLOURS: readonly string[] = [
 ];
 
 /** Marker shapes, cycled with the colours. */
-export type MarkerShape = 'circle' | 'square' | 'triangle' | 'diamond';
-export const MARKER_SHAPES: readonly MarkerShape[] = ['circle', 'square', 'triangle', 'diamond'];
+export type MarkerShape = 'circle' | 'square' | 'triangle' | 'diamond' | 'triangle-down' | 'pentagon' | 'hexagon' | 'star';
+export const MARKER_SHAPES: readonly MarkerShape[] = ['circle', 'square', 'triangle', 'diamond', 'triangle-down', 'pentagon', 'hexagon', 'star'];
 
 /** Colour of series `index` (cycles past the end of the palette). */
 export function seriesColour(index: number): string {
@@ -47,6 +47,16 @@ export const INK = {
   grid: '#e3e8eb',
   gridMinor: '#f0f3f5',
   refLine: '#3b3b3b',
+} as const;
+
+/**
+ * Neutral styles of the lines that are not compounds (DOC and UV254 reduction, reference
+ * curves): greys with their own dash patterns, so no compound colour is reused for them.
+ */
+export const NEUTRAL_STYLES = {
+  uv254: { colour: '#4d4d4d', dash: '9 4' },
+  doc: { colour: '#8c8c8c', dash: '2 3' },
+  reference: { colour: '#6b6b6b', dash: '7 4' },
 } as const;
 
 /**

@@ -1,0 +1,58 @@
+/**
+ * PAC against GAC on the same footing (capability 22): per carbon the carbon mass per year, the
+ * carbon cost per m³ treated and per year, from what the run computed — PAC at its required dose
+ * (yearly from the DOC series or the design DOC), GAC from the equilibrium estimate of its
+ * governing compound (carbon usage rate; an upper bound on bed life, so a lower bound on carbon).
+ *   GAC cost per m³ = usage (g/m³) / 1000 × price per kg.
+ * The cheapest carbon is named only among carbons priced in the same currency (one per currency).
+ */
+import type { CarbonResult } from '../pipeline/pipelineTypes.js';
+
+export interface CarbonComparisonRow {
+  carbonName: string;
+  type: 'PAC' | 'GAC';
+  currency: string;
+  /** Carbon per year, t/a. */
+  carbonTonnesPerYear: number | null;
+  costPerM3: number | null;
+  costPerYear: number | null;
+  /** How the yearly figures were obtained. */
+  basis: string;
+}
+
+export interface PacGacComparison {
+  rows: CarbonComparisonRow[];
+  /** Cheapest carbon per year in each currency (only currencies with two or more carbons). */
+  cheapestByCurrency: Array<{ currency: string; carbonName: string; of: number }>;
+}
+
+export function pacGacComparison(carbons: readonly CarbonResult[]): PacGacComparison {
+  const rows: CarbonComparisonRow[] = carbons.map((cr) => {
+    const c = cr.carbon;
+    if (cr.gac) {
+      const g = cr.gac.governing;
+      return {
+        carbonName: c.name, type: 'GAC', currency: c.currency,
+        carbonTonnesPerYear: g.carbonTonnesPerYear ?? null,
+        costPerM3: (g.carbonUsageGPerM3 / 1000) * c.pricePerKg, // g/m³ → kg/m³ × price per kg
+        costPerYear: g.carbonTonnesPerYear !== undefined ? cr.gac.yearlyCost : null,
+        basis: `equilibrium carbon usage of ${g.id} (lower bound on carbon)`,
+      };
+    }
+    return {
+      carbonName: c.name, type: c.type, currency: c.currency,
+      carbonTonnesPerYear: cr.yearly ? cr.yearly.carbonKg / 1000 : null,
+      costPerM3: cr.costPerM3 ?? null,
+      costPerYear: cr.yearly?.cost ?? null,
+      basis: cr.yearly ? (cr.yearly.basis === 'DOC series' ? 'required dose over the DOC series' : 'required dose at the design DOC and flow') : 'no reachable goal',
+    };
+  });
+  const currencies = [...new Set(rows.map((r) => r.currency))];
+  const cheapestByCurrency = currencies.flatMap((cur) => {
+    const priced = rows.filter((r) => r.currency === cur && r.costPerYear !== null);
+    if (priced.length < 2) return [];
+    const best = priced.reduce((a, b) => (b.costPerYear! < a.costPerYear! ? b : a));
+    return [{ currency: cur, carbonName: best.carbonName, of: priced.length }];
+  });
+  return { rows, cheapestByCurrency };
+}

@@ -13,6 +13,9 @@ import type { FreundlichComponent } from '../equilibrium/preparedMixture.js';
 import { parseQuantity } from '../units/parseQuantity.js';
 import { freundlichKToInternal, type KUnit } from '../units/freundlichK.js';
 import { kindOfUnit } from '../units/unitFactor.js';
+import { onlyKeys } from '../project/jsonChecks.js';
+import { cleanName } from '../io/cleanText.js';
+import { COMPONENT_KEYS, K_UNIT_KEYS, MIXTURE_CARBON_KEYS, MIXTURE_KEYS } from './mixtureKeys.js';
 
 export interface MixtureInput {
   dose?: string | number;
@@ -65,10 +68,13 @@ export function parseDose(value: unknown): number {
   return parseQuantity(value, 'massConcentration');
 }
 
-/** Read one Freundlich compound (no c0 required when `needC0` is false). */
+/**
+ * Read one Freundlich compound (no c0 required when `needC0` is false). The caller checks the
+ * object's keys (mixture components, compound files and project compounds allow different ones).
+ */
 export function readComponent(raw: unknown, path: string, needC0: boolean): FreundlichComponent {
   if (!isObject(raw)) throw new InputError('expected an object with id, K and one_over_n', { path });
-  const id = raw.id;
+  const id = typeof raw.id === 'string' ? cleanName(raw.id) : raw.id;
   if (typeof id !== 'string' || id.trim() === '') throw new InputError('expected a non-empty text id', { path: `${path}.id` });
   const molarMass = raw.molar_mass;
   if (molarMass !== undefined && (typeof molarMass !== 'number' || !(molarMass > 0) || !Number.isFinite(molarMass))) {
@@ -92,6 +98,7 @@ export function readComponent(raw: unknown, path: string, needC0: boolean): Freu
   let kUnit: KUnit = {};
   if (raw.K_unit !== undefined) {
     if (!isObject(raw.K_unit)) throw new InputError('expected K_unit as an object { "q": "mg/g", "c": "mg/L" }', { path: `${path}.K_unit` });
+    onlyKeys(raw.K_unit, K_UNIT_KEYS, `${path}.K_unit`);
     for (const key of ['q', 'c'] as const) {
       const v = raw.K_unit[key];
       if (v !== undefined && typeof v !== 'string') throw new InputError(`expected a unit text such as "${key === 'q' ? 'mg/g' : 'mg/L'}"`, { path: `${path}.K_unit.${key}` });
@@ -102,13 +109,27 @@ export function readComponent(raw: unknown, path: string, needC0: boolean): Freu
   return { id, c0MgPerL: c0, K: Kint, oneOverN: exp };
 }
 
+/** Read a compound file (`calibrate --compound`): one component, c0 optional. @throws InputError naming the JSON path. */
+export function readCompoundFile(raw: unknown): FreundlichComponent {
+  if (isObject(raw)) onlyKeys(raw, COMPONENT_KEYS, '$');
+  return readComponent(raw, '$', false);
+}
+
 /** Read a mixture object. @throws InputError naming the JSON path. */
 export function readMixture(raw: unknown): ParsedMixture {
   if (!isObject(raw)) throw new InputError('expected a JSON object with "components"', { path: '$' });
+  onlyKeys(raw, MIXTURE_KEYS, '$');
+  if (raw.carbon !== undefined) {
+    if (!isObject(raw.carbon)) throw new InputError('expected "carbon" as an object { "particle_radius", "particle_density" }', { path: 'carbon' });
+    onlyKeys(raw.carbon, MIXTURE_CARBON_KEYS, 'carbon');
+  }
   const comps = raw.components;
   if (!Array.isArray(comps)) throw new InputError('expected "components" as an array', { path: 'components' });
   if (comps.length === 0) throw new InputError('expected at least one component; the mixture is empty', { path: 'components' });
-  const components = comps.map((c, i) => readComponent(c, `components[${i}]`, true));
+  const components = comps.map((c, i) => {
+    if (isObject(c)) onlyKeys(c, COMPONENT_KEYS, `components[${i}]`);
+    return readComponent(c, `components[${i}]`, true);
+  });
   const ids = new Set<string>();
   components.forEach((c, i) => {
     if (ids.has(c.id)) throw new InputError(`duplicate id "${c.id}"; every component needs its own id`, { path: `components[${i}].id` });

@@ -2,7 +2,7 @@
 import type { CommandSpec } from '../commandSpec.js';
 import { InputError } from '../../core/errors.js';
 import type { CalibrationModel, CalibrationResult } from '../../calibration/calibrate.js';
-import { readComponent } from '../../scenario/readMixture.js';
+import { readCompoundFile } from '../../scenario/readMixture.js';
 import { parseQuantity } from '../../units/parseQuantity.js';
 import { readJsonFile, readTextFile } from '../../io/readFiles.js';
 import { fmt, fmtConc, table } from '../format.js';
@@ -41,7 +41,7 @@ export const calibrateCommand: CommandSpec = {
       }
     }
     const compoundFile = opts.compound;
-    const compound = inFile(compoundFile, () => readComponent(readJsonFile(compoundFile, 'compound file'), '$', false));
+    const compound = inFile(compoundFile, () => readCompoundFile(readJsonFile(compoundFile, 'compound file')));
     if (!(compound.K > 0)) throw new InputError('expected an adsorbable target compound (K > 0)', { file: compoundFile, path: 'K' });
     let background: unknown;
     if (opts.background !== undefined) {

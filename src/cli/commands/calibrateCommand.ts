@@ -50,7 +50,7 @@ export const calibrateCommand: CommandSpec = {
     } else if (model === 'fictive-k') throw new InputError('model fictive-k needs --background FILE (the output of sorbshare fractionate)', { option: '--background' });
     const text = readTextFile(file, 'jar-test file');
     const result = inFile(file, () => calibrate(text, { model: model as CalibrationModel, compound, ...(background !== undefined ? { background } : {}), ...(docMgPerL !== undefined ? { docMgPerL } : {}), file }));
-    emitJson(result, opts, ctx, (out) => render(result, out));
+    emitJson(result, opts, ctx, (out) => render(result, out), [file, compoundFile, ...(opts.background !== undefined ? [String(opts.background)] : [])]);
   },
 };
 

@@ -44,7 +44,7 @@ export const fractionateCommand: CommandSpec = {
     }
     const text = readTextFile(file, 'isotherm file');
     const result = inFile(file, () => optionValue(() => fractionate(text, { exponent, components, fitK: Boolean(opts.fitK), ...(kGrid ? { kGrid } : {}), file }), OPTION_OF_PATH));
-    emitJson(result, opts, ctx, (out) => render(result, out));
+    emitJson(result, opts, ctx, (out) => render(result, out), [file]);
   },
 };
 

@@ -9,6 +9,7 @@ import { createProgressBar, type ProgressBar } from '../progressBar.js';
 import { pipelineOutputs } from '../../pipeline/pipelineOutputs.js';
 import type { PipelineInput, PipelineResult, ProgressEvent } from '../../pipeline/pipelineTypes.js';
 import { writeOutputDir } from '../../io/writeOutputs.js';
+import { checkOutputFolder } from '../../io/outputChecks.js';
 import { VERSION } from '../../version.js';
 import { fmt, table } from '../format.js';
 
@@ -97,6 +98,7 @@ export function monteCarloProgress(ctx: CommandContext, thresholdMs = 1000, now:
 
 /** Run, write and print. */
 export async function runAndWrite(input: PipelineInput, outDir: string, json: boolean, ctx: CommandContext, mc: { draws?: number; seed?: number } = {}): Promise<void> {
+  checkOutputFolder(outDir, input.provenance.files.map((f) => f.resolved));
   const progress = progressPrinter(ctx);
   const bar = monteCarloProgress(ctx);
   const result = await runPipelineWithUncertainty(input, { ...mc, onProgress: progress.onProgress, onMonteCarloProgress: (d, t) => bar.update(d, t) });

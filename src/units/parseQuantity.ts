@@ -25,6 +25,8 @@ export function parseQuantity(value: unknown, kind: UnitKind, options: QuantityO
     magnitude = value;
     unitText = defaultUnit;
   } else if (typeof value === 'string') {
+    const comma = /^\s*[-+]?\d+,\d+/.exec(value);
+    if (comma) throw new InputError(`"${value}" has a decimal comma; expected a decimal point, e.g. "${value.trim().replace(',', '.')}"`);
     const m = NUMBER_THEN_UNIT.exec(value);
     if (!m) throw new InputError(`expected a number with a unit, e.g. "20 mg/L", got "${value}"`);
     magnitude = Number(m[1]);

@@ -24,6 +24,7 @@ export function parseQuantity(value: unknown, kind: UnitKind, options: QuantityO
   if (typeof value === 'number') {
     magnitude = value;
     unitText = defaultUnit;
+    if (options.defaultUnit === undefined && Number.isFinite(value) && value > 0) return value; // already in the internal unit (factor 1)
   } else if (typeof value === 'string') {
     const comma = /^\s*[-+]?\d+,\d+/.exec(value);
     if (comma) throw new InputError(`"${value}" has a decimal comma; expected a decimal point, e.g. "${value.trim().replace(',', '.')}"`);

@@ -7,11 +7,13 @@
 import { accessSync, constants, existsSync, readdirSync, realpathSync, statSync } from 'node:fs';
 import { dirname, relative, resolve, isAbsolute, sep } from 'node:path';
 import { InputError } from '../core/errors.js';
+import { isXlsxPath, splitSheetPath } from './xlsxSheet.js';
 
 /** The file every output folder holds; its presence marks a folder that may be replaced. */
 export const OUTPUT_FOLDER_MARK = 'run.json';
 
-function real(p: string): string {
+function real(path: string): string {
+  const p = isXlsxPath(path) ? splitSheetPath(path).file : path;
   const abs = resolve(p);
   try { return realpathSync(abs); } catch { /* not there yet: resolve the nearest existing parent */ }
   const parent = dirname(abs);

@@ -2,6 +2,7 @@
 import type { CommandSpec } from '../commandSpec.js';
 import { MONTE_CARLO_OPTIONS, monteCarloOverrides } from './monteCarloOptions.js';
 import { nonEmptyText } from '../optionParsers.js';
+import { TABLE_FORMAT_OPTIONS, tableFormat } from './tableFormatOptions.js';
 
 export const runCommand: CommandSpec = {
   name: 'run',
@@ -11,13 +12,14 @@ export const runCommand: CommandSpec = {
     { flags: '--out <dir>', description: 'output folder (written whole or not at all)', parse: nonEmptyText, default: 'sorbshare-output' },
     { flags: '--json', description: 'print a JSON summary instead of text' },
     ...MONTE_CARLO_OPTIONS,
+    ...TABLE_FORMAT_OPTIONS,
   ],
   examples: ['sorbshare run project.json --out results', 'sorbshare run project.json --draws 2000 --seed 7', 'sorbshare run project.json --out results --json'],
   async action(args, opts, ctx) {
     const mc = monteCarloOverrides(opts);
     const { loadProject } = await import('../../project/loadProject.js');
     const { runAndWrite } = await import('./projectRun.js');
-    const input = loadProject(args[0]!);
+    const input = loadProject(args[0]!, { format: tableFormat(opts) });
     await runAndWrite(input, opts.out as string, Boolean(opts.json), ctx, mc);
   },
 };

@@ -22,6 +22,7 @@ import { SITE_SERIES_COLUMNS, siteSeriesFromTable } from '../siteSeries/siteSeri
 import type { InputFileRecord, PipelineInput } from '../pipeline/pipelineTypes.js';
 import { JAR_TEST_COLUMNS } from '../calibration/jarTestData.js';
 import { validateProject } from './validateProject.js';
+import { componentWarnings, docWarnings, traceC0Warnings } from '../scenario/plausibility.js';
 import { pilotColumnSpecs, pilotFromTable } from '../surrogates/pilotCsv.js';
 
 /** Read a referenced file; a missing file names the JSON path that referenced it. */
@@ -105,6 +106,7 @@ export function loadProject(projectPath: string, options: { demo?: boolean; form
   if (project.pilot) {
     input.pilot = pilotFromTable(readReferencedTable(baseDir, project.pilot.file, 'pilot.file', 'pilot CSV', files, 'pilot pairs', pilotColumnSpecs(project.compounds.map((c) => c.id)), format, notes));
   }
+  notes.push(...componentWarnings(project.compounds, 'compounds'), ...traceC0Warnings(project.compounds, 'compounds'), ...docWarnings(project.site.docMgPerL));
   if (notes.length) input.provenance.notes = notes;
   return input;
 }

@@ -15,6 +15,7 @@ import { freundlichKToInternal, type KUnit } from '../units/freundlichK.js';
 import { kindOfUnit } from '../units/unitFactor.js';
 import { onlyKeys } from '../project/jsonChecks.js';
 import { cleanName } from '../io/cleanText.js';
+import { componentWarnings, doseWarnings } from './plausibility.js';
 import { COMPONENT_KEYS, K_UNIT_KEYS, MIXTURE_CARBON_KEYS, MIXTURE_KEYS } from './mixtureKeys.js';
 
 export interface MixtureInput {
@@ -35,6 +36,8 @@ export interface ParsedMixture {
   /** Dose from the file, mg/L, if given. */
   doseMgPerL?: number;
   components: FreundlichComponent[];
+  /** Plausibility warnings (exponent above 1, a dose far above common practice). */
+  warnings?: string[];
 }
 
 export function isObject(v: unknown): v is Record<string, unknown> {
@@ -139,6 +142,8 @@ export function readMixture(raw: unknown): ParsedMixture {
   });
   const out: ParsedMixture = { components };
   if (raw.dose !== undefined) out.doseMgPerL = atPath('dose', () => parseDose(raw.dose));
+  const warnings = [...componentWarnings(components), ...(out.doseMgPerL !== undefined ? doseWarnings(out.doseMgPerL, 'the dose in the mixture file') : [])];
+  if (warnings.length) out.warnings = warnings;
   return out;
 }
 

@@ -10,6 +10,7 @@ import { pipelineOutputs } from '../../pipeline/pipelineOutputs.js';
 import type { PipelineInput, PipelineResult, ProgressEvent } from '../../pipeline/pipelineTypes.js';
 import { writeOutputDir } from '../../io/writeOutputs.js';
 import { checkOutputFolder } from '../../io/outputChecks.js';
+import { assertFiniteResult } from '../../scenario/finiteResult.js';
 import { VERSION } from '../../version.js';
 import { fmt, table } from '../format.js';
 
@@ -104,6 +105,7 @@ export async function runAndWrite(input: PipelineInput, outDir: string, json: bo
   const result = await runPipelineWithUncertainty(input, { ...mc, onProgress: progress.onProgress, onMonteCarloProgress: (d, t) => bar.update(d, t) });
   bar.finish();
   progress.done();
+  assertFiniteResult(result, result.project.carbons.map((c) => c.name));
   const files = pipelineOutputs(result, { toolVersion: VERSION, nodeVersion: process.version, platform: `${process.platform}-${process.arch}` });
   writeOutputDir(outDir, files);
   const names = Object.keys(files);

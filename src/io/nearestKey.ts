@@ -2,9 +2,9 @@
  * The valid key nearest to a misspelt one, for "unknown key" messages: the smallest optimal
  * string alignment distance (Levenshtein edits plus transposition of two adjacent characters;
  * Damerau 1964, Levenshtein 1966), compared case-insensitively with `_`, `-` and spaces ignored,
- * so that "K_units", "k_unit" and "Kunit" all point to "K_unit". A key that begins the other
- * ("band" for "band_percent", "doc0" for "doc0_mg_per_L") counts as one edit away. Ties go to
- * the earlier key.
+ * so that "K_units", "k_unit" and "Kunit" all point to "K_unit". A key of three or more
+ * characters contained in the other ("band" in "band_percent", "radius" in "particle_radius")
+ * counts as one edit away. Ties go to the earlier key.
  */
 
 /** Optimal string alignment distance between `a` and `b`. */
@@ -33,7 +33,8 @@ export function nearestKey(key: string, allowed: readonly string[]): string | un
   for (const a of allowed) {
     // folded distance first; the raw distance breaks ties between keys that fold alike
     const k = fold(key), f = fold(a);
-    const folded = k.length > 0 && f.length > 0 && (f.startsWith(k) || k.startsWith(f)) && k !== f ? Math.min(1, editDistance(k, f)) : editDistance(k, f);
+    const contained = Math.min(k.length, f.length) >= 3 && (f.includes(k) || k.includes(f));
+    const folded = contained && k !== f ? Math.min(1, editDistance(k, f)) : editDistance(k, f);
     const dist = folded * 1000 + editDistance(key, a);
     if (dist < bestD) { bestD = dist; best = a; }
   }

@@ -81,4 +81,13 @@ describe('SIGKILL while the output folder is replaced', () => {
     expect(readdirSync(dir).filter((n) => n.startsWith('.results.'))).toEqual([]);
     console.log(`kill test: ${seen.filter((s) => s === 'old').length} old, ${seen.filter((s) => s === 'new').length} new (full run ${fullRunMs} ms)`);
   }, 300_000);
+
+  it('two concurrent runs into one folder leave one complete set and no leftovers', async () => {
+    writeOldSet();
+    const one = () => new Promise<number | null>((resolve) => spawn(process.execPath, runArgs(), { stdio: 'ignore' }).on('exit', (code) => resolve(code)));
+    const codes = await Promise.all([one(), one()]);
+    expect(codes).toEqual([0, 0]);
+    expect(classify()).toBe('new');
+    expect(readdirSync(dir).filter((n) => n.startsWith('.results.'))).toEqual([]);
+  }, 120_000);
 });

@@ -67,12 +67,16 @@ export function formatSolution(pm: PreparedMixture, s: BatchSolution): Equilibri
 /**
  * Batch IAST equilibrium of a mixture at one carbon dose.
  * @param mixture the mixture file's object (or an already parsed mixture)
- * @param dose    "20 mg/L", a number in mg/L, or omitted to use the mixture's own dose
+ * @param dose    "20 mg/L", a number in mg/L, or omitted to use the mixture's own dose; at dose 0 every loading is 0 and c = c0
  */
 export function equilibrium(mixture: MixtureLike, dose?: string | number): EquilibriumResult {
   const parsed = toParsed(mixture);
   const doseMgPerL = resolveDose(dose, parsed);
   const pm = prepareMixture(parsed.components);
+  if (doseMgPerL === 0) {
+    // no carbon: nothing adsorbed, c = c0 (reported as zero loadings rather than the limiting q at c0)
+    return { dose_mg_per_L: 0, components: pm.source.map((c) => ({ id: c.id, c0_mg_per_L: c.c0MgPerL, c_mg_per_L: c.c0MgPerL, q_mg_per_g: 0, removal_fraction: 0 })) };
+  }
   return formatSolution(pm, solveBatchPrepared(pm, doseMgPerL / 1000));
 }
 

@@ -22,6 +22,7 @@
 import { ComputationError, InputError } from '../core/errors.js';
 import type { FreundlichComponent } from '../equilibrium/preparedMixture.js';
 import { readComponent } from '../scenario/readMixture.js';
+import { calibrationPointsWarnings } from '../scenario/plausibility.js';
 import { readBackground, type BackgroundFile } from '../fractionation/backgroundFile.js';
 import { backgroundComponents } from '../fractionation/backgroundPrediction.js';
 import { fitLeastSquares, forwardJacobian } from '../numerics/leastSquares.js';
@@ -198,6 +199,7 @@ export function calibrate(input: JarTestInput, options: CalibrateOptions): Calib
       if (se.some((v) => v > Math.LN10)) identifiable = false;
     } else identifiable = false;
   } else warnings.push(`as many parameters as jar tests (${n}): no confidence intervals`);
+  warnings.push(...calibrationPointsWarnings(n, spec.names.length));
   const c0Values = [...new Set(fitRows.map((r) => r.c0MgPerL))];
   const oneC0 = Math.max(...c0Values) / Math.min(...c0Values) < 1.5;
   if (model === 'ebc' && oneC0) warnings.push(`all jar tests are at one C0 (${fmtConcText(c0Values[0]!)}): K_EBC, 1/n_EBC and C0_EBC cannot be separated (at trace level only a combination is fixed); use --model sebc`);

@@ -6,7 +6,9 @@
  * Checks (InputError naming file, row, column): C0 > 0; c > 0 where the dose is > 0 (a value
  * below detection cannot enter a logarithmic fit); c not above C0 by more than 10 % (analytical
  * noise, common practice); a dose-0 row agrees with C0 within 20 % (common practice for trace
- * analyses); DOC > 0.
+ * analyses); DOC > 0; within one series (same C0 and DOC) c does not rise with dose anywhere: no c
+ * lies above the lowest c at any smaller dose by more than 20 % of it plus 1 % of C0 (trace
+ * analyses, common practice), so a rise in small steps is caught once it adds up.
  */
 import { InputError } from '../core/errors.js';
 import { readCsvTable, type CsvColumnSpec, type CsvTable } from '../tables/csvTable.js';
@@ -81,8 +83,35 @@ export function readJarTests(input: JarTestInput, file?: string): JarTestData {
     if (p.docMgPerL !== undefined) r.docMgPerL = p.docMgPerL;
     return r;
   });
+  checkFallingWithDose(rows, loc, headers);
   const hasDoc = rows.every((r) => r.docMgPerL !== undefined);
   const out: JarTestData = { rows, headers, hasDoc };
   if (file !== undefined) out.file = file;
   return out;
+}
+
+/** Relative tolerance on c rising with dose in one jar-test series (trace analyses, common practice). */
+export const JAR_RISE_TOLERANCE_RELATIVE = 0.2;
+
+/** c must not rise with dose within a series of the same C0 and DOC. @throws InputError naming both rows */
+function checkFallingWithDose(rows: readonly JarTestRow[], loc: (row: number, column: string) => { file?: string; row: number; column: string }, headers: JarTestData['headers']): void {
+  const series = new Map<string, JarTestRow[]>();
+  for (const r of rows) {
+    const key = `${r.c0MgPerL}|${r.docMgPerL ?? ''}`;
+    series.set(key, [...(series.get(key) ?? []), r]);
+  }
+  for (const g of series.values()) {
+    const sorted = [...g].sort((a, b) => a.doseMgPerL - b.doseMgPerL);
+    let lowest: JarTestRow | undefined;
+    for (const r of sorted) {
+      if (lowest && r.doseMgPerL > lowest.doseMgPerL && r.cMgPerL > lowest.cMgPerL * (1 + JAR_RISE_TOLERANCE_RELATIVE) + 0.01 * r.c0MgPerL) {
+        throw new InputError(`c (${fmtC(r.cMgPerL)} mg/L) at dose ${r.doseMgPerL} mg/L is higher than c (${fmtC(lowest.cMgPerL)} mg/L) at the smaller dose ${lowest.doseMgPerL} mg/L (row ${lowest.row}) in the same series (C0 ${fmtC(r.c0MgPerL)} mg/L${r.docMgPerL !== undefined ? `, DOC ${fmtC(r.docMgPerL)} mg/L` : ''}); expected c to fall (or stay) as the dose rises (beyond ${JAR_RISE_TOLERANCE_RELATIVE * 100} % analytical noise, common practice)`, loc(r.row, headers.c));
+      }
+      if (!lowest || r.cMgPerL < lowest.cMgPerL) lowest = r;
+    }
+  }
+}
+
+function fmtC(x: number): string {
+  return Number(x.toPrecision(4)).toString();
 }

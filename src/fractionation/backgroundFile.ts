@@ -10,6 +10,18 @@
  */
 import { InputError } from '../core/errors.js';
 import { isObject } from '../scenario/readMixture.js';
+import { onlyKeys } from '../project/jsonChecks.js';
+
+/** Valid keys of a background file (what `fractionate --json` writes), in one place. */
+export const BACKGROUND_KEYS = {
+  top: ['$schema', '_note', 'note', 'doc0_mg_per_L', 'one_over_n', 'components', 'fit', 'residuals', 'uv254', 'model_selection', 'warnings'],
+  component: ['id', 'K', 'one_over_n', 'fraction', 'c0_mg_per_L', 'fraction_ci95', 'K_ci95', 'specific_uv254_per_m_per_mg_per_L', 'note'],
+  fit: ['rmse_mg_per_L', 'rmse_relative', 'points', 'max_relative_error', 'parameters', 'degrees_of_freedom', 'aicc', 'k_mode', 'converged', 'stop', 'evaluations', 'starts', 'agreeing_starts'],
+  residual: ['row', 'dose_mg_per_L', 'doc0_mg_per_L', 'doc_measured_mg_per_L', 'doc_predicted_mg_per_L', 'residual_mg_per_L', 'uv254_measured_per_m', 'uv254_predicted_per_m'],
+  uv254: ['rmse_per_m', 'max_relative_error', 'points', 'uv254_0_per_m'],
+  modelSelection: ['criterion', 'chosen', 'alternatives'],
+  alternative: ['components', 'parameters', 'rmse_mg_per_L', 'aicc', 'delta_aicc', 'chosen', 'note'],
+} as const;
 
 export interface BackgroundComponentRecord {
   id: string;
@@ -58,6 +70,7 @@ function num(raw: Record<string, unknown>, key: string, path: string, opts: { po
  */
 export function readBackground(raw: unknown): BackgroundFile {
   if (!isObject(raw)) throw new InputError('expected a background object with doc0_mg_per_L, one_over_n and components (the output of sorbshare fractionate --json)', { path: '$' });
+  onlyKeys(raw, BACKGROUND_KEYS.top, '$');
   num(raw, 'doc0_mg_per_L', '', { positive: true });
   if (!Array.isArray(raw.components) || raw.components.length === 0) throw new InputError('expected "components" as a non-empty array', { path: 'components' });
   let sum = 0;
@@ -65,6 +78,7 @@ export function readBackground(raw: unknown): BackgroundFile {
   raw.components.forEach((c: unknown, i: number) => {
     const path = `components[${i}]`;
     if (!isObject(c)) throw new InputError('expected an object with id, K, one_over_n and fraction', { path });
+    onlyKeys(c, BACKGROUND_KEYS.component, path);
     if (typeof c.id !== 'string' || c.id === '') throw new InputError('expected a non-empty text id', { path: `${path}.id` });
     if (ids.has(c.id)) throw new InputError(`duplicate id "${c.id}"`, { path: `${path}.id` });
     ids.add(c.id);
@@ -75,5 +89,16 @@ export function readBackground(raw: unknown): BackgroundFile {
   });
   if (Math.abs(sum - 1) > 1e-6) throw new InputError(`the fractions sum to ${sum}; expected shares of DOC0 that sum to 1`, { path: 'components' });
   if (!isObject(raw.fit)) throw new InputError('expected a "fit" object', { path: 'fit' });
+  onlyKeys(raw.fit, BACKGROUND_KEYS.fit, 'fit');
+  if (raw.residuals !== undefined) {
+    if (!Array.isArray(raw.residuals)) throw new InputError('expected "residuals" as an array', { path: 'residuals' });
+    raw.residuals.forEach((r: unknown, i: number) => { if (isObject(r)) onlyKeys(r, BACKGROUND_KEYS.residual, `residuals[${i}]`); });
+  }
+  if (isObject(raw.uv254)) onlyKeys(raw.uv254, BACKGROUND_KEYS.uv254, 'uv254');
+  if (isObject(raw.model_selection)) {
+    onlyKeys(raw.model_selection, BACKGROUND_KEYS.modelSelection, 'model_selection');
+    const alts = raw.model_selection.alternatives;
+    if (Array.isArray(alts)) alts.forEach((a: unknown, i: number) => { if (isObject(a)) onlyKeys(a, BACKGROUND_KEYS.alternative, `model_selection.alternatives[${i}]`); });
+  }
   return raw as unknown as BackgroundFile;
 }

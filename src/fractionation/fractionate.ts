@@ -11,6 +11,7 @@
  */
 import { ComputationError, InputError } from '../core/errors.js';
 import { readCsvTable, type CsvTable } from '../tables/csvTable.js';
+import { fractionationWarnings } from '../scenario/plausibility.js';
 import { checkIsotherm, ISOTHERM_COLUMNS, pointsFromTable, type IsothermData, type IsothermPoint } from './isothermData.js';
 import { defaultKGrid, MAX_COMPONENTS, MIN_COMPONENTS } from './defaultKGrid.js';
 import { fitBackground, type BackgroundFitResult } from './fitBackground.js';
@@ -178,6 +179,7 @@ function assemble(data: IsothermData, f: BackgroundFitResult, exponent: number, 
   if (!f.identifiable) warnings.push(f.dof <= 0 ? 'as many parameters as points: no confidence intervals' : 'the shares are not identifiable from these data (singular Jacobian): no confidence intervals; try fewer components');
   f.fractions.forEach((fr, j) => { if (j > 0 && fr <= 1e-7) warnings.push(`component F${j} (K = ${f.K[j]}) has no share: fewer components may describe the data as well`); });
   if (f.maxRelativeError > 0.1) warnings.push(`poor fit: largest relative DOC error ${(f.maxRelativeError * 100).toFixed(1)} %`);
+  warnings.push(...fractionationWarnings(f.fractionCi, f.starts, f.agreeing));
   const out: FractionateResult = {
     _note: 'DOC as fictive components (adsorption analysis, batch IAST). Shares of DOC0 (fraction) scale with DOC; K in (mg/g)/(mg/L)^(1/n); F0 is non-adsorbable.',
     doc0_mg_per_L: doc0,

@@ -4,9 +4,11 @@
  * UV254_0 (1/m). Internal units: mg/L and 1/m.
  *
  * Checks (bad input → InputError naming file, row, column): a DOC0 for every row (column or a
- * dose-0 row); a dose-0 row agrees with DOC0 (within 5 %); DOC does not rise from one dose to the
- * next (or above DOC0) by more than max(0.2 mg/L, 10 % of DOC0) — beyond analytical noise, which
- * is a few percent for DOC (common practice); DOC0 > 0.
+ * dose-0 row); a dose-0 row agrees with DOC0 (within 5 %); DOC does not rise with dose anywhere
+ * along the isotherm: no DOC lies above the lowest DOC at any smaller dose (or DOC0) by more than
+ * max(0.2 mg/L, 10 % of DOC0) — the difference two measurements may show from analytical noise of
+ * a few percent for DOC (common practice) — so a rise in small steps is caught once it adds up;
+ * the same for UV254 (max(0.2 1/m, 10 %), common practice); DOC0 > 0.
  */
 import { InputError } from '../core/errors.js';
 import type { CsvColumnSpec, CsvTable } from '../tables/csvTable.js';
@@ -51,9 +53,14 @@ export interface IsothermData {
 /** Relative agreement asked of a dose-0 DOC and DOC0 (common practice). */
 export const DOSE0_TOLERANCE_RELATIVE = 0.05;
 
-/** Tolerance on DOC rising with dose, mg/L (common practice). */
+/** Tolerance on DOC rising with dose, mg/L: the spread of two DOC measurements from analytical noise (common practice). */
 export function risingTolerance(doc0MgPerL: number): number {
   return Math.max(0.2, 0.1 * doc0MgPerL);
+}
+
+/** Tolerance on UV254 rising with dose, 1/m (common practice, as for DOC). */
+export function risingUvTolerance(uv0PerM: number): number {
+  return Math.max(0.2, 0.1 * uv0PerM);
 }
 
 /** Points from a CSV table read with ISOTHERM_COLUMNS. */
@@ -115,21 +122,25 @@ export function checkIsotherm(points: readonly IsothermPoint[], file?: string, h
       throw new InputError(`at dose 0 the DOC (${fmt(r.docMgPerL)} mg/L) disagrees with DOC0 (${fmt(r.doc0MgPerL)} mg/L) by more than ${DOSE0_TOLERANCE_RELATIVE * 100} %; expected equal values`, loc(r.row, headers.doc));
     }
   }
-  // DOC must not rise with dose within a DOC0 group
+  // DOC must not rise with dose anywhere within a DOC0 group: compare with the lowest value at any smaller dose
   const groups = new Map<number, IsothermRow[]>();
   for (const r of rows) groups.set(r.doc0MgPerL, [...(groups.get(r.doc0MgPerL) ?? []), r]);
   for (const [doc0, g] of groups) {
     const sorted = [...g].sort((a, b) => a.doseMgPerL - b.doseMgPerL);
-    let previous = doc0;
-    let previousUv = Infinity;
+    let lowest: { v: number; r?: IsothermRow } = { v: doc0 };
+    let lowestUv: { v: number; r?: IsothermRow } = { v: Infinity };
     for (const r of sorted) {
-      if (r.docMgPerL > previous + risingTolerance(doc0)) {
-        throw new InputError(`DOC ${fmt(r.docMgPerL)} mg/L at dose ${fmt(r.doseMgPerL)} mg/L is higher than ${fmt(previous)} mg/L at the next lower dose (or DOC0); expected DOC to fall (or stay) as the dose rises`, loc(r.row, headers.doc));
+      if (r.docMgPerL > lowest.v + risingTolerance(doc0) && (!lowest.r || r.doseMgPerL > lowest.r.doseMgPerL)) {
+        const than = lowest.r ? `${fmt(lowest.v)} mg/L at dose ${fmt(lowest.r.doseMgPerL)} mg/L (row ${lowest.r.row})` : `DOC0 ${fmt(lowest.v)} mg/L`;
+        throw new InputError(`DOC ${fmt(r.docMgPerL)} mg/L at dose ${fmt(r.doseMgPerL)} mg/L is higher than ${than}; expected DOC to fall (or stay) as the dose rises (beyond an analytical noise of ${fmt(risingTolerance(doc0))} mg/L, common practice)`, loc(r.row, headers.doc));
       }
-      previous = r.docMgPerL;
+      if (r.docMgPerL < lowest.v) lowest = { v: r.docMgPerL, r };
       if (r.uv254PerM !== undefined) {
-        if (r.uv254PerM > previousUv * 1.1 + 0.2) throw new InputError(`UV254 ${fmt(r.uv254PerM)} 1/m is higher than ${fmt(previousUv)} 1/m at the next lower dose; expected UV254 to fall (or stay) as the dose rises`, loc(r.row, headers.uv));
-        previousUv = r.uv254PerM;
+        const uvTol = risingUvTolerance(r.uv254_0PerM ?? (Number.isFinite(lowestUv.v) ? lowestUv.v : r.uv254PerM));
+        if (lowestUv.r && r.uv254PerM > lowestUv.v + uvTol && r.doseMgPerL > lowestUv.r.doseMgPerL) {
+          throw new InputError(`UV254 ${fmt(r.uv254PerM)} 1/m at dose ${fmt(r.doseMgPerL)} mg/L is higher than ${fmt(lowestUv.v)} 1/m at dose ${fmt(lowestUv.r.doseMgPerL)} mg/L (row ${lowestUv.r.row}); expected UV254 to fall (or stay) as the dose rises (beyond an analytical noise of ${fmt(uvTol)} 1/m, common practice)`, loc(r.row, headers.uv));
+        }
+        if (r.uv254PerM < lowestUv.v) lowestUv = { v: r.uv254PerM, r };
       }
     }
   }

@@ -2,6 +2,8 @@
  * Read a project file and everything it references (I/O lives here, not in the pipeline):
  * the JSON is validated (validateProject), then the DOC isotherm, background file, jar tests and
  * site series and pilot pairs are read relative to the project file's folder and parsed into tables.
+ * Tables may be CSV (`,` or `;` separators, `.` or `,` decimals, detected unless `format` sets them)
+ * or .xlsx sheets (`data.xlsx#Sheet1`); notices on how they were read go to `provenance.notes`.
  *
  * @throws InputError naming the project file and JSON path, or the referenced file (with the JSON
  *   path that referenced it when it is missing), row and column.
@@ -10,14 +12,18 @@ import { createHash } from 'node:crypto';
 import { dirname, resolve } from 'node:path';
 import { InputError } from '../core/errors.js';
 import { parseJsonText, readTextFile } from './readFiles.js';
-import { readCsvTable } from '../tables/csvTable.js';
+import { readTableFile } from './readTableFile.js';
+import type { CsvColumnSpecs, CsvTable } from '../tables/csvTable.js';
+import type { CsvFormatOptions } from '../tables/csvFormat.js';
+import { splitSheetPath } from './xlsxSheet.js';
 import { ISOTHERM_COLUMNS } from '../fractionation/isothermData.js';
 import { readBackground } from '../fractionation/backgroundFile.js';
-import { parseSiteSeries } from '../siteSeries/siteSeries.js';
+import { SITE_SERIES_COLUMNS, siteSeriesFromTable } from '../siteSeries/siteSeries.js';
 import type { InputFileRecord, PipelineInput } from '../pipeline/pipelineTypes.js';
 import { JAR_TEST_COLUMNS } from '../calibration/jarTestData.js';
 import { validateProject } from '../project/validateProject.js';
-import { parsePilotCsv } from '../surrogates/pilotCsv.js';
+import { componentWarnings, docWarnings, traceC0Warnings } from '../scenario/plausibility.js';
+import { pilotColumnSpecs, pilotFromTable } from '../surrogates/pilotCsv.js';
 
 /** Read a referenced file; a missing file names the JSON path that referenced it. */
 function readReferenced(baseDir: string, relPath: string, jsonPath: string, what: string, files: InputFileRecord[], role: string): { text: string; file: string } {
@@ -33,6 +39,21 @@ function readReferenced(baseDir: string, relPath: string, jsonPath: string, what
   return { text, file: resolved };
 }
 
+/** Read a referenced table (CSV or an .xlsx sheet); a missing file names the JSON path that referenced it. */
+function readReferencedTable(baseDir: string, relPath: string, jsonPath: string, what: string, files: InputFileRecord[], role: string, specs: CsvColumnSpecs, format: CsvFormatOptions, notes: string[]): CsvTable {
+  const resolved = resolve(baseDir, relPath);
+  let read;
+  try {
+    read = readTableFile(resolved, specs, what, format);
+  } catch (e) {
+    if (e instanceof InputError && /not found|is not a file/.test(e.expected) && !e.location.row) throw new InputError(`${e.expected} (referenced as "${relPath}" by field ${jsonPath}, relative to the project file)`, { file: splitSheetPath(resolved).file });
+    throw e;
+  }
+  files.push({ role, path: relPath, resolved, bytes: Buffer.byteLength(read.text), sha256: sha256(read.text) });
+  notes.push(...(read.table.notes ?? []));
+  return read.table;
+}
+
 export function sha256(text: string): string {
   return createHash('sha256').update(text).digest('hex');
 }
@@ -41,8 +62,11 @@ export function sha256(text: string): string {
  * Load a project file from disk.
  * @param projectPath path of the project JSON
  * @param options.demo mark the run as the built-in demo (run.json says so)
+ * @param options.format separator and decimal mark of the CSV tables (detected when absent)
  */
-export function loadProject(projectPath: string, options: { demo?: boolean } = {}): PipelineInput {
+export function loadProject(projectPath: string, options: { demo?: boolean; format?: CsvFormatOptions } = {}): PipelineInput {
+  const format = options.format ?? {};
+  const notes: string[] = [];
   const projectFile = resolve(projectPath);
   const text = readTextFile(projectFile, 'project file');
   const raw = parseJsonText(text, projectFile);
@@ -60,8 +84,7 @@ export function loadProject(projectPath: string, options: { demo?: boolean } = {
 
   const bg = project.background;
   if (bg.kind === 'isotherm') {
-    const f = readReferenced(baseDir, bg.file, 'background.isotherm', 'DOC isotherm CSV', files, 'DOC isotherm');
-    input.isotherm = readCsvTable(f.text, ISOTHERM_COLUMNS, f.file);
+    input.isotherm = readReferencedTable(baseDir, bg.file, 'background.isotherm', 'DOC isotherm CSV', files, 'DOC isotherm', ISOTHERM_COLUMNS, format, notes);
   } else if (bg.kind === 'file') {
     const f = readReferenced(baseDir, bg.file, 'background.file', 'background file', files, 'background file');
     try {
@@ -73,16 +96,17 @@ export function loadProject(projectPath: string, options: { demo?: boolean } = {
   }
   project.compounds.forEach((c, i) => {
     if (!c.jarTests) return;
-    const f = readReferenced(baseDir, c.jarTests.file, `compounds[${i}].jar_tests.file`, 'jar-test CSV', files, `jar tests ${c.id}`);
-    input.jarTests[c.id] = readCsvTable(f.text, JAR_TEST_COLUMNS, f.file);
+    input.jarTests[c.id] = readReferencedTable(baseDir, c.jarTests.file, `compounds[${i}].jar_tests.file`, 'jar-test CSV', files, `jar tests ${c.id}`, JAR_TEST_COLUMNS, format, notes);
   });
   if (project.site.seriesFile) {
-    const f = readReferenced(baseDir, project.site.seriesFile, 'site.series', 'site DOC series CSV', files, 'site DOC series');
-    input.series = parseSiteSeries(f.text, project.site.flowM3PerD, f.file);
+    const t = readReferencedTable(baseDir, project.site.seriesFile, 'site.series', 'site DOC series CSV', files, 'site DOC series', SITE_SERIES_COLUMNS, format, []);
+    input.series = siteSeriesFromTable(t, project.site.flowM3PerD);
+    notes.push(...(input.series.warnings ?? []));
   }
   if (project.pilot) {
-    const f = readReferenced(baseDir, project.pilot.file, 'pilot.file', 'pilot CSV', files, 'pilot pairs');
-    input.pilot = parsePilotCsv(f.text, f.file, project.compounds.map((c) => c.id));
+    input.pilot = pilotFromTable(readReferencedTable(baseDir, project.pilot.file, 'pilot.file', 'pilot CSV', files, 'pilot pairs', pilotColumnSpecs(project.compounds.map((c) => c.id)), format, notes));
   }
+  notes.push(...componentWarnings(project.compounds, 'compounds'), ...traceC0Warnings(project.compounds, 'compounds'), ...docWarnings(project.site.docMgPerL));
+  if (notes.length) input.provenance.notes = notes;
   return input;
 }

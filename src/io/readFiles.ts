@@ -3,6 +3,7 @@
  */
 import { readFileSync, statSync } from 'node:fs';
 import { InputError } from '../core/errors.js';
+import { parseStrictJson } from '../text/strictJson.js';
 
 export function readTextFile(path: string, what = 'input file'): string {
   let st;
@@ -19,23 +20,9 @@ export function readTextFile(path: string, what = 'input file'): string {
   }
 }
 
-/** Parse JSON, naming line and column of a syntax error. */
+/** Parse JSON strictly (line and column of a syntax error, duplicate keys, numbers outside the double range). */
 export function parseJsonText(text: string, file: string): unknown {
-  try {
-    return JSON.parse(text);
-  } catch (e) {
-    const msg = (e as Error).message;
-    const m = /position (\d+)/.exec(msg);
-    let where = '';
-    if (m) {
-      const pos = Number(m[1]);
-      const before = text.slice(0, pos);
-      const line = before.split('\n').length;
-      const col = pos - before.lastIndexOf('\n');
-      where = ` at line ${line}, column ${col}`;
-    }
-    throw new InputError(`malformed JSON${where}; expected valid JSON (${msg.replace(/^JSON\.parse: /, '')})`, { file });
-  }
+  return parseStrictJson(text, file);
 }
 
 export function readJsonFile(path: string, what = 'JSON file'): unknown {

@@ -3,14 +3,16 @@
  * indicators.csv): plain text built from the pipeline result, units in the headers.
  */
 import type { PipelineResult } from '../pipeline/pipelineTypes.js';
+import { neutraliseCsvCell } from '../tables/safeCsvCell.js';
 
 type Cell = string | number | null | undefined;
 
-/** Numbers to 8 significant digits (ample for planning figures, free of binary noise). */
+/** Numbers to 8 significant digits (ample for planning figures, free of binary noise); text neutralised against formulas. */
 function cell(v: Cell): string {
   if (v === null || v === undefined) return '';
   if (typeof v === 'number') return Number.isFinite(v) ? String(Number(v.toPrecision(8))) : '';
-  return /[",\n\r]/.test(v) ? `"${v.replace(/"/g, '""')}"` : v;
+  const t = neutraliseCsvCell(v);
+  return /[",\n\r]/.test(t) ? `"${t.replace(/"/g, '""')}"` : t;
 }
 
 /** RFC 4180 CSV text (Shafranovich 2005): comma-separated, quoted where needed, CRLF-free. */

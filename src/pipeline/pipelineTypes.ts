@@ -47,7 +47,8 @@ export interface PipelineInput {
   /** Pilot pairs (project field `pilot`). */
   pilot?: PilotData;
   /** Where the inputs came from (for run.json). */
-  provenance: { projectFile?: string; files: InputFileRecord[]; demo?: boolean };
+  /** `notes`: how input tables were read and what was left out (gaps); the run's warnings repeat them. */
+  provenance: { projectFile?: string; files: InputFileRecord[]; demo?: boolean; notes?: string[] };
 }
 
 export interface ProgressEvent {

@@ -65,7 +65,7 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
     const t0 = performance.now();
     try { return f(); } finally { timing[name] = (timing[name] ?? 0) + performance.now() - t0; }
   };
-  const warnings: string[] = [];
+  const warnings: string[] = [...(input.provenance.notes ?? [])];
 
   progress({ step: 'background', done: 0, total: 1 });
   const bg = timed('background', () => backgroundStep(project.background, input.isotherm, input.backgroundFile));

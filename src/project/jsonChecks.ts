@@ -3,6 +3,7 @@
  * expected. Used by the project validator; kept in step with schema/project.schema.json.
  */
 import { InputError } from '../core/errors.js';
+import { nearestKey } from '../text/nearestKey.js';
 
 export type JsonObject = Record<string, unknown>;
 
@@ -23,11 +24,15 @@ export function expectObject(v: unknown, path: string, what: string): JsonObject
   return v;
 }
 
-/** Reject keys that are not in `allowed` (catches typos such as "flwo"). */
+/**
+ * Reject keys that are not in `allowed` (catches typos such as "flwo"): the message names the JSON
+ * path of the unknown key and the nearest valid key.
+ */
 export function onlyKeys(obj: JsonObject, allowed: readonly string[], path: string): void {
   for (const k of Object.keys(obj)) {
     if (!allowed.includes(k)) {
-      throw new InputError(`unknown key "${k}"; expected one of ${allowed.map((a) => `"${a}"`).join(', ')}`, { path: join(path, k) });
+      const near = nearestKey(k, allowed);
+      throw new InputError(`unknown key "${k}"${near !== undefined ? ` (did you mean "${near}"?)` : ''}; expected one of ${allowed.map((a) => `"${a}"`).join(', ')}`, { path: join(path, k) });
     }
   }
 }

@@ -13,6 +13,10 @@ import type { FreundlichComponent } from '../equilibrium/preparedMixture.js';
 import { parseQuantity } from '../units/parseQuantity.js';
 import { freundlichKToInternal, type KUnit } from '../units/freundlichK.js';
 import { kindOfUnit } from '../units/unitFactor.js';
+import { onlyKeys } from '../project/jsonChecks.js';
+import { cleanName } from '../text/cleanText.js';
+import { componentWarnings, doseWarnings } from './plausibility.js';
+import { COMPONENT_KEYS, K_UNIT_KEYS, MIXTURE_CARBON_KEYS, MIXTURE_KEYS } from './mixtureKeys.js';
 
 export interface MixtureInput {
   dose?: string | number;
@@ -32,6 +36,8 @@ export interface ParsedMixture {
   /** Dose from the file, mg/L, if given. */
   doseMgPerL?: number;
   components: FreundlichComponent[];
+  /** Plausibility warnings (exponent above 1, a dose far above common practice). */
+  warnings?: string[];
 }
 
 export function isObject(v: unknown): v is Record<string, unknown> {
@@ -65,50 +71,70 @@ export function parseDose(value: unknown): number {
   return parseQuantity(value, 'massConcentration');
 }
 
-/** Read one Freundlich compound (no c0 required when `needC0` is false). */
-export function readComponent(raw: unknown, path: string, needC0: boolean): FreundlichComponent {
-  if (!isObject(raw)) throw new InputError('expected an object with id, K and one_over_n', { path });
-  const id = raw.id;
-  if (typeof id !== 'string' || id.trim() === '') throw new InputError('expected a non-empty text id', { path: `${path}.id` });
+/**
+ * Read one Freundlich compound (no c0 required when `needC0` is false). The caller checks the
+ * object's keys (mixture components, compound files and project compounds allow different ones).
+ */
+export function readComponent(raw: unknown, rootPath: string, needC0: boolean): FreundlichComponent {
+  if (!isObject(raw)) throw new InputError('expected an object with id, K and one_over_n', { path: rootPath });
+  const path = rootPath === '$' ? '' : rootPath;
+  const sub = (key: string) => (path === '' ? key : `${path}.${key}`);
+  const id = typeof raw.id === 'string' ? cleanName(raw.id) : raw.id;
+  if (typeof id !== 'string' || id.trim() === '') throw new InputError('expected a non-empty text id', { path: sub('id') });
   const molarMass = raw.molar_mass;
   if (molarMass !== undefined && (typeof molarMass !== 'number' || !(molarMass > 0) || !Number.isFinite(molarMass))) {
-    throw new InputError(`expected molar_mass as a positive number in g/mol, got ${JSON.stringify(molarMass)}`, { path: `${path}.molar_mass` });
+    throw new InputError(`expected molar_mass as a positive number in g/mol, got ${JSON.stringify(molarMass)}`, { path: sub('molar_mass') });
   }
   let c0 = 0;
   if (raw.c0 === undefined) {
-    if (needC0) throw new InputError('missing c0; expected an initial concentration such as "100 ng/L"', { path: `${path}.c0` });
+    if (needC0) throw new InputError('missing c0; expected an initial concentration such as "100 ng/L"', { path: sub('c0') });
   } else {
-    c0 = atPath(`${path}.c0`, () => parseConcentration(raw.c0, molarMass as number | undefined));
+    c0 = atPath(sub('c0'), () => parseConcentration(raw.c0, molarMass as number | undefined));
   }
   const K = raw.K;
-  if (K === undefined) throw new InputError('missing K; expected the Freundlich K as a number (0 = non-adsorbable)', { path: `${path}.K` });
-  if (typeof K !== 'number' || !Number.isFinite(K)) throw new InputError(`expected K as a number, got ${JSON.stringify(K)}`, { path: `${path}.K` });
-  if (K < 0) throw new InputError(`expected K ≥ 0 (0 = non-adsorbable), got ${K}`, { path: `${path}.K` });
+  if (K === undefined) throw new InputError('missing K; expected the Freundlich K as a number (0 = non-adsorbable)', { path: sub('K') });
+  if (typeof K !== 'number' || !Number.isFinite(K)) throw new InputError(`expected K as a number, got ${JSON.stringify(K)}`, { path: sub('K') });
+  if (K < 0) throw new InputError(`expected K ≥ 0 (0 = non-adsorbable), got ${K}`, { path: sub('K') });
   const exp = raw.one_over_n;
   if (K === 0) return { id, c0MgPerL: c0, K: 0, oneOverN: typeof exp === 'number' && exp > 0 ? exp : 1 };
-  if (exp === undefined) throw new InputError('missing one_over_n; expected the Freundlich exponent 1/n (> 0)', { path: `${path}.one_over_n` });
-  if (typeof exp !== 'number' || !Number.isFinite(exp)) throw new InputError(`expected one_over_n as a number, got ${JSON.stringify(exp)}`, { path: `${path}.one_over_n` });
-  if (!(exp > 0)) throw new InputError(`expected one_over_n > 0, got ${exp}`, { path: `${path}.one_over_n` });
+  if (exp === undefined) throw new InputError('missing one_over_n; expected the Freundlich exponent 1/n (> 0)', { path: sub('one_over_n') });
+  if (typeof exp !== 'number' || !Number.isFinite(exp)) throw new InputError(`expected one_over_n as a number, got ${JSON.stringify(exp)}`, { path: sub('one_over_n') });
+  if (!(exp > 0)) throw new InputError(`expected one_over_n > 0, got ${exp}`, { path: sub('one_over_n') });
   let kUnit: KUnit = {};
   if (raw.K_unit !== undefined) {
-    if (!isObject(raw.K_unit)) throw new InputError('expected K_unit as an object { "q": "mg/g", "c": "mg/L" }', { path: `${path}.K_unit` });
+    if (!isObject(raw.K_unit)) throw new InputError('expected K_unit as an object { "q": "mg/g", "c": "mg/L" }', { path: sub('K_unit') });
+    onlyKeys(raw.K_unit, K_UNIT_KEYS, sub('K_unit'));
     for (const key of ['q', 'c'] as const) {
       const v = raw.K_unit[key];
-      if (v !== undefined && typeof v !== 'string') throw new InputError(`expected a unit text such as "${key === 'q' ? 'mg/g' : 'mg/L'}"`, { path: `${path}.K_unit.${key}` });
+      if (v !== undefined && typeof v !== 'string') throw new InputError(`expected a unit text such as "${key === 'q' ? 'mg/g' : 'mg/L'}"`, { path: sub(`K_unit.${key}`) });
     }
     kUnit = { q: raw.K_unit.q as string | undefined, c: raw.K_unit.c as string | undefined };
   }
-  const Kint = atPath(`${path}.K_unit`, () => freundlichKToInternal(K, exp, kUnit, molarMass as number | undefined));
+  const Kint = atPath(sub('K_unit'), () => freundlichKToInternal(K, exp, kUnit, molarMass as number | undefined));
   return { id, c0MgPerL: c0, K: Kint, oneOverN: exp };
+}
+
+/** Read a compound file (`calibrate --compound`): one component, c0 optional. @throws InputError naming the JSON path. */
+export function readCompoundFile(raw: unknown): FreundlichComponent {
+  if (isObject(raw)) onlyKeys(raw, COMPONENT_KEYS, '$');
+  return readComponent(raw, '$', false);
 }
 
 /** Read a mixture object. @throws InputError naming the JSON path. */
 export function readMixture(raw: unknown): ParsedMixture {
   if (!isObject(raw)) throw new InputError('expected a JSON object with "components"', { path: '$' });
+  onlyKeys(raw, MIXTURE_KEYS, '$');
+  if (raw.carbon !== undefined) {
+    if (!isObject(raw.carbon)) throw new InputError('expected "carbon" as an object { "particle_radius", "particle_density" }', { path: 'carbon' });
+    onlyKeys(raw.carbon, MIXTURE_CARBON_KEYS, 'carbon');
+  }
   const comps = raw.components;
   if (!Array.isArray(comps)) throw new InputError('expected "components" as an array', { path: 'components' });
   if (comps.length === 0) throw new InputError('expected at least one component; the mixture is empty', { path: 'components' });
-  const components = comps.map((c, i) => readComponent(c, `components[${i}]`, true));
+  const components = comps.map((c, i) => {
+    if (isObject(c)) onlyKeys(c, COMPONENT_KEYS, `components[${i}]`);
+    return readComponent(c, `components[${i}]`, true);
+  });
   const ids = new Set<string>();
   components.forEach((c, i) => {
     if (ids.has(c.id)) throw new InputError(`duplicate id "${c.id}"; every component needs its own id`, { path: `components[${i}].id` });
@@ -116,6 +142,8 @@ export function readMixture(raw: unknown): ParsedMixture {
   });
   const out: ParsedMixture = { components };
   if (raw.dose !== undefined) out.doseMgPerL = atPath('dose', () => parseDose(raw.dose));
+  const warnings = [...componentWarnings(components), ...(out.doseMgPerL !== undefined ? doseWarnings(out.doseMgPerL, 'the dose in the mixture file') : [])];
+  if (warnings.length) out.warnings = warnings;
   return out;
 }
 

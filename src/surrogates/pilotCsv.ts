@@ -18,7 +18,7 @@
  * @throws InputError naming file, row and column for every bad value.
  */
 import { InputError } from '../core/errors.js';
-import { readCsvTable, type CsvColumnSpec, type CsvHeaderRow } from '../tables/csvTable.js';
+import { readCsvTable, type CsvColumnSpec, type CsvHeaderRow, type CsvTable } from '../tables/csvTable.js';
 import { splitHeader } from '../units/parseQuantity.js';
 import type { PilotPair } from './pilotCheck.js';
 
@@ -64,7 +64,17 @@ function pilotColumns(header: CsvHeaderRow, knownCompoundIds?: readonly string[]
  * @param file file name for messages
  */
 export function parsePilotCsv(text: string, file?: string, knownCompoundIds?: readonly string[]): PilotData {
-  const table = readCsvTable(text, (header) => pilotColumns(header, knownCompoundIds), file);
+  return pilotFromTable(readCsvTable(text, pilotColumnSpecs(knownCompoundIds), file));
+}
+
+/** The column specs of a pilot table (a function of its header), for readers of other table files. */
+export function pilotColumnSpecs(knownCompoundIds?: readonly string[]): (header: CsvHeaderRow) => CsvColumnSpec[] {
+  return (header) => pilotColumns(header, knownCompoundIds);
+}
+
+/** Pilot pairs from a table read with `pilotColumnSpecs`. @throws InputError naming file, row and column */
+export function pilotFromTable(table: CsvTable): PilotData {
+  const file = table.file;
   const sample = table.columns.sample!; // required columns: the reader checked they are there
   const dose = table.columns.dose!;
   const uv = table.columns.uv!;

@@ -15,6 +15,11 @@
  * an error unless the column allows it (blank = not measured). Columns that match no declaration
  * are ignored (notes).
  *
+ * Spreadsheet exports are read as they come: `,` or `;` separators and `.` or `,` decimal marks
+ * (detected or given, see csvFormat.ts; a notice in `notes` says how a non-default table was
+ * read); gaps written as an empty cell, `n.a.` or `-` count as blank. An .xlsx sheet is read into
+ * the same rows by `readTableFile`.
+ *
  * Errors are InputError naming the file, the row (as a spreadsheet shows it: header = row 1,
  * blank and comment lines counted) and the column, and saying what was expected.
  */
@@ -22,6 +27,8 @@ import { parse } from 'csv-parse/sync';
 import { InputError } from '../core/errors.js';
 import { splitHeader } from '../units/parseQuantity.js';
 import { describeKind, normaliseUnitText, unitFactor, type UnitKind } from '../units/unitFactor.js';
+import { cleanName } from '../text/cleanText.js';
+import { detectDecimal, detectSeparator, formatNotice, isGap, parseNumberCell, type CsvFormat, type CsvFormatOptions, type DecimalMark } from './csvFormat.js';
 
 /** Quantity kinds a CSV column may hold: the unit kinds, UV absorbance (internal 1/m) and fractions (internal 0–1). */
 export type CsvKind = UnitKind | 'absorbance' | 'fraction';
@@ -68,8 +75,14 @@ export interface CsvColumn {
   values: number[];
   /** Cell text as written (trimmed), one per data row; '' where blank. */
   cells: string[];
-  /** True where the cell was blank (only possible when the spec allows it). */
+  /** True where the cell was blank or a gap mark such as "n.a." (only possible when the spec allows it). */
   blank: boolean[];
+}
+
+/** One row of cells as a spreadsheet holds it, with its spreadsheet row number. */
+export interface TableRecord {
+  cells: string[];
+  row: number;
 }
 
 export interface CsvTable {
@@ -79,6 +92,10 @@ export interface CsvTable {
   rowNumbers: number[];
   /** Recognised columns by key. */
   columns: Record<string, CsvColumn>;
+  /** How the table was read (separator and decimal mark). */
+  format?: CsvFormat;
+  /** Notices for the user (how a non-default table was read). */
+  notes?: string[];
 }
 
 const ABSORBANCE_FACTORS: Record<string, number> = { '1/m': 1, 'm^-1': 1, '/m': 1, '1/cm': 100, 'cm^-1': 100, '/cm': 100 };
@@ -116,41 +133,62 @@ interface FoundColumn { spec: CsvColumnSpec; index: number; header: string; unit
 
 /**
  * Parse CSV text into typed, unit-converted columns.
- * @param text  the CSV text (comma-separated; `#` starts a comment line)
- * @param specs the columns the caller understands (a list, or a function of the header row)
- * @param file  file name for messages
+ * @param text    the CSV text (`,` or `;` separated, `.` or `,` decimals; `#` starts a comment line)
+ * @param specs   the columns the caller understands (a list, or a function of the header row)
+ * @param file    file name for messages
+ * @param format  separator and decimal mark when given by the user (detected otherwise)
  * @throws InputError naming file, row and column
  */
-export function readCsvTable(text: string, specs: CsvColumnSpecs, file?: string): CsvTable {
-  const loc = (row?: number, column?: string): Location => ({ ...(file !== undefined ? { file } : {}), ...(row !== undefined ? { row } : {}), ...(column !== undefined ? { column } : {}) });
+export function readCsvTable(text: string, specs: CsvColumnSpecs, file?: string, format: CsvFormatOptions = {}): CsvTable {
+  const loc = (row?: number): Location => ({ ...(file !== undefined ? { file } : {}), ...(row !== undefined ? { row } : {}) });
+  const body = text.replace(/^\uFEFF/, '');
+  const { separator, detected: separatorDetected } = detectSeparator(body, format.separator);
   let records: Array<{ record: string[]; info: { lines: number } }>;
   try {
-    records = parse(text.replace(/^\uFEFF/, ''), { skip_empty_lines: true, trim: true, info: true, comment: '#', comment_no_infix: true, relax_quotes: false }) as unknown as Array<{ record: string[]; info: { lines: number } }>;
+    records = parse(body, { delimiter: separator, skip_empty_lines: true, trim: true, info: true, comment: '#', comment_no_infix: true, relax_quotes: false }) as unknown as Array<{ record: string[]; info: { lines: number } }>;
   } catch (e) {
     const err = e as Error & { lines?: number };
-    throw new InputError(`malformed CSV (${err.message.replace(/^Invalid Record Length: /, '')}); expected comma-separated values with the same number of cells in every row`, loc(err.lines));
+    const hint = separator === ',' && /\d,\d/.test(body) ? ' (numbers with decimal commas in a comma-separated file split into two cells: separate the cells with ";" or quote the numbers)' : '';
+    throw new InputError(`malformed CSV (${err.message.replace(/^Invalid Record Length: /, '')})${hint}; expected ${separator === ';' ? 'semicolon' : 'comma'}-separated values with the same number of cells in every row`, loc(err.lines));
   }
+  const rows: TableRecord[] = records.map((r) => ({ cells: r.record, row: r.info.lines }));
+  const { decimal, detected: decimalDetected } = detectDecimal(rows.slice(1).flatMap((r) => r.cells), format.decimal);
+  const table = readTableRecords(rows, specs, file, decimal);
+  table.format = { separator, decimal, separatorDetected, decimalDetected };
+  const notice = formatNotice(table.format, file);
+  table.notes = notice ? [notice] : [];
+  return table;
+}
+
+/**
+ * Read rows already split into cells (a parsed CSV, or an .xlsx sheet) into typed, unit-converted
+ * columns. @param decimal the decimal mark of number cells
+ * @throws InputError naming file, row and column
+ */
+export function readTableRecords(records: readonly TableRecord[], specs: CsvColumnSpecs, file?: string, decimal: DecimalMark = '.'): CsvTable {
+  const loc = (row?: number, column?: string): Location => ({ ...(file !== undefined ? { file } : {}), ...(row !== undefined ? { row } : {}), ...(column !== undefined ? { column } : {}) });
   const header = records[0];
   if (!header) {
     const wanted = typeof specs === 'function' ? '' : ` with ${specs.filter((s) => s.required).map((s) => `"${s.names[0]}"`).join(', ')} and units`;
     throw new InputError(`empty table; expected a header row${wanted}`, loc(1));
   }
-  const headerRow = header.info.lines;
+  const headerRow = header.row;
+  const headerCells = header.cells.map((c) => cleanName(c).trim());
   let columnSpecs: readonly CsvColumnSpec[];
   try {
-    columnSpecs = typeof specs === 'function' ? specs({ row: headerRow, cells: header.record }) : specs;
+    columnSpecs = typeof specs === 'function' ? specs({ row: headerRow, cells: headerCells }) : specs;
   } catch (e) {
     throw e instanceof InputError && file !== undefined ? e.at({ file }) : e;
   }
-  const found = findColumns(header.record, columnSpecs, (column) => loc(headerRow, column));
+  const found = findColumns(headerCells, columnSpecs, (column) => loc(headerRow, column));
   const columns: Record<string, CsvColumn> = {};
   for (const f of found.values()) columns[f.spec.key] = { key: f.spec.key, header: f.header, unit: f.unit, values: [], cells: [], blank: [] };
   const inSpecOrder = columnSpecs.flatMap((s) => found.get(s.key) ?? []);
   const rowNumbers: number[] = [];
   for (const rec of records.slice(1)) {
-    const row = rec.info.lines;
+    const row = rec.row;
     rowNumbers.push(row);
-    for (const f of inSpecOrder) readCell(rec.record[f.index] ?? '', f, columns[f.spec.key]!, loc(row, f.header));
+    for (const f of inSpecOrder) readCell(cleanName(rec.cells[f.index] ?? '').trim(), f, columns[f.spec.key]!, loc(row, f.header), decimal);
   }
   if (rowNumbers.length === 0) throw new InputError('no data rows; expected at least one row below the header', loc(headerRow + 1));
   const table: CsvTable = { rowNumbers, columns };
@@ -184,19 +222,24 @@ function findColumns(headers: readonly string[], specs: readonly CsvColumnSpec[]
 }
 
 /** Check one cell and append it to its column. @throws InputError at `where` */
-function readCell(cell: string, f: FoundColumn, col: CsvColumn, where: Location): void {
+function readCell(cell: string, f: FoundColumn, col: CsvColumn, where: Location, decimal: DecimalMark): void {
   const s = f.spec;
-  col.cells.push(cell);
-  col.blank.push(cell === '');
-  if (cell === '') {
-    if (!s.allowBlank) throw new InputError(`empty cell; expected ${s.kind === 'text' ? `the ${s.description}` : `a number in ${f.unit}`}`, where);
+  const gap = s.kind === 'text' ? cell === '' : isGap(cell);
+  col.cells.push(gap ? '' : cell);
+  col.blank.push(gap);
+  if (gap) {
+    if (!s.allowBlank) {
+      const what = cell === '' ? 'empty cell' : `"${cell}" marks a gap`;
+      throw new InputError(`${what}; expected ${s.kind === 'text' ? `the ${s.description}` : `a number in ${f.unit} (this table needs a value in every row: leave the row out instead)`}`, where);
+    }
     if (s.kind !== 'text') col.values.push(0);
     return;
   }
   if (s.kind === 'text') return;
-  const v = parseCell(cell);
-  if (v === undefined) throw new InputError(`"${cell}" is not a number; expected a number in ${f.unit} (the unit is given in the header)`, where);
-  const x = v * f.factor;
+  const parsed = parseNumberCell(cell, decimal);
+  if ('problem' in parsed) throw new InputError(`${parsed.problem}; expected a number in ${f.unit} (the unit is given in the header)`, where);
+  const x = parsed.value * f.factor;
+  if (!Number.isFinite(x)) throw new InputError(`"${cell}" ${f.unit} is outside the double range after conversion; expected a finite value`, where);
   const min = s.min ?? 0;
   const max = s.max ?? (s.kind === 'fraction' ? 1 : Infinity);
   if (x < min || x > max) throw new InputError(outOfRange(cell, f, min, max), where);
@@ -212,15 +255,6 @@ function outOfRange(cell: string, f: FoundColumn, min: number, max: number): str
   if (max === Infinity) return `${f.spec.description} ${cell} is below ${lo}${unit}; expected a value ≥ ${lo}${unit}`;
   const hi = inHeaderUnit(max);
   return `${f.spec.description} ${cell} is outside ${lo}${min < 0 ? ' … ' : '–'}${hi}${unit}; expected a value from ${lo} to ${hi}${unit}`;
-}
-
-const NUMBER = /^[-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?$/;
-
-/** A plain decimal number (no units, no thousands separators), or undefined. */
-function parseCell(cell: string): number | undefined {
-  if (!NUMBER.test(cell)) return undefined;
-  const v = Number(cell);
-  return Number.isFinite(v) ? v : undefined;
 }
 
 function exampleHeader(spec: CsvColumnSpec): string {

@@ -26,6 +26,8 @@ export function parseQuantity(value: unknown, kind: UnitKind, options: QuantityO
     unitText = defaultUnit;
     if (options.defaultUnit === undefined && Number.isFinite(value) && value > 0) return value; // already in the internal unit (factor 1)
   } else if (typeof value === 'string') {
+    const comma = /^\s*[-+]?\d+,\d+/.exec(value);
+    if (comma) throw new InputError(`"${value}" has a decimal comma; expected a decimal point, e.g. "${value.trim().replace(',', '.')}"`);
     const m = NUMBER_THEN_UNIT.exec(value);
     if (!m) throw new InputError(`expected a number with a unit, e.g. "20 mg/L", got "${value}"`);
     magnitude = Number(m[1]);

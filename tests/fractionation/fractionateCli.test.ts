@@ -51,7 +51,7 @@ describe('sorbshare fractionate', () => {
     ['a negative value', 'dose (mg/L),DOC0 (mg/L),DOC (mg/L)\n0,8,8\n-10,8,6\n', /row 3, column "dose \(mg\/L\)": negative value -10/],
     ['fewer points than parameters', 'dose (mg/L),DOC0 (mg/L),DOC (mg/L)\n0,8,8\n10,8,6\n20,8,5\n', /row 4, column "DOC \(mg\/L\)": only 2 rows with a carbon dose > 0 for 3 fitted parameters/],
     ['a dose-0 row that disagrees with DOC0', 'dose (mg/L),DOC0 (mg/L),DOC (mg/L)\n0,8,6.5\n10,8,6\n20,8,5\n40,8,4.5\n', /row 2, column "DOC \(mg\/L\)": at dose 0 the DOC \(6\.5 mg\/L\) disagrees with DOC0/],
-    ['a non-numeric cell', 'dose (mg/L),DOC0 (mg/L),DOC (mg/L)\n0,8,8\n10,8,n/a\n', /row 3, column "DOC \(mg\/L\)": "n\/a" is not a number/],
+    ['a gap (n/a) in an isotherm row', 'dose (mg/L),DOC0 (mg/L),DOC (mg/L)\n0,8,8\n10,8,n/a\n', /row 3, column "DOC \(mg\/L\)": "n\/a" marks a gap; expected a number in mg\/L \(this table needs a value in every row: leave the row out instead\)/],
   ];
   for (const [what, csv, message, extra] of bad) {
     it(`${what}: exit 2, file/row/column named, nothing on stdout, --out not written`, () => {

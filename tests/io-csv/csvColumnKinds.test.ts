@@ -85,7 +85,7 @@ describe('readCsvTable: blank cells', () => {
   });
 
   it('a blank cell where not allowed names the row as a spreadsheet counts it', () => {
-    expect(() => readCsvTable('# invented\nsample,UV254 reduction (%)\nP1,30\nP2,\n', PILOT, 'pilot.csv')).toThrow(/^pilot\.csv, row 4, column "UV254 reduction \(%\)": empty cell; expected a number in %$/);
+    expect(() => readCsvTable('# invented\nsample,UV254 reduction (%)\nP1,30\nP2,\n', PILOT, 'pilot.csv')).toThrow(/^pilot\.csv, row 4, column "UV254 reduction \(%\)": empty cell; expected a number in % \(this table needs a value in every row: leave the row out instead\)$/);
   });
 });
 

@@ -46,13 +46,28 @@ describe('loadProject', () => {
     try {
       const p = join(dir, 'site_series.csv');
       const lines = readFileSync(p, 'utf8').split('\n');
-      lines[5] = lines[5]!.replace(/,([\d.]+),/, ',n/a,'); // 6th line of the file
+      lines[5] = lines[5]!.replace(/,([\d.]+),/, ',7 mg,'); // 6th line of the file
       writeFileSync(p, lines.join('\n'));
       const e = errorOf(() => loadProject(join(dir, 'project.json')));
       expect(e.location.file).toBe(p);
       expect(e.location.row).toBe(6);
       expect(e.location.column).toBe('DOC (mg/L)');
-      expect(e.message).toMatch(/"n\/a" is not a number/);
+      expect(e.message).toMatch(/"7 mg" is not a number/);
+    } finally { rmSync(dir, { recursive: true, force: true }); }
+  });
+
+  it('a gap in the DOC series ("n.a." or "-") leaves the day out and counts it in the warnings', () => {
+    const dir = copyDemo();
+    try {
+      const p = join(dir, 'site_series.csv');
+      const lines = readFileSync(p, 'utf8').split('\n');
+      const days = lines.filter((l) => /^\d{4}-/.test(l)).length;
+      lines[5] = lines[5]!.replace(/,([\d.]+),/, ',n.a.,');
+      lines[7] = lines[7]!.replace(/,([\d.]+),/, ',-,');
+      writeFileSync(p, lines.join('\n'));
+      const input = loadProject(join(dir, 'project.json'));
+      expect(input.series!.dates.length).toBe(days - 2);
+      expect(input.provenance.notes!.join('\n')).toMatch(/2 day\(s\) with a gap .* left out \(rows 6, 8\)/);
     } finally { rmSync(dir, { recursive: true, force: true }); }
   });
 

@@ -2,10 +2,11 @@
 import type { CommandSpec } from '../commandSpec.js';
 import { InputError } from '../../core/errors.js';
 import type { CalibrationModel, CalibrationResult } from '../../calibration/calibrate.js';
-import { readComponent } from '../../scenario/readMixture.js';
-import { readJsonFile, readTextFile } from '../../io/readFiles.js';
+import { readCompoundFile } from '../../scenario/readMixture.js';
+import { readJsonFile } from '../../io/readFiles.js';
 import { fmt, fmtConc, table } from '../format.js';
 import { emitJson, inFile } from './shared.js';
+import { TABLE_FORMAT_OPTIONS, tableFormat } from './tableFormatOptions.js';
 import { nonEmptyText, positiveMassConcentration } from '../optionParsers.js';
 
 const MODELS: readonly CalibrationModel[] = ['ebc', 'sebc', 'fictive-k'];
@@ -21,6 +22,7 @@ export const calibrateCommand: CommandSpec = {
     { flags: '--doc <quantity>', description: 'site DOC of the jar tests, e.g. "8 mg/L" (scales C0_EBC to other DOC values)', parse: positiveMassConcentration },
     { flags: '--json', description: 'print JSON instead of text' },
     { flags: '--out <file>', description: 'also write the calibration (JSON) to FILE', parse: nonEmptyText },
+    ...TABLE_FORMAT_OPTIONS,
   ],
   examples: ['sorbshare calibrate jartests.csv --model ebc --compound carbamazepine.json --doc "8 mg/L"', 'sorbshare calibrate jartests.csv --model fictive-k --compound target.json --background background.json --json'],
   async action(args, opts, ctx) {
@@ -30,16 +32,19 @@ export const calibrateCommand: CommandSpec = {
     const model = opts.model as CalibrationModel;
     const docMgPerL = opts.doc as number | undefined;
     const compoundFile = opts.compound as string;
-    const compound = inFile(compoundFile, () => readComponent(readJsonFile(compoundFile, 'compound file'), '$', false));
+    const compound = inFile(compoundFile, () => readCompoundFile(readJsonFile(compoundFile, 'compound file')));
     if (!(compound.K > 0)) throw new InputError('expected an adsorbable target compound (K > 0)', { file: compoundFile, path: 'K' });
     let background: unknown;
     if (opts.background !== undefined) {
       const bgFile = opts.background as string;
       background = inFile(bgFile, () => readBackground(readJsonFile(bgFile, 'background file')));
     } else if (model === 'fictive-k') throw new InputError('model fictive-k needs --background FILE (the output of sorbshare fractionate)', { option: '--background' });
-    const text = readTextFile(file, 'jar-test file');
+    const { readTableFile } = await import('../../io/readTableFile.js');
+    const { JAR_TEST_COLUMNS } = await import('../../calibration/jarTestData.js');
+    const { table: text } = readTableFile(file, JAR_TEST_COLUMNS, 'jar-test file', tableFormat(opts));
+    for (const note of text.notes ?? []) ctx.err(`sorbshare: note: ${note}\n`);
     const result = inFile(file, () => calibrate(text, { model: model as CalibrationModel, compound, ...(background !== undefined ? { background } : {}), ...(docMgPerL !== undefined ? { docMgPerL } : {}), file }));
-    emitJson(result, opts, ctx, (out) => render(result, out));
+    emitJson(result, opts, ctx, (out) => render(result, out), [file, compoundFile, ...(opts.background !== undefined ? [String(opts.background)] : [])]);
   },
 };
 

@@ -24,6 +24,7 @@ export const doseCommand: CommandSpec = {
     if ((opts.removal === undefined) === (opts.limit === undefined)) throw new InputError('give exactly one of --removal PERCENT or --limit QUANTITY', { option: '--removal/--limit' });
     const goal: DoseGoal = opts.removal !== undefined ? { removal: opts.removal as number } : { limit: opts.limit as number };
     const mixture = inFile(file, () => readMixture(readJsonFile(file, 'mixture file')));
+    for (const w of mixture.warnings ?? []) ctx.err(`sorbshare: warning: ${w}\n`);
     const res = inFile(file, () => optionValue(() => doseFor(mixture, opts.target as string, goal)));
     if (opts.json) ctx.out(JSON.stringify(res, null, 2));
     else ctx.out([

@@ -23,6 +23,7 @@ export const equilibriumCommand: CommandSpec = {
   action(args, opts, ctx) {
     const file = args[0]!;
     const mixture = inFile(file, () => readMixture(readJsonFile(file, 'mixture file')));
+    for (const w of mixture.warnings ?? []) ctx.err(`sorbshare: warning: ${w}\n`);
     const sweep = opts.from !== undefined || opts.to !== undefined;
     if (sweep) {
       if (opts.dose !== undefined) throw new InputError('give either --dose or --from/--to, not both', { option: '--dose' });

@@ -2,10 +2,10 @@
 import type { CommandSpec } from '../commandSpec.js';
 import { InputError } from '../../core/errors.js';
 import type { FractionateResult } from '../../fractionation/fractionate.js';
-import { readTextFile } from '../../io/readFiles.js';
 import { fmt, table } from '../format.js';
 import { finiteNumber, nonEmptyText, positiveNumberList, wholeNumberOrAuto } from '../optionParsers.js';
 import { emitJson, inFile, optionValue } from './shared.js';
+import { TABLE_FORMAT_OPTIONS, tableFormat } from './tableFormatOptions.js';
 
 const OPTION_OF_PATH: Record<string, string> = { exponent: '--exponent', components: '--components', kGrid: '--k-grid' };
 
@@ -20,8 +20,9 @@ export const fractionateCommand: CommandSpec = {
     { flags: '--k-grid <list>', description: 'comma-separated K grid in (mg/g)/(mg/L)^(1/n), one per component, e.g. "10,30,100"', parse: positiveNumberList },
     { flags: '--json', description: 'print the background file (JSON) instead of text' },
     { flags: '--out <file>', description: 'also write the background file (JSON) to FILE', parse: nonEmptyText },
+    ...TABLE_FORMAT_OPTIONS,
   ],
-  examples: ['sorbshare fractionate isotherm.csv --out background.json', 'sorbshare fractionate isotherm.csv --components auto --json'],
+  examples: ['sorbshare fractionate isotherm.csv --out background.json', 'sorbshare fractionate lab.xlsx#Isotherm --separator ";" --decimal ","', 'sorbshare fractionate isotherm.csv --components auto --json'],
   async action(args, opts, ctx, given) {
     const { fractionate } = await import('../../fractionation/fractionate.js');
     const file = args[0]!;
@@ -29,9 +30,12 @@ export const fractionateCommand: CommandSpec = {
     const kGrid = opts.kGrid as number[] | undefined;
     // the grid sets the number of components unless --components is given
     const components = kGrid && !given.has('components') ? kGrid.length : (opts.components as number | 'auto');
-    const text = readTextFile(file, 'isotherm file');
+    const { readTableFile } = await import('../../io/readTableFile.js');
+    const { ISOTHERM_COLUMNS } = await import('../../fractionation/isothermData.js');
+    const { table: text } = readTableFile(file, ISOTHERM_COLUMNS, 'isotherm file', tableFormat(opts));
+    for (const note of text.notes ?? []) ctx.err(`sorbshare: note: ${note}\n`);
     const result = inFile(file, () => optionValue(() => fractionate(text, { exponent, components, fitK: Boolean(opts.fitK), ...(kGrid ? { kGrid } : {}), file }), OPTION_OF_PATH));
-    emitJson(result, opts, ctx, (out) => render(result, out));
+    emitJson(result, opts, ctx, (out) => render(result, out), [file]);
   },
 };
 

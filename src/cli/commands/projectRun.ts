@@ -11,6 +11,8 @@ import type { PipelineInput, PipelineResult, ProgressEvent } from '../../pipelin
 import { writeOutputDir } from '../../io/writeOutputs.js';
 import { reportPdf } from '../../io/reportPdf.js';
 import { resultsWorkbook } from '../../report/resultsWorkbook.js';
+import { checkOutputFolder } from '../../io/outputChecks.js';
+import { assertFiniteResult } from '../../scenario/finiteResult.js';
 import { VERSION } from '../../version.js';
 import { fmt, table } from '../format.js';
 
@@ -104,11 +106,13 @@ export function csvTables(texts: Record<string, string>): Record<string, string>
 
 /** Run, write and print. */
 export async function runAndWrite(input: PipelineInput, outDir: string, json: boolean, ctx: CommandContext, mc: { draws?: number; seed?: number } = {}, formats: { pdf?: boolean } = {}): Promise<void> {
+  checkOutputFolder(outDir, input.provenance.files.map((f) => f.resolved));
   const progress = progressPrinter(ctx);
   const bar = monteCarloProgress(ctx);
   const result = await runPipelineWithUncertainty(input, { ...mc, onProgress: progress.onProgress, onMonteCarloProgress: (d, t) => bar.update(d, t) });
   bar.finish();
   progress.done();
+  assertFiniteResult(result, result.project.carbons.map((c) => c.name));
   const texts = pipelineOutputs(result, { toolVersion: VERSION, nodeVersion: process.version, platform: `${process.platform}-${process.arch}` });
   // every output is made before anything is written (whole or nothing)
   const files: Record<string, string | Uint8Array> = { ...texts, 'results.xlsx': await resultsWorkbook(csvTables(texts), { created: new Date(result.generatedAt) }) };

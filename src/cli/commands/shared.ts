@@ -1,5 +1,6 @@
 import { InputError } from '../../core/errors.js';
 import { writeFileAtomic } from '../../io/writeOutputs.js';
+import { checkOutputFile } from '../../io/outputChecks.js';
 import type { CommandContext } from '../commandSpec.js';
 
 /** Run `f`; an InputError without a file gains `file`. */
@@ -31,10 +32,16 @@ export function optionValue<T>(f: () => T, options: Record<string, string> = DOS
   }
 }
 
-/** A JSON result: written whole to `--out` when given, printed as JSON or as `text(outPath)`. */
-export function emitJson(result: unknown, opts: Record<string, unknown>, ctx: CommandContext, text: (out: string | undefined) => string): void {
+/**
+ * A JSON result: written whole to `--out` when given (never over one of `inputs`), printed as
+ * JSON or as `text(outPath)`.
+ */
+export function emitJson(result: unknown, opts: Record<string, unknown>, ctx: CommandContext, text: (out: string | undefined) => string, inputs: readonly string[] = []): void {
   const json = JSON.stringify(result, null, 2);
   const out = opts.out === undefined ? undefined : String(opts.out);
-  if (out !== undefined) writeFileAtomic(out, json + '\n');
+  if (out !== undefined) {
+    checkOutputFile(out, inputs);
+    writeFileAtomic(out, json + '\n');
+  }
   ctx.out(opts.json ? json : text(out));
 }

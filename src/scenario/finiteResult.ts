@@ -1,0 +1,48 @@
+/**
+ * A result that holds a non-finite number (an overflow to Infinity, or NaN) must never reach a
+ * table or a report ("∞ t/a"): `assertFiniteResult` walks a result and throws ComputationError
+ * naming the first such value and the inputs behind it.
+ */
+import { ComputationError } from '../core/errors.js';
+
+/** The inputs that feed a result field, by a key on its path (first match wins). */
+const INPUTS_BEHIND: ReadonlyArray<[RegExp, (carbon: string) => string]> = [
+  [/carbonKg|KgPer/, () => 'site.flow (and the flows of the DOC series) with the dose'],
+  [/yearly|daily|Cost|cost/, (c) => `site.flow (and the flows of the DOC series), ${c}.price_per_kg`],
+  [/costPerM3/, (c) => `${c}.price_per_kg`],
+  [/gac/, (c) => `${c}.bed_density_kg_per_m3, ${c}.ebct_min, site.flow`],
+  [/dose|Dose/, () => 'the compounds\' K, one_over_n and c0, the goals and site.doc'],
+];
+
+/**
+ * Throw when `result` holds a non-finite number (the `project` and `provenance` fields are
+ * inputs and are skipped). @param carbonNames names of the carbons, to name `carbons[i]`
+ * @throws ComputationError naming the result field and the inputs behind it
+ */
+export function assertFiniteResult(result: unknown, carbonNames: readonly string[] = []): void {
+  const seen = new WeakSet<object>();
+  const walk = (v: unknown, path: string): void => {
+    if (typeof v === 'number') {
+      if (!Number.isFinite(v)) fail(v, path);
+      return;
+    }
+    if (v === null || typeof v !== 'object' || seen.has(v)) return;
+    seen.add(v);
+    if (Array.isArray(v) || ArrayBuffer.isView(v)) {
+      const a = v as unknown as ArrayLike<unknown>;
+      for (let i = 0; i < a.length; i++) walk(a[i], `${path}[${i}]`);
+      return;
+    }
+    for (const [k, x] of Object.entries(v)) {
+      if (k === 'project' || k === 'provenance') continue;
+      walk(x, path ? `${path}.${k}` : k);
+    }
+  };
+  const fail = (v: number, path: string): never => {
+    const m = /^carbons\[(\d+)\]/.exec(path);
+    const carbon = m ? `carbons[${m[1]}]${carbonNames[Number(m[1])] ? ` ("${carbonNames[Number(m[1])]}")` : ''}` : 'carbons[…]';
+    const behind = INPUTS_BEHIND.find(([re]) => re.test(path.replace(/^carbons\[\d+\]\.?/, '')))?.[1](carbon) ?? 'the magnitudes of the inputs';
+    throw new ComputationError(`the result ${path} would be ${Number.isNaN(v) ? 'not a number' : 'infinite'}; the inputs behind it are ${behind}: check their values and units (nothing was written)`);
+  };
+  walk(result, '');
+}

@@ -10,7 +10,7 @@
  */
 import { InputError } from '../core/errors.js';
 import { isObject } from '../scenario/readMixture.js';
-import { onlyKeys } from '../project/jsonChecks.js';
+import { onlyKeys } from '../scenario/jsonChecks.js';
 
 /** Valid keys of a background file (what `fractionate --json` writes), in one place. */
 export const BACKGROUND_KEYS = {

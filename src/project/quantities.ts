@@ -5,7 +5,7 @@
 import { InputError } from '../core/errors.js';
 import { parseQuantity } from '../units/parseQuantity.js';
 import { csvUnitFactor } from '../tables/csvTable.js';
-import { at, describeValue } from './jsonChecks.js';
+import { at, describeValue } from '../scenario/jsonChecks.js';
 
 /** `x` when positive; otherwise an InputError at `path` saying `what` was expected. */
 export function positive(x: number, path: string, what: string): number {

@@ -7,7 +7,7 @@ import { InputError } from '../core/errors.js';
 import type { FreundlichComponent } from '../equilibrium/preparedMixture.js';
 import { readComponent } from '../scenario/readMixture.js';
 import { parseQuantity } from '../units/parseQuantity.js';
-import { at, describeValue, expectNumber, expectObject, expectString, join, onlyKeys } from './jsonChecks.js';
+import { at, describeValue, expectNumber, expectObject, expectString, join, onlyKeys } from '../scenario/jsonChecks.js';
 import type { BackgroundSpec, CompoundSpec, SiteSpec } from './projectTypes.js';
 import { positive } from './quantities.js';
 

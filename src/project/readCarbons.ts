@@ -5,7 +5,7 @@
  */
 import { InputError } from '../core/errors.js';
 import { readComponent } from '../scenario/readMixture.js';
-import { expectArray, expectNumber, expectObject, expectString, join, onlyKeys, required, describeValue } from './jsonChecks.js';
+import { expectArray, expectNumber, expectObject, expectString, join, onlyKeys, required, describeValue } from '../scenario/jsonChecks.js';
 import type { CarbonIsotherm, CarbonSpec, CompoundSpec } from './projectTypes.js';
 
 export function readCarbons(raw: unknown, compounds: CompoundSpec[]): CarbonSpec[] {

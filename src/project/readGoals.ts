@@ -5,7 +5,7 @@
  */
 import { InputError } from '../core/errors.js';
 import { parseQuantity } from '../units/parseQuantity.js';
-import { at, expectArray, expectNumber, expectObject, expectString, join, onlyKeys, required } from './jsonChecks.js';
+import { at, expectArray, expectNumber, expectObject, expectString, join, onlyKeys, required } from '../scenario/jsonChecks.js';
 import { DEFAULT_REMOVAL_PERCENT, DEFAULT_SWEEP, type CompoundSpec, type GoalsSpec } from './projectTypes.js';
 import { positive, readLimit } from './quantities.js';
 

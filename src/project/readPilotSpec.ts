@@ -7,7 +7,7 @@
  * @throws InputError naming the JSON path and what was expected
  */
 import { InputError } from '../core/errors.js';
-import { expectNumber, expectObject, expectString, onlyKeys, required } from './jsonChecks.js';
+import { expectNumber, expectObject, expectString, onlyKeys, required } from '../scenario/jsonChecks.js';
 import { DEFAULT_PILOT_BAND_PERCENT, type CarbonSpec, type PilotSpec } from './projectTypes.js';
 
 export function readPilot(raw: unknown, carbons: readonly CarbonSpec[]): PilotSpec {

@@ -10,7 +10,7 @@
  * parameters with a 95 % interval use the fit instead of `fraction_rel_sd` / `background_K_rel_sd`.
  * @throws InputError naming the JSON path and what was expected
  */
-import { expectNumber, expectObject, onlyKeys } from './jsonChecks.js';
+import { expectNumber, expectObject, onlyKeys } from '../scenario/jsonChecks.js';
 import { DEFAULT_UNCERTAINTY, MAX_PROJECT_DRAWS, type UncertaintySpec } from './projectTypes.js';
 
 const REL_SD_KEYS: Array<[string, keyof UncertaintySpec, string]> = [

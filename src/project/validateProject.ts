@@ -9,7 +9,7 @@
 import { InputError } from '../core/errors.js';
 import { readComponent } from '../scenario/readMixture.js';
 import { parseQuantity } from '../units/parseQuantity.js';
-import { at, describeValue, expectArray, expectObject, expectString, onlyKeys, required } from './jsonChecks.js';
+import { at, describeValue, expectArray, expectObject, expectString, onlyKeys, required } from '../scenario/jsonChecks.js';
 import type { CalibrationModelName, CompoundSpec, ProjectCover, ProjectSpec, SiteSpec } from './projectTypes.js';
 import { positive, readAbsorbance, readLimit } from './quantities.js';
 import { readBackground } from './readBackgroundSpec.js';

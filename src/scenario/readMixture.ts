@@ -13,7 +13,7 @@ import type { FreundlichComponent } from '../equilibrium/preparedMixture.js';
 import { parseQuantity } from '../units/parseQuantity.js';
 import { freundlichKToInternal, type KUnit } from '../units/freundlichK.js';
 import { kindOfUnit } from '../units/unitFactor.js';
-import { onlyKeys } from '../project/jsonChecks.js';
+import { onlyKeys } from './jsonChecks.js';
 import { cleanName } from '../text/cleanText.js';
 import { componentWarnings, doseWarnings } from './plausibility.js';
 import { COMPONENT_KEYS, K_UNIT_KEYS, MIXTURE_CARBON_KEYS, MIXTURE_KEYS } from './mixtureKeys.js';

@@ -8,7 +8,7 @@ import { readdirSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { folderCycles, folderGraph, SRC } from './importGraph.js';
 
-const CORE = ['core', 'units', 'numerics', 'tables', 'equilibrium', 'design', 'fractionation', 'calibration', 'surrogates', 'gac', 'uncertainty', 'indicators', 'siteSeries'];
+const CORE = ['core', 'units', 'numerics', 'text', 'tables', 'equilibrium', 'design', 'fractionation', 'calibration', 'surrogates', 'gac', 'uncertainty', 'indicators', 'siteSeries'];
 const SCENARIO = ['scenario', 'project', 'api', 'checks'];
 const EDGE = ['io', 'output', 'outputFiles', 'report', 'pipeline', 'cli'];
 

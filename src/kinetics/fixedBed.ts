@@ -153,7 +153,8 @@ export function simulateFixedBed(input: FixedBedInput, options: FixedBedOptions)
       adsorbable: c.K > 0,
       trace: c.K > 0 && isTrace(c.c0MgPerL),
       cOverC0: cOverC0[i]!,
-      breakthrough: levels.map((l) => ({ cOverC0: l, bedVolumes: firstCrossing(curve, l) })),
+      // a non-adsorbable component arrives as a step after one pore volume, BV = ε (plug flow)
+      breakthrough: levels.map((l) => ({ cOverC0: l, bedVolumes: c.K === 0 ? (l <= 1 && toBv >= eps ? eps : null) : firstCrossing(curve, l) })),
       runAveragedRemoval: 1 - curveIntegral(curve, toBv) / toBv,
       massBalanceError: massErr[i]!,
     };

@@ -35,6 +35,8 @@ export interface FixedBedOptions {
   toBedVolumes: number;
   /** Output points, evenly spaced from 0 (default 201). */
   points?: number;
+  /** Output bed volumes instead (strictly increasing, > 0; the last one is the run length). */
+  outputBedVolumes?: readonly number[];
   /** Axial cells (default 30). */
   cells?: number;
   /** Interior collocation points in the grain (default 5). */
@@ -123,8 +125,11 @@ export function simulateFixedBed(input: FixedBedInput, options: FixedBedOptions)
       film: (3 * kf * ebct * c.c0MgPerL) / (R * rhoP * qRef), // Φ = 3·kf·EBCT·c0/(R·ρp·q_ref)
     };
   });
-  const bvs = Array.from({ length: points }, (_, k) => (toBv * k) / (points - 1));
-  const cOverC0 = comps.map(() => new Array<number>(points).fill(0));
+  const given = options.outputBedVolumes;
+  if (given) given.forEach((b, k) => { if (!(b > 0) || !Number.isFinite(b) || (k > 0 && !(b > given[k - 1]!))) throw new InputError(`expected strictly increasing output bed volumes > 0; value ${b} at index ${k}`, { path: `outputBedVolumes[${k}]` }); });
+  const bvs = given ? [0, ...given] : Array.from({ length: points }, (_, k) => (toBv * k) / (points - 1));
+  if (given && Math.abs(bvs[bvs.length - 1]! - toBv) > 1e-9 * toBv) throw new InputError('expected the last output bed volume to equal the run length', { path: 'outputBedVolumes' });
+  const cOverC0 = comps.map(() => new Array<number>(bvs.length).fill(0));
   const massErr = comps.map(() => 0);
   let stats: IntegratorStats = { steps: 0, rejectedSteps: 0, newtonIterations: 0, newtonFailures: 0, factorizations: 0, rhsEvaluations: 0, maxAcceptedError: 0 };
   const grid = { cells: options.cells ?? DEFAULT_FIXED_BED_GRID.cells, interiorPoints: options.interiorPoints ?? DEFAULT_FIXED_BED_GRID.interiorPoints };

@@ -5,7 +5,7 @@
  */
 import { Command, CommanderError, Option } from 'commander';
 import { ComputationError, InputError } from '../core/errors.js';
-import type { CommandContext } from '../cli/commandSpec.js';
+import { attributeName, fullDescription, longFlag, type CommandContext, type OptionSpec } from './commandSpec.js';
 import { COMMANDS } from './commands/index.js';
 import { VERSION } from '../version.js';
 
@@ -20,6 +20,30 @@ const defaultIO: RunIO = {
   stderr: (s) => process.stderr.write(s),
   isTTY: Boolean(process.stderr.isTTY),
 };
+
+/**
+ * commander's option from a spec: the spec's parser becomes the `argParser` (its InputError gains
+ * the option name), its choices commander's `choices`, and its default is parsed like a typed value.
+ */
+export function toCommanderOption(o: OptionSpec): Option {
+  const opt = new Option(o.flags, fullDescription(o));
+  const option = longFlag(o);
+  const what = /<([^>]+)>/.exec(o.flags)?.[1] ?? 'value'; // "--model <model>" → "model"
+  const parse = (text: string): unknown => {
+    if (o.choices && !o.choices.includes(text)) throw new InputError(`unknown ${what} ${JSON.stringify(text)}; expected one of ${o.choices.join(', ')}`, { option });
+    if (!o.parse) return text;
+    try {
+      return o.parse(text);
+    } catch (e) {
+      if (e instanceof InputError) throw new InputError(e.expected, { option });
+      throw e;
+    }
+  };
+  if (o.choices) opt.choices(o.choices); // listed in --help; the check itself is `parse` above
+  if (o.parse || o.choices) opt.argParser(parse);
+  if (o.default !== undefined) opt.default(parse(o.default), o.default);
+  return opt;
+}
 
 /** Run the CLI with `argv` (without node and script). Resolves to the exit code. */
 export async function runCli(argv: string[], io: RunIO = defaultIO): Promise<number> {
@@ -38,17 +62,17 @@ export async function runCli(argv: string[], io: RunIO = defaultIO): Promise<num
   for (const spec of COMMANDS) {
     const cmd = program.command(spec.name).description(spec.summary);
     for (const a of spec.args) cmd.argument(a);
-    for (const o of spec.options) {
-      const opt = new Option(o.flags, o.description);
-      if (o.default !== undefined) opt.default(o.default);
-      cmd.addOption(opt);
-    }
+    for (const o of spec.options) cmd.addOption(toCommanderOption(o));
     if (spec.examples?.length) cmd.addHelpText('after', `\nExamples:\n${spec.examples.map((e) => `  ${e}`).join('\n')}\n`);
     cmd.exitOverride();
     cmd.action(async (...params: unknown[]) => {
       const positional = params.slice(0, spec.args.length) as string[];
       const options = params[spec.args.length] as Record<string, unknown>;
-      await spec.action(positional, options, ctx);
+      const given = new Set(spec.options.map(attributeName).filter((k) => cmd.getOptionValueSource(k) === 'cli'));
+      for (const o of spec.options) {
+        if (o.required && options[attributeName(o)] === undefined) throw new InputError(`missing; expected ${o.description}`, { option: longFlag(o) });
+      }
+      await spec.action(positional, options, ctx, given);
     });
   }
   try {

@@ -35,19 +35,19 @@ export interface PreparedMixture {
 /** Validate and lay out a list of components. @throws InputError on invalid values. */
 export function prepareMixture(components: readonly FreundlichComponent[]): PreparedMixture {
   if (components.length === 0) throw new InputError('expected at least one component', { path: 'components' });
-  const seen = new Set<string>();
+  // plain loops and paths built only on error: this runs once per public-API call
+  const dup = duplicateIdIndex(components);
+  if (dup >= 0) throw new InputError(`duplicate id "${components[dup]!.id}"; every component needs its own id`, { path: `components[${dup}].id` });
   const active: number[] = [];
-  components.forEach((c, i) => {
-    const path = `components[${i}]`;
-    if (seen.has(c.id)) throw new InputError(`duplicate id "${c.id}"; every component needs its own id`, { path: `${path}.id` });
-    seen.add(c.id);
-    if (!(c.c0MgPerL >= 0) || !Number.isFinite(c.c0MgPerL)) throw new InputError(`expected a non-negative finite concentration, got ${c.c0MgPerL}`, { path: `${path}.c0` });
-    if (!(c.K >= 0) || !Number.isFinite(c.K)) throw new InputError(`expected K ≥ 0 (0 = non-adsorbable), got ${c.K}`, { path: `${path}.K` });
+  for (let i = 0; i < components.length; i++) {
+    const c = components[i]!;
+    if (!(c.c0MgPerL >= 0) || !Number.isFinite(c.c0MgPerL)) throw new InputError(`expected a non-negative finite concentration, got ${c.c0MgPerL}`, { path: `components[${i}].c0` });
+    if (!(c.K >= 0) || !Number.isFinite(c.K)) throw new InputError(`expected K ≥ 0 (0 = non-adsorbable), got ${c.K}`, { path: `components[${i}].K` });
     if (c.K > 0) {
-      if (!(c.oneOverN > 0) || !Number.isFinite(c.oneOverN)) throw new InputError(`expected an exponent one_over_n > 0, got ${c.oneOverN}`, { path: `${path}.one_over_n` });
+      if (!(c.oneOverN > 0) || !Number.isFinite(c.oneOverN)) throw new InputError(`expected an exponent one_over_n > 0, got ${c.oneOverN}`, { path: `components[${i}].one_over_n` });
       if (c.c0MgPerL > 0) active.push(i);
     }
-  });
+  }
   const m = active.length;
   const c0 = new Float64Array(m);
   const n = new Float64Array(m);
@@ -55,22 +55,46 @@ export function prepareMixture(components: readonly FreundlichComponent[]): Prep
   const lnK = new Float64Array(m);
   const a = new Float64Array(m);
   let cTotal = 0;
-  active.forEach((idx, j) => {
-    const comp = components[idx] as FreundlichComponent;
+  for (let j = 0; j < m; j++) {
+    const comp = components[active[j]!]!;
     c0[j] = comp.c0MgPerL;
     beta[j] = comp.oneOverN;
     n[j] = 1 / comp.oneOverN;
     lnK[j] = Math.log(comp.K);
     a[j] = n[j]! * (Math.log(comp.oneOverN) - lnK[j]!);
     cTotal += comp.c0MgPerL;
-  });
+  }
+  const ids = new Array<string>(components.length);
+  for (let i = 0; i < components.length; i++) ids[i] = components[i]!.id;
   return {
-    ids: components.map((c) => c.id),
+    ids,
     size: components.length,
-    active: Int32Array.from(active),
+    active: new Int32Array(active),
     c0, n, beta, lnK, a,
     cTotal,
     lnCTotal: Math.log(cTotal),
     source: components,
   };
+}
+
+/**
+ * Index of the first component whose id repeats an earlier one, or −1. Pairwise for small
+ * mixtures (a Set costs more than the comparisons below a few dozen components).
+ */
+export function duplicateIdIndex(components: readonly { id: string }[]): number {
+  const size = components.length;
+  if (size > 32) {
+    const seen = new Set<string>();
+    for (let i = 0; i < size; i++) {
+      const id = components[i]!.id;
+      if (seen.has(id)) return i;
+      seen.add(id);
+    }
+    return -1;
+  }
+  for (let i = 1; i < size; i++) {
+    const id = components[i]!.id;
+    for (let j = 0; j < i; j++) if (components[j]!.id === id) return i;
+  }
+  return -1;
 }

@@ -51,6 +51,7 @@ function requireMolarMass(m: number | undefined, unit: string): number {
  * @param molarMassGPerMol needed only when a unit is molar
  */
 export function freundlichKToInternal(K: number, oneOverN: number, unit: KUnit = {}, molarMassGPerMol?: number): number {
+  if (unit.q === undefined && unit.c === undefined) return K; // already (mg/g)/(mg/L)^(1/n): f_q = f_c = 1
   const fq = loadingFactorToMgPerG(unit.q ?? 'mg/g', molarMassGPerMol);
   const fc = concentrationFactorToMgPerL(unit.c ?? 'mg/L', molarMassGPerMol);
   return (K * fq) / Math.pow(fc, oneOverN); // Chen et al. 1999: K' = K · f_q / f_c^(1/n)

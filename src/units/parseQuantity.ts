@@ -24,6 +24,7 @@ export function parseQuantity(value: unknown, kind: UnitKind, options: QuantityO
   if (typeof value === 'number') {
     magnitude = value;
     unitText = defaultUnit;
+    if (options.defaultUnit === undefined && Number.isFinite(value) && value > 0) return value; // already in the internal unit (factor 1)
   } else if (typeof value === 'string') {
     const m = NUMBER_THEN_UNIT.exec(value);
     if (!m) throw new InputError(`expected a number with a unit, e.g. "20 mg/L", got "${value}"`);

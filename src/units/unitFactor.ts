@@ -95,17 +95,28 @@ export function roundSignificant15(x: number): number {
   return Number(x.toPrecision(15));
 }
 
-const cache = new Map<string, number>();
+/**
+ * Factors already looked up, one map per kind keyed by the unit text as written (no key is
+ * built per lookup: this sits on the path of every parsed quantity). Each starts with the
+ * internal unit itself.
+ */
+const cache: Record<UnitKind, Map<string, number>> = {
+  massConcentration: new Map([[INTERNAL_UNIT.massConcentration, 1]]),
+  massLoading: new Map([[INTERNAL_UNIT.massLoading, 1]]),
+  molarConcentration: new Map([[INTERNAL_UNIT.molarConcentration, 1]]),
+  molarLoading: new Map([[INTERNAL_UNIT.molarLoading, 1]]),
+  flow: new Map([[INTERNAL_UNIT.flow, 1]]),
+};
 
 /** Factor f such that value_in_unit · f = value in the internal unit of `kind`. */
 export function unitFactor(unitText: string, kind: UnitKind): number {
-  const key = `${kind}|${unitText}`;
-  const hit = cache.get(key);
+  const kindCache = cache[kind];
+  const hit = kindCache.get(unitText);
   if (hit !== undefined) return hit;
   const norm = normaliseUnitText(unitText);
   let factor = EXACT[kind][norm];
   if (factor === undefined) factor = mathjsFactor(norm, kind, unitText);
-  cache.set(key, factor);
+  kindCache.set(unitText, factor);
   return factor;
 }
 

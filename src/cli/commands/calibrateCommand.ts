@@ -3,49 +3,38 @@ import type { CommandSpec } from '../commandSpec.js';
 import { InputError } from '../../core/errors.js';
 import type { CalibrationModel, CalibrationResult } from '../../calibration/calibrate.js';
 import { readComponent } from '../../scenario/readMixture.js';
-import { parseQuantity } from '../../units/parseQuantity.js';
 import { readJsonFile, readTextFile } from '../../io/readFiles.js';
 import { fmt, fmtConc, table } from '../format.js';
 import { emitJson, inFile } from './shared.js';
+import { nonEmptyText, positiveMassConcentration } from '../optionParsers.js';
 
-const MODELS: CalibrationModel[] = ['ebc', 'sebc', 'fictive-k'];
+const MODELS: readonly CalibrationModel[] = ['ebc', 'sebc', 'fictive-k'];
 
 export const calibrateCommand: CommandSpec = {
   name: 'calibrate',
   args: ['<jartests>'],
   summary: 'Calibrate a competition model (EBC, simplified EBC, or fictive components with a K factor) to jar tests of one target in the site water',
   options: [
-    { flags: '--model <model>', description: 'ebc (K, 1/n and C0 of an equivalent background compound), sebc (C0 only) or fictive-k (K factor with --background)' },
-    { flags: '--compound <file>', description: 'compound file: { "id", "K", "one_over_n", "K_unit" } (required)' },
-    { flags: '--background <file>', description: 'background file from sorbshare fractionate (model fictive-k)' },
-    { flags: '--doc <quantity>', description: 'site DOC of the jar tests, e.g. "8 mg/L" (scales C0_EBC to other DOC values)' },
+    { flags: '--model <model>', description: 'ebc (K, 1/n and C0 of an equivalent background compound), sebc (C0 only) or fictive-k (K factor with --background)', choices: MODELS, required: true },
+    { flags: '--compound <file>', description: 'compound file: { "id", "K", "one_over_n", "K_unit" }', parse: nonEmptyText, required: true },
+    { flags: '--background <file>', description: 'background file from sorbshare fractionate (model fictive-k)', parse: nonEmptyText },
+    { flags: '--doc <quantity>', description: 'site DOC of the jar tests, e.g. "8 mg/L" (scales C0_EBC to other DOC values)', parse: positiveMassConcentration },
     { flags: '--json', description: 'print JSON instead of text' },
-    { flags: '--out <file>', description: 'also write the calibration (JSON) to FILE' },
+    { flags: '--out <file>', description: 'also write the calibration (JSON) to FILE', parse: nonEmptyText },
   ],
   examples: ['sorbshare calibrate jartests.csv --model ebc --compound carbamazepine.json --doc "8 mg/L"', 'sorbshare calibrate jartests.csv --model fictive-k --compound target.json --background background.json --json'],
   async action(args, opts, ctx) {
     const { calibrate } = await import('../../calibration/calibrate.js');
     const { readBackground } = await import('../../fractionation/backgroundFile.js');
     const file = args[0]!;
-    const model = opts.model as string | undefined;
-    if (model === undefined) throw new InputError(`missing --model; expected one of ${MODELS.join(', ')}`, { option: '--model' });
-    if (!MODELS.includes(model as CalibrationModel)) throw new InputError(`unknown model "${model}"; expected one of ${MODELS.join(', ')}`, { option: '--model' });
-    if (typeof opts.compound !== 'string' || opts.compound === '') throw new InputError('missing --compound; expected a compound file { "id", "K", "one_over_n" }', { option: '--compound' });
-    let docMgPerL: number | undefined;
-    if (opts.doc !== undefined) {
-      try {
-        docMgPerL = parseQuantity(String(opts.doc), 'massConcentration', { allowZero: false });
-      } catch (e) {
-        if (e instanceof InputError) throw new InputError(e.expected, { option: '--doc' });
-        throw e;
-      }
-    }
-    const compoundFile = opts.compound;
+    const model = opts.model as CalibrationModel;
+    const docMgPerL = opts.doc as number | undefined;
+    const compoundFile = opts.compound as string;
     const compound = inFile(compoundFile, () => readComponent(readJsonFile(compoundFile, 'compound file'), '$', false));
     if (!(compound.K > 0)) throw new InputError('expected an adsorbable target compound (K > 0)', { file: compoundFile, path: 'K' });
     let background: unknown;
     if (opts.background !== undefined) {
-      const bgFile = String(opts.background);
+      const bgFile = opts.background as string;
       background = inFile(bgFile, () => readBackground(readJsonFile(bgFile, 'background file')));
     } else if (model === 'fictive-k') throw new InputError('model fictive-k needs --background FILE (the output of sorbshare fractionate)', { option: '--background' });
     const text = readTextFile(file, 'jar-test file');

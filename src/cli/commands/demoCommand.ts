@@ -2,6 +2,7 @@
 import { fileURLToPath } from 'node:url';
 import type { CommandSpec } from '../commandSpec.js';
 import { MONTE_CARLO_OPTIONS, monteCarloOverrides } from './monteCarloOptions.js';
+import { nonEmptyText } from '../optionParsers.js';
 
 /** The demo project, three folders above this file in both src/ and dist/ layouts. */
 export function demoProjectPath(): string {
@@ -13,7 +14,7 @@ export const demoCommand: CommandSpec = {
   args: [],
   summary: 'The whole job on the built-in example plant (the invented Lindqvarn WWTP; all data invented)',
   options: [
-    { flags: '--out <dir>', description: 'output folder (written whole or not at all)', default: 'sorbshare-demo' },
+    { flags: '--out <dir>', description: 'output folder (written whole or not at all)', parse: nonEmptyText, default: 'sorbshare-demo' },
     { flags: '--json', description: 'print a JSON summary instead of text' },
     ...MONTE_CARLO_OPTIONS,
   ],
@@ -23,6 +24,6 @@ export const demoCommand: CommandSpec = {
     const { loadProject } = await import('../../project/loadProject.js');
     const { runAndWrite } = await import('./projectRun.js');
     const input = loadProject(demoProjectPath(), { demo: true });
-    await runAndWrite(input, String(opts.out), Boolean(opts.json), ctx, mc);
+    await runAndWrite(input, opts.out as string, Boolean(opts.json), ctx, mc);
   },
 };

@@ -5,6 +5,7 @@ import { doseFor, type DoseGoal } from '../../api/equilibriumApi.js';
 import { readJsonFile } from '../../io/readFiles.js';
 import { readMixture } from '../../scenario/readMixture.js';
 import { fmt } from '../format.js';
+import { finiteNumber, nonEmptyText, positiveMassConcentration } from '../optionParsers.js';
 import { inFile, optionValue } from './shared.js';
 
 export const doseCommand: CommandSpec = {
@@ -12,22 +13,16 @@ export const doseCommand: CommandSpec = {
   args: ['<mixture>'],
   summary: 'Carbon dose that meets a removal goal or an effluent limit for one component',
   options: [
-    { flags: '--target <id>', description: 'id of the component the goal applies to (required)' },
-    { flags: '--removal <percent>', description: 'removal goal in percent, e.g. 80' },
-    { flags: '--limit <quantity>', description: 'effluent limit, e.g. "50 ng/L"' },
+    { flags: '--target <id>', description: 'id of the component the goal applies to', parse: nonEmptyText, required: true },
+    { flags: '--removal <percent>', description: 'removal goal in percent, e.g. 80', parse: finiteNumber },
+    { flags: '--limit <quantity>', description: 'effluent limit, e.g. "50 ng/L"', parse: positiveMassConcentration },
     { flags: '--json', description: 'print JSON instead of text' },
   ],
   examples: ['sorbshare dose mixture.json --target T1 --removal 80', 'sorbshare dose mixture.json --target T1 --limit "50 ng/L" --json'],
   action(args, opts, ctx) {
     const file = args[0]!;
-    if (typeof opts.target !== 'string' || opts.target === '') throw new InputError('missing --target; expected the id of a component in the mixture', { option: '--target' });
     if ((opts.removal === undefined) === (opts.limit === undefined)) throw new InputError('give exactly one of --removal PERCENT or --limit QUANTITY', { option: '--removal/--limit' });
-    let goal: DoseGoal;
-    if (opts.removal !== undefined) {
-      const r = Number(opts.removal);
-      if (!Number.isFinite(r) || String(opts.removal).trim() === '') throw new InputError(`expected a percentage such as 80, got "${String(opts.removal)}"`, { option: '--removal' });
-      goal = { removal: r };
-    } else goal = { limit: String(opts.limit) };
+    const goal: DoseGoal = opts.removal !== undefined ? { removal: opts.removal as number } : { limit: opts.limit as number };
     const mixture = inFile(file, () => readMixture(readJsonFile(file, 'mixture file')));
     const res = inFile(file, () => optionValue(() => doseFor(mixture, opts.target as string, goal)));
     if (opts.json) ctx.out(JSON.stringify(res, null, 2));

@@ -5,6 +5,7 @@ import { equilibrium, equilibriumCurve, type EquilibriumResult } from '../../api
 import { readJsonFile } from '../../io/readFiles.js';
 import { readMixture } from '../../scenario/readMixture.js';
 import { fmt, fmtConc, table } from '../format.js';
+import { positiveMassConcentration, wholeNumber } from '../optionParsers.js';
 import { inFile, optionValue } from './shared.js';
 
 export const equilibriumCommand: CommandSpec = {
@@ -12,10 +13,10 @@ export const equilibriumCommand: CommandSpec = {
   args: ['<mixture>'],
   summary: 'Batch IAST equilibrium of a mixture file at one carbon dose or over a log-spaced dose sweep',
   options: [
-    { flags: '--dose <quantity>', description: 'carbon dose, e.g. "20 mg/L" (default: the dose in the mixture file)' },
-    { flags: '--from <quantity>', description: 'first dose of a sweep, e.g. "1 mg/L"' },
-    { flags: '--to <quantity>', description: 'last dose of a sweep, e.g. "100 mg/L"' },
-    { flags: '--points <n>', description: 'number of log-spaced doses in the sweep', default: '25' },
+    { flags: '--dose <quantity>', description: 'carbon dose, e.g. "20 mg/L" (default: the dose in the mixture file)', parse: positiveMassConcentration },
+    { flags: '--from <quantity>', description: 'first dose of a sweep, e.g. "1 mg/L"', parse: positiveMassConcentration },
+    { flags: '--to <quantity>', description: 'last dose of a sweep, e.g. "100 mg/L"', parse: positiveMassConcentration },
+    { flags: '--points <n>', description: 'number of log-spaced doses in the sweep', parse: wholeNumber(2, 100000), default: '25' },
     { flags: '--json', description: 'print JSON instead of a table' },
   ],
   examples: ['sorbshare equilibrium mixture.json --dose "15 mg/L"', 'sorbshare equilibrium mixture.json --from "1 mg/L" --to "100 mg/L" --points 30 --json'],
@@ -26,14 +27,12 @@ export const equilibriumCommand: CommandSpec = {
     if (sweep) {
       if (opts.dose !== undefined) throw new InputError('give either --dose or --from/--to, not both', { option: '--dose' });
       if (opts.from === undefined || opts.to === undefined) throw new InputError('a sweep needs both --from and --to', { option: opts.from === undefined ? '--from' : '--to' });
-      const points = Number(opts.points);
-      if (!Number.isInteger(points) || points < 2) throw new InputError(`expected a whole number ≥ 2, got "${String(opts.points)}"`, { option: '--points' });
-      const res = inFile(file, () => optionValue(() => equilibriumCurve(mixture, opts.from as string, opts.to as string, points)));
+      const res = inFile(file, () => optionValue(() => equilibriumCurve(mixture, opts.from as number, opts.to as number, opts.points as number)));
       if (opts.json) ctx.out(JSON.stringify(res, null, 2));
       else ctx.out(renderCurve(res.curve));
       return;
     }
-    const res = inFile(file, () => optionValue(() => equilibrium(mixture, opts.dose as string | undefined)));
+    const res = inFile(file, () => optionValue(() => equilibrium(mixture, opts.dose as number | undefined)));
     if (opts.json) ctx.out(JSON.stringify(res, null, 2));
     else ctx.out(renderOne(res));
   },

@@ -4,6 +4,7 @@ import { InputError } from '../../core/errors.js';
 import type { FractionateResult } from '../../fractionation/fractionate.js';
 import { readTextFile } from '../../io/readFiles.js';
 import { fmt, table } from '../format.js';
+import { finiteNumber, nonEmptyText, positiveNumberList, wholeNumberOrAuto } from '../optionParsers.js';
 import { emitJson, inFile, optionValue } from './shared.js';
 
 const OPTION_OF_PATH: Record<string, string> = { exponent: '--exponent', components: '--components', kGrid: '--k-grid' };
@@ -13,35 +14,21 @@ export const fractionateCommand: CommandSpec = {
   args: ['<isotherm>'],
   summary: 'Reduce a DOC (and UV254) batch isotherm to fictive components: non-adsorbable share plus adsorbable components (adsorption analysis, IAST)',
   options: [
-    { flags: '--exponent <value>', description: 'common Freundlich exponent 1/n of the fictive components (common practice 0.2)', default: '0.2' },
-    { flags: '--components <n>', description: 'number of adsorbable components, 1–5, or "auto" (AICc); default 3, or the length of --k-grid' },
+    { flags: '--exponent <value>', description: 'common Freundlich exponent 1/n of the fictive components (common practice 0.2)', parse: finiteNumber, default: '0.2' },
+    { flags: '--components <n>', description: 'number of adsorbable components, 1–5, or "auto" (AICc); with --k-grid alone, the length of the grid (common practice 3)', parse: wholeNumberOrAuto(1, 5), default: '3' },
     { flags: '--fit-k', description: 'fit the K values instead of keeping the grid' },
-    { flags: '--k-grid <list>', description: 'comma-separated K grid in (mg/g)/(mg/L)^(1/n), one per component, e.g. "10,30,100"' },
+    { flags: '--k-grid <list>', description: 'comma-separated K grid in (mg/g)/(mg/L)^(1/n), one per component, e.g. "10,30,100"', parse: positiveNumberList },
     { flags: '--json', description: 'print the background file (JSON) instead of text' },
-    { flags: '--out <file>', description: 'also write the background file (JSON) to FILE' },
+    { flags: '--out <file>', description: 'also write the background file (JSON) to FILE', parse: nonEmptyText },
   ],
   examples: ['sorbshare fractionate isotherm.csv --out background.json', 'sorbshare fractionate isotherm.csv --components auto --json'],
-  async action(args, opts, ctx) {
+  async action(args, opts, ctx, given) {
     const { fractionate } = await import('../../fractionation/fractionate.js');
     const file = args[0]!;
-    const exponent = Number(opts.exponent);
-    if (String(opts.exponent).trim() === '' || !Number.isFinite(exponent)) throw new InputError(`expected a number such as 0.2, got "${String(opts.exponent)}"`, { option: '--exponent' });
-    let components: number | 'auto' | undefined;
-    const rawComp = String(opts.components ?? '3').trim(); // default 3 (common practice), unless --k-grid sets it
-    if (rawComp === 'auto') components = 'auto';
-    else {
-      components = Number(rawComp);
-      if (!/^\d+$/.test(rawComp)) throw new InputError(`expected a whole number 1–5 or "auto", got "${rawComp}"`, { option: '--components' });
-    }
-    let kGrid: number[] | undefined;
-    if (opts.kGrid !== undefined) {
-      kGrid = String(opts.kGrid).split(/[,;\s]+/).filter((s) => s !== '').map((s) => {
-        const v = Number(s);
-        if (!Number.isFinite(v) || !(v > 0)) throw new InputError(`expected positive numbers separated by commas, got "${s}"`, { option: '--k-grid' });
-        return v;
-      });
-      if (opts.components === undefined) components = kGrid.length; // the grid sets M unless --components is given
-    }
+    const exponent = opts.exponent as number;
+    const kGrid = opts.kGrid as number[] | undefined;
+    // the grid sets the number of components unless --components is given
+    const components = kGrid && !given.has('components') ? kGrid.length : (opts.components as number | 'auto');
     const text = readTextFile(file, 'isotherm file');
     const result = inFile(file, () => optionValue(() => fractionate(text, { exponent, components, fitK: Boolean(opts.fitK), ...(kGrid ? { kGrid } : {}), file }), OPTION_OF_PATH));
     emitJson(result, opts, ctx, (out) => render(result, out));

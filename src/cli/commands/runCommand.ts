@@ -1,13 +1,14 @@
 /** `sorbshare run PROJECT.json [--out DIR] [--json]` — the whole job from a project file. */
 import type { CommandSpec } from '../commandSpec.js';
 import { MONTE_CARLO_OPTIONS, monteCarloOverrides } from './monteCarloOptions.js';
+import { nonEmptyText } from '../optionParsers.js';
 
 export const runCommand: CommandSpec = {
   name: 'run',
   args: ['<project>'],
   summary: 'The whole job from a project file: background, calibration, doses per compound and carbon, daily doses over the DOC series, indicator check, report',
   options: [
-    { flags: '--out <dir>', description: 'output folder (written whole or not at all)', default: 'sorbshare-output' },
+    { flags: '--out <dir>', description: 'output folder (written whole or not at all)', parse: nonEmptyText, default: 'sorbshare-output' },
     { flags: '--json', description: 'print a JSON summary instead of text' },
     ...MONTE_CARLO_OPTIONS,
   ],
@@ -17,6 +18,6 @@ export const runCommand: CommandSpec = {
     const { loadProject } = await import('../../project/loadProject.js');
     const { runAndWrite } = await import('./projectRun.js');
     const input = loadProject(args[0]!);
-    await runAndWrite(input, String(opts.out), Boolean(opts.json), ctx, mc);
+    await runAndWrite(input, opts.out as string, Boolean(opts.json), ctx, mc);
   },
 };

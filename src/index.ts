@@ -12,7 +12,11 @@ export * from './units/index.js';
 export { prepareMixture, type FreundlichComponent, type PreparedMixture } from './equilibrium/preparedMixture.js';
 export { solveBatchPrepared, type BatchSolution } from './equilibrium/iastBatch.js';
 export { directIastPrepared, type DirectSolution } from './equilibrium/iastDirect.js';
-export { doseForRemoval, MAX_DOSE_G_PER_L, MIN_DOSE_G_PER_L, type DoseResult } from './dose/doseSearch.js';
+export { doseForRemoval, MAX_DOSE_G_PER_L, MIN_DOSE_G_PER_L, type DoseResult } from './design/doseForRemoval.js';
+// ── design layer: the removal-at-dose model interface and the one dose search
+export { EquilibriumRemoval, equilibriumRemoval } from './design/equilibriumRemoval.js';
+export { searchDose, DEFAULT_DOSE_HINT_G_PER_L, type DoseSearchOutcome, type DoseSearchOptions, type DoseSearchStatus } from './design/doseSearch.js';
+export type { RemovalModel, RemovalModelFactory, CompetitionSet, WarmStart, RemainingAtDose, BackgroundAtDose } from './design/removalModel.js';
 export { readMixture, readComponent, parseConcentration, parseDose, type MixtureInput, type ComponentInput, type ParsedMixture } from './scenario/readMixture.js';
 export {
   equilibrium, equilibriumCurve, doseFor, loadingsAt, logSpacedDoses, goalToRemovalFraction, formatSolution,

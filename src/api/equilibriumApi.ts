@@ -6,7 +6,7 @@ import { InputError } from '../core/errors.js';
 import { prepareMixture, type FreundlichComponent, type PreparedMixture } from '../equilibrium/preparedMixture.js';
 import { solveBatchPrepared, type BatchSolution } from '../equilibrium/iastBatch.js';
 import { directIastPrepared } from '../equilibrium/iastDirect.js';
-import { doseForRemoval, MAX_DOSE_G_PER_L } from '../dose/doseSearch.js';
+import { doseForRemoval } from '../design/doseForRemoval.js';
 import { atPath, parseConcentration, parseDose, readComponent, readMixture, type MixtureInput, type ParsedMixture } from '../scenario/readMixture.js';
 
 export interface EquilibriumComponentResult {
@@ -122,7 +122,7 @@ export function doseFor(mixture: MixtureLike, targetId: string, goal: DoseGoal):
   const comp = parsed.components[idx]!;
   const R = goalToRemovalFraction(goal, comp.c0MgPerL, targetId);
   const pm = prepareMixture(parsed.components);
-  const r = doseForRemoval(pm, idx, R, MAX_DOSE_G_PER_L);
+  const r = doseForRemoval(pm, idx, R);
   return { target: targetId, dose_mg_per_L: r.doseGPerL * 1000, removal_fraction: r.removalFraction };
 }
 

@@ -59,3 +59,27 @@ export function nonEmptyText(text: string): string {
   if (text.trim() === '') throw new InputError('expected a non-empty value');
   return text;
 }
+
+/** A time with its unit such as "30 min", "2 h" or "3 d" (> 0), in seconds. */
+export function positiveTime(text: string): number {
+  if (!/[a-zA-Z]/.test(text)) throw new InputError(`expected a time with its unit such as "30 min", "2 h" or "3 d", got ${JSON.stringify(text)}`);
+  return parseQuantity(text, 'time', { allowZero: false });
+}
+
+/**
+ * Times such as "1,5,15,30,60 min" (one unit at the end for all) or "30 s, 2 min, 1 h", in seconds.
+ * Each must be positive; the order is checked by the model (increasing times).
+ */
+export function timeList(text: string): number[] {
+  const parts = text.split(/[,;]/).map((s) => s.trim()).filter((s) => s !== '');
+  if (parts.length === 0) throw new InputError('expected times such as "1,5,15,30,60 min", got nothing');
+  const unitOf = (s: string) => s.replace(/^[-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?\s*/, '');
+  const common = unitOf(parts[parts.length - 1]!);
+  if (common === '') throw new InputError(`expected times with a unit, e.g. "1,5,15,30,60 min", got ${JSON.stringify(text)}`);
+  return parts.map((s) => {
+    const withUnit = unitOf(s) === '' ? `${s} ${common}` : s;
+    const v = parseQuantity(withUnit, 'time', { allowNegative: true });
+    if (!(v > 0)) throw new InputError(`expected positive times, got "${s}" in ${JSON.stringify(text)}`);
+    return v;
+  });
+}

@@ -50,6 +50,12 @@ export interface IntegratorOptions {
   maxStep?: number;
   /** Most accepted + rejected steps (default 100 000). */
   maxSteps?: number;
+  /**
+   * Replay: step exactly onto these times (increasing, ending at the last output time) without
+   * error control, e.g. the `stepTimes` of an earlier run. Gives results that are smooth in the
+   * model's parameters, for difference quotients. A Newton failure then throws.
+   */
+  stepTimes?: readonly number[];
 }
 
 export interface IntegratorStats {
@@ -69,6 +75,8 @@ export interface IntegrationResult {
   /** The state at each output time (a copy). */
   states: Float64Array[];
   stats: IntegratorStats;
+  /** End time of every accepted step (for a replay). */
+  stepTimes: number[];
 }
 
 const GAMMA = 2 - Math.SQRT2;
@@ -140,6 +148,9 @@ export function integrateImplicit(
 
   const times: number[] = [];
   const states: Float64Array[] = [];
+  const stepTimes: number[] = [];
+  const replay = options.stepTimes;
+  let replayIdx = 0;
   let t = t0;
   let outIdx = 0;
   while (outIdx < outputTimes.length && outputTimes[outIdx]! <= t0) {
@@ -147,7 +158,7 @@ export function integrateImplicit(
     states.push(Float64Array.from(y));
     outIdx++;
   }
-  if (outIdx >= outputTimes.length) return { times, states, stats };
+  if (outIdx >= outputTimes.length) return { times, states, stats, stepTimes };
 
   if (!rhs(t, y, f0)) throw new ComputationError(`${what}: the derivative is not finite at the start (t = ${t})`);
   let h = options.initialStep ?? 0;
@@ -163,7 +174,11 @@ export function integrateImplicit(
   /** Simplified Newton for z − d·h·f(t_s, z) = rhsVec, starting at z. Returns false on failure. */
   const newton = (ts: number, z: Float64Array, fz: Float64Array, solve: NewtonSolve, dh: number): boolean => {
     let prevNorm = 0;
-    for (let it = 0; it < MAX_NEWTON; it++) {
+    // a replay solves each stage to 1e-4 of the tolerance, so that its result is smooth in the
+    // model's parameters; otherwise the usual rate test (Hairer & Wanner eq. 8.10)
+    const maxIt = replay ? 4 * MAX_NEWTON : MAX_NEWTON;
+    const done = replay ? 1e-4 : 0.03;
+    for (let it = 0; it < maxIt; it++) {
       if (!rhs(ts, z, fz)) return false;
       for (let i = 0; i < n; i++) delta[i] = rhsVec[i]! - z[i]! + dh * fz[i]!;
       solve(delta);
@@ -171,12 +186,12 @@ export function integrateImplicit(
       for (let i = 0; i < n; i++) z[i] = z[i]! + delta[i]!;
       const dn = norm(delta);
       if (!Number.isFinite(dn)) return false;
-      if (dn <= 1e-10) { return rhs(ts, z, fz); }
+      if (dn <= Math.min(1e-10, done)) { return rhs(ts, z, fz); }
       if (it > 0) {
         const rate = dn / prevNorm;
-        if (rate >= 0.9) return false;
-        if ((rate / (1 - rate)) * dn <= 0.03) return rhs(ts, z, fz); // Hairer & Wanner eq. 8.10
-      } else if (dn <= 1e-3) {
+        if (rate >= (replay ? 0.99 : 0.9)) return false;
+        if ((rate / (1 - rate)) * dn <= done) return rhs(ts, z, fz);
+      } else if (dn <= 1e-3 * done / 0.03) {
         return rhs(ts, z, fz);
       }
       prevNorm = dn;
@@ -192,7 +207,11 @@ export function integrateImplicit(
     const target = outputTimes[outIdx]!;
     let hStep = Math.min(h, maxStep);
     let hitsOutput = false;
-    if (t + hStep >= target || t + 1.05 * hStep >= target) { hStep = target - t; hitsOutput = true; }
+    if (replay) {
+      while (replayIdx < replay.length && !(replay[replayIdx]! > t)) replayIdx++;
+      hStep = Math.min(replay[replayIdx] ?? target, target) - t;
+      hitsOutput = t + hStep >= target;
+    } else if (t + hStep >= target || t + 1.05 * hStep >= target) { hStep = target - t; hitsOutput = true; }
     const hMin = hMinFloor * Math.max(Math.abs(t), Math.abs(target), 1e-300);
     if (!(hStep > hMin)) throw new ComputationError(`${what}: step size underflow at t = ${t} (h = ${hStep})`);
 
@@ -202,7 +221,7 @@ export function integrateImplicit(
     try {
       solve = system.factor(t, y, dh);
     } catch (e) {
-      if (e instanceof ComputationError) { h = hStep / 4; stats.rejectedSteps++; continue; }
+      if (e instanceof ComputationError && !replay) { h = hStep / 4; stats.rejectedSteps++; continue; }
       throw e;
     }
     setWeights(y, y);
@@ -217,6 +236,7 @@ export function integrateImplicit(
       }
       ok = newton(t + hStep, y1, f1, solve, dh);
     }
+    if (!ok && replay) throw new ComputationError(`${what}: Newton failure in a replayed step at t = ${t} (h = ${hStep})`);
     if (!ok) {
       stats.newtonFailures++;
       stats.rejectedSteps++;
@@ -228,17 +248,19 @@ export function integrateImplicit(
     setWeights(y, y1);
     const en = norm(err);
     if (!Number.isFinite(en)) {
+      if (replay) throw new ComputationError(`${what}: non-finite error estimate in a replayed step at t = ${t}`);
       stats.rejectedSteps++;
       h = hStep / 4;
       continue;
     }
     const factor = en === 0 ? 5 : Math.min(5, Math.max(0.2, 0.9 * Math.pow(en, -1 / 3)));
-    if (en > 1) {
+    if (en > 1 && !replay) {
       stats.rejectedSteps++;
       h = hStep * Math.min(0.9, factor);
       continue;
     }
     stats.steps++;
+    stepTimes.push(hitsOutput ? target : t + hStep);
     if (en > stats.maxAcceptedError) stats.maxAcceptedError = en;
     t = hitsOutput ? target : t + hStep;
     y.set(y1);
@@ -251,5 +273,5 @@ export function integrateImplicit(
       outIdx++;
     }
   }
-  return { times, states, stats };
+  return { times, states, stats, stepTimes };
 }

@@ -4,7 +4,7 @@
  * (src/dose/doseSearch.ts). Doses are mg/L at this layer (g/L inside the core).
  */
 import { InputError } from '../core/errors.js';
-import { doseForRemoval, MAX_DOSE_G_PER_L } from '../dose/doseSearch.js';
+import { doseForRemoval, MAX_DOSE_G_PER_L } from '../design/doseForRemoval.js';
 import { ComputationError } from '../core/errors.js';
 import { solveBatchPrepared } from '../equilibrium/iastBatch.js';
 import { prepareSystem, type CompoundSystem } from './competitionSystem.js';
@@ -53,7 +53,7 @@ export function compoundDose(sys: CompoundSystem, docMgPerL: number, goal: Compo
     // fall through to the full search, which words the message
   }
   try {
-    const r = doseForRemoval(pm, 0, goal.removalFraction, MAX_DOSE_G_PER_L);
+    const r = doseForRemoval(pm, 0, goal.removalFraction);
     return { compoundId: sys.compoundId, status: 'ok', doseMgPerL: r.doseGPerL * 1000, removalFraction: r.removalFraction };
   } catch (e) {
     if (e instanceof InputError && /not reached by any dose/.test(e.message)) {

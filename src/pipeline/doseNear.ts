@@ -9,7 +9,7 @@
  * 'below-min' when h ≥ 0 at the smallest; throws ComputationError if Brent fails.
  */
 import { brentRoot } from '../numerics/brent.js';
-import { MAX_DOSE_G_PER_L, MIN_DOSE_G_PER_L } from '../dose/doseSearch.js';
+import { MAX_DOSE_G_PER_L, MIN_DOSE_G_PER_L } from '../design/doseForRemoval.js';
 
 export interface DoseNearResult {
   status: 'ok' | 'unreachable' | 'below-min';

@@ -11,7 +11,7 @@
  */
 import { brentRoot } from '../numerics/brent.js';
 import { solveBatchPrepared } from '../equilibrium/iastBatch.js';
-import { MAX_DOSE_G_PER_L, MIN_DOSE_G_PER_L } from '../dose/doseSearch.js';
+import { MAX_DOSE_G_PER_L, MIN_DOSE_G_PER_L } from '../design/doseForRemoval.js';
 import type { PreparedMixture } from '../equilibrium/preparedMixture.js';
 import {
   admissibleRange, evaluateIndicatorSet, ruleViolation,

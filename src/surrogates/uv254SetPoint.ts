@@ -16,7 +16,7 @@ import { InputError } from '../core/errors.js';
 import { brentRoot } from '../numerics/brent.js';
 import type { FreundlichComponent } from '../equilibrium/preparedMixture.js';
 import { prepareMixture } from '../equilibrium/preparedMixture.js';
-import { doseForRemoval, MAX_DOSE_G_PER_L, MIN_DOSE_G_PER_L } from '../dose/doseSearch.js';
+import { doseForRemoval, MAX_DOSE_G_PER_L, MIN_DOSE_G_PER_L } from '../design/doseForRemoval.js';
 import { backgroundSurrogatesAt, checkAbsorbances, type SurrogateModel } from './surrogateCurve.js';
 
 export interface SetPointGoal {

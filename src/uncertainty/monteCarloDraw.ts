@@ -13,7 +13,7 @@
 import { ComputationError, InputError } from '../core/errors.js';
 import { prepareMixture, type FreundlichComponent } from '../equilibrium/preparedMixture.js';
 import { solveBatchPrepared } from '../equilibrium/iastBatch.js';
-import { doseForRemoval } from '../dose/doseSearch.js';
+import { doseForRemoval } from '../design/doseForRemoval.js';
 import { cholesky, lognormalFromZ, lognormalSigma, multivariateNormalDeviation, NormalSampler } from './distributions.js';
 import { chunkRng } from './prng.js';
 import { targetGoal, validateMonteCarloProblem, type MonteCarloProblem } from './monteCarloProblem.js';

@@ -6,7 +6,7 @@ import { spawnSync } from 'node:child_process';
 import { join } from 'node:path';
 import { prepareMixture, type FreundlichComponent } from '../../src/equilibrium/preparedMixture.js';
 import { solveBatchPrepared } from '../../src/equilibrium/iastBatch.js';
-import { doseForRemoval } from '../../src/dose/doseSearch.js';
+import { doseForRemoval } from '../../src/design/doseForRemoval.js';
 import { equilibrium } from '../../src/index.js';
 import type { BenchFigure } from './run.js';
 

@@ -7,10 +7,12 @@ import { calibrateCommand } from './calibrateCommand.js';
 import { runCommand } from './runCommand.js';
 import { demoCommand } from './demoCommand.js';
 import { checkCommand } from './checkCommand.js';
+import { contactCommand } from './contactCommand.js';
 
 export const COMMANDS: CommandSpec[] = [
   equilibriumCommand,
   doseCommand,
+  contactCommand,
   fractionateCommand,
   calibrateCommand,
   runCommand,

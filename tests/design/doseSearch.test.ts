@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { prepareMixture, type FreundlichComponent } from '../../src/equilibrium/preparedMixture.js';
 import { solveBatchPrepared } from '../../src/equilibrium/iastBatch.js';
-import { doseForRemoval } from '../../src/dose/doseSearch.js';
+import { doseForRemoval } from '../../src/design/doseForRemoval.js';
 import { doseFor, equilibrium, equilibriumCurve, loadingsAt } from '../../src/api/equilibriumApi.js';
 import { bisectIncreasing } from '../helpers/reference.js';
 

@@ -83,3 +83,28 @@ export function timeList(text: string): number[] {
     return v;
   });
 }
+
+/** A length with its unit such as "2 m", "1.2 mm" or "0.5 mm" (> 0), in metres. */
+export function positiveLength(text: string): number {
+  if (!/[a-zA-Z]/.test(text)) throw new InputError(`expected a length with its unit such as "2 m" or "0.5 mm", got ${JSON.stringify(text)}`);
+  return parseQuantity(text, 'length', { allowZero: false });
+}
+
+/** A density with its unit such as "750 kg/m3" (> 0), in kg/m³ (= g/L). */
+export function positiveDensity(text: string): number {
+  if (!/[a-zA-Z]/.test(text)) throw new InputError(`expected a density with its unit such as "750 kg/m3", got ${JSON.stringify(text)}`);
+  return parseQuantity(text, 'density', { allowZero: false });
+}
+
+/** A diffusivity with its unit such as "1e-14 m2/s" (> 0), in m²/s. */
+export function positiveDiffusivity(text: string): number {
+  if (!/[a-zA-Z]/.test(text)) throw new InputError(`expected a diffusivity with its unit such as "1e-14 m2/s", got ${JSON.stringify(text)}`);
+  return parseQuantity(text, 'diffusivity', { allowZero: false });
+}
+
+/** A positive finite number such as 100000. */
+export function positiveNumber(text: string): number {
+  const v = finiteNumber(text);
+  if (!(v > 0)) throw new InputError(`expected a number > 0, got ${JSON.stringify(text)}`);
+  return v;
+}

@@ -33,7 +33,7 @@ import { integrateImplicit, type IntegratorStats } from './implicitIntegrator.js
 export interface FixedBedOptions {
   /** Length of the run, bed volumes. */
   toBedVolumes: number;
-  /** Output points, evenly spaced from 0 (default 201). */
+  /** Output points, evenly spaced from 0 (default 201), plus 30 log-spaced points from 1 BV up to the first of them (early fronts). */
   points?: number;
   /** Output bed volumes instead (strictly increasing, > 0; the last one is the run length). */
   outputBedVolumes?: readonly number[];
@@ -127,7 +127,7 @@ export function simulateFixedBed(input: FixedBedInput, options: FixedBedOptions)
   });
   const given = options.outputBedVolumes;
   if (given) given.forEach((b, k) => { if (!(b > 0) || !Number.isFinite(b) || (k > 0 && !(b > given[k - 1]!))) throw new InputError(`expected strictly increasing output bed volumes > 0; value ${b} at index ${k}`, { path: `outputBedVolumes[${k}]` }); });
-  const bvs = given ? [0, ...given] : Array.from({ length: points }, (_, k) => (toBv * k) / (points - 1));
+  const bvs = given ? [0, ...given] : outputGrid(toBv, points);
   if (given && Math.abs(bvs[bvs.length - 1]! - toBv) > 1e-9 * toBv) throw new InputError('expected the last output bed volume to equal the run length', { path: 'outputBedVolumes' });
   const cOverC0 = comps.map(() => new Array<number>(bvs.length).fill(0));
   const massErr = comps.map(() => 0);
@@ -160,7 +160,8 @@ export function simulateFixedBed(input: FixedBedInput, options: FixedBedOptions)
       cOverC0: cOverC0[i]!,
       // a non-adsorbable component arrives as a step after one pore volume, BV = ε (plug flow)
       breakthrough: levels.map((l) => ({ cOverC0: l, bedVolumes: c.K === 0 ? (l <= 1 && toBv >= eps ? eps : null) : firstCrossing(curve, l) })),
-      runAveragedRemoval: 1 - curveIntegral(curve, toBv) / toBv,
+      // non-adsorbable: removed only while the first pore volume fills (exact for the step at BV = ε)
+      runAveragedRemoval: c.K === 0 ? Math.min(eps, toBv) / toBv : 1 - curveIntegral(curve, toBv) / toBv,
       massBalanceError: massErr[i]!,
     };
     const g = goals[c.id];
@@ -191,4 +192,13 @@ export function simulateFixedBed(input: FixedBedInput, options: FixedBedOptions)
     result.uv254 = { uv0PerM: uv0, ratio: bvs.map((_, k) => uvIdx.reduce((s, i) => s + comps[i]!.uv254PerMgPerL! * comps[i]!.c0MgPerL * cOverC0[i]![k]!, 0) / uv0) };
   }
   return result;
+}
+
+/** Evenly spaced bed volumes from 0 to `toBv`, with 30 log-spaced ones from 1 BV below the first step. */
+function outputGrid(toBv: number, points: number): number[] {
+  const even = Array.from({ length: points }, (_, k) => (toBv * k) / (points - 1));
+  const first = even[1]!;
+  if (!(first > 2)) return even;
+  const early = Array.from({ length: 30 }, (_, k) => Math.exp((Math.log(first) * k) / 30)); // 1 BV … first
+  return [0, ...early, ...even.slice(1)];
 }

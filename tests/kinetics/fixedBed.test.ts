@@ -25,7 +25,7 @@ describe('fixed bed: linear isotherm against the analytic solution', () => {
     let worst = 0;
     r.bedVolumes.forEach((bv, k) => { if (bv > 0) worst = Math.max(worst, Math.abs(r.components[0]!.cOverC0[k]! - rosenBreakthrough(ref, bv))); });
     expect(worst).toBeLessThan(0.01);
-    expect(r.components[0]!.cOverC0[60]).toBeGreaterThan(0.999); // the run covers the whole curve
+    expect(r.components[0]!.cOverC0.at(-1)!).toBeGreaterThan(0.999); // the run covers the whole curve
     expect(r.massBalanceError).toBeLessThan(1e-10);
   });
 });
@@ -37,8 +37,9 @@ describe('fixed bed: mass balances', () => {
     const expected = BED.porosity + (BED.particleDensityKgPerM3 * (1 - BED.porosity) * comp.K * Math.pow(comp.c0MgPerL, comp.oneOverN)) / comp.c0MgPerL;
     const r = simulateFixedBed({ components: [comp], bed: BED }, { toBedVolumes: 2.5 * expected, points: 1001 });
     const c = r.components[0]!;
-    expect(c.cOverC0[1000]).toBeGreaterThan(0.9999);
-    const area = r.bedVolumes[1000]! - curveIntegral({ bedVolumes: r.bedVolumes, cOverC0: c.cOverC0 }, r.bedVolumes[1000]!);
+    const end = r.bedVolumes.at(-1)!;
+    expect(c.cOverC0.at(-1)!).toBeGreaterThan(0.9999);
+    const area = end - curveIntegral({ bedVolumes: r.bedVolumes, cOverC0: c.cOverC0 }, end);
     expect(Math.abs(area - expected) / expected).toBeLessThan(1e-3);
     expect(r.massBalanceError).toBeLessThan(1e-5);
   });

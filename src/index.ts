@@ -63,3 +63,4 @@ export { gacCarbonUse, type CarbonUseInput, type CarbonUse } from './kinetics/st
 export { ebctRatio, smallColumnEbctMin, largeBedEbctMin, largeGrainDs, scalingExponent, type ColumnScale, type DiffusivityScaling } from './kinetics/smallColumnScaling.js';
 export { fitColumn, type ColumnFitInput, type ColumnFitResult, type ColumnFitRow } from './calibration/columnFit.js';
 export { readBreakthroughData, BREAKTHROUGH_COLUMNS, MAX_DATA_C_OVER_C0, type BreakthroughData } from './calibration/breakthroughData.js';
+export { staggeredRun, type StaggeredRunInput, type StaggeredRun } from './kinetics/staggeredFiltersRun.js';

@@ -139,3 +139,22 @@ describe('film coefficient (Wilson & Geankoplis 1966) and water properties', () 
     expect(() => wilsonGeankoplisKf({ ...inp, porosity: 1 })).toThrow(InputError);
   });
 });
+
+describe('staggered run against every goal', () => {
+  it('the run is the shortest of the compound and indicator run lengths, and names what governs it', async () => {
+    const { staggeredRun } = await import('../../src/kinetics/staggeredFiltersRun.js');
+    const curves = { a: logisticCurve(30000), b: logisticCurve(25000), c: logisticCurve(35000), d: logisticCurve(28000), e: logisticCurve(15000), f: logisticCurve(20000) };
+    const substances = [{ id: 'a', category: 1 as const }, { id: 'b', category: 1 as const }, { id: 'c', category: 1 as const }, { id: 'd', category: 1 as const }, { id: 'e', category: 2 as const }, { id: 'f', category: 2 as const }];
+    const r = staggeredRun({ curves, goals: { b: 0.2, c: 0.2 }, indicator: { substances, goalPercent: 80 }, filters: 3 });
+    const lb = runLengthForCompound(curves.b, 3, 0.2).bedVolumes!;
+    const ind = runLengthForIndicators(substances.map((s) => ({ ...s, curve: curves[s.id as keyof typeof curves] })), 3, 80).bedVolumes!;
+    expect(r.runBedVolumes).toBe(Math.min(lb, ind));
+    expect(r.governedBy).toBe(lb < ind ? 'b' : 'indicator mean');
+    expect(r.compounds.map((c) => c.id)).toEqual(['b', 'c']);
+    const only = staggeredRun({ curves, goals: { e: 0.2 }, filters: 2 });
+    expect(only.governedBy).toBe('e');
+    expect(only.runBedVolumes).toBe(runLengthForCompound(curves.e, 2, 0.2).bedVolumes);
+    expect(() => staggeredRun({ curves, goals: { z: 0.2 }, filters: 2 })).toThrow(/no breakthrough curve for "z"/);
+    expect(() => staggeredRun({ curves, goals: {}, filters: 2 })).toThrow(InputError);
+  });
+});

@@ -64,3 +64,17 @@ export * from './surrogates/index.js';
 export { readPilotCsv } from './io/readPilotCsv.js';
 export * from './gac/index.js';
 export * from './uncertainty/index.js';
+
+// ── GAC fixed bed, staggered filters, column calibration and scale-up (capabilities 18, 19)
+export { simulateFixedBed, DEFAULT_BREAKTHROUGH_LEVELS, DEFAULT_FIXED_BED_GRID, type FixedBedOptions, type FixedBedResult, type FixedBedComponentResult, type BreakthroughPoint } from './kinetics/fixedBed.js';
+export { DEFAULT_BED_POROSITY, filmCoefficients, type FixedBedComponent, type FixedBedSpec, type FixedBedInput, type ComponentFilm } from './kinetics/fixedBedInput.js';
+export { column, type ColumnMixture, type ColumnOptions, type ColumnJson } from './kinetics/fixedBedApi.js';
+export { wilsonGeankoplisKf, WILSON_GEANKOPLIS_RE_RANGE, type FilmInput, type FilmCoefficient } from './kinetics/filmCorrelation.js';
+export { waterProperties, DEFAULT_WATER_TEMPERATURE_C, type WaterProperties } from './kinetics/waterProperties.js';
+export { curveAt, curveIntegral, firstCrossing, type BreakthroughCurve } from './kinetics/breakthroughCurve.js';
+export { filterAges, blendedOutlet, blendOverCycle, worstBlend, runAveragedRemoval, runLengthForCompound, runLengthForIndicators, worstIndicatorMean, allowedCOverC0, PHASES_PER_CYCLE, type RunLength, type IndicatorCurve } from './kinetics/staggeredFilters.js';
+export { gacCarbonUse, type CarbonUseInput, type CarbonUse } from './kinetics/staggeredFiltersCarbon.js';
+export { ebctRatio, smallColumnEbctMin, largeBedEbctMin, largeGrainDs, scalingExponent, type ColumnScale, type DiffusivityScaling } from './kinetics/smallColumnScaling.js';
+export { fitColumn, type ColumnFitInput, type ColumnFitResult, type ColumnFitRow } from './calibration/columnFit.js';
+export { readBreakthroughData, BREAKTHROUGH_COLUMNS, MAX_DATA_C_OVER_C0, type BreakthroughData } from './calibration/breakthroughData.js';
+export { staggeredRun, type StaggeredRunInput, type StaggeredRun } from './kinetics/staggeredFiltersRun.js';

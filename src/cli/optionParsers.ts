@@ -59,3 +59,52 @@ export function nonEmptyText(text: string): string {
   if (text.trim() === '') throw new InputError('expected a non-empty value');
   return text;
 }
+
+/** A time with its unit such as "30 min", "2 h" or "3 d" (> 0), in seconds. */
+export function positiveTime(text: string): number {
+  if (!/[a-zA-Z]/.test(text)) throw new InputError(`expected a time with its unit such as "30 min", "2 h" or "3 d", got ${JSON.stringify(text)}`);
+  return parseQuantity(text, 'time', { allowZero: false });
+}
+
+/**
+ * Times such as "1,5,15,30,60 min" (one unit at the end for all) or "30 s, 2 min, 1 h", in seconds.
+ * Each must be positive; the order is checked by the model (increasing times).
+ */
+export function timeList(text: string): number[] {
+  const parts = text.split(/[,;]/).map((s) => s.trim()).filter((s) => s !== '');
+  if (parts.length === 0) throw new InputError('expected times such as "1,5,15,30,60 min", got nothing');
+  const unitOf = (s: string) => s.replace(/^[-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?\s*/, '');
+  const common = unitOf(parts[parts.length - 1]!);
+  if (common === '') throw new InputError(`expected times with a unit, e.g. "1,5,15,30,60 min", got ${JSON.stringify(text)}`);
+  return parts.map((s) => {
+    const withUnit = unitOf(s) === '' ? `${s} ${common}` : s;
+    const v = parseQuantity(withUnit, 'time', { allowNegative: true });
+    if (!(v > 0)) throw new InputError(`expected positive times, got "${s}" in ${JSON.stringify(text)}`);
+    return v;
+  });
+}
+
+/** A length with its unit such as "2 m", "1.2 mm" or "0.5 mm" (> 0), in metres. */
+export function positiveLength(text: string): number {
+  if (!/[a-zA-Z]/.test(text)) throw new InputError(`expected a length with its unit such as "2 m" or "0.5 mm", got ${JSON.stringify(text)}`);
+  return parseQuantity(text, 'length', { allowZero: false });
+}
+
+/** A density with its unit such as "750 kg/m3" (> 0), in kg/m³ (= g/L). */
+export function positiveDensity(text: string): number {
+  if (!/[a-zA-Z]/.test(text)) throw new InputError(`expected a density with its unit such as "750 kg/m3", got ${JSON.stringify(text)}`);
+  return parseQuantity(text, 'density', { allowZero: false });
+}
+
+/** A diffusivity with its unit such as "1e-14 m2/s" (> 0), in m²/s. */
+export function positiveDiffusivity(text: string): number {
+  if (!/[a-zA-Z]/.test(text)) throw new InputError(`expected a diffusivity with its unit such as "1e-14 m2/s", got ${JSON.stringify(text)}`);
+  return parseQuantity(text, 'diffusivity', { allowZero: false });
+}
+
+/** A positive finite number such as 100000. */
+export function positiveNumber(text: string): number {
+  const v = finiteNumber(text);
+  if (!(v > 0)) throw new InputError(`expected a number > 0, got ${JSON.stringify(text)}`);
+  return v;
+}

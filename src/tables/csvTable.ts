@@ -270,5 +270,10 @@ function exampleUnit(kind: CsvKind): string {
     case 'molarConcentration': return 'umol/L';
     case 'molarLoading': return 'mmol/g';
     case 'flow': return 'm3/d';
+    case 'time': return 'min';
+    case 'length': return 'um';
+    case 'density': return 'kg/m3';
+    case 'diffusivity': return 'm2/s';
+    case 'velocity': return 'm/s';
   }
 }

@@ -7,6 +7,8 @@
  *   molar concentration:                mmol/L
  *   molar loading:                      mmol/g
  *   flow:                               m³/d
+ *   kinetics (PAC and GAC models):      time s, length m, density kg/m³ (= g/L),
+ *                                       diffusivity m²/s, velocity m/s
  *   specific carbon dose:               mg PAC per mg DOC is dimensionless and not handled here
  *
  * Common units are answered from a table of exact SI definitions (1 ng = 1e-9 g, 1 L = 1e-3 m³,
@@ -22,7 +24,12 @@ export type UnitKind =
   | 'massLoading'
   | 'molarConcentration'
   | 'molarLoading'
-  | 'flow';
+  | 'flow'
+  | 'time'
+  | 'length'
+  | 'density'
+  | 'diffusivity'
+  | 'velocity';
 
 export const INTERNAL_UNIT: Record<UnitKind, string> = {
   massConcentration: 'mg/L',
@@ -30,6 +37,11 @@ export const INTERNAL_UNIT: Record<UnitKind, string> = {
   molarConcentration: 'mmol/L',
   molarLoading: 'mmol/g',
   flow: 'm^3/day',
+  time: 's',
+  length: 'm',
+  density: 'kg/m^3',
+  diffusivity: 'm^2/s',
+  velocity: 'm/s',
 };
 
 const KIND_WORDS: Record<UnitKind, string> = {
@@ -38,6 +50,11 @@ const KIND_WORDS: Record<UnitKind, string> = {
   molarConcentration: 'a molar concentration such as nmol/L, umol/L or mmol/L',
   molarLoading: 'a molar loading such as umol/g or mmol/g',
   flow: 'a flow such as m3/d, m3/h or L/s',
+  time: 'a time such as 30 s, 15 min, 2 h or 3 d',
+  length: 'a length such as 10 um, 1.2 mm or 2 m',
+  density: 'a density such as 650 kg/m3 or 0.65 g/cm3',
+  diffusivity: 'a diffusivity such as 2e-17 m2/s or 1e-5 cm2/s',
+  velocity: 'a velocity such as 1e-5 m/s or 10 m/h',
 };
 
 /** Exact factors to the internal unit, keyed by the normalised unit text. */
@@ -63,6 +80,15 @@ const EXACT: Record<UnitKind, Record<string, number>> = {
     'm^3/day': 1, 'm^3/hour': 24, 'm^3/s': 86400, 'L/s': 86.4, 'L/day': 1e-3, 'L/hour': 0.024,
     'ML/day': 1000, 'L/min': 1.44, 'm^3/min': 1440, 'm^3/year': 1 / 365,
   },
+  // SI definitions: 1 min = 60 s, 1 h = 3600 s, 1 d = 86 400 s; 1 um = 1e-6 m; 1 g/L = 1 kg/m³
+  time: {
+    's': 1, 'sec': 1, 'ms': 1e-3, 'min': 60, 'h': 3600, 'hr': 3600, 'hour': 3600, 'hours': 3600,
+    'd': 86400, 'day': 86400, 'days': 86400,
+  },
+  length: { 'm': 1, 'cm': 1e-2, 'mm': 1e-3, 'um': 1e-6, 'nm': 1e-9 },
+  density: { 'kg/m^3': 1, 'g/L': 1, 'kg/L': 1e3, 'g/cm^3': 1e3, 'g/mL': 1e3 },
+  diffusivity: { 'm^2/s': 1, 'cm^2/s': 1e-4, 'mm^2/s': 1e-6, 'um^2/s': 1e-12 },
+  velocity: { 'm/s': 1, 'cm/s': 1e-2, 'mm/s': 1e-3, 'm/hour': 1 / 3600, 'm/day': 1 / 86400 },
 };
 
 /** Normalise the ways engineers write units into one spelling. */
@@ -72,6 +98,7 @@ export function normaliseUnitText(text: string): string {
   u = u.replace(/³/g, '^3').replace(/²/g, '^2');
   u = u.replace(/\/l$/, '/L').replace(/^l\//, 'L/');
   u = u.replace(/m3\b/g, 'm^3').replace(/m\*\*3/g, 'm^3');
+  u = u.replace(/m2\b/g, 'm^2').replace(/m\*\*2/g, 'm^2');
   u = u.replace(/\/(d|day|days)$/, '/day').replace(/\/(h|hr|hour|hours)$/, '/hour');
   u = u.replace(/\/(a|yr|year|years)$/, '/year');
   u = u.replace(/\/(sec|s)$/, '/s');
@@ -106,6 +133,11 @@ const cache: Record<UnitKind, Map<string, number>> = {
   molarConcentration: new Map([[INTERNAL_UNIT.molarConcentration, 1]]),
   molarLoading: new Map([[INTERNAL_UNIT.molarLoading, 1]]),
   flow: new Map([[INTERNAL_UNIT.flow, 1]]),
+  time: new Map([[INTERNAL_UNIT.time, 1]]),
+  length: new Map([[INTERNAL_UNIT.length, 1]]),
+  density: new Map([[INTERNAL_UNIT.density, 1]]),
+  diffusivity: new Map([[INTERNAL_UNIT.diffusivity, 1]]),
+  velocity: new Map([[INTERNAL_UNIT.velocity, 1]]),
 };
 
 /** Factor f such that value_in_unit · f = value in the internal unit of `kind`. */

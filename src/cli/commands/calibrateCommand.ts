@@ -1,4 +1,4 @@
-/** `sorbshare calibrate JARTESTS.csv --model ebc|sebc|fictive-k --compound COMPOUND.json [--background FILE] [--doc Q] [--json] [--out FILE]` */
+/** `sorbshare calibrate JARTESTS.csv --model ebc|sebc|fictive-k --compound COMPOUND.json [--background FILE] [--doc Q] [--json] [--out FILE]`, and `calibrate BREAKTHROUGH.csv --model column … --ebct T --bed-depth L --grain-radius R --grain-density D` */
 import type { CommandSpec } from '../commandSpec.js';
 import { InputError } from '../../core/errors.js';
 import type { CalibrationModel, CalibrationResult } from '../../calibration/calibrate.js';
@@ -7,25 +7,38 @@ import { readJsonFile } from '../../io/readFiles.js';
 import { fmt, fmtConc, table } from '../format.js';
 import { emitJson, inFile } from './shared.js';
 import { TABLE_FORMAT_OPTIONS, tableFormat } from './tableFormatOptions.js';
-import { nonEmptyText, positiveMassConcentration } from '../optionParsers.js';
+import { finiteNumber, nonEmptyText, positiveDensity, positiveDiffusivity, positiveLength, positiveMassConcentration, positiveTime } from '../optionParsers.js';
 
-const MODELS: readonly CalibrationModel[] = ['ebc', 'sebc', 'fictive-k'];
+const MODELS: readonly string[] = ['ebc', 'sebc', 'fictive-k', 'column'];
 
 export const calibrateCommand: CommandSpec = {
   name: 'calibrate',
   args: ['<jartests>'],
-  summary: 'Calibrate a competition model (EBC, simplified EBC, or fictive components with a K factor) to jar tests of one target in the site water',
+  summary: 'Calibrate a competition model (EBC, simplified EBC, or fictive components with a K factor) to jar tests of one target in the site water, or the target\'s surface diffusivity to column breakthrough data (model column)',
   options: [
-    { flags: '--model <model>', description: 'ebc (K, 1/n and C0 of an equivalent background compound), sebc (C0 only) or fictive-k (K factor with --background)', choices: MODELS, required: true },
+    { flags: '--model <model>', description: 'ebc (K, 1/n and C0 of an equivalent background compound), sebc (C0 only), fictive-k (K factor with --background) or column (Ds from breakthrough data)', choices: MODELS, required: true },
     { flags: '--compound <file>', description: 'compound file: { "id", "K", "one_over_n", "K_unit" }', parse: nonEmptyText, required: true },
     { flags: '--background <file>', description: 'background file from sorbshare fractionate (model fictive-k)', parse: nonEmptyText },
     { flags: '--doc <quantity>', description: 'site DOC of the jar tests, e.g. "8 mg/L" (scales C0_EBC to other DOC values)', parse: positiveMassConcentration },
+    { flags: '--ebct <time>', description: 'column model: empty-bed contact time of the tested column, e.g. "2 min"', parse: positiveTime },
+    { flags: '--bed-depth <length>', description: 'column model: bed depth of the tested column, e.g. "0.3 m"', parse: positiveLength },
+    { flags: '--grain-radius <length>', description: 'column model: grain radius of the tested carbon, e.g. "0.1 mm"', parse: positiveLength },
+    { flags: '--grain-density <density>', description: 'column model: grain (particle) density, e.g. "750 kg/m3"', parse: positiveDensity },
+    { flags: '--porosity <fraction>', description: 'column model: bed porosity (0.4 is common practice)', parse: finiteNumber, default: '0.4' },
+    { flags: '--temperature <celsius>', description: 'column model: water temperature for the film correlation, °C (10–15 °C is common practice)', parse: finiteNumber, default: '12' },
+    { flags: '--doc-ds <diffusivity>', description: 'column model with --background: surface diffusivity shared by the fictive DOC components, e.g. "2e-15 m2/s"', parse: positiveDiffusivity },
+    { flags: '--doc-dl <diffusivity>', description: 'column model with --background: liquid diffusivity of the fictive DOC components, e.g. "4e-10 m2/s"', parse: positiveDiffusivity },
+    { flags: '--fit-kf', description: 'column model: fit a factor on the target\'s film coefficient as well' },
     { flags: '--json', description: 'print JSON instead of text' },
     { flags: '--out <file>', description: 'also write the calibration (JSON) to FILE', parse: nonEmptyText },
     ...TABLE_FORMAT_OPTIONS,
   ],
-  examples: ['sorbshare calibrate jartests.csv --model ebc --compound carbamazepine.json --doc "8 mg/L"', 'sorbshare calibrate jartests.csv --model fictive-k --compound target.json --background background.json --json'],
+  examples: ['sorbshare calibrate jartests.csv --model ebc --compound carbamazepine.json --doc "8 mg/L"', 'sorbshare calibrate jartests.csv --model fictive-k --compound target.json --background background.json --json', 'sorbshare calibrate breakthrough.csv --model column --compound target.json --background background.json --doc-ds "2e-15 m2/s" --doc-dl "4e-10 m2/s" --ebct "2 min" --bed-depth "0.3 m" --grain-radius "0.1 mm" --grain-density "750 kg/m3"'],
   async action(args, opts, ctx) {
+    if (opts.model === 'column') {
+      const { calibrateColumnAction } = await import('./columnCalibrate.js');
+      return calibrateColumnAction(args[0]!, opts, ctx);
+    }
     const { calibrate } = await import('../../calibration/calibrate.js');
     const { readBackground } = await import('../../fractionation/backgroundFile.js');
     const file = args[0]!;

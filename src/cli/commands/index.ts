@@ -7,10 +7,14 @@ import { calibrateCommand } from './calibrateCommand.js';
 import { runCommand } from './runCommand.js';
 import { demoCommand } from './demoCommand.js';
 import { checkCommand } from './checkCommand.js';
+import { contactCommand } from './contactCommand.js';
+import { columnCommand } from './columnCommand.js';
 
 export const COMMANDS: CommandSpec[] = [
   equilibriumCommand,
   doseCommand,
+  contactCommand,
+  columnCommand,
   fractionateCommand,
   calibrateCommand,
   runCommand,

@@ -1,0 +1,126 @@
+/**
+ * Removal at a carbon dose under PAC contact conditions, and the dose for a goal under them.
+ *
+ * Contact conditions: `plug-flow` (a jar test or a plug-flow contact tank: every particle stays
+ * the contact time T; pacBatch at t = T) or `stirred` (a stirred contact tank with residence τ and
+ * mean carbon age θ ≥ τ; stirredReactor). The remaining fraction c/c0 of every component falls
+ * as the dose rises, so the dose for a goal is the root of
+ *   e(D) = ln(1 − R) − ln(c(D)/c0)   (removalExcess)
+ * found by the design layer's one dose search (src/design/doseSearch.ts: bracketing on ln D,
+ * then Brent 1973), started from the equilibrium dose (a lower bound: contact gives less removal).
+ *
+ * `ContactRemoval` is the RemovalModel of the design layer (src/design/removalModel.ts) for these
+ * conditions: every target with its competitors (fictive DOC components with their Ds and DL or
+ * kf) in one kinetic run; `atDoc` scales the competitors with DOC.
+ *
+ * Units: dose g/L, times s, concentrations mg/L.
+ * @throws InputError for missing kinetic inputs (component and field named), goals that no dose
+ *         up to 5 g/L reaches; ComputationError when a kinetic solve fails.
+ */
+import { ComputationError, InputError } from '../core/errors.js';
+import type { FreundlichComponent } from '../equilibrium/preparedMixture.js';
+import { prepareMixture } from '../equilibrium/preparedMixture.js';
+import { doseForRemoval } from '../design/doseForRemoval.js';
+import { MAX_DOSE_G_PER_L, searchDose } from '../design/doseSearch.js';
+import { removalExcess } from '../design/removalExcess.js';
+import type { BackgroundAtDose, CompetitionSet, RemainingAtDose, RemovalModel, WarmStart } from '../design/removalModel.js';
+import { prepareKinetics, type CarbonParticle, type KineticComponent, type PreparedKinetics } from './kineticMixture.js';
+import { checkTimes, pacBatch, type KineticSolverOptions } from './pacBatch.js';
+import { checkContactConditions, stirredReactor } from './stirredReactor.js';
+
+export type ContactConditions =
+  | { kind: 'plug-flow'; contactTimeS: number }
+  | { kind: 'stirred'; contactTimeS: number; carbonAgeS: number };
+
+/** Check contact conditions. @throws InputError naming the option */
+export function checkConditions(cond: ContactConditions): void {
+  if (cond.kind === 'plug-flow') checkTimes([cond.contactTimeS], '--contact-time');
+  else checkContactConditions(cond.contactTimeS, cond.carbonAgeS);
+}
+
+/** c/c0 of every component of the mixture at a dose (1 for components with c0 = 0). */
+export function remainingUnderContact(pk: PreparedKinetics, doseGPerL: number, cond: ContactConditions, options: KineticSolverOptions = {}): Float64Array {
+  const c = cond.kind === 'plug-flow'
+    ? pacBatch(pk, doseGPerL, [cond.contactTimeS], options).cMgPerL[0]!
+    : stirredReactor(pk, doseGPerL, cond.contactTimeS, cond.carbonAgeS, options).cMgPerL;
+  return Float64Array.from(pk.components, (comp, i) => (comp.c0MgPerL > 0 ? Math.min(1, Math.max(0, c[i]! / comp.c0MgPerL)) : 1));
+}
+
+export interface ContactDoseResult {
+  doseGPerL: number;
+  removalFraction: number;
+  /** The equilibrium (batch IAST) dose for the same goal, g/L. */
+  equilibriumDoseGPerL: number;
+  evaluations: number;
+}
+
+/**
+ * Dose that removes `removalFraction` of component `targetIndex` under the contact conditions.
+ * @throws InputError when no dose up to 5 g/L reaches the goal
+ */
+export function doseUnderContact(pk: PreparedKinetics, targetIndex: number, removalFraction: number, cond: ContactConditions, options: KineticSolverOptions = {}): ContactDoseResult {
+  checkConditions(cond);
+  const comp = pk.components[targetIndex];
+  if (!comp) throw new InputError(`target index ${targetIndex} is not in the mixture`);
+  const eq = doseForRemoval(prepareMixture(pk.components), targetIndex, removalFraction);
+  const at = (d: number) => remainingUnderContact(pk, d, cond, options)[targetIndex]!;
+  const r = searchDose((d) => removalExcess(at(d), removalFraction), { hintGPerL: eq.doseGPerL * 1.5, firstStep: 0.4, what: `contact dose search for "${comp.id}"` });
+  if (r.status === 'unreachable') {
+    throw new InputError(`the goal of ${pct(removalFraction)} removal of "${comp.id}" is not reached under these contact conditions by any dose up to ${MAX_DOSE_G_PER_L * 1000} mg/L (it reaches ${pct(1 - at(MAX_DOSE_G_PER_L))} there)`);
+  }
+  if (r.status !== 'met') throw new ComputationError(`contact dose search for "${comp.id}": the goal is met below the smallest dose searched, although the equilibrium dose is ${eq.doseGPerL * 1000} mg/L`);
+  return { doseGPerL: r.doseGPerL, removalFraction: 1 - at(r.doseGPerL), equilibriumDoseGPerL: eq.doseGPerL, evaluations: r.evaluations };
+}
+
+function pct(f: number): string {
+  return `${(f * 100).toPrecision(4)} %`;
+}
+
+/** RemovalModel of the design layer under PAC contact conditions (see the file comment). */
+export class ContactRemoval implements RemovalModel {
+  readonly kind: string;
+  readonly compoundIds: readonly string[];
+  readonly backgroundC0MgPerL?: Float64Array;
+  private readonly prepared: PreparedKinetics[];
+  private readonly bgPrepared?: PreparedKinetics;
+
+  constructor(
+    readonly sets: readonly CompetitionSet[],
+    readonly docMgPerL: number,
+    readonly particle: CarbonParticle,
+    readonly conditions: ContactConditions,
+    readonly background?: readonly FreundlichComponent[],
+    readonly options: KineticSolverOptions = {},
+  ) {
+    checkConditions(conditions);
+    this.kind = conditions.kind === 'plug-flow'
+      ? `contact time ${conditions.contactTimeS} s, plug flow (HSDM with IAST at the surface)`
+      : `stirred contact tank, residence ${conditions.contactTimeS} s, carbon age ${conditions.carbonAgeS} s (HSDM with IAST at the surface)`;
+    this.compoundIds = sets.map((s) => s.target.id);
+    this.prepared = sets.map((s) => prepareKinetics([s.target as KineticComponent, ...(s.competitors as KineticComponent[])], particle));
+    if (background && background.length) {
+      this.bgPrepared = prepareKinetics(background as KineticComponent[], particle);
+      this.backgroundC0MgPerL = Float64Array.from(background, (c) => c.c0MgPerL);
+    }
+  }
+
+  remaining(index: number, doseGPerL: number, warm?: WarmStart): RemainingAtDose {
+    const pk = this.prepared[index];
+    if (!pk) throw new InputError(`compound index ${index} is not in the model (${this.prepared.length} compounds)`);
+    if (doseGPerL === 0) return { remainingFraction: 1, warm };
+    return { remainingFraction: remainingUnderContact(pk, doseGPerL, this.conditions, this.options)[0]!, warm };
+  }
+
+  backgroundRemaining(doseGPerL: number, warm?: WarmStart): BackgroundAtDose {
+    if (!this.bgPrepared) throw new InputError('this model has no fractionated background');
+    if (doseGPerL === 0) return { cMgPerL: this.backgroundC0MgPerL!.slice(), warm };
+    const f = remainingUnderContact(this.bgPrepared, doseGPerL, this.conditions, this.options);
+    return { cMgPerL: Float64Array.from(f, (x, i) => x * this.backgroundC0MgPerL![i]!), warm };
+  }
+
+  atDoc(docMgPerL: number): ContactRemoval {
+    const f = docMgPerL / this.docMgPerL;
+    const scale = (cs: readonly FreundlichComponent[]) => cs.map((c) => ({ ...c, c0MgPerL: c.c0MgPerL * f }));
+    return new ContactRemoval(this.sets.map((s) => ({ target: s.target, competitors: scale(s.competitors) })), docMgPerL, this.particle, this.conditions, this.background ? scale(this.background) : undefined, this.options);
+  }
+}

@@ -1,0 +1,342 @@
+/**
+ * The fixed-bed model as a stiff ODE system for the implicit integrator: method of lines in
+ * dimensionless form, time in bed volumes τ = t/EBCT, depth ζ = z/L, u = c/c0 and w = q/q_ref
+ * (q_ref = K·c0^β, the single-solute loading in equilibrium with the feed, only a scale).
+ *
+ *   liquid, cell j:  ε·du_j/dτ = −(F_{j+1/2} − F_{j−1/2})/Δζ − St·(u_j − c_s/c0)
+ *   grain nodes i<N: dw_i/dτ   = Dτ·(B·w)_i                      (HSDM, sphere collocation)
+ *   grain mean:      dw̄/dτ     = Φ·(u_j − c_s/c0),  w̄ = Σ_k ω_k w_k   → the surface node's ODE
+ *   outflow:         dO/dτ     = F_{N+1/2}                        (cumulative outflow, BV)
+ * with St = (1 − ε)·3·kf·EBCT/R, Dτ = Ds·EBCT/R², Φ = 3·kf·EBCT·c0/(R·ρp·q_ref). These are the
+ * bed equation ε∂c/∂t + v∂c/∂z = −(1 − ε)(3/R)kf(c − c_s) with v = L/EBCT and the HSDM with the
+ * film at the surface (Crittenden & Weber 1978, J. Environ. Eng. Div. 104; Hand, Crittenden &
+ * Thacker 1983, J. Environ. Eng. 109:82, from memory), written with the grain balance
+ * ρp·dq̄/dt = (3/R)·kf·(c − c_s) in place of the collocated surface condition (the two agree
+ * through the discrete divergence identity Σ ω_i(Bw)_i = 3·g·w of the collocation).
+ *
+ * Axial faces: F_{1/2} = 1 (feed), F_{3/2} = u_1, F_{j+1/2} = u_j + ½·δ·φ, δ = u_j − u_{j−1}
+ * (second-order upwind, linear extrapolation from upstream; Warming & Beam 1976, AIAA J. 14:1241,
+ * from memory). Ahead of a front (δ < 0) the extrapolation is limited, φ = θ²/(1 + θ²) with
+ * θ = 2u_j/|δ| (our smooth positivity limiter, regularised as δ² + 4u² + η² with η = 1e-5: F ≥ u_j/2 ≥ 0, and φ = 1 − O(Δζ²) where the
+ * profile is resolved, so the scheme stays second order there); δ ≥ 0 uses φ = 1. Every flux
+ * depends only on upstream cells, so the Newton matrix (I − γh·J) is block lower triangular along
+ * the bed and is solved by forward block substitution, cell by cell.
+ *
+ * Components: "background" ones (bulk, e.g. fictive DOC) are coupled by reverse IAST at the grain
+ * surface; "trace" ones take the trace form c_s,T = κ_T(background)·q_T (src/kinetics/reverseIast.ts),
+ * so within a cell each trace block depends on the background block and not the reverse: the
+ * background block is factorised whole, then each trace block on its own.
+ *
+ * Mass balance: the discrete system conserves Σ_j Δζ(ε u_j + (1 − ε)ρp q_ref w̄_j/c0) + O − τ
+ * exactly, and TR-BDF2 with this Newton matrix keeps a linear invariant to rounding, so the
+ * mass-balance error measures the linear solves, not the step size.
+ */
+import { ComputationError } from '../core/errors.js';
+import { denseLu, type DenseLu } from './denseLu.js';
+import type { NewtonSolve, StiffSystem } from './implicitIntegrator.js';
+import { reverseIast, traceSurfaceFactor, type ReverseIastState } from './reverseIast.js';
+import { sphereCollocation, type SphereCollocation } from './sphereCollocation.js';
+
+/** One adsorbable component in the dimensionless model. */
+export interface BedComponentScales {
+  c0MgPerL: number;
+  K: number;
+  beta: number;
+  /** q_ref = K·c0^β, mg/g. */
+  qRefMgPerG: number;
+  /** St = (1 − ε)·3·kf·EBCT/R. */
+  stanton: number;
+  /** Dτ = Ds·EBCT/R². */
+  diffusion: number;
+  /** Φ = 3·kf·EBCT·c0/(R·ρp·q_ref). */
+  film: number;
+}
+
+export interface BedGrid {
+  /** Axial cells (≥ 3). */
+  cells: number;
+  /** Interior collocation points in the grain (≥ 1). */
+  interiorPoints: number;
+}
+
+export interface BedModel extends StiffSystem {
+  readonly grid: BedGrid;
+  /** Number of background components (first in `components`). */
+  readonly backgroundCount: number;
+  readonly components: readonly BedComponentScales[];
+  readonly porosity: number;
+  /** Values per component in one cell: u and w_0 … w_N. */
+  readonly perComponent: number;
+  /** Values per cell. */
+  readonly perCell: number;
+  /** Index of the cumulative outflow O of component m. */
+  outflowIndex(m: number): number;
+  /** Outlet u = F_{N+1/2} of component m in state y. */
+  outlet(y: Float64Array, m: number): number;
+  /** Dimensionless amount held in the bed (pores and grains) of component m, in bed volumes of feed. */
+  held(y: Float64Array, m: number): number;
+  /** ρp·q_ref/c0 of component m (grain capacity scale, L of water per L of grain). */
+  capacity(m: number): number;
+  readonly collocation: SphereCollocation;
+}
+
+/**
+ * Build the model. `components` lists the background components first (`backgroundCount` ≥ 1),
+ * then the traces. `particleDensityGPerL` = ρp (kg/m³ = g/L).
+ * @throws ComputationError for a grid below 3 cells or 1 interior point
+ */
+export function fixedBedModel(components: readonly BedComponentScales[], backgroundCount: number, porosity: number, particleDensityGPerL: number, grid: BedGrid): BedModel {
+  const Nz = grid.cells;
+  if (!Number.isInteger(Nz) || Nz < 3) throw new ComputationError(`fixed bed: at least 3 axial cells are needed, got ${Nz}`);
+  if (!(backgroundCount >= 1 && backgroundCount <= components.length)) throw new ComputationError('fixed bed: at least one background component is needed');
+  const col = sphereCollocation(grid.interiorPoints);
+  const N = col.interiorPoints;
+  const P = N + 2; // u, w_0..w_N
+  const na = components.length;
+  const nb = backgroundCount;
+  const S = na * P;
+  const size = Nz * S + na;
+  const eps = porosity;
+  const dz = 1 / Nz;
+  const B = col.laplacian, wt = col.weights;
+  const wN = wt[N]!;
+  // Σ_{i<N} ω_i B_ik: the interior part of the mean, for the surface node's equation
+  const interiorMeanB = new Float64Array(N + 1);
+  for (let k = 0; k <= N; k++) { let s = 0; for (let i = 0; i < N; i++) s += wt[i]! * B[i * (N + 1) + k]!; interiorMeanB[k] = s; }
+  const bgIso = { K: Float64Array.from(components.slice(0, nb), (c) => c.K), beta: Float64Array.from(components.slice(0, nb), (c) => c.beta) };
+  const qRef = Float64Array.from(components, (c) => c.qRefMgPerG);
+  const c0 = Float64Array.from(components, (c) => c.c0MgPerL);
+
+  // the limiter is regularised below c/c0 ~ 1e-5 (ETA2 = η²), where it falls back to first order
+  const ETA2 = 1e-10;
+  // ∂F_{j+1/2}/∂u_j and ∂F_{j+1/2}/∂u_{j−1} per cell and component (filled by `factor`)
+  const faceOwn = new Float64Array(Nz * na);
+  const faceUp = new Float64Array(Nz * na);
+
+  const qS = new Float64Array(nb);
+  const cs = new Float64Array(na);
+  const jacBg = new Float64Array(nb * nb);
+  const dKappa = new Float64Array(nb);
+  const Bw = new Float64Array(N + 1);
+
+  /** Surface concentrations of all components in cell j (and background Jacobian when asked). */
+  const surface = (y: Float64Array, j: number, withJac: boolean, kappas?: Float64Array, dKappas?: Float64Array): ReverseIastState => {
+    const base = j * S;
+    for (let b = 0; b < nb; b++) qS[b] = qRef[b]! * y[base + b * P + 1 + N]!;
+    const st = reverseIast(bgIso, qS, cs, withJac ? jacBg : undefined);
+    for (let m = nb; m < na; m++) {
+      const comp = components[m]!;
+      const kappa = traceSurfaceFactor(comp.K, comp.beta, st, bgIso.beta, dKappas ? dKappa : undefined);
+      if (kappas) kappas[m] = kappa;
+      if (dKappas) for (let b = 0; b < nb; b++) dKappas[(m - nb) * nb + b] = dKappa[b]!;
+      cs[m] = kappa * qRef[m]! * y[base + m * P + 1 + N]!; // c_s,T = κ_T·q_T (trace form)
+    }
+    return st;
+  };
+
+  /** F_{j+1/2} of component m (j = −1: the feed). */
+  const face = (y: Float64Array, j: number, m: number): number => {
+    if (j < 0) return 1;
+    const u = y[j * S + m * P]!;
+    if (j === 0) return u;
+    const d = u - y[(j - 1) * S + m * P]!;
+    if (d >= 0) return u + 0.5 * d;
+    return u + (2 * u * u * d) / (d * d + 4 * u * u + ETA2); // ½·δ·θ²/(1 + θ²), θ = 2u/|δ|, regularised
+  };
+  /** Fill ∂F_{j+1/2}/∂u_j and ∂F_{j+1/2}/∂u_{j−1}. */
+  const faceDerivatives = (y: Float64Array): void => {
+    for (let j = 0; j < Nz; j++) for (let m = 0; m < na; m++) {
+      const k = j * na + m;
+      if (j === 0) { faceOwn[k] = 1; faceUp[k] = 0; continue; }
+      const u = y[j * S + m * P]!;
+      const d = u - y[(j - 1) * S + m * P]!;
+      if (d >= 0) { faceOwn[k] = 1.5; faceUp[k] = -0.5; continue; }
+      const D = d * d + 4 * u * u + ETA2;
+      const gU = (4 * u * d) / D - (16 * u * u * u * d) / (D * D); // ∂G/∂u at fixed δ
+      const gD = (2 * u * u * (D - 2 * d * d)) / (D * D); // ∂G/∂δ
+      faceOwn[k] = 1 + gU + gD;
+      faceUp[k] = -gD;
+    }
+  };
+
+  const rhs = (_t: number, y: Float64Array, dy: Float64Array): void => {
+    for (let j = 0; j < Nz; j++) {
+      surface(y, j, false);
+      const base = j * S;
+      for (let m = 0; m < na; m++) {
+        const comp = components[m]!;
+        const o = base + m * P;
+        const film = y[o]! - cs[m]! / c0[m]!;
+        dy[o] = (-(face(y, j, m) - face(y, j - 1, m)) / dz - comp.stanton * film) / eps;
+        let interior = 0;
+        for (let i = 0; i <= N; i++) {
+          let s = 0;
+          for (let k = 0; k <= N; k++) s += B[i * (N + 1) + k]! * y[o + 1 + k]!;
+          Bw[i] = s;
+          if (i < N) interior += wt[i]! * s;
+        }
+        for (let i = 0; i < N; i++) dy[o + 1 + i] = comp.diffusion * Bw[i]!;
+        dy[o + 1 + N] = (comp.film * film - comp.diffusion * interior) / wN;
+      }
+    }
+    for (let m = 0; m < na; m++) dy[Nz * S + m] = face(y, Nz - 1, m);
+  };
+
+  const kappas = new Float64Array(na);
+  const dKappas = new Float64Array(Math.max(1, (na - nb) * nb));
+
+  const scratch = new Float64Array(N);
+  const pBuf = new Float64Array(na * N);
+  const rBg = new Float64Array(2 * nb);
+
+  /**
+   * Newton matrix (I − gh·J) and its solver. The grain-interior rows are linear and the same in
+   * every cell, I − gh·Dτ·B_int, so they are eliminated first (a Schur complement): w_int =
+   * A⁻¹(b_int) + e·w_N with A = I − gh·Dτ·B_int,int and e = gh·Dτ·A⁻¹·B_int,N, factorised once
+   * per component and step. What remains per cell and component is (u, w_N): a 2·n_B system for
+   * the background and a 2×2 system per trace.
+   */
+  const nt = na - nb;
+  const n2 = 2 * nb;
+  // buffers of the Newton matrix, reused: the integrator uses one factorisation at a time
+  const aInv = new Float64Array(na * N * N);
+  const e = new Float64Array(na * N);
+  const sig = new Float64Array(na);
+  const bgMat = Array.from({ length: Nz }, () => new Float64Array(n2 * n2));
+  const tr = new Float64Array(Nz * Math.max(1, nt) * 4);
+  const coupling = new Float64Array(Nz * Math.max(1, nt) * 2 * nb);
+  const factor = (_t: number, y: Float64Array, gh: number): NewtonSolve => {
+    for (let m = 0; m < na; m++) {
+      const dTau = components[m]!.diffusion;
+      const A = new Float64Array(N * N);
+      for (let i = 0; i < N; i++) for (let k = 0; k < N; k++) A[i * N + k] = (i === k ? 1 : 0) - gh * dTau * B[i * (N + 1) + k]!;
+      const lu = denseLu(A, N, 'fixed bed (grain block)');
+      for (let k = 0; k < N; k++) { // columns of A⁻¹ (N is small)
+        scratch.fill(0); scratch[k] = 1;
+        lu.solve(scratch, 0);
+        for (let i = 0; i < N; i++) aInv[m * N * N + i * N + k] = scratch[i]!;
+      }
+      for (let i = 0; i < N; i++) scratch[i] = gh * dTau * B[i * (N + 1) + N]!;
+      lu.solve(scratch, 0);
+      let s2 = interiorMeanB[N]!;
+      for (let i = 0; i < N; i++) { e[m * N + i] = scratch[i]!; s2 += interiorMeanB[i]! * scratch[i]!; }
+      sig[m] = 1 + (gh * dTau * s2) / wN;
+    }
+    faceDerivatives(y);
+    const bgLu: DenseLu[] = [];
+    // per cell and trace: 2×2 matrix (4 values) and the coupling of its u and w_N rows to the background w_N (2·nb)
+    for (let j = 0; j < Nz; j++) {
+      surface(y, j, true, kappas, dKappas);
+      const base = j * S;
+      const M = bgMat[j]!;
+      M.fill(0);
+      for (let m = 0; m < nb; m++) {
+        const comp = components[m]!;
+        const ru = 2 * m, rs = 2 * m + 1;
+        M[ru * n2 + ru] = 1 + gh * (faceOwn[j * na + m]! / (eps * dz) + comp.stanton / eps);
+        M[rs * n2 + ru] = -gh * comp.film / wN;
+        M[rs * n2 + rs] = sig[m]!;
+        for (let b = 0; b < nb; b++) {
+          const dFilm = -(jacBg[m * nb + b]! * qRef[b]!) / c0[m]!; // ∂(u − c_s/c0)/∂w_b,N
+          M[ru * n2 + 2 * b + 1] = M[ru * n2 + 2 * b + 1]! + gh * (comp.stanton / eps) * dFilm;
+          M[rs * n2 + 2 * b + 1] = M[rs * n2 + 2 * b + 1]! - gh * (comp.film / wN) * dFilm;
+        }
+      }
+      bgLu.push(denseLu(M, n2, 'fixed bed (background block)'));
+      for (let m = nb; m < na; m++) {
+        const comp = components[m]!;
+        const t = j * nt + (m - nb);
+        const dFilmOwn = -(kappas[m]! * qRef[m]!) / c0[m]!;
+        tr[4 * t] = 1 + gh * (faceOwn[j * na + m]! / (eps * dz) + comp.stanton / eps);
+        tr[4 * t + 1] = gh * (comp.stanton / eps) * dFilmOwn;
+        tr[4 * t + 2] = -gh * comp.film / wN;
+        tr[4 * t + 3] = sig[m]! - gh * (comp.film / wN) * dFilmOwn;
+        const det = tr[4 * t]! * tr[4 * t + 3]! - tr[4 * t + 1]! * tr[4 * t + 2]!;
+        if (!(Math.abs(det) > 0) || !Number.isFinite(det)) throw new ComputationError('fixed bed: the Newton matrix of a trace block is singular or not finite');
+        const wT = y[base + m * P + 1 + N]!;
+        const cOff = t * 2 * nb;
+        for (let b = 0; b < nb; b++) {
+          const dFilm = -(qRef[m]! * wT * dKappas[(m - nb) * nb + b]! * qRef[b]!) / c0[m]!;
+          coupling[cOff + b] = -(comp.stanton / eps) * dFilm; // J(u_T, w_b,N)
+          coupling[cOff + nb + b] = (comp.film / wN) * dFilm; // J(w_T,N, w_b,N)
+        }
+      }
+    }
+    return (x: Float64Array): void => {
+      for (let j = 0; j < Nz; j++) {
+        const base = j * S;
+        for (let m = 0; m < na; m++) {
+          const o = base + m * P;
+          // F_{j+1/2} − F_{j−1/2} through u_{j−1} and u_{j−2}
+          let up = 0;
+          if (j >= 1) up += (faceUp[j * na + m]! - faceOwn[(j - 1) * na + m]!) * x[(j - 1) * S + m * P]!;
+          if (j >= 2) up -= faceUp[(j - 1) * na + m]! * x[(j - 2) * S + m * P]!;
+          x[o] = x[o]! - (gh * up) / (eps * dz);
+          // grain interior: p = A⁻¹·b_int, and the surface row's right side
+          let corr = 0;
+          const ai = m * N * N;
+          for (let i = 0; i < N; i++) {
+            let v = 0;
+            for (let k = 0; k < N; k++) v += aInv[ai + i * N + k]! * x[o + 1 + k]!;
+            pBuf[m * N + i] = v;
+            corr += interiorMeanB[i]! * v;
+          }
+          x[o + 1 + N] = x[o + 1 + N]! - (gh * components[m]!.diffusion * corr) / wN;
+        }
+        for (let m = 0; m < nb; m++) { rBg[2 * m] = x[base + m * P]!; rBg[2 * m + 1] = x[base + m * P + 1 + N]!; }
+        bgLu[j]!.solve(rBg, 0);
+        for (let m = 0; m < nb; m++) { x[base + m * P] = rBg[2 * m]!; x[base + m * P + 1 + N] = rBg[2 * m + 1]!; }
+        for (let m = nb; m < na; m++) {
+          const o = base + m * P;
+          const t = j * nt + (m - nb);
+          const cOff = t * 2 * nb;
+          let bu = x[o]!, bs = x[o + 1 + N]!;
+          for (let b = 0; b < nb; b++) {
+            const xb = x[base + b * P + 1 + N]!;
+            bu += gh * coupling[cOff + b]! * xb;
+            bs += gh * coupling[cOff + nb + b]! * xb;
+          }
+          const a11 = tr[4 * t]!, a12 = tr[4 * t + 1]!, a21 = tr[4 * t + 2]!, a22 = tr[4 * t + 3]!;
+          const det = a11 * a22 - a12 * a21;
+          x[o] = (a22 * bu - a12 * bs) / det;
+          x[o + 1 + N] = (a11 * bs - a21 * bu) / det;
+        }
+        for (let m = 0; m < na; m++) {
+          const o = base + m * P;
+          const wS = x[o + 1 + N]!;
+          for (let i = 0; i < N; i++) x[o + 1 + i] = pBuf[m * N + i]! + e[m * N + i]! * wS;
+        }
+      }
+      const last = (Nz - 1) * S, prev = (Nz - 2) * S;
+      for (let m = 0; m < na; m++) x[Nz * S + m] = x[Nz * S + m]! + gh * (faceOwn[(Nz - 1) * na + m]! * x[last + m * P]! + faceUp[(Nz - 1) * na + m]! * x[prev + m * P]!);
+    };
+  };
+
+  return {
+    size,
+    what: 'fixed-bed breakthrough',
+    rhs,
+    factor,
+    grid: { cells: Nz, interiorPoints: N },
+    backgroundCount: nb,
+    components,
+    porosity: eps,
+    perComponent: P,
+    perCell: S,
+    collocation: col,
+    outflowIndex: (m) => Nz * S + m,
+    outlet: (y, m) => face(y, Nz - 1, m),
+    capacity: (m) => (particleDensityGPerL * qRef[m]!) / c0[m]!,
+    held(y, m) {
+      const cap = (particleDensityGPerL * qRef[m]!) / c0[m]!;
+      let s = 0;
+      for (let j = 0; j < Nz; j++) {
+        const o = j * S + m * P;
+        let mean = 0;
+        for (let k = 0; k <= N; k++) mean += wt[k]! * y[o + 1 + k]!;
+        s += eps * y[o]! + (1 - eps) * cap * mean;
+      }
+      return s * dz;
+    },
+  };
+}

@@ -83,3 +83,17 @@ export function timeList(text: string): number[] {
     return v;
   });
 }
+
+function positiveWithUnit(kind: 'length' | 'density' | 'diffusivity', example: string): (text: string) => number {
+  return (text) => {
+    if (!/[a-zA-Z]/.test(text)) throw new InputError(`expected a value with its unit such as "${example}", got ${JSON.stringify(text)}`);
+    return parseQuantity(text, kind, { allowZero: false });
+  };
+}
+
+/** A particle radius such as "10 um", in m. */
+export const positiveLength = positiveWithUnit('length', '10 um');
+/** A particle density such as "650 kg/m3", in kg/m³ (= g/L). */
+export const positiveDensity = positiveWithUnit('density', '650 kg/m3');
+/** A diffusivity such as "2e-17 m2/s", in m²/s. */
+export const positiveDiffusivity = positiveWithUnit('diffusivity', '2e-17 m2/s');

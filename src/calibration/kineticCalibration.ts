@@ -12,7 +12,8 @@
  * then Levenberg–Marquardt), 95 % interval exp(x ± t(0.975, n − 1)·se) with se from the Jacobian
  * (s²·(JᵀJ)⁻¹, the usual linearised interval). The particle runs of each series replay the step
  * times of a first run, scaled by Ds_first/Ds (the diffusion clock), so the residuals are smooth in
- * Ds for the difference quotients. Warnings: poor fit (RMSE of ln c above 0.3, as for the other
+ * Ds for the difference quotients; a second round records them at the first answer with a tight
+ * tolerance (1e-8) and polishes from there. Warnings: poor fit (RMSE of ln c above 0.3, as for the other
  * fits), Ds not determined within a decade, Ds at the search bound.
  *
  * Units: Ds, DL m²/s; times s; doses and concentrations mg/L (internally g/L for the dose).
@@ -97,7 +98,8 @@ export function calibrateKinetics(csvText: string, options: KineticCalibrateOpti
 
   const n = series.reduce((a, s) => a + s.timesS.length, 0);
   const lnMeas = Float64Array.from(series.flatMap((s) => s.cMgPerL.map((c) => Math.log(c))));
-  const recorded: { ds: number; steps: number[] }[] = [];
+  let recorded: { ds: number; steps: number[] }[] = [];
+  let recordRtol = 1e-6;
   const grid = options.interiorPoints !== undefined ? { interiorPoints: options.interiorPoints } : {};
   const predict = (ds: number): Float64Array => {
     const out = new Float64Array(n);
@@ -107,7 +109,7 @@ export function calibrateKinetics(csvText: string, options: KineticCalibrateOpti
       let rec = recorded[j];
       let run;
       if (!rec) {
-        run = pacBatch(pk, s.doseMgPerL / 1000, s.timesS, { rtol: 1e-6, ...grid });
+        run = pacBatch(pk, s.doseMgPerL / 1000, s.timesS, { rtol: recordRtol, ...grid });
         rec = recorded[j] = { ds, steps: run.stepTimes };
       }
       const scaled = rec.steps.map((t) => (t * rec!.ds) / ds);
@@ -131,7 +133,12 @@ export function calibrateKinetics(csvText: string, options: KineticCalibrateOpti
     return r;
   };
   const what = `${model} calibration`;
-  const fit = fitLeastSquares({ residuals, starts: DS_START.map((d) => [Math.log(d)]), lower: [Math.log(DS_MIN)], upper: [Math.log(DS_MAX)], residualScale: 1, maxIterations: 20, what });
+  const first = fitLeastSquares({ residuals, starts: DS_START.map((d) => [Math.log(d)]), lower: [Math.log(DS_MIN)], upper: [Math.log(DS_MAX)], residualScale: 1, maxIterations: 20, what });
+  if (!first.converged) throw new ComputationError(`${what} did not converge (${first.stop})`);
+  // second round: steps recorded at the first answer with a tight tolerance, polished from there
+  recorded = [];
+  recordRtol = 1e-8;
+  const fit = fitLeastSquares({ residuals, starts: [first.x], lower: [Math.log(DS_MIN)], upper: [Math.log(DS_MAX)], residualScale: 1, maxIterations: 4, what });
   if (!fit.converged) throw new ComputationError(`${what} did not converge (${fit.stop})`);
   const x = fit.x[0]!;
   const ds = Math.exp(x);

@@ -42,7 +42,7 @@ describe('sorbshare contact', () => {
     expect(j.carbon_held_mg_per_L).toBeCloseTo(15 * 96, 9);
     expect(j.components[3].removal_fraction).toBeGreaterThan(once.components[3].removal_fraction);
     j.components.forEach((c: { c0_mg_per_L: number; c_mg_per_L: number; q_mg_per_g: number }) => expect(Math.abs(c.c0_mg_per_L - c.c_mg_per_L - 0.015 * c.q_mg_per_g)).toBeLessThan(1e-6 * c.c0_mg_per_L + 1e-15));
-  });
+  }, 600_000);
 
   it('prints a table with the cautions by default', () => {
     const r = runBin('contact', MIX, '--time', '30 min');
@@ -86,7 +86,7 @@ describe('sorbshare dose --contact-time', () => {
     // the contact command at that dose reproduces the goal
     const check = JSON.parse(runBin('contact', MIX, '--dose', `${j.dose_mg_per_L} mg/L`, '--contact-time', '30 min', '--carbon-age', '2 d', '--json').out);
     expect(check.components[3].removal_fraction).toBeCloseTo(0.7, 5);
-  });
+  }, 600_000);
 
   it('bad inputs: carbon age below the contact time, --carbon-age without --contact-time, missing Ds', () => {
     let r = runBin('dose', MIX, '--target', 'T1', '--removal', '70', '--contact-time', '1 h', '--carbon-age', '30 min');
@@ -112,7 +112,7 @@ describe('sorbshare calibrate (kinetic models)', () => {
     expect(j.ci95.Ds_m2_per_s[0]).toBeLessThan(j.parameters.Ds_m2_per_s);
     expect(j.fit.points).toBe(10);
     expect(Array.isArray(j.warnings)).toBe(true);
-  });
+  }, 600_000);
 
   it('surface-diffusion recovers the target Ds (2e-16 m2/s) beside the background', () => {
     const r = runBin('calibrate', 'fixtures/kinetics/target-kinetics.csv', '--model', 'surface-diffusion', '--compound', 'fixtures/kinetics/target.json', '--background', BG, ...KIN, '--background-ds', '3e-17 m2/s', '--json');
@@ -120,7 +120,7 @@ describe('sorbshare calibrate (kinetic models)', () => {
     const j = JSON.parse(r.out);
     expect(j.compound).toBe('T1');
     expect(Math.abs(j.parameters.Ds_m2_per_s / 2e-16 - 1)).toBeLessThan(1e-3);
-  });
+  }, 600_000);
 
   const { write } = scratchDir('sorbshare-kcal-');
   const docCsv = readFileSync('fixtures/kinetics/doc-kinetics.csv', 'utf8');

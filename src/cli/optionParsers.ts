@@ -62,7 +62,7 @@ export function nonEmptyText(text: string): string {
 
 /** A time with its unit such as "30 min", "2 h" or "3 d" (> 0), in seconds. */
 export function positiveTime(text: string): number {
-  if (!/[a-zA-Z]/.test(text)) throw new InputError(`expected a time with its unit such as "30 min", "2 h" or "3 d", got ${JSON.stringify(text)}`);
+  if (!hasUnit(text)) throw new InputError(`expected a time with its unit such as "30 min", "2 h" or "3 d", got ${JSON.stringify(text)}`);
   return parseQuantity(text, 'time', { allowZero: false });
 }
 
@@ -86,7 +86,7 @@ export function timeList(text: string): number[] {
 
 function positiveWithUnit(kind: 'length' | 'density' | 'diffusivity', example: string): (text: string) => number {
   return (text) => {
-    if (!/[a-zA-Z]/.test(text)) throw new InputError(`expected a value with its unit such as "${example}", got ${JSON.stringify(text)}`);
+    if (!hasUnit(text)) throw new InputError(`expected a value with its unit such as "${example}", got ${JSON.stringify(text)}`);
     return parseQuantity(text, kind, { allowZero: false });
   };
 }
@@ -97,3 +97,8 @@ export const positiveLength = positiveWithUnit('length', '10 um');
 export const positiveDensity = positiveWithUnit('density', '650 kg/m3');
 /** A diffusivity such as "2e-17 m2/s", in m²/s. */
 export const positiveDiffusivity = positiveWithUnit('diffusivity', '2e-17 m2/s');
+
+/** True when a unit follows the number ("2e-17 m2/s" yes, "2e-17" no). */
+function hasUnit(text: string): boolean {
+  return text.trim().replace(/^[-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?\s*/, '') !== '';
+}

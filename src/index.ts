@@ -78,3 +78,18 @@ export { ebctRatio, smallColumnEbctMin, largeBedEbctMin, largeGrainDs, scalingEx
 export { fitColumn, type ColumnFitInput, type ColumnFitResult, type ColumnFitRow } from './calibration/columnFit.js';
 export { readBreakthroughData, BREAKTHROUGH_COLUMNS, MAX_DATA_C_OVER_C0, type BreakthroughData } from './calibration/breakthroughData.js';
 export { staggeredRun, type StaggeredRunInput, type StaggeredRun } from './kinetics/staggeredFiltersRun.js';
+
+// ── PAC contact kinetics (capabilities 16–17) — issue 9, branch pac
+export { integrateImplicit, TRBDF2_ERROR_CONSTANT, type StiffSystem, type NewtonSolve, type IntegratorOptions, type IntegratorStats, type IntegrationResult } from './kinetics/implicitIntegrator.js';
+export { denseLu, type DenseLu } from './kinetics/denseLu.js';
+export { sphereCollocation, type SphereCollocation } from './kinetics/sphereCollocation.js';
+export { reverseIast, traceSurfaceFactor, type SurfaceIsotherms, type ReverseIastState } from './kinetics/reverseIast.js';
+export { prepareKinetics, filmCoefficientSh2, DEFAULT_TRACE_RATIO, type KineticComponent, type CarbonParticle, type PreparedKinetics } from './kinetics/kineticMixture.js';
+export { hsdmParticleSystem, type ParticleSystem, type LiquidSpec } from './kinetics/hsdmParticleSystem.js';
+export { pacBatch, DEFAULT_INTERIOR_POINTS, DEFAULT_KINETIC_RTOL, type PacBatchResult, type KineticSolverOptions } from './kinetics/pacBatch.js';
+export { stirredReactor, checkContactConditions, type StirredReactorResult } from './kinetics/stirredReactor.js';
+export { ContactRemoval, remainingUnderContact, doseUnderContact, checkConditions, type ContactConditions, type ContactDoseResult as ContactDoseSearchResult } from './kinetics/contactRemoval.js';
+export { contactOverTime, contactSteadyState, contactDose, type ContactOverTimeResult, type ContactSteadyStateResult, type ContactDoseResult } from './kinetics/contactApi.js';
+export { readKineticMixture, readCarbonParticle, readComponentKinetics, COMPONENT_KINETIC_KEYS, type KineticMixture } from './scenario/readKineticInputs.js';
+export { calibrateKinetics, type KineticCalibrationModel, type KineticCalibrateOptions, type KineticCalibrationResult, type KineticCalibrationRow } from './calibration/kineticCalibration.js';
+export { readKineticTests, KINETIC_TARGET_COLUMNS, KINETIC_DOC_COLUMNS, type KineticSeries, type KineticTestKind } from './calibration/kineticTestData.js';

@@ -62,7 +62,7 @@ export function nonEmptyText(text: string): string {
 
 /** A time with its unit such as "30 min", "2 h" or "3 d" (> 0), in seconds. */
 export function positiveTime(text: string): number {
-  if (!/[a-zA-Z]/.test(text)) throw new InputError(`expected a time with its unit such as "30 min", "2 h" or "3 d", got ${JSON.stringify(text)}`);
+  if (!hasUnit(text)) throw new InputError(`expected a time with its unit such as "30 min", "2 h" or "3 d", got ${JSON.stringify(text)}`);
   return parseQuantity(text, 'time', { allowZero: false });
 }
 
@@ -84,22 +84,23 @@ export function timeList(text: string): number[] {
   });
 }
 
-/** A length with its unit such as "2 m", "1.2 mm" or "0.5 mm" (> 0), in metres. */
-export function positiveLength(text: string): number {
-  if (!/[a-zA-Z]/.test(text)) throw new InputError(`expected a length with its unit such as "2 m" or "0.5 mm", got ${JSON.stringify(text)}`);
-  return parseQuantity(text, 'length', { allowZero: false });
+function positiveWithUnit(kind: 'length' | 'density' | 'diffusivity', example: string): (text: string) => number {
+  return (text) => {
+    if (!hasUnit(text)) throw new InputError(`expected a value with its unit such as "${example}", got ${JSON.stringify(text)}`);
+    return parseQuantity(text, kind, { allowZero: false });
+  };
 }
 
-/** A density with its unit such as "750 kg/m3" (> 0), in kg/m³ (= g/L). */
-export function positiveDensity(text: string): number {
-  if (!/[a-zA-Z]/.test(text)) throw new InputError(`expected a density with its unit such as "750 kg/m3", got ${JSON.stringify(text)}`);
-  return parseQuantity(text, 'density', { allowZero: false });
-}
+/** A particle radius such as "10 um", in m. */
+export const positiveLength = positiveWithUnit('length', '10 um');
+/** A particle density such as "650 kg/m3", in kg/m³ (= g/L). */
+export const positiveDensity = positiveWithUnit('density', '650 kg/m3');
+/** A diffusivity such as "2e-17 m2/s", in m²/s. */
+export const positiveDiffusivity = positiveWithUnit('diffusivity', '2e-17 m2/s');
 
-/** A diffusivity with its unit such as "1e-14 m2/s" (> 0), in m²/s. */
-export function positiveDiffusivity(text: string): number {
-  if (!/[a-zA-Z]/.test(text)) throw new InputError(`expected a diffusivity with its unit such as "1e-14 m2/s", got ${JSON.stringify(text)}`);
-  return parseQuantity(text, 'diffusivity', { allowZero: false });
+/** True when a unit follows the number ("2e-17 m2/s" yes, "2e-17" no). */
+function hasUnit(text: string): boolean {
+  return text.trim().replace(/^[-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?\s*/, '') !== '';
 }
 
 /** A positive finite number such as 100000. */

@@ -212,7 +212,7 @@ export function integrateImplicit(
       hStep = Math.min(replay[replayIdx] ?? target, target) - t;
       hitsOutput = t + hStep >= target;
     } else if (t + hStep >= target || t + 1.05 * hStep >= target) { hStep = target - t; hitsOutput = true; }
-    const hMin = hMinFloor * Math.max(Math.abs(t), Math.abs(target), 1e-300);
+    const hMin = hMinFloor * Math.max(Math.abs(t), 1e-3 * Math.abs(span), 1e-300);
     if (!(hStep > hMin)) throw new ComputationError(`${what}: step size underflow at t = ${t} (h = ${hStep})`);
 
     const dh = D * hStep;

@@ -20,6 +20,8 @@ export interface KineticSolverOptions {
   interiorPoints?: number;
   /** Relative tolerance of the integrator on the scaled loadings (default 1e-5). */
   rtol?: number;
+  /** Replay these step times instead of controlling the error (see implicitIntegrator). */
+  stepTimes?: readonly number[];
 }
 
 /** Defaults (ours): doubling the grid changes removals by < 1e-4 down to Ds·t/R² ≈ 5e-4, and the Crank (1975) checks hold within 1e-4 (tests/kinetics). */
@@ -31,6 +33,8 @@ export interface PacBatchResult {
   timesS: number[];
   /** Liquid concentration of every component at every time: cMgPerL[time][component], mg/L. */
   cMgPerL: Float64Array[];
+  /** End times of the integrator's steps (for a replay). */
+  stepTimes: number[];
   /** Mean loading q̄ of every component at every time, mg/g. */
   qMeanMgPerG: Float64Array[];
   stats: IntegratorStats;
@@ -50,7 +54,7 @@ export function pacBatch(pk: PreparedKinetics, doseGPerL: number, timesS: readon
   const col = sphereCollocation(options.interiorPoints ?? DEFAULT_INTERIOR_POINTS);
   const sys = hsdmParticleSystem(pk, doseGPerL, col, { kind: 'batch' });
   const rtol = options.rtol ?? DEFAULT_KINETIC_RTOL;
-  const run = integrateImplicit(sys, 0, sys.initialState(), timesS, { rtol, atol: rtol * 1e-3 });
+  const run = integrateImplicit(sys, 0, sys.initialState(), timesS, options.stepTimes ? { stepTimes: options.stepTimes } : { rtol, atol: rtol * 1e-3 });
   const m = pk.components.length;
   const cMgPerL: Float64Array[] = [];
   const qMeanMgPerG: Float64Array[] = [];
@@ -65,5 +69,5 @@ export function pacBatch(pk: PreparedKinetics, doseGPerL: number, timesS: readon
     cMgPerL.push(c);
     qMeanMgPerG.push(qm);
   }
-  return { doseGPerL, timesS: [...timesS], cMgPerL, qMeanMgPerG, stats: run.stats };
+  return { doseGPerL, timesS: [...timesS], cMgPerL, stepTimes: run.stepTimes, qMeanMgPerG, stats: run.stats };
 }

@@ -254,7 +254,7 @@ const CASES: BadCase[] = [
   project('--separator word', {}, [/--separator/], ['--separator', 'tab']),
   project('--decimal forced wrong for the demo', {}, [/doc_isotherm\.csv|site_series\.csv|jar_tests_cbz\.csv/, /decimal point but the table uses decimal commas/], ['--decimal', ',']),
   project('project file missing', {}, [/nothing\.json/, /not found/], []),
-  project('a flow so large the yearly carbon overflows', { 'project.json': proj((p) => { p.site.flow = '1e306 m3/d'; delete p.site.series; }) }, [/computation failed/, /carbons\[0\]\.yearly\.carbonKg would be infinite/, /site\.flow/], [], 1),
+  project('a flow so large the yearly carbon overflows', { 'project.json': proj((p) => { p.site.flow = '1e308 m3/d'; delete p.site.series; }) }, [/computation failed/, /carbons\[0\]\.carbonKgPerDAtDesign would be infinite/, /site\.flow/], [], 1),
   project('a price so large the yearly cost overflows', { 'project.json': proj((p) => { p.carbons[0].price_per_kg = 1e306; }) }, [/computation failed/, /carbons\[0\] \("Carbon A \(coal-based\)"\)\.price_per_kg/], [], 1),
 ];
 

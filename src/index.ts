@@ -68,7 +68,7 @@ export * from './uncertainty/index.js';
 // ── GAC fixed bed, staggered filters, column calibration and scale-up (capabilities 18, 19)
 export { simulateFixedBed, DEFAULT_BREAKTHROUGH_LEVELS, DEFAULT_FIXED_BED_GRID, type FixedBedOptions, type FixedBedResult, type FixedBedComponentResult, type BreakthroughPoint } from './kinetics/fixedBed.js';
 export { DEFAULT_BED_POROSITY, filmCoefficients, type FixedBedComponent, type FixedBedSpec, type FixedBedInput, type ComponentFilm } from './kinetics/fixedBedInput.js';
-export { column, type ColumnMixture, type ColumnOptions, type ColumnJson } from './kinetics/fixedBedApi.js';
+export { column, type ColumnMixture, type ColumnOptions, type ColumnJson } from './api/fixedBedApi.js';
 export { wilsonGeankoplisKf, WILSON_GEANKOPLIS_RE_RANGE, type FilmInput, type FilmCoefficient } from './kinetics/filmCorrelation.js';
 export { waterProperties, DEFAULT_WATER_TEMPERATURE_C, type WaterProperties } from './kinetics/waterProperties.js';
 export { curveAt, curveIntegral, firstCrossing, type BreakthroughCurve } from './kinetics/breakthroughCurve.js';
@@ -89,7 +89,7 @@ export { hsdmParticleSystem, type ParticleSystem, type LiquidSpec } from './kine
 export { pacBatch, DEFAULT_INTERIOR_POINTS, DEFAULT_KINETIC_RTOL, type PacBatchResult, type KineticSolverOptions } from './kinetics/pacBatch.js';
 export { stirredReactor, checkContactConditions, type StirredReactorResult } from './kinetics/stirredReactor.js';
 export { ContactRemoval, remainingUnderContact, doseUnderContact, checkConditions, type ContactConditions, type ContactDoseResult as ContactDoseSearchResult } from './kinetics/contactRemoval.js';
-export { contactOverTime, contactSteadyState, contactDose, type ContactOverTimeResult, type ContactSteadyStateResult, type ContactDoseResult } from './kinetics/contactApi.js';
+export { contactOverTime, contactSteadyState, contactDose, type ContactOverTimeResult, type ContactSteadyStateResult, type ContactDoseResult } from './api/contactApi.js';
 export { readKineticMixture, readCarbonParticle, readComponentKinetics, COMPONENT_KINETIC_KEYS, type KineticMixture } from './scenario/readKineticInputs.js';
 export { calibrateKinetics, type KineticCalibrationModel, type KineticCalibrateOptions, type KineticCalibrationResult, type KineticCalibrationRow } from './calibration/kineticCalibration.js';
 export { readKineticTests, KINETIC_TARGET_COLUMNS, KINETIC_DOC_COLUMNS, type KineticSeries, type KineticTestKind } from './calibration/kineticTestData.js';

@@ -1,6 +1,6 @@
 /**
  * The goal of one compound: its effluent limit when it has one, otherwise the project's removal
- * goal (default 80 %, CHECKS.md "Regulation and practice"). A limit becomes the removal fraction
+ * goal (default 80 %, common practice; docs/references.md). A limit becomes the removal fraction
  * R = 1 − limit/c0; a limit at or above c0 needs no carbon.
  */
 export interface CompoundGoal {

@@ -1,7 +1,7 @@
 /**
  * Carbon demand over the site's DOC series on one carbon. The background is scaled to each day's
  * DOC (fictive fractions and EBC concentrations proportional to DOC; support: Zietzschmann et al.
- * 2016, Water Research 102:190, CHECKS.md); each day's required dose is read from the dose table
+ * 2016, Water Research 102:190); each day's required dose is read from the dose table
  * (doseTable.ts: exact designs at a few DOC nodes, linear in DOC between them, with a checked error
  * bound); then (carbonCost.ts)
  *   carbon mass, kg/d = dose (mg/L = g/m³) × flow (m³/d) / 1000,

@@ -11,7 +11,7 @@
  *      (a relative dose error ≤ 1e-12).
  * A good hint (the dose at a nearby DOC scaled by DOC, or the previous draw) finds the bracket in
  * two or three evaluations; without one the search starts at 20 mg/L (common practice PAC doses
- * are 10–20 mg/L; CHECKS.md "Regulation and practice") with wide steps.
+ * are 10–20 mg/L; common practice) with wide steps.
  *
  * Outcomes are statuses, not exceptions: 'met' with the dose; 'unreachable' when e < 0 at
  * D_max = 5 g/L; 'met below the smallest dose' when e ≥ 0 at D_min = 1e-12 g/L (1e-9 mg/L, below

@@ -1,5 +1,5 @@
 /**
- * The background file: DOC reduced to fictive components (DESIGN.md, "fractionate --json").
+ * The background file: DOC reduced to fictive components (the output of `fractionate --json`).
  *
  *   { "doc0_mg_per_L", "one_over_n", "components": [ { "id", "K", "one_over_n", "fraction",
  *     "c0_mg_per_L", … } ], "fit": { "rmse_mg_per_L", "points", … }, … }

@@ -1,4 +1,4 @@
-/** The cautions the tool shows (DESIGN.md, "Cautions the tool shows"), in the summary and the report. */
+/** The cautions the tool shows, in the summary and the report. */
 export const CAUTIONS: readonly string[] = [
   'Results are planning estimates from equilibrium models. Contact time, carbon age, preloading, mixing and temperature reduce real removal; confirm with jar and pilot tests.',
   'Leave design decisions to a licensed engineer under the local discharge permit and codes.',

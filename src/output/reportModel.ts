@@ -9,7 +9,7 @@ export interface ReportModel {
   /** ISO date-time of the run. */
   generatedAt: string;
   version: string;
-  /** The cautions of DESIGN.md, shown prominently. */
+  /** The cautions the tool shows, shown prominently. */
   cautions: string[];
   /** Cover block from the project file, in order. */
   cover?: CoverLine[];

@@ -9,7 +9,7 @@
  *   3. the fractionated DOC (fictive components), with the target's K times the calibrated
  *      factor of model "fictive-k" (Schideman et al. 2006; Worch 2010; both from memory).
  * EBC concentrations scale with DOC: c0_EBC(DOC) = c0_EBC,ref · DOC / DOC_ref (Zietzschmann et
- * al. 2016 found the EBC concentration correlated with DOC; CHECKS.md).
+ * al. 2016 found the EBC concentration correlated with DOC).
  */
 import { backgroundComponents } from '../fractionation/backgroundPrediction.js';
 import { InputError } from '../core/errors.js';

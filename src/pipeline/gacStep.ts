@@ -4,7 +4,7 @@
  * competitors at their feed concentrations, src/gac/gacEstimate.ts), the operating life BV·EBCT,
  * the yearly carbon at the design flow, and the governing compound (fewest bed volumes).
  *
- *   BV = ρ_bed·q_T(feed)/c0_T,   CUR = c0_T/q_T(feed)   (DESIGN.md, "GAC equilibrium column estimate")
+ *   BV = ρ_bed·q_T(feed)/c0_T,   CUR = c0_T/q_T(feed)   (equilibrium column estimate; docs/references.md)
  *
  * Each compound is estimated with its own competitors (fictive DOC components or its EBC, as in
  * the batch systems) at the design DOC. Beside it the single-solute estimate uses the compound's

@@ -1,5 +1,5 @@
 /**
- * A validated project (the project file of DESIGN.md, capability 8–10) in internal units:
+ * A validated project (the project file, capabilities 8–10) in internal units:
  * concentrations mg/L, flows m³/d, K in (mg/g)/(mg/L)^(1/n), prices per kg of carbon.
  * File references stay as written (paths relative to the project file); `loadProject` reads them.
  */
@@ -148,7 +148,7 @@ export interface ProjectSpec {
   uncertainty?: UncertaintySpec;
 }
 
-/** Defaults (common practice, CHECKS.md "Regulation and practice"). */
+/** Defaults (common practice). */
 export const DEFAULT_REMOVAL_PERCENT = 80;
 export const DEFAULT_SWEEP = { fromMgPerL: 0.5, toMgPerL: 100, points: 40 } as const;
 /** Pilot acceptance band, ± percentage points (common practice; see src/surrogates/pilotCheck.ts). */

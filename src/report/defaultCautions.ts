@@ -1,5 +1,5 @@
 /**
- * The cautions of DESIGN.md ("Cautions the tool shows"), used by the renderers when a model
+ * The cautions the tool shows, used by the renderers when a model
  * carries none, so a report never goes out without them.
  */
 export const DEFAULT_CAUTIONS: readonly string[] = [

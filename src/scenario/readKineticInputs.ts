@@ -1,5 +1,5 @@
 /**
- * Kinetic inputs of a mixture file (DESIGN.md "Kinetic inputs"): a `carbon` object
+ * Kinetic inputs of a mixture file (the kinetic keys of the mixture file): a `carbon` object
  * `{ "particle_radius": "10 um", "particle_density": "650 kg/m3" }` and per component `Ds`
  * (surface diffusivity), `DL` (liquid diffusivity) or `kf` (film coefficient), each a number in
  * the internal unit (m, kg/m³, m²/s, m/s) or a text with its unit. Read on top of `readMixture`;

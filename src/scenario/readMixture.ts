@@ -1,5 +1,5 @@
 /**
- * Read a mixture object (the parsed JSON of a mixture file, DESIGN.md "Mixture file") into
+ * Read a mixture object (the parsed JSON of a mixture file, see the README) into
  * internal units, with errors that name the JSON path.
  *
  *   { "dose": "20 mg/L", "components": [ { "id", "c0", "K", "one_over_n", "K_unit": {"q","c"},

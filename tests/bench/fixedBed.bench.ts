@@ -9,7 +9,7 @@
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { readKineticMixture } from '../../src/scenario/readKineticInputs.js';
-import { column } from '../../src/kinetics/fixedBedApi.js';
+import { column } from '../../src/api/fixedBedApi.js';
 import type { BenchFigure } from './run.js';
 
 export async function bench(): Promise<BenchFigure[]> {

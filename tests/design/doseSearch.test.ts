@@ -18,7 +18,7 @@ describe('dose search', () => {
     }
   });
 
-  it('equal K and exponent with a background: D from f·(1 + D·K·((c0T + c0B)·f)^(β−1)) = 1 solved for D (DESIGN.md)', () => {
+  it('equal K and exponent with a background: D from f·(1 + D·K·((c0T + c0B)·f)^(β−1)) = 1 solved for D (closed form)', () => {
     const K = 30, beta = 0.3, c0B = 5, c0T = 1e-4, R = 0.9;
     const f = 1 - R;
     const Dref = (1 / f - 1) / (K * Math.pow((c0T + c0B) * f, beta - 1));

@@ -1,7 +1,7 @@
 /**
  * The dose table against a closed form. With one background component whose isotherm equals the
  * target's (K, exponent β), the fraction f of a trace target left solves
- *   f·(1 + D·K·((c0T + c0B)·f)^(β − 1)) = 1   (IAST with one isotherm; DESIGN.md "Closed forms",
+ *   f·(1 + D·K·((c0T + c0B)·f)^(β − 1)) = 1   (IAST with one isotherm; closed form,
  *   the Sheindorf–Rebhun–Sheintuch form with a_ij = 1, J. Colloid Interface Sci. 1981),
  * so the dose for a removal R is D = (1/f − 1)/(K·((c0T + c0B)·f)^(β − 1)) with f = 1 − R, and the
  * background c0B equals the DOC. The table must reproduce D exactly at its nodes and within its
@@ -19,7 +19,7 @@ const closedFormMgPerL = (doc: number) => {
 };
 const model = new EquilibriumRemoval([{ target: { id: 'T', c0MgPerL: c0T, K, oneOverN: beta }, competitors: [{ id: 'B', c0MgPerL: 8, K, oneOverN: beta }] }], 8);
 const problem: DesignProblem = { goals: [{ kind: 'removal', removalFraction: R, text: '80 % removal' }], pricePerKg: 2 };
-// an invented year of DOC between 5 and 12 mg/L (effluent range, CHECKS.md common practice)
+// an invented year of DOC between 5 and 12 mg/L (effluent range, common practice)
 const series = Array.from({ length: 365 }, (_, i) => 8.5 + 3.5 * Math.sin(i / 11) * Math.cos(i / 47));
 
 describe('dose table', () => {

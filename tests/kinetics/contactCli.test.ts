@@ -15,7 +15,7 @@ const KIN = ['--particle-radius', '12 um', '--particle-density', '700 kg/m3', '-
 beforeAll(() => requireBuild());
 
 describe('sorbshare contact', () => {
-  it('--time prints removal over time in the DESIGN.md JSON shape, rising with time for the target', () => {
+  it('--time prints removal over time in the documented JSON shape, rising with time for the target', () => {
     const r = runBin('contact', MIX, '--time', '5,15,30,60 min', '--json');
     expect(r.code).toBe(0);
     const j = JSON.parse(r.out);

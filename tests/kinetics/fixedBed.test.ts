@@ -32,7 +32,7 @@ describe('fixed bed: linear isotherm against the analytic solution', () => {
 
 describe('fixed bed: mass balances', () => {
   it('single solute (Freundlich 1/n = 0.3): ∫(1 − c/c0) dBV over the whole curve = ε + ρ_bed·q(c0)/c0 within 1e-3', () => {
-    // CHECKS.md "Fixed bed, single solute" (a mass balance, exact for any kinetics)
+    // fixed bed, single solute: a mass balance, exact for any kinetics (closed form)
     const comp = { id: 'S', c0MgPerL: 0.5, K: 40, oneOverN: 0.3, dsM2PerS: 5e-14, kfMPerS: 3e-5 };
     const expected = BED.porosity + (BED.particleDensityKgPerM3 * (1 - BED.porosity) * comp.K * Math.pow(comp.c0MgPerL, comp.oneOverN)) / comp.c0MgPerL;
     const r = simulateFixedBed({ components: [comp], bed: BED }, { toBedVolumes: 2.5 * expected, points: 1001 });

@@ -8,7 +8,7 @@ const BACKGROUND = join(process.cwd(), 'fixtures/project/background-file/backgro
 const BED = ['--ebct', '1 min', '--bed-depth', '0.1 m', '--grain-radius', '0.1 mm', '--grain-density', '800 kg/m3'];
 
 describe('sorbshare calibrate --model column (end to end)', () => {
-  beforeAll(requireBuild);
+  beforeAll(() => requireBuild());
   const { write } = scratchDir('colcal-');
 
   it('fits Ds to the invented small-column test (generated with Ds = 3e-15 m²/s and ±0.01 scatter)', () => {

@@ -16,7 +16,7 @@ const small = {
 };
 
 describe('sorbshare column (end to end)', () => {
-  beforeAll(requireBuild);
+  beforeAll(() => requireBuild());
   const { write } = scratchDir('column-');
 
   it('prints the design JSON shape with breakthrough points at 0.1, 0.2, 0.5 and a closed mass balance', () => {

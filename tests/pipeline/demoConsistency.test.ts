@@ -1,7 +1,7 @@
 /**
  * The demo end to end (in-process), checked for internal consistency. The demo data are
  * invented, so nothing here compares with demo numbers; every check is a property the results
- * must have whatever the data (STYLE.md rule 6).
+ * must have whatever the data.
  */
 import { beforeAll, describe, expect, it } from 'vitest';
 import { join } from 'node:path';

@@ -1,7 +1,7 @@
 /**
  * Surrogates in the run (capability 11) on the invented demo: the predicted UV254 reduction is
  * the fitted UV254 isotherm, and every set-point re-solved gives its compound's goal. The demo
- * data are invented, so every check is a property (STYLE.md rule 6), with the source of the
+ * data are invented, so every check is a property, with the source of the
  * relation it checks.
  */
 import { beforeAll, describe, expect, it } from 'vitest';

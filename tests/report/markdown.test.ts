@@ -42,7 +42,7 @@ describe('renderMarkdownSummary', () => {
 });
 
 describe('default cautions', () => {
-  it('a model without cautions still shows those of DESIGN.md, in HTML and Markdown', async () => {
+  it('a model without cautions still shows the default cautions, in HTML and Markdown', async () => {
     const { renderHtmlReport } = await import('../../src/report/htmlReport.js');
     const { DEFAULT_CAUTIONS } = await import('../../src/report/defaultCautions.js');
     const model = { ...syntheticModel(), cautions: [] };

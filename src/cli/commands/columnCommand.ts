@@ -1,7 +1,7 @@
 /** `sorbshare column MIXTURE.json --ebct T --bed-depth L [--porosity 0.4] [--to-bv N] [--temperature C] [--points N] [--json]` */
 import type { CommandSpec } from '../commandSpec.js';
 import { InputError } from '../../core/errors.js';
-import type { ColumnJson } from '../../kinetics/fixedBedApi.js';
+import type { ColumnJson } from '../../api/fixedBedApi.js';
 import { readJsonFile } from '../../io/readFiles.js';
 import { fmt, fmtConc, table } from '../format.js';
 import { finiteNumber, positiveLength, positiveNumber, positiveTime, wholeNumber } from '../optionParsers.js';
@@ -36,7 +36,7 @@ export const columnCommand: CommandSpec = {
   examples: ['sorbshare column water.json --ebct "20 min" --bed-depth "2 m"', 'sorbshare column water.json --ebct "15 min" --bed-depth "1.5 m" --porosity 0.42 --to-bv 60000 --json'],
   async action(args, opts, ctx) {
     const { readKineticMixture } = await import('../../scenario/readKineticInputs.js');
-    const { column } = await import('../../kinetics/fixedBedApi.js');
+    const { column } = await import('../../api/fixedBedApi.js');
     const file = args[0]!;
     const mixture = inFile(file, () => readKineticMixture(readJsonFile(file, 'mixture file')));
     const options = { ebctS: opts.ebct as number, bedDepthM: opts.bedDepth as number, porosity: opts.porosity as number, toBedVolumes: opts.toBv as number, temperatureC: opts.temperature as number, points: opts.points as number };

@@ -1,7 +1,7 @@
 /** `sorbshare contact MIXTURE.json --dose Q (--time "1,5,15,30 min" | --contact-time T [--carbon-age A]) [--json]` */
 import type { CommandSpec } from '../commandSpec.js';
 import { InputError } from '../../core/errors.js';
-import type { ContactOverTimeResult, ContactSteadyStateResult } from '../../kinetics/contactApi.js';
+import type { ContactOverTimeResult, ContactSteadyStateResult } from '../../api/contactApi.js';
 import { readJsonFile } from '../../io/readFiles.js';
 import { fmt, fmtConc, table } from '../format.js';
 import { positiveMassConcentration, positiveTime, timeList } from '../optionParsers.js';
@@ -21,7 +21,7 @@ export const contactCommand: CommandSpec = {
   examples: ['sorbshare contact mixture.json --dose "20 mg/L" --time "1,5,15,30,60 min"', 'sorbshare contact mixture.json --dose "10 mg/L" --contact-time "30 min" --carbon-age "3 d" --json'],
   async action(args, opts, ctx) {
     const { readKineticMixture } = await import('../../scenario/readKineticInputs.js');
-    const { contactOverTime, contactSteadyState } = await import('../../kinetics/contactApi.js');
+    const { contactOverTime, contactSteadyState } = await import('../../api/contactApi.js');
     const file = args[0]!;
     const times = opts.time as number[] | undefined;
     const contactTime = opts.contactTime as number | undefined;

@@ -44,7 +44,7 @@ export const doseCommand: CommandSpec = {
 /** The dose under PAC contact conditions (stirred contact tank at steady state). */
 async function contactDoseAction(file: string, opts: OptionValues, goal: DoseGoal, ctx: CommandContext): Promise<void> {
   const { readKineticMixture } = await import('../../scenario/readKineticInputs.js');
-  const { contactDose } = await import('../../kinetics/contactApi.js');
+  const { contactDose } = await import('../../api/contactApi.js');
   const { goalToRemovalFraction } = await import('../../api/equilibriumApi.js');
   const mixture = inFile(file, () => readKineticMixture(readJsonFile(file, 'mixture file')));
   const target = opts.target as string;

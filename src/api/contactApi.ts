@@ -13,10 +13,10 @@
  */
 import { InputError } from '../core/errors.js';
 import type { KineticMixture } from '../scenario/readKineticInputs.js';
-import { prepareKinetics } from './kineticMixture.js';
-import { pacBatch, type KineticSolverOptions } from './pacBatch.js';
-import { stirredReactor } from './stirredReactor.js';
-import { doseUnderContact } from './contactRemoval.js';
+import { prepareKinetics } from '../kinetics/kineticMixture.js';
+import { pacBatch, type KineticSolverOptions } from '../kinetics/pacBatch.js';
+import { stirredReactor } from '../kinetics/stirredReactor.js';
+import { doseUnderContact } from '../kinetics/contactRemoval.js';
 
 export interface ContactOverTimeResult {
   dose_mg_per_L: number;

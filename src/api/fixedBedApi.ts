@@ -14,8 +14,8 @@
  */
 import { InputError } from '../core/errors.js';
 import type { FreundlichComponent } from '../equilibrium/preparedMixture.js';
-import { DEFAULT_BREAKTHROUGH_LEVELS, simulateFixedBed, type FixedBedOptions } from './fixedBed.js';
-import type { FixedBedComponent } from './fixedBedInput.js';
+import { DEFAULT_BREAKTHROUGH_LEVELS, simulateFixedBed, type FixedBedOptions } from '../kinetics/fixedBed.js';
+import type { FixedBedComponent } from '../kinetics/fixedBedInput.js';
 
 /** A mixture with kinetic inputs (internal units), as read from a mixture file. */
 export interface ColumnMixture {

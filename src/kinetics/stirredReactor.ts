@@ -55,6 +55,15 @@ export function checkContactConditions(contactTimeS: number, carbonAgeS: number)
 }
 
 export function stirredReactor(pk: PreparedKinetics, doseGPerL: number, contactTimeS: number, carbonAgeS: number = contactTimeS, options: KineticSolverOptions = {}): StirredReactorResult {
+  return stirredReactorFrom(pk, doseGPerL, contactTimeS, carbonAgeS, options);
+}
+
+/**
+ * The stirred reactor started from a given outlet of the coupled components (`startRemaining`,
+ * c_out/c0 in the order of pk.coupled, e.g. the result at a nearby dose of a dose search); the
+ * result does not depend on the start beyond the balance tolerance.
+ */
+export function stirredReactorFrom(pk: PreparedKinetics, doseGPerL: number, contactTimeS: number, carbonAgeS: number = contactTimeS, options: KineticSolverOptions = {}, startRemaining?: Float64Array): StirredReactorResult {
   if (!(doseGPerL > 0) || !Number.isFinite(doseGPerL)) throw new InputError(`expected a positive carbon dose, got ${doseGPerL * 1000} mg/L`, { option: '--dose' });
   checkContactConditions(contactTimeS, carbonAgeS);
   const theta = Math.max(carbonAgeS, contactTimeS);
@@ -103,7 +112,9 @@ export function stirredReactor(pk: PreparedKinetics, doseGPerL: number, contactT
   // θ → ∞), c_out ≈ c0 − F·(c0 − c_eq) with F the age-weighted approach of a linear particle
   // (startFraction); solve with the steps recorded at the start, then, when the solution is
   // more than 5 % away from where the steps were recorded, record there and solve again
-  let v = startGuess(pk, doseGPerL, theta);
+  let v = startRemaining && startRemaining.length === nB && startRemaining.every((r) => r > 0 && r <= 1)
+    ? Float64Array.from(startRemaining, (r) => Math.log(r))
+    : startGuess(pk, doseGPerL, theta);
   let recordedAt = Float64Array.from(v);
   let iterations = 0;
   let J: Float64Array | undefined;

@@ -7,7 +7,8 @@
  * as the dose rises, so the dose for a goal is the root of
  *   e(D) = ln(1 − R) − ln(c(D)/c0)   (removalExcess)
  * found by the design layer's one dose search (src/design/doseSearch.ts: bracketing on ln D,
- * then Brent 1973), started from the equilibrium dose (a lower bound: contact gives less removal).
+ * then Brent 1973), warm-started from one evaluation at 1.5 × the equilibrium dose (a lower bound:
+ * contact gives less removal; see remainingAtDoses and doseUnderContact).
  *
  * `ContactRemoval` is the RemovalModel of the design layer (src/design/removalModel.ts) for these
  * conditions: every target with its competitors (fictive DOC components with their Ds and DL or

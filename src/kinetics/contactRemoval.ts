@@ -7,7 +7,8 @@
  * as the dose rises, so the dose for a goal is the root of
  *   e(D) = ln(1 − R) − ln(c(D)/c0)   (removalExcess)
  * found by the design layer's one dose search (src/design/doseSearch.ts: bracketing on ln D,
- * then Brent 1973), started from the equilibrium dose (a lower bound: contact gives less removal).
+ * then Brent 1973), warm-started from one evaluation at 1.5 × the equilibrium dose (a lower bound:
+ * contact gives less removal; see remainingAtDoses and doseUnderContact).
  *
  * `ContactRemoval` is the RemovalModel of the design layer (src/design/removalModel.ts) for these
  * conditions: every target with its competitors (fictive DOC components with their Ds and DL or
@@ -26,7 +27,7 @@ import { removalExcess } from '../design/removalExcess.js';
 import type { BackgroundAtDose, CompetitionSet, RemainingAtDose, RemovalModel, WarmStart } from '../design/removalModel.js';
 import { prepareKinetics, type CarbonParticle, type KineticComponent, type PreparedKinetics } from './kineticMixture.js';
 import { checkTimes, pacBatch, type KineticSolverOptions } from './pacBatch.js';
-import { checkContactConditions, stirredReactor } from './stirredReactor.js';
+import { checkContactConditions, stirredReactor, stirredReactorFrom } from './stirredReactor.js';
 
 export type ContactConditions =
   | { kind: 'plug-flow'; contactTimeS: number }
@@ -43,6 +44,10 @@ export function remainingUnderContact(pk: PreparedKinetics, doseGPerL: number, c
   const c = cond.kind === 'plug-flow'
     ? pacBatch(pk, doseGPerL, [cond.contactTimeS], options).cMgPerL[0]!
     : stirredReactor(pk, doseGPerL, cond.contactTimeS, cond.carbonAgeS, options).cMgPerL;
+  return remainingFraction(pk, c);
+}
+
+function remainingFraction(pk: PreparedKinetics, c: Float64Array): Float64Array {
   return Float64Array.from(pk.components, (comp, i) => (comp.c0MgPerL > 0 ? Math.min(1, Math.max(0, c[i]! / comp.c0MgPerL)) : 1));
 }
 
@@ -63,13 +68,46 @@ export function doseUnderContact(pk: PreparedKinetics, targetIndex: number, remo
   const comp = pk.components[targetIndex];
   if (!comp) throw new InputError(`target index ${targetIndex} is not in the mixture`);
   const eq = doseForRemoval(prepareMixture(pk.components), targetIndex, removalFraction);
-  const at = (d: number) => remainingUnderContact(pk, d, cond, options)[targetIndex]!;
-  const r = searchDose((d) => removalExcess(at(d), removalFraction), { hintGPerL: eq.doseGPerL * 1.5, firstStep: 0.4, what: `contact dose search for "${comp.id}"` });
+  const at = remainingAtDoses(pk, cond, options);
+  // warm start (ours): one evaluation at 1.5 × the equilibrium dose, then the hint from ln(c/c0)
+  // proportional to the dose (first-order uptake by the carbon's outer surface), clamped to
+  // [1, 20] × that dose; the search then brackets with small steps
+  const d1 = eq.doseGPerL * 1.5;
+  const r1 = at(d1)[targetIndex]!;
+  const hint = r1 > 0 && r1 < 1 ? d1 * Math.min(20, Math.max(1, Math.log(1 - removalFraction) / Math.log(r1))) : d1;
+  const r = searchDose((d) => removalExcess(at(d)[targetIndex]!, removalFraction), { hintGPerL: hint, firstStep: 0.1, what: `contact dose search for "${comp.id}"` });
   if (r.status === 'unreachable') {
-    throw new InputError(`the goal of ${pct(removalFraction)} removal of "${comp.id}" is not reached under these contact conditions by any dose up to ${MAX_DOSE_G_PER_L * 1000} mg/L (it reaches ${pct(1 - at(MAX_DOSE_G_PER_L))} there)`);
+    throw new InputError(`the goal of ${pct(removalFraction)} removal of "${comp.id}" is not reached under these contact conditions by any dose up to ${MAX_DOSE_G_PER_L * 1000} mg/L (it reaches ${pct(1 - at(MAX_DOSE_G_PER_L)[targetIndex]!)} there)`);
   }
   if (r.status !== 'met') throw new ComputationError(`contact dose search for "${comp.id}": the goal is met below the smallest dose searched, although the equilibrium dose is ${eq.doseGPerL * 1000} mg/L`);
-  return { doseGPerL: r.doseGPerL, removalFraction: 1 - at(r.doseGPerL), equilibriumDoseGPerL: eq.doseGPerL, evaluations: r.evaluations };
+  return { doseGPerL: r.doseGPerL, removalFraction: 1 - at(r.doseGPerL)[targetIndex]!, equilibriumDoseGPerL: eq.doseGPerL, evaluations: at.evaluations() };
+}
+
+/**
+ * remainingUnderContact over the doses of one search: remembers every dose's result (a dose
+ * asked again costs nothing) and starts each stirred reactor from the outlet at the nearest dose
+ * already solved (warm start; the result does not depend on the start beyond the balance tolerance).
+ */
+function remainingAtDoses(pk: PreparedKinetics, cond: ContactConditions, options: KineticSolverOptions) {
+  const done = new Map<number, Float64Array>();
+  const outlets: Array<{ dose: number; coupled: Float64Array }> = [];
+  const at = (d: number): Float64Array => {
+    const hit = done.get(d);
+    if (hit) return hit;
+    let f: Float64Array;
+    if (cond.kind === 'plug-flow') f = remainingUnderContact(pk, d, cond, options);
+    else {
+      let near: Float64Array | undefined;
+      let best = Infinity;
+      for (const o of outlets) { const dist = Math.abs(Math.log(o.dose / d)); if (dist < best) { best = dist; near = o.coupled; } }
+      const c = stirredReactorFrom(pk, d, cond.contactTimeS, cond.carbonAgeS, options, near).cMgPerL;
+      outlets.push({ dose: d, coupled: Float64Array.from(pk.coupled, (i) => c[i]! / pk.components[i]!.c0MgPerL) });
+      f = remainingFraction(pk, c);
+    }
+    done.set(d, f);
+    return f;
+  };
+  return Object.assign(at, { evaluations: () => done.size });
 }
 
 function pct(f: number): string {

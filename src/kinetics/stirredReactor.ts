@@ -26,6 +26,8 @@ import { hsdmParticleSystem } from './hsdmParticleSystem.js';
 import { sphereCollocation } from './sphereCollocation.js';
 import { denseLu } from './denseLu.js';
 import type { PreparedKinetics } from './kineticMixture.js';
+import { prepareMixture } from '../equilibrium/preparedMixture.js';
+import { solveBatchPrepared } from '../equilibrium/iastBatch.js';
 import { DEFAULT_INTERIOR_POINTS, DEFAULT_KINETIC_RTOL, type KineticSolverOptions } from './pacBatch.js';
 
 export interface StirredReactorResult {
@@ -53,6 +55,15 @@ export function checkContactConditions(contactTimeS: number, carbonAgeS: number)
 }
 
 export function stirredReactor(pk: PreparedKinetics, doseGPerL: number, contactTimeS: number, carbonAgeS: number = contactTimeS, options: KineticSolverOptions = {}): StirredReactorResult {
+  return stirredReactorFrom(pk, doseGPerL, contactTimeS, carbonAgeS, options);
+}
+
+/**
+ * The stirred reactor started from a given outlet of the coupled components (`startRemaining`,
+ * c_out/c0 in the order of pk.coupled, e.g. the result at a nearby dose of a dose search); the
+ * result does not depend on the start beyond the balance tolerance.
+ */
+export function stirredReactorFrom(pk: PreparedKinetics, doseGPerL: number, contactTimeS: number, carbonAgeS: number = contactTimeS, options: KineticSolverOptions = {}, startRemaining?: Float64Array): StirredReactorResult {
   if (!(doseGPerL > 0) || !Number.isFinite(doseGPerL)) throw new InputError(`expected a positive carbon dose, got ${doseGPerL * 1000} mg/L`, { option: '--dose' });
   checkContactConditions(contactTimeS, carbonAgeS);
   const theta = Math.max(carbonAgeS, contactTimeS);
@@ -97,15 +108,24 @@ export function stirredReactor(pk: PreparedKinetics, doseGPerL: number, contactT
   };
   const normOf = (G: Float64Array) => G.reduce((s, g) => Math.max(s, Math.abs(g)), 0);
 
-  // start: a quarter of the way to full removal; two rounds: solve with the steps recorded at the
-  // start, then record at that solution and solve again (one or two iterations)
-  let v = new Float64Array(nB).fill(Math.log(0.75));
+  // start: the outlet estimated from the batch IAST equilibrium at the same dose (the limit
+  // θ → ∞), c_out ≈ c0 − F·(c0 − c_eq) with F the age-weighted approach of a linear particle
+  // (startFraction); solve with the steps recorded at the start, then, when the solution is
+  // more than 5 % away from where the steps were recorded, record there and solve again
+  let v = startRemaining && startRemaining.length === nB && startRemaining.every((r) => r > 0 && r <= 1)
+    ? Float64Array.from(startRemaining, (r) => Math.log(r))
+    : startGuess(pk, doseGPerL, theta);
+  let recordedAt = Float64Array.from(v);
   let iterations = 0;
   let J: Float64Array | undefined;
   let fdJacobian = false;
   let cur = evaluate(v, true);
   for (let round = 0; round < 2; round++) {
-    if (round > 0) cur = evaluate(v, true);
+    if (round > 0) {
+      if (!v.some((x, p) => Math.abs(x - recordedAt[p]!) > 0.05)) break;
+      recordedAt = Float64Array.from(v);
+      cur = evaluate(v, true);
+    }
     let lastNorm = Infinity;
     while (normOf(cur.G) > BALANCE_TOL) {
       if (++iterations > 60) throw new ComputationError(`stirred reactor balance did not close in 60 iterations (largest residual ${normOf(cur.G).toExponential(2)} of c0)`);
@@ -162,6 +182,35 @@ export function stirredReactor(pk: PreparedKinetics, doseGPerL: number, contactT
     }
   });
   return { doseGPerL, contactTimeS, carbonAgeS: theta, cMgPerL: c, qMeanMgPerG: qMean, carbonHeldGPerL: (doseGPerL * theta) / contactTimeS, iterations, integrations };
+}
+
+/**
+ * Starting outlet of the coupled components, as v = ln(c_out/c0) (ours): the batch IAST
+ * equilibrium at the same dose c_eq, approached by the fraction F = 1 − (6/π²)·Σ 1/(n²(1 + n²π²·Ds·θ/R²))
+ * of a linear particle at constant concentration averaged over exp(−t/θ)/θ (Crank 1975 eq. 6.20
+ * weighted by the age distribution; the smallest Ds of the coupled components). Only a start.
+ */
+function startGuess(pk: PreparedKinetics, doseGPerL: number, thetaS: number): Float64Array {
+  const comps = pk.coupled.map((i) => pk.components[i]!);
+  const nB = comps.length;
+  if (nB === 0) return new Float64Array(0);
+  const R = pk.particle.radiusM;
+  const ds = Math.min(...comps.map((c) => c.dsM2PerS!));
+  const x = (Math.PI * Math.PI * ds * thetaS) / (R * R);
+  let sum = 0;
+  for (let n = 1; n <= 400; n++) sum += 1 / (n * n * (1 + n * n * x));
+  const F = Math.min(1, Math.max(0, 1 - (6 / (Math.PI * Math.PI)) * sum));
+  let eq: Float64Array;
+  try {
+    eq = solveBatchPrepared(prepareMixture(comps), doseGPerL).cMgPerL;
+  } catch (e) {
+    if (e instanceof ComputationError) return new Float64Array(nB).fill(Math.log(0.75));
+    throw e;
+  }
+  return Float64Array.from(comps, (c, p) => {
+    const ratio = 1 - F * (1 - eq[p]! / c.c0MgPerL);
+    return Math.log(Math.min(1, Math.max(1e-6, ratio)));
+  });
 }
 
 /** Broyden's rank-one update of J (row-major n×n) for the step s and residuals gNew, gOld. */

@@ -21,6 +21,8 @@ import { dailyDoses } from '../design/dailyDoses.js';
 import { doseTable, yearlyAtOneDose } from '../design/doseTable.js';
 import { carbonKgPerD } from '../design/carbonCost.js';
 import { carbonModel } from './carbonModel.js';
+import { contactFactory } from './contactModel.js';
+import { contactFigures } from './contactStep.js';
 import { yearlyLabel } from '../design/annualised.js';
 import type { CompoundSystem } from './competitionSystem.js';
 import type { CarbonResult, PipelineInput, PipelineOptions, PipelineResult } from './pipelineTypes.js';
@@ -91,10 +93,14 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
       return res;
     }
     const problem = designProblem(project, carbon, goalList, bg);
-    const model = carbonModel(systems, doc, bg.background ? surrogateModel(bg.background, doc, carbon.kFactor).background : undefined);
+    const factory = contactFactory(project.site.pacContact, carbon, options.kinetic);
+    const bgAtDoc = bg.background ? surrogateModel(bg.background, doc, carbon.kFactor).background : undefined;
+    const model = carbonModel(systems, doc, bgAtDoc, factory);
     progress({ step: `${carbon.name}: doses at the design DOC`, done: ci, total: project.carbons.length });
-    const req = timed('doses', () => designDose(model, problem));
+    const eqDesign = factory ? timed('doses', () => designDose(carbonModel(systems, doc, bgAtDoc), problem)) : undefined;
+    const req = timed('doses', () => designDose(model, problem, eqDesign));
     res.required = req;
+    if (eqDesign) res.contact = contactFigures(project.site.pacContact!, model, eqDesign, req);
     for (const c of req.compounds) {
       if (c.status === 'unreachable') res.warnings.push(`${c.compoundId}: ${c.message}; it is left out of the required dose`);
       if (c.status === 'met without carbon' || c.status === 'met below the smallest dose') res.warnings.push(`${c.compoundId}: ${c.message}`);
@@ -135,7 +141,7 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
     if (req.doseMgPerL !== null) {
       progress({ step: `${carbon.name}: dose against DOC and sensitivity`, done: ci, total: project.carbons.length });
       res.doseAgainstDoc = timed('dose against DOC', () => doseAgainstDocStep(carbon.name, req, (d) => designDose(model.atDoc(d), problem, req), docRange(doc, input.series?.docMgPerL)));
-      const sens = timed('sensitivity', () => sensitivityStep({ carbon, systems, problem, modelOf: (s, d) => carbonModel(s, d), docMgPerL: doc, flowM3PerD: project.site.flowM3PerD, ...(input.series ? { series: input.series } : {}), required: req, yearly: res.yearly! }));
+      const sens = timed('sensitivity', () => sensitivityStep({ carbon, systems, problem, modelOf: (s, d) => carbonModel(s, d, undefined, factory), docMgPerL: doc, flowM3PerD: project.site.flowM3PerD, ...(input.series ? { series: input.series } : {}), required: req, yearly: res.yearly! }));
       if (sens) res.sensitivity = sens;
     }
     return res;

@@ -10,12 +10,16 @@
  * @throws InputError naming the JSON path (e.g. `site.pac_contact.carbon_age`) and what was expected
  */
 import { InputError } from '../core/errors.js';
-import type { ContactConditions } from '../kinetics/contactRemoval.js';
 import { parseQuantity } from '../units/parseQuantity.js';
 import { at, describeValue, expectObject, onlyKeys, required } from '../scenario/jsonChecks.js';
 
-/** `undefined` for equilibrium (today's behaviour); otherwise the kinetic contact conditions. */
-export type PacContactSpec = ContactConditions;
+/**
+ * The kinetic contact conditions (`undefined` is equilibrium, today's behaviour); the same shape
+ * as `ContactConditions` of src/kinetics/contactRemoval.ts (scenario code does not import kinetics).
+ */
+export type PacContactSpec =
+  | { kind: 'plug-flow'; contactTimeS: number }
+  | { kind: 'stirred'; contactTimeS: number; carbonAgeS: number };
 
 const WHAT = '"equilibrium" or the contact conditions { "contact_time": "30 min", "carbon_age": "3 d" }';
 

@@ -14,13 +14,31 @@ import { InputError } from '../core/errors.js';
 import type { FreundlichComponent } from '../equilibrium/preparedMixture.js';
 import type { CompetitionSet, RemovalModelFactory } from '../design/removalModel.js';
 import { ContactRemoval, type ContactConditions } from '../kinetics/contactRemoval.js';
-import type { KineticComponent } from '../kinetics/kineticMixture.js';
+import type { CarbonParticle, KineticComponent } from '../kinetics/kineticMixture.js';
 import type { KineticSolverOptions } from '../kinetics/pacBatch.js';
 import type { CarbonSpec } from '../project/projectTypes.js';
 
 /** The contact model factory of a carbon, or undefined for equilibrium contact. */
 export function contactFactory(contact: ContactConditions | undefined, carbon: CarbonSpec, options: KineticSolverOptions = {}): RemovalModelFactory | undefined {
   if (!contact) return undefined;
+  const { particle, target, competitor } = kineticParts(carbon);
+  return (sets: readonly CompetitionSet[], docMgPerL: number, background?: readonly FreundlichComponent[]) => new ContactRemoval(
+    sets.map((s) => ({ target: target(s.target), competitors: s.competitors.map(competitor) })),
+    docMgPerL,
+    particle,
+    contact,
+    background?.map(competitor),
+    options,
+  );
+}
+
+/** One competition set with the carbon's kinetic data: [target, ...competitors] and the particle. */
+export function kineticMixture(set: CompetitionSet, carbon: CarbonSpec): { components: KineticComponent[]; particle: CarbonParticle } {
+  const { particle, target, competitor } = kineticParts(carbon);
+  return { components: [target(set.target), ...set.competitors.map(competitor)], particle };
+}
+
+function kineticParts(carbon: CarbonSpec): { particle: CarbonParticle; target: (c: FreundlichComponent) => KineticComponent; competitor: (c: FreundlichComponent) => KineticComponent } {
   const k = carbon.kinetics;
   const where = `carbon "${carbon.name}"`;
   if (!k || k.particleRadiusM === undefined || k.particleDensityGPerL === undefined) {
@@ -38,12 +56,5 @@ export function contactFactory(contact: ContactConditions | undefined, carbon: C
     if (k.docDsM2PerS === undefined || k.docDlM2PerS === undefined) throw new InputError(`the background component "${c.id}" has no ${k.docDsM2PerS === undefined ? 'surface diffusivity (doc_Ds)' : 'liquid diffusivity (doc_DL)'} on ${where}`, { path: `carbons[].kinetics.${k.docDsM2PerS === undefined ? 'doc_Ds' : 'doc_DL'}` });
     return { ...c, dsM2PerS: k.docDsM2PerS, dlM2PerS: k.docDlM2PerS };
   };
-  return (sets: readonly CompetitionSet[], docMgPerL: number, background?: readonly FreundlichComponent[]) => new ContactRemoval(
-    sets.map((s) => ({ target: target(s.target), competitors: s.competitors.map(competitor) })),
-    docMgPerL,
-    particle,
-    contact,
-    background?.map(competitor),
-    options,
-  );
+  return { particle, target, competitor };
 }

@@ -8,6 +8,7 @@
 import type { ContactConditions } from '../kinetics/contactRemoval.js';
 import type { Design } from '../design/designDose.js';
 import type { RemovalModel } from '../design/removalModel.js';
+import type { ContactCurves } from './contactCurvesStep.js';
 
 export interface ContactFigures {
   /** Water residence time of the contact tank (or the plug-flow contact time), s. */
@@ -23,6 +24,8 @@ export interface ContactFigures {
   doseRatio: number | null;
   /** The equilibrium design (every compound's equilibrium dose). */
   equilibrium: Design;
+  /** The report's curves for the governing compound (contactCurvesStep.ts). */
+  curves?: ContactCurves;
 }
 
 /**

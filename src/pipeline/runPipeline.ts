@@ -23,6 +23,7 @@ import { carbonKgPerD } from '../design/carbonCost.js';
 import { carbonModel } from './carbonModel.js';
 import { contactFactory } from './contactModel.js';
 import { contactFigures } from './contactStep.js';
+import { contactCurvesStep } from './contactCurvesStep.js';
 import { yearlyLabel } from '../design/annualised.js';
 import type { CompoundSystem } from './competitionSystem.js';
 import type { CarbonResult, PipelineInput, PipelineOptions, PipelineResult } from './pipelineTypes.js';
@@ -108,6 +109,7 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
     if (req.indicator && req.indicator.status !== 'met') res.warnings.push(`indicator goal: ${req.indicator.message}`);
     const curves = timed('curves', () => removalCurves(carbon.name, model, sweepCovering(project.goals.sweep, req.doseMgPerL)));
     res.curves = curves;
+    if (res.contact && req.governing) { const gov = req.governing; res.contact.curves = timed('contact curves', () => contactCurvesStep(project.site.pacContact!, carbon, systems, doc, gov.compoundId, req.doseMgPerL!, curves, carbonModel(systems, doc), options.kinetic)); }
     if (bg.background) {
       const background = bg.background;
       res.surrogates = timed('surrogates', () => surrogateStep(carbon.name, background, carbon.kFactor, doc, curves, req, goalList));

@@ -13,6 +13,7 @@ import { runPipeline } from '../../src/pipeline/runPipeline.js';
 import { carbonModel } from '../../src/pipeline/carbonModel.js';
 import { runRecord } from '../../src/output/runRecord.js';
 import { contactSummary } from '../../src/output/contactRecord.js';
+import { buildReportModel } from '../../src/output/buildReportModel.js';
 import type { PipelineInput } from '../../src/pipeline/pipelineTypes.js';
 
 const FIXTURE = join(process.cwd(), 'fixtures/project/pac-contact/project.json');
@@ -78,6 +79,34 @@ describe('run under PAC contact conditions', () => {
     expect(c.contact.contact).toMatchObject({ contact_time_s: 1800, carbon_age_s: 1800 });
     const s = contactSummary(cr);
     expect(s).toMatchObject({ equilibrium_dose_mg_per_L: cr.contact!.equilibriumDoseMgPerL, contact: { contact_time_s: 1800, carbon_age_s: 1800 } });
+  });
+
+  it('the contact curves: removal rises with contact time and with carbon age; contact below equilibrium at every dose', () => {
+    const k = cr.contact!.curves!;
+    expect(k.compoundId).toBe(cr.required!.governing!.compoundId);
+    expect(k.requiredDoseMgPerL).toBe(cr.required!.doseMgPerL);
+    const rising = (xs: number[]) => xs.every((x, i) => i === 0 || x >= xs[i - 1]! - 1e-6);
+    expect(rising(k.time.removalPercent)).toBe(true); // removal rises with contact time (DESIGN.md Kinetics)
+    expect(rising(k.carbonAge.removalPercent)).toBe(true); // and with carbon age
+    expect(k.carbonAge.carbonAgesS[0]).toBe(1800); // from θ = τ (no recirculation)
+    // at the plant's 30 min the batch curve gives the goal (80 %) at the required dose, within the solver's tolerance (rtol 1e-4)
+    const at30 = k.time.removalPercent[k.time.timesS.indexOf(1800)]!;
+    expect(at30).toBeGreaterThanOrEqual(80 - 0.05);
+    k.dose.dosesMgPerL.forEach((_, i) => expect(k.dose.contactPercent[i]!).toBeLessThan(k.dose.equilibriumPercent[i]!));
+  });
+
+  it('the report has the contact section: dose table and the three figures', () => {
+    const m = buildReportModel(r, 'test');
+    const sec = m.sections.find((x) => x.id === 'contact-conditions')!;
+    expect(sec).toBeDefined();
+    expect(sec.tables![0]!.rows).toHaveLength(1);
+    expect(sec.plots!.map((p) => p.id)).toEqual(['contact-time-1', 'contact-dose-1', 'carbon-age-1']);
+    for (const p of sec.plots!) {
+      if (p.kind !== 'xy') throw new Error('expected xy plots');
+      expect(p.series.every((s) => s.points.length > 1 && s.points.every(([x, y]) => Number.isFinite(x) && Number.isFinite(y)))).toBe(true);
+    }
+    const plain = buildReportModel(runPipeline(withoutContact(input), { now: NOW }), 'test');
+    expect(plain.sections.some((x) => x.id === 'contact-conditions')).toBe(false);
   });
 
   it('"equilibrium" contact leaves the run unchanged: no contact figures, same doses, same run.json', () => {

@@ -51,6 +51,28 @@ describe('contact conditions and kinetic data in a project file', () => {
   });
 });
 
+describe('the demo variant with contact conditions (fixtures/demo/project-contact.json, invented)', () => {
+  const variant = JSON.parse(readFileSync(join(root, 'fixtures/demo/project-contact.json'), 'utf8'));
+  const demo = JSON.parse(readFileSync(join(root, 'fixtures/demo/project.json'), 'utf8'));
+
+  it('validates: a 30-minute stirred tank, carbon age 3 d, kinetic data on both PAC carbons', () => {
+    expect(validateAgainstSchema(schema, variant)).toEqual([]);
+    const p = validateProject(variant);
+    expect(p.site.pacContact).toEqual({ kind: 'stirred', contactTimeS: 1800, carbonAgeS: 3 * 86400 });
+    for (const c of p.carbons.filter((x) => x.type === 'PAC')) expect(Object.keys(c.kinetics!.dsM2PerS).sort()).toEqual(p.compounds.map((x) => x.id).sort());
+  });
+
+  it('is the demo plus contact conditions and kinetic data (kept in step with the demo)', () => {
+    const strip = (p: any) => { // eslint-disable-line @typescript-eslint/no-explicit-any
+      const q = JSON.parse(JSON.stringify(p));
+      delete q.name; delete q.note; delete q.uncertainty; delete q.site.pac_contact;
+      for (const c of q.carbons) delete c.kinetics;
+      return q;
+    };
+    expect(strip(variant)).toEqual(strip(demo));
+  });
+});
+
 // [description, mutation, JSON path the message must name, words the message must contain, schema can tell]
 // eslint-disable-next-line @typescript-eslint/no-explicit-any
 const BAD: Array<[string, (p: any) => void, string, RegExp, boolean]> = [

@@ -24,6 +24,7 @@ import { carbonModel } from './carbonModel.js';
 import { contactFactory } from './contactModel.js';
 import { contactFigures } from './contactStep.js';
 import { contactCurvesStep } from './contactCurvesStep.js';
+import { modelBackgroundPoint } from './modelSurrogates.js';
 import { yearlyLabel } from '../design/annualised.js';
 import type { CompoundSystem } from './competitionSystem.js';
 import type { CarbonResult, PipelineInput, PipelineOptions, PipelineResult } from './pipelineTypes.js';
@@ -112,7 +113,7 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
     if (res.contact && req.governing) { const gov = req.governing; res.contact.curves = timed('contact curves', () => contactCurvesStep(project.site.pacContact!, carbon, systems, doc, gov.compoundId, req.doseMgPerL!, curves, carbonModel(systems, doc), options.kinetic)); }
     if (bg.background) {
       const background = bg.background;
-      res.surrogates = timed('surrogates', () => surrogateStep(carbon.name, background, carbon.kFactor, doc, curves, req, goalList));
+      res.surrogates = timed('surrogates', () => surrogateStep(carbon.name, background, carbon.kFactor, doc, curves, req, goalList, factory ? modelBackgroundPoint(model, problem.uv254AbsorbancePerM) : undefined));
       if (!res.surrogates.hasUv254) res.warnings.push('the background has no UV254 absorbances: DOC reduction only, no UV254 set-point');
     }
     const design = project.goals.designDoseMgPerL ?? req.doseMgPerL ?? undefined;

@@ -158,6 +158,7 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
     if (!cr || !bg.background) throw new InputError('the pilot check needs a PAC carbon and a fractionated background ("isotherm" or "file")', { path: 'pilot' });
     const model = surrogateModel(bg.background, doc, cr.carbon.kFactor);
     pilot = timed('pilot check', () => pilotStep(cr.carbon.name, pilotData, spec.bandPercent, model, cr.systems, doc));
+    if (project.site.pacContact) warnings.push('pilot check: the predictions are equilibrium ones (batch IAST), not under the plant\'s contact conditions; the pilot check does not use the contact model yet');
     for (const c of pilot.check.compounds) {
       if (c.outliers.length) warnings.push(`pilot check: ${c.compound} has ${c.outliers.length} of ${c.points} point(s) outside ±${spec.bandPercent} percentage points of the prediction (${c.outliers.map((o) => o.sample).join(', ')}); mean residual ${(c.meanResidual * 100).toFixed(1)} percentage points`);
     }

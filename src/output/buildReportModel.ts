@@ -15,6 +15,7 @@ import { doseWithSpecific, headlineFigures, yearlyBasisText } from './headlineFi
 import { referencesSection } from './referencesSection.js';
 import { coverLines } from './coverLines.js';
 import { calibrationPlot } from './calibrationPlots.js';
+import { contactSection } from './contactPlots.js';
 import { fmtConcentration as fc, fmtMoney, fmtNumber as fn, fmtWhole } from './formatting.js';
 import type { CarbonResult, PipelineResult } from '../pipeline/pipelineTypes.js';
 import { gacSection, loadingPlot, pilotSection, surrogateSection, uncertaintySection } from './surrogateGacUncertaintySections.js';
@@ -202,6 +203,8 @@ export function buildReportModel(r: PipelineResult, version: string): ReportMode
   const cal = calibrationSection(r);
   if (cal) sections.push(cal);
   pacCarbons(r).forEach((cr) => sections.push(carbonSection(r, cr, r.carbons.indexOf(cr))));
+  const contact = contactSection(r);
+  if (contact) sections.push(contact);
   for (const sec of [surrogateSection(r), pilotSection(r), indicatorSection(r)]) if (sec) sections.push(sec);
   sections.push(comparisonSection(r));
   const decisions = decisionSection(r);

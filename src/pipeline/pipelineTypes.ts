@@ -22,6 +22,8 @@ import type { GacStepResult } from './gacStep.js';
 import type { DoseAgainstDoc } from './doseAgainstDocStep.js';
 import type { Sensitivity } from './sensitivityStep.js';
 import type { CarbonUncertainty, UncertaintySettings } from './uncertaintyTypes.js';
+import type { ContactFigures } from './contactStep.js';
+import type { KineticSolverOptions } from '../kinetics/pacBatch.js';
 
 /** A file the project referenced, for run.json. */
 export interface InputFileRecord {
@@ -61,6 +63,8 @@ export interface PipelineOptions {
   onProgress?: (e: ProgressEvent) => void;
   /** Time stamp of the run (default now). */
   now?: Date;
+  /** Kinetic solver settings of the contact model (collocation points, tolerance; defaults of src/kinetics). */
+  kinetic?: KineticSolverOptions;
 }
 
 /** Options of the run with the Monte Carlo step (runPipelineWithUncertainty). */
@@ -104,6 +108,8 @@ export interface CarbonResult {
   doseAgainstDoc?: DoseAgainstDoc;
   /** Dose and yearly cost for each main input ±20 % (PAC with a reachable dose). */
   sensitivity?: Sensitivity;
+  /** Under the plant's PAC contact conditions: the equilibrium dose beside the required dose and their ratio. */
+  contact?: ContactFigures;
   warnings: string[];
 }
 

@@ -21,6 +21,10 @@ import { dailyDoses } from '../design/dailyDoses.js';
 import { doseTable, yearlyAtOneDose } from '../design/doseTable.js';
 import { carbonKgPerD } from '../design/carbonCost.js';
 import { carbonModel } from './carbonModel.js';
+import { contactFactory } from './contactModel.js';
+import { contactFigures } from './contactStep.js';
+import { contactCurvesStep } from './contactCurvesStep.js';
+import { modelBackgroundPoint } from './modelSurrogates.js';
 import { yearlyLabel } from '../design/annualised.js';
 import type { CompoundSystem } from './competitionSystem.js';
 import type { CarbonResult, PipelineInput, PipelineOptions, PipelineResult } from './pipelineTypes.js';
@@ -91,10 +95,14 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
       return res;
     }
     const problem = designProblem(project, carbon, goalList, bg);
-    const model = carbonModel(systems, doc, bg.background ? surrogateModel(bg.background, doc, carbon.kFactor).background : undefined);
+    const factory = contactFactory(project.site.pacContact, carbon, options.kinetic);
+    const bgAtDoc = bg.background ? surrogateModel(bg.background, doc, carbon.kFactor).background : undefined;
+    const model = carbonModel(systems, doc, bgAtDoc, factory);
     progress({ step: `${carbon.name}: doses at the design DOC`, done: ci, total: project.carbons.length });
-    const req = timed('doses', () => designDose(model, problem));
+    const eqDesign = factory ? timed('doses', () => designDose(carbonModel(systems, doc, bgAtDoc), problem)) : undefined;
+    const req = timed('doses', () => designDose(model, problem, eqDesign));
     res.required = req;
+    if (eqDesign) res.contact = contactFigures(project.site.pacContact!, model, eqDesign, req);
     for (const c of req.compounds) {
       if (c.status === 'unreachable') res.warnings.push(`${c.compoundId}: ${c.message}; it is left out of the required dose`);
       if (c.status === 'met without carbon' || c.status === 'met below the smallest dose') res.warnings.push(`${c.compoundId}: ${c.message}`);
@@ -102,9 +110,10 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
     if (req.indicator && req.indicator.status !== 'met') res.warnings.push(`indicator goal: ${req.indicator.message}`);
     const curves = timed('curves', () => removalCurves(carbon.name, model, sweepCovering(project.goals.sweep, req.doseMgPerL)));
     res.curves = curves;
+    if (res.contact && req.governing) { const gov = req.governing; res.contact.curves = timed('contact curves', () => contactCurvesStep(project.site.pacContact!, carbon, systems, doc, gov.compoundId, req.doseMgPerL!, curves, carbonModel(systems, doc), options.kinetic)); }
     if (bg.background) {
       const background = bg.background;
-      res.surrogates = timed('surrogates', () => surrogateStep(carbon.name, background, carbon.kFactor, doc, curves, req, goalList));
+      res.surrogates = timed('surrogates', () => surrogateStep(carbon.name, background, carbon.kFactor, doc, curves, req, goalList, factory ? modelBackgroundPoint(model, problem.uv254AbsorbancePerM) : undefined));
       if (!res.surrogates.hasUv254) res.warnings.push('the background has no UV254 absorbances: DOC reduction only, no UV254 set-point');
     }
     const design = project.goals.designDoseMgPerL ?? req.doseMgPerL ?? undefined;
@@ -135,7 +144,7 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
     if (req.doseMgPerL !== null) {
       progress({ step: `${carbon.name}: dose against DOC and sensitivity`, done: ci, total: project.carbons.length });
       res.doseAgainstDoc = timed('dose against DOC', () => doseAgainstDocStep(carbon.name, req, (d) => designDose(model.atDoc(d), problem, req), docRange(doc, input.series?.docMgPerL)));
-      const sens = timed('sensitivity', () => sensitivityStep({ carbon, systems, problem, modelOf: (s, d) => carbonModel(s, d), docMgPerL: doc, flowM3PerD: project.site.flowM3PerD, ...(input.series ? { series: input.series } : {}), required: req, yearly: res.yearly! }));
+      const sens = timed('sensitivity', () => sensitivityStep({ carbon, systems, problem, modelOf: (s, d) => carbonModel(s, d, undefined, factory), docMgPerL: doc, flowM3PerD: project.site.flowM3PerD, ...(input.series ? { series: input.series } : {}), required: req, yearly: res.yearly! }));
       if (sens) res.sensitivity = sens;
     }
     return res;
@@ -149,6 +158,7 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
     if (!cr || !bg.background) throw new InputError('the pilot check needs a PAC carbon and a fractionated background ("isotherm" or "file")', { path: 'pilot' });
     const model = surrogateModel(bg.background, doc, cr.carbon.kFactor);
     pilot = timed('pilot check', () => pilotStep(cr.carbon.name, pilotData, spec.bandPercent, model, cr.systems, doc));
+    if (project.site.pacContact) warnings.push('pilot check: the predictions are equilibrium ones (batch IAST), not under the plant\'s contact conditions; the pilot check does not use the contact model yet');
     for (const c of pilot.check.compounds) {
       if (c.outliers.length) warnings.push(`pilot check: ${c.compound} has ${c.outliers.length} of ${c.points} point(s) outside ±${spec.bandPercent} percentage points of the prediction (${c.outliers.map((o) => o.sample).join(', ')}); mean residual ${(c.meanResidual * 100).toFixed(1)} percentage points`);
     }

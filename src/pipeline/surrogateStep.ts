@@ -14,6 +14,9 @@
  * On a carbon with K factor f the background's K are f times the reference ones (competitionSystem.ts).
  * Needs a fractionated background (isotherm or file); UV254 needs every component's absorbance.
  *
+ * `pointAt` (optional) gives the background at a dose from another removal model (the PAC contact
+ * model, modelSurrogates.ts) instead of batch IAST.
+ *
  * Units: doses mg/L; reductions and removals fractions.
  */
 import { backgroundComponents } from '../fractionation/backgroundPrediction.js';
@@ -24,6 +27,7 @@ import type { CompoundGoal } from '../design/compoundGoal.js';
 import type { CompoundDoseStatus } from '../design/compoundDose.js';
 import type { RemovalCurves } from '../design/removalCurves.js';
 import type { Design } from '../design/designDose.js';
+import type { BackgroundPointAt } from './modelSurrogates.js';
 
 export interface SetPointRow {
   compoundId: string;
@@ -79,13 +83,19 @@ export function surrogatesAtDose(model: SurrogateModel, doseMgPerL: number): Sur
 export function surrogateStep(
   carbonName: string, background: BackgroundFile, kFactor: number, docMgPerL: number,
   curves: RemovalCurves, required: Design, goals: readonly CompoundGoal[],
+  pointAt?: BackgroundPointAt,
 ): SurrogateResult {
   const model = surrogateModel(background, docMgPerL, kFactor);
+  const atDose = (d: number): SurrogatePointAtDose => {
+    if (!pointAt) return surrogatesAtDose(model, d);
+    const p = pointAt(d);
+    return { doseMgPerL: d, uv254Reduction: p.uv254Reduction ?? null, docReduction: p.docReduction };
+  };
   const doc0 = model.background.reduce((s, c) => s + c.c0MgPerL, 0);
   const curve: SurrogateCurve = { doc0MgPerL: doc0, points: [] };
   let warm: { u: number; theta: number } | undefined;
   curves.dosesMgPerL.forEach((dose, k) => {
-    const bg = backgroundSurrogatesAt(model, dose, warm);
+    const bg = pointAt ? { point: pointAt(dose), state: warm } : backgroundSurrogatesAt(model, dose, warm);
     warm = bg.state;
     const removal: Record<string, number> = {};
     for (const [id, values] of Object.entries(curves.removalPercent)) removal[id] = values[k]! / 100;
@@ -94,7 +104,7 @@ export function surrogateStep(
   const hasUv254 = model.uv254AbsorbancePerM !== undefined;
   if (hasUv254) curve.uv254_0PerM = model.background.reduce((s, c, i) => s + c.c0MgPerL * model.uv254AbsorbancePerM![i]!, 0);
   const setPoints = required.compounds.map((d, i): SetPointRow => {
-    const at = d.status === 'met' && d.doseMgPerL !== null && d.doseMgPerL > 0 ? surrogatesAtDose(model, d.doseMgPerL) : undefined;
+    const at = d.status === 'met' && d.doseMgPerL !== null && d.doseMgPerL > 0 ? atDose(d.doseMgPerL) : undefined;
     return {
       compoundId: d.compoundId, goalText: goals[i]!.text, removalGoal: goals[i]!.removalFraction, status: d.status, doseMgPerL: d.doseMgPerL,
       uv254Reduction: at ? at.uv254Reduction : null, docReduction: at ? at.docReduction : null,
@@ -103,6 +113,6 @@ export function surrogateStep(
   const out: SurrogateResult = { carbonName, model, hasUv254, curve, setPoints };
   const gov = required.governing ? setPoints.find((s) => s.compoundId === required.governing!.compoundId) : undefined;
   if (gov) out.governing = gov;
-  if (required.doseMgPerL !== null && required.doseMgPerL > 0) out.atRequiredDose = { ...surrogatesAtDose(model, required.doseMgPerL), governedBy: required.governedBy };
+  if (required.doseMgPerL !== null && required.doseMgPerL > 0) out.atRequiredDose = { ...atDose(required.doseMgPerL), governedBy: required.governedBy };
   return out;
 }

@@ -65,6 +65,7 @@ export function resolveUncertaintySettings(spec: UncertaintySpec | undefined, o:
 export function uncertaintyProblem(
   project: ProjectSpec, cr: CarbonResult, bg: BackgroundStep, goals: readonly CompoundGoal[], series: SiteSeries | undefined, s: UncertaintySettings,
 ): { problem: MonteCarloProblem; parameters: UncertainParameter[]; excluded: string[] } | { skipped: string } {
+  if (cr.contact) return { skipped: `the Monte Carlo does not sample the PAC contact-kinetics model yet (0 draws under contact conditions); the run's doses are under contact conditions (${cr.contact.model}) and equilibrium bands would not match them` };
   const bgFile = bg.background;
   if (!bgFile) return { skipped: 'the Monte Carlo needs a fractionated background (fictive components); an EBC background is not sampled' };
   const ebc = cr.systems.filter((x) => x.competition !== 'fictive').map((x) => x.compoundId);

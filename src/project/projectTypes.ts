@@ -5,6 +5,8 @@
  */
 import type { FreundlichComponent } from '../equilibrium/preparedMixture.js';
 import type { IndicatorCategory } from '../indicators/indicatorRule.js';
+import type { PacContactSpec } from './readPacContact.js';
+import type { CarbonKinetics } from './readCarbonKinetics.js';
 
 export interface SiteSpec {
   name: string;
@@ -16,6 +18,8 @@ export interface SiteSpec {
   uv254PerM?: number;
   /** CSV of date, DOC and (optionally) flow, relative to the project file. */
   seriesFile?: string;
+  /** PAC contact conditions (readPacContact.ts); absent = equilibrium. */
+  pacContact?: PacContactSpec;
 }
 
 export interface FractionationOptionsSpec {
@@ -55,6 +59,8 @@ export interface CarbonSpec {
   bedDensityKgPerM3?: number;
   /** GAC only: empty-bed contact time, min. */
   ebctMin?: number;
+  /** PAC only: particle data and diffusivities (readCarbonKinetics.ts). */
+  kinetics?: CarbonKinetics;
 }
 
 export type CalibrationModelName = 'ebc' | 'sebc' | 'fictive-k';

@@ -6,6 +6,7 @@
 import { InputError } from '../core/errors.js';
 import { readComponent } from '../scenario/readMixture.js';
 import { expectArray, expectNumber, expectObject, expectString, join, onlyKeys, required, describeValue } from '../scenario/jsonChecks.js';
+import { readCarbonKinetics } from './readCarbonKinetics.js';
 import type { CarbonIsotherm, CarbonSpec, CompoundSpec } from './projectTypes.js';
 
 export function readCarbons(raw: unknown, compounds: CompoundSpec[]): CarbonSpec[] {
@@ -14,7 +15,7 @@ export function readCarbons(raw: unknown, compounds: CompoundSpec[]): CarbonSpec
   return arr.map((c, i) => {
     const p = `carbons[${i}]`;
     const o = expectObject(c, p, 'a carbon { name, type, price_per_kg, currency }');
-    onlyKeys(o, ['name', 'note', 'type', 'price_per_kg', 'currency', 'K_factor', 'isotherms', 'bed_density_kg_per_m3', 'ebct_min'], p);
+    onlyKeys(o, ['name', 'note', 'type', 'price_per_kg', 'currency', 'K_factor', 'isotherms', 'bed_density_kg_per_m3', 'ebct_min', 'kinetics'], p);
     const name = expectString(required(o, 'name', p, 'the carbon name as text'), `${p}.name`, 'the carbon name as text');
     if (names.has(name)) throw new InputError(`duplicate carbon name "${name}"; every carbon needs its own name`, { path: `${p}.name` });
     names.add(name);
@@ -44,6 +45,10 @@ export function readCarbons(raw: unknown, compounds: CompoundSpec[]): CarbonSpec
     }
     if (o.bed_density_kg_per_m3 !== undefined) spec.bedDensityKgPerM3 = expectNumber(o.bed_density_kg_per_m3, `${p}.bed_density_kg_per_m3`, 'a positive bed density in kg/m³', (x) => x > 0);
     if (o.ebct_min !== undefined) spec.ebctMin = expectNumber(o.ebct_min, `${p}.ebct_min`, 'a positive empty-bed contact time in minutes', (x) => x > 0);
+    if (o.kinetics !== undefined) {
+      if (type !== 'PAC') throw new InputError('kinetic data belong to a PAC carbon (its contact kinetics); remove "kinetics" from this GAC carbon', { path: `${p}.kinetics` });
+      spec.kinetics = readCarbonKinetics(o.kinetics, `${p}.kinetics`, compounds.map((x) => x.id));
+    }
     if (type === 'GAC') {
       if (spec.bedDensityKgPerM3 === undefined) throw new InputError('missing "bed_density_kg_per_m3"; a GAC carbon needs its bed density in kg/m³', { path: `${p}.bed_density_kg_per_m3` });
       if (spec.ebctMin === undefined) throw new InputError('missing "ebct_min"; a GAC carbon needs its empty-bed contact time in minutes', { path: `${p}.ebct_min` });

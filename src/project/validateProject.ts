@@ -16,6 +16,8 @@ import { readBackground } from './readBackgroundSpec.js';
 import { readCarbons } from './readCarbons.js';
 import { readGoals } from './readGoals.js';
 import { readPilot } from './readPilotSpec.js';
+import { readPacContact } from './readPacContact.js';
+import { checkKineticInputs } from './checkKineticInputs.js';
 import { readUncertainty } from './readUncertaintySpec.js';
 
 const CALIBRATION_MODELS: readonly CalibrationModelName[] = ['ebc', 'sebc', 'fictive-k'];
@@ -30,6 +32,7 @@ export function validateProject(raw: unknown): ProjectSpec {
   const background = readBackground(required(root, 'background', '', 'the background: { "isotherm": CSV }, { "file": JSON } or { "ebc": {…} }'), compounds, site);
   const carbons = readCarbons(required(root, 'carbons', '', 'an array of candidate carbons'), compounds);
   const goals = readGoals(root.goals, compounds);
+  checkKineticInputs(site.pacContact, carbons, compounds);
   const out: ProjectSpec = { name, site, background, carbons, compounds, goals };
   if (root.note !== undefined) out.note = expectString(root.note, 'note', 'a note as text');
   const cover = readCover(root);
@@ -58,13 +61,15 @@ function readCover(root: Record<string, unknown>): ProjectCover | undefined {
 function readSite(raw: unknown): SiteSpec {
   const p = 'site';
   const o = expectObject(raw, p, 'the site { name, flow, doc }');
-  onlyKeys(o, ['name', 'note', 'flow', 'doc', 'uv254', 'series'], p);
+  onlyKeys(o, ['name', 'note', 'flow', 'doc', 'uv254', 'series', 'pac_contact'], p);
   const site: SiteSpec = {
     name: expectString(required(o, 'name', p, 'the site name as text'), `${p}.name`, 'the site name as text'),
     flowM3PerD: positive(at(`${p}.flow`, () => parseQuantity(required(o, 'flow', p, 'the design flow such as "12000 m3/d"'), 'flow')), `${p}.flow`, 'a positive flow such as "12000 m3/d"'),
     docMgPerL: positive(at(`${p}.doc`, () => parseQuantity(required(o, 'doc', p, 'the effluent DOC such as "8 mg/L"'), 'massConcentration')), `${p}.doc`, 'a positive DOC such as "8 mg/L"'),
   };
   if (o.uv254 !== undefined) site.uv254PerM = readAbsorbance(o.uv254, `${p}.uv254`);
+  const contact = readPacContact(o.pac_contact ?? 'equilibrium');
+  if (contact) site.pacContact = contact;
   if (o.series !== undefined) site.seriesFile = expectString(o.series, `${p}.series`, 'the path of a CSV file (date, DOC, flow) relative to the project file');
   return site;
 }

@@ -15,6 +15,7 @@ import { checkOutputFolder } from '../../io/outputChecks.js';
 import { assertFiniteResult } from '../../scenario/finiteResult.js';
 import { VERSION } from '../../version.js';
 import { fmt, table } from '../format.js';
+import { contactSummary, type ContactSummaryJson } from '../../output/contactRecord.js';
 
 /** A progress callback that prints a line once a step has run for more than a second. */
 export function progressPrinter(ctx: CommandContext, thresholdMs = 1000): { onProgress: (e: ProgressEvent) => void; done: () => void } {
@@ -50,7 +51,7 @@ export interface RunSummaryJson {
     monte_carlo: { draws: number; seed: number; governing_dose_mg_per_L: { p10: number; p50: number; p90: number }; yearly_cost: { p10: number; p50: number; p90: number } | null } | null;
     /** GAC equilibrium estimate of the governing compound (an upper bound). */
     gac: { governing_compound: string; bed_volumes: number; life_days: number | null; carbon_usage_g_per_m3: number; upper_bound: true } | null;
-  }>;
+  } & Partial<ContactSummaryJson>>;
   pilot_outliers: string[] | null;
   warnings: string[];
 }
@@ -75,6 +76,7 @@ export function summaryJson(r: PipelineResult, outDir: string, files: string[]):
         return { draws: c.uncertainty.result.draws, seed: c.uncertainty.result.seed, governing_dose_mg_per_L: { p10: g.p10, p50: g.p50, p90: g.p90 }, yearly_cost: y ? { p10: y.p10, p50: y.p50, p90: y.p90 } : null };
       })() : null,
       gac: c.gac ? { governing_compound: c.gac.governing.id, bed_volumes: c.gac.governing.bedVolumes, life_days: c.gac.governing.lifeDays ?? null, carbon_usage_g_per_m3: c.gac.governing.carbonUsageGPerM3, upper_bound: true } : null,
+      ...contactSummary(c),
     })),
     pilot_outliers: r.pilot ? r.pilot.check.outlierCompounds : null,
     warnings: r.warnings,

@@ -56,6 +56,8 @@ export const SNAKE_CASE_KEYS: Readonly<Record<string, string>> = {
   // calibration and fractionation fits (src/calibration, src/fractionation)
   fractionCi: 'fraction_ci', rmseRelative: 'rmse_relative', residualScale: 'residual_scale',
   maxRelativeError: 'max_relative_error', modelSelection: 'model_selection',
+  // check cases (src/checks)
+  relativeError: 'relative_error', absoluteError: 'absolute_error',
 };
 
 /** Core fields whose value is a map keyed by user ids (compound ids): keys kept, values converted. */
@@ -108,4 +110,9 @@ export function toSnakeCaseJson(value: unknown): unknown {
     out[snakeCaseKey(k)] = isMap ? convertMap(v as Record<string, unknown>) : toSnakeCaseJson(v);
   }
   return out;
+}
+
+/** The JSON text of a result (two-space indent), snake_case: every JSON writer prints through this. */
+export function snakeCaseJsonText(value: unknown): string {
+  return JSON.stringify(toSnakeCaseJson(value), null, 2);
 }

@@ -51,6 +51,15 @@ export interface DailyDoses {
 }
 
 /**
+ * The yearly carbon and cost over the series alone (the segment sums of dailyDoses, without the
+ * daily rows): for callers that need only the totals, such as the sensitivity of the yearly cost.
+ */
+export function seriesYearly(pricePerKg: number, series: SiteSeries, table: DoseTable): { daysWithDose: number; yearlyCarbonKg: number; yearlyCost: number } {
+  const sums = seriesCarbon(seriesSegments(table.docMgPerL, series.docMgPerL, series.flowM3PerD), table.nodes.map((d) => d.doseMgPerL));
+  return { daysWithDose: sums.daysWithDose, yearlyCarbonKg: sums.yearlyKg, yearlyCost: carbonCost(sums.yearlyKg, pricePerKg) };
+}
+
+/**
  * @param table the dose table of the carbon over the series' DOC range
  */
 export function dailyDoses(carbon: { name: string; currency: string; pricePerKg: number }, series: SiteSeries, table: DoseTable): DailyDoses {

@@ -11,7 +11,7 @@
  * It is the limit of any contact-time model at long contact (the carbon reaches equilibrium).
  */
 import { InputError } from '../core/errors.js';
-import { prepareMixture, type FreundlichComponent, type PreparedMixture } from '../equilibrium/preparedMixture.js';
+import { prepareMixture, scaleMixture, type FreundlichComponent, type PreparedMixture } from '../equilibrium/preparedMixture.js';
 import { solveBatchPrepared } from '../equilibrium/iastBatch.js';
 import type { BackgroundAtDose, CompetitionSet, RemainingAtDose, RemovalModel, RemovalModelFactory, WarmStart } from './removalModel.js';
 
@@ -33,17 +33,18 @@ export class EquilibriumRemoval implements RemovalModel {
    * @param sets       each target with its competitors at `docMgPerL`
    * @param docMgPerL  DOC of the water, mg/L (> 0)
    * @param background the fictive DOC components at `docMgPerL` (for the surrogates), if any
+   * @param prepared   the mixtures of `sets` and `background` already prepared (atDoc), if any
    */
-  constructor(readonly sets: readonly CompetitionSet[], readonly docMgPerL: number, readonly background?: readonly FreundlichComponent[]) {
+  constructor(readonly sets: readonly CompetitionSet[], readonly docMgPerL: number, readonly background?: readonly FreundlichComponent[], prepared?: { mixtures: PreparedMixture[]; background?: PreparedMixture }) {
     if (!(docMgPerL > 0) || !Number.isFinite(docMgPerL)) throw new InputError(`expected a DOC > 0 mg/L, got ${docMgPerL}`, { path: 'doc' });
     this.compoundIds = sets.map((s) => s.target.id);
     this.c0 = Float64Array.from(sets, (s, i) => {
       if (!(s.target.c0MgPerL > 0) || !Number.isFinite(s.target.c0MgPerL)) throw new InputError(`expected a feed concentration > 0 mg/L for "${s.target.id}", got ${s.target.c0MgPerL}`, { path: `compounds[${i}].c0` });
       return s.target.c0MgPerL;
     });
-    this.mixtures = sets.map((s) => prepareMixture([s.target, ...s.competitors]));
+    this.mixtures = prepared ? prepared.mixtures : sets.map((s) => prepareMixture([s.target, ...s.competitors]));
     if (background && background.length) {
-      this.bgMixture = prepareMixture(background);
+      this.bgMixture = prepared?.background ?? prepareMixture(background);
       this.backgroundC0MgPerL = Float64Array.from(background, (c) => c.c0MgPerL);
     }
   }
@@ -65,10 +66,14 @@ export class EquilibriumRemoval implements RemovalModel {
 
   atDoc(docMgPerL: number): EquilibriumRemoval {
     const f = docMgPerL / this.docMgPerL;
+    // the prepared mixtures scaled in place of preparing them again (the target, component 0, keeps its c0)
+    const mixtures = this.mixtures.map((pm) => scaleMixture(pm, f, 0));
+    const bg = this.bgMixture ? scaleMixture(this.bgMixture, f) : undefined;
     return new EquilibriumRemoval(
-      this.sets.map((s) => ({ target: s.target, competitors: scaled(s.competitors, f) })),
+      this.sets.map((s, i) => ({ target: s.target, competitors: mixtures[i]!.source.slice(1) })),
       docMgPerL,
-      this.background ? scaled(this.background, f) : undefined,
+      bg ? bg.source : this.background ? scaled(this.background, f) : undefined,
+      bg ? { mixtures, background: bg } : { mixtures },
     );
   }
 }

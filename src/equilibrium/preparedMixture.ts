@@ -98,3 +98,28 @@ export function duplicateIdIndex(components: readonly { id: string }[]): number 
   }
   return -1;
 }
+
+/**
+ * The same mixture with every concentration scaled by `factor` except that of component
+ * `fixedIndex` (−1: none): the same arrays and arithmetic as `prepareMixture` on the scaled
+ * components, without validating them again (K and exponents are unchanged). Used to move a
+ * background to another DOC many times over (daily doses, Monte Carlo draws).
+ * Falls back to `prepareMixture` when a scaled concentration leaves the active set.
+ */
+export function scaleMixture(pm: PreparedMixture, factor: number, fixedIndex = -1): PreparedMixture {
+  const source = pm.source.map((c, i) => (i === fixedIndex ? c : { ...c, c0MgPerL: c.c0MgPerL * factor }));
+  const m = pm.active.length;
+  const c0 = new Float64Array(m);
+  let cTotal = 0;
+  for (let j = 0; j < m; j++) {
+    const v = source[pm.active[j]!]!.c0MgPerL;
+    if (!(v > 0) || !Number.isFinite(v)) return prepareMixture(source);
+    c0[j] = v;
+    cTotal += v;
+  }
+  for (let i = 0; i < source.length; i++) {
+    const v = source[i]!.c0MgPerL;
+    if (!(v >= 0) || !Number.isFinite(v)) return prepareMixture(source); // its error message
+  }
+  return { ids: pm.ids, size: pm.size, active: pm.active, c0, n: pm.n, beta: pm.beta, lnK: pm.lnK, a: pm.a, cTotal, lnCTotal: Math.log(cTotal), source };
+}

@@ -9,6 +9,7 @@ import type { PipelineResult } from '../pipeline/pipelineTypes.js';
 import { CI_TO_SD_NOTE } from '../pipeline/uncertaintyStep.js';
 import type { ProjectSpec } from '../project/projectTypes.js';
 import { contactRecord } from './contactRecord.js';
+import { toSnakeCaseJson, userIdMap } from './snakeCaseJson.js';
 
 export interface RunEnvironment {
   toolVersion: string;
@@ -26,10 +27,10 @@ function resolvedInputs(p: ProjectSpec): Record<string, unknown> {
       ? { kind: 'isotherm', file: bg.file, fractionation: { components: bg.options.components ?? null, exponent: bg.options.exponent ?? null, fit_k: bg.options.fitK ?? null } }
       : bg.kind === 'file'
         ? { kind: 'file', file: bg.file }
-        : { kind: 'ebc', doc_mg_per_L: bg.docMgPerL, ebc: Object.fromEntries(Object.entries(bg.ebc).map(([id, e]) => [id, { K_mg_per_g_per_mg_per_L_pow_1_over_n: e.K, one_over_n: e.oneOverN, c0_mg_per_L: e.c0MgPerL }])) },
+        : { kind: 'ebc', doc_mg_per_L: bg.docMgPerL, ebc: userIdMap(Object.fromEntries(Object.entries(bg.ebc).map(([id, e]) => [id, { K_mg_per_g_per_mg_per_L_pow_1_over_n: e.K, one_over_n: e.oneOverN, c0_mg_per_L: e.c0MgPerL }]))) },
     carbons: p.carbons.map((c) => ({
       name: c.name, type: c.type, price_per_kg: c.pricePerKg, currency: c.currency, K_factor: c.kFactor,
-      isotherms: Object.fromEntries(Object.entries(c.isotherms).map(([id, i]) => [id, { K_mg_per_g_per_mg_per_L_pow_1_over_n: i.K, one_over_n: i.oneOverN }])),
+      isotherms: userIdMap(Object.fromEntries(Object.entries(c.isotherms).map(([id, i]) => [id, { K_mg_per_g_per_mg_per_L_pow_1_over_n: i.K, one_over_n: i.oneOverN }]))),
       bed_density_kg_per_m3: c.bedDensityKgPerM3 ?? null, ebct_min: c.ebctMin ?? null,
     })),
     pilot: p.pilot ? { file: p.pilot.file, band_percent: p.pilot.bandPercent, carbon: p.pilot.carbon ?? null } : null,
@@ -50,10 +51,10 @@ function resolvedInputs(p: ProjectSpec): Record<string, unknown> {
   };
 }
 
-/** The run record as a plain JSON-ready object. */
+/** The run record as a plain JSON-ready object, snake_case throughout (src/output/snakeCaseJson.ts). */
 export function runRecord(r: PipelineResult, env: RunEnvironment): Record<string, unknown> {
   const doc = r.project.site.docMgPerL;
-  return {
+  return toSnakeCaseJson({
     tool: { name: 'sorbshare', version: env.toolVersion },
     node: env.nodeVersion,
     platform: env.platform ?? null,
@@ -65,7 +66,7 @@ export function runRecord(r: PipelineResult, env: RunEnvironment): Record<string
     results: {
       background: { source: r.background.source, background: r.background.background ?? null, warnings: r.background.warnings },
       calibrations: r.calibrations.map((c) => ({ compound: c.compoundId, model: c.model, target_K_factor: c.targetKFactor ?? null, ebc: c.ebc ?? null, result: c.result, warnings: c.warnings })),
-      goals: r.goals,
+      goals: userIdMap(r.goals),
       carbons: r.carbons.map((cr) => ({
         carbon: cr.carbon.name,
         type: cr.carbon.type,
@@ -109,6 +110,6 @@ export function runRecord(r: PipelineResult, env: RunEnvironment): Record<string
       monte_carlo_settings: r.uncertainty ?? null,
       warnings: r.warnings,
     },
-    timing_ms: r.timingMs,
-  };
+    timing_ms: userIdMap(r.timingMs),
+  }) as Record<string, unknown>;
 }

@@ -9,6 +9,7 @@ import { carbonsCsv, compoundsCsv, dailyDosesCsv, indicatorsCsv, removalCurvesCs
 import { gacCsv, pilotCheckCsv, setpointsCsv, surrogatesCsv, uncertaintyCsv } from '../output/surrogateGacUncertaintyTables.js';
 import { runRecord, type RunEnvironment } from '../output/runRecord.js';
 import type { PipelineResult } from '../pipeline/pipelineTypes.js';
+import { snakeCaseJsonText } from '../output/snakeCaseJson.js';
 
 export const OUTPUT_FILES = [
   'summary.md', 'report.html', 'compounds.csv', 'removal_curves.csv', 'carbons.csv', 'daily_doses.csv', 'indicators.csv',
@@ -30,6 +31,6 @@ export function pipelineOutputs(r: PipelineResult, env: RunEnvironment): Record<
     'pilot_check.csv': pilotCheckCsv(r),
     'gac.csv': gacCsv(r),
     'uncertainty.csv': uncertaintyCsv(r),
-    'run.json': JSON.stringify(runRecord(r, env), null, 2) + '\n',
+    'run.json': snakeCaseJsonText(runRecord(r, env)) + '\n',
   };
 }

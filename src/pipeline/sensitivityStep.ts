@@ -4,7 +4,7 @@
  * a what-if table): K and 1/n of the governing compound, the design DOC (and every day of the DOC
  * series), the adsorbable part of the background (fictive components or EBC concentration, the
  * DOC kept: the non-adsorbable part takes up the difference) and the carbon price. Each case is
- * recomputed through the functions the run uses (designDose, doseTable, dailyDoses,
+ * recomputed through the functions the run uses (designDose, doseTable, dailyDoses' segment sums,
  * yearlyAtOneDose), never a copy of their equations; the price enters the cost linearly, so its
  * case scales the run's yearly carbon mass by the changed price.
  *
@@ -18,7 +18,7 @@ import type { CarbonSpec } from '../project/projectTypes.js';
 import type { SiteSeries } from '../siteSeries/siteSeries.js';
 import type { CompoundSystem } from './competitionSystem.js';
 import { designDose, type Design, type DesignProblem } from '../design/designDose.js';
-import { dailyDoses } from '../design/dailyDoses.js';
+import { seriesYearly } from '../design/dailyDoses.js';
 import { doseTable, yearlyAtOneDose } from '../design/doseTable.js';
 import type { RemovalModel } from '../design/removalModel.js';
 
@@ -78,7 +78,7 @@ function evaluate(inp: SensitivityInput, systems: readonly CompoundSystem[], doc
   const model = inp.modelOf(systems, doc);
   const req = designDose(model, inp.problem, inp.required);
   if (series) {
-    const daily = dailyDoses(inp.carbon, series, doseTable(model, inp.problem, series.docMgPerL, req));
+    const daily = seriesYearly(inp.carbon.pricePerKg, series, doseTable(model, inp.problem, series.docMgPerL, req));
     return { dose: req.doseMgPerL, cost: daily.daysWithDose > 0 ? daily.yearlyCost : null };
   }
   return { dose: req.doseMgPerL, cost: req.doseMgPerL === null ? null : yearlyAtOneDose(req.doseMgPerL, inp.flowM3PerD, inp.carbon.pricePerKg).cost };

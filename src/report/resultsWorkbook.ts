@@ -3,9 +3,10 @@
  * texts themselves so the workbook holds exactly the numbers of the CSV files. Header cells keep
  * their units ("dose (mg/L)"); a cell that reads as a number in the CSV is written as a number,
  * everything else as text; an empty cell stays empty. Built in memory with exceljs (Office Open
- * XML, ECMA-376); the caller writes the bytes.
+ * XML, ECMA-376; its streaming writer); the caller writes the bytes.
  */
 import ExcelJS from 'exceljs';
+import { PassThrough } from 'node:stream';
 
 /** RFC 4180 fields of CSV text (quotes doubled inside quoted fields; \n or \r\n line ends). */
 export function parseCsv(text: string): string[][] {
@@ -48,16 +49,25 @@ export function sheetName(file: string): string {
  * @returns the .xlsx file's bytes
  */
 export async function resultsWorkbook(csvFiles: Record<string, string>, meta: { creator?: string; created?: Date } = {}): Promise<Uint8Array> {
-  const wb = new ExcelJS.Workbook();
+  // the streaming writer without shared strings: rows are serialised as they are added (a
+  // 36,500-day series has 73,000 daily rows; the in-memory model cost several times more)
+  const chunks: Buffer[] = [];
+  const stream = new PassThrough();
+  stream.on('data', (c: Buffer) => chunks.push(c));
+  const wb = new ExcelJS.stream.xlsx.WorkbookWriter({ stream, useStyles: true, useSharedStrings: false });
   wb.creator = meta.creator ?? 'sorbshare';
   if (meta.created) { wb.created = meta.created; wb.modified = meta.created; }
   for (const [file, text] of Object.entries(csvFiles)) {
     const rows = parseCsv(text);
     const ws = wb.addWorksheet(sheetName(file), { views: [{ state: 'frozen', ySplit: 1 }] });
-    rows.forEach((r, i) => ws.addRow(i === 0 ? r : r.map(cellValue)));
-    ws.getRow(1).font = { bold: true };
-    ws.columns.forEach((col, j) => { col.width = Math.min(40, Math.max(10, (rows[0]?.[j]?.length ?? 8) + 2)); });
+    ws.columns = (rows[0] ?? []).map((h) => ({ width: Math.min(40, Math.max(10, h.length + 2)) }));
+    rows.forEach((r, i) => {
+      const row = ws.addRow(i === 0 ? r : r.map(cellValue));
+      if (i === 0) row.font = { bold: true };
+      row.commit();
+    });
+    ws.commit();
   }
-  const buf = await wb.xlsx.writeBuffer();
-  return new Uint8Array(buf as ArrayBuffer);
+  await wb.commit();
+  return new Uint8Array(Buffer.concat(chunks));
 }

@@ -14,7 +14,16 @@ import { InputError } from '../core/errors.js';
 export function quantile(values: readonly number[], p: number): number {
   if (values.length === 0) throw new InputError('no values; expected at least one', { path: 'values' });
   if (!(p >= 0 && p <= 1)) throw new InputError(`expected a probability between 0 and 1, got ${p}`, { path: 'p' });
-  const x = [...values].sort((a, b) => a - b);
+  return sortedQuantile(sortedCopy(values), p);
+}
+
+/** An ascending copy (a typed-array sort: numeric, no comparator calls). */
+function sortedCopy(values: readonly number[]): Float64Array {
+  return Float64Array.from(values).sort();
+}
+
+/** Definition 7 on values already sorted ascending. */
+function sortedQuantile(x: Float64Array, p: number): number {
   const h = (x.length - 1) * p;
   const lo = Math.floor(h);
   const hi = Math.min(lo + 1, x.length - 1);
@@ -40,5 +49,6 @@ export function summarise(values: readonly number[]): SeriesSummary {
   if (values.length === 0) throw new InputError('no values; expected at least one', { path: 'values' });
   let sum = 0, min = Infinity, max = -Infinity;
   for (const v of values) { sum += v; if (v < min) min = v; if (v > max) max = v; }
-  return { n: values.length, min, max, mean: sum / values.length, median: median(values), p90: quantile(values, 0.9), sum };
+  const x = sortedCopy(values); // sorted once for both percentiles
+  return { n: values.length, min, max, mean: sum / values.length, median: sortedQuantile(x, 0.5), p90: sortedQuantile(x, 0.9), sum };
 }

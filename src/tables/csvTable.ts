@@ -188,7 +188,8 @@ export function readTableRecords(records: readonly TableRecord[], specs: CsvColu
   for (const rec of records.slice(1)) {
     const row = rec.row;
     rowNumbers.push(row);
-    for (const f of inSpecOrder) readCell(cleanName(rec.cells[f.index] ?? '').trim(), f, columns[f.spec.key]!, loc(row, f.header), decimal);
+    // the location is built only for an error message (an object per cell would dominate long series)
+    for (const f of inSpecOrder) readCell(cleanName(rec.cells[f.index] ?? '').trim(), f, columns[f.spec.key]!, () => loc(row, f.header), decimal);
   }
   if (rowNumbers.length === 0) throw new InputError('no data rows; expected at least one row below the header', loc(headerRow + 1));
   const table: CsvTable = { rowNumbers, columns };
@@ -221,8 +222,8 @@ function findColumns(headers: readonly string[], specs: readonly CsvColumnSpec[]
   return found;
 }
 
-/** Check one cell and append it to its column. @throws InputError at `where` */
-function readCell(cell: string, f: FoundColumn, col: CsvColumn, where: Location, decimal: DecimalMark): void {
+/** Check one cell and append it to its column. @throws InputError at `where()` */
+function readCell(cell: string, f: FoundColumn, col: CsvColumn, where: () => Location, decimal: DecimalMark): void {
   const s = f.spec;
   const gap = s.kind === 'text' ? cell === '' : isGap(cell);
   col.cells.push(gap ? '' : cell);
@@ -230,19 +231,19 @@ function readCell(cell: string, f: FoundColumn, col: CsvColumn, where: Location,
   if (gap) {
     if (!s.allowBlank) {
       const what = cell === '' ? 'empty cell' : `"${cell}" marks a gap`;
-      throw new InputError(`${what}; expected ${s.kind === 'text' ? `the ${s.description}` : `a number in ${f.unit} (this table needs a value in every row: leave the row out instead)`}`, where);
+      throw new InputError(`${what}; expected ${s.kind === 'text' ? `the ${s.description}` : `a number in ${f.unit} (this table needs a value in every row: leave the row out instead)`}`, where());
     }
     if (s.kind !== 'text') col.values.push(0);
     return;
   }
   if (s.kind === 'text') return;
   const parsed = parseNumberCell(cell, decimal);
-  if ('problem' in parsed) throw new InputError(`${parsed.problem}; expected a number in ${f.unit} (the unit is given in the header)`, where);
+  if ('problem' in parsed) throw new InputError(`${parsed.problem}; expected a number in ${f.unit} (the unit is given in the header)`, where());
   const x = parsed.value * f.factor;
-  if (!Number.isFinite(x)) throw new InputError(`"${cell}" ${f.unit} is outside the double range after conversion; expected a finite value`, where);
+  if (!Number.isFinite(x)) throw new InputError(`"${cell}" ${f.unit} is outside the double range after conversion; expected a finite value`, where());
   const min = s.min ?? 0;
   const max = s.max ?? (s.kind === 'fraction' ? 1 : Infinity);
-  if (x < min || x > max) throw new InputError(outOfRange(cell, f, min, max), where);
+  if (x < min || x > max) throw new InputError(outOfRange(cell, f, min, max), where());
   col.values.push(x);
 }
 

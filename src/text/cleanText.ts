@@ -10,9 +10,13 @@ const DIRECTION_CONTROLS = /[\u061C\u200E\u200F\u202A-\u202E\u2066-\u2069]/g;
 const LINE_BREAKS_AND_TABS = /[\t\n\r\v\f]+/g;
 // eslint-disable-next-line no-control-regex
 const CONTROLS = /[\u0000-\u001F\u007F-\u009F]/g;
+/** Any character the three replacements below would touch (tabs and line breaks are C0 controls). */
+// eslint-disable-next-line no-control-regex
+const ANY_HIDDEN = /[\u0000-\u001F\u007F-\u009F\u061C\u200E\u200F\u202A-\u202E\u2066-\u2069]/;
 
 /** `text` without control and direction-override characters (tabs and line breaks become a space). */
 export function cleanName(text: string): string {
+  if (!ANY_HIDDEN.test(text)) return text; // the usual case: one scan, no copies
   return text.replace(DIRECTION_CONTROLS, '').replace(LINE_BREAKS_AND_TABS, ' ').replace(CONTROLS, '');
 }
 

@@ -8,6 +8,7 @@ import { readJsonFile } from '../../io/readFiles.js';
 import { PROVENANCES, type CheckOutcome } from '../../checks/checkCase.js';
 import { inFile } from './shared.js';
 import { fmt } from '../format.js';
+import { snakeCaseJsonText } from '../../output/snakeCaseJson.js';
 
 /** The shipped check cases, three folders above this file in both src/ and dist/ layouts. */
 export function checksDir(): string {
@@ -57,7 +58,7 @@ export const checkCommand: CommandSpec = {
       return runCheckCase({ ...c, expected });
     });
     const failed = outcomes.filter((o) => !o.pass);
-    const text = opts.json ? JSON.stringify({ cases: outcomes, passed: outcomes.length - failed.length, failed: failed.length }, null, 2) : render(outcomes);
+    const text = opts.json ? snakeCaseJsonText({ cases: outcomes, passed: outcomes.length - failed.length, failed: failed.length }) : render(outcomes);
     if (failed.length) {
       // stdout stays empty on failure (CLI rule); the full listing goes to stderr with exit 1
       ctx.err(text.endsWith('\n') ? text : text + '\n');

@@ -6,6 +6,7 @@ import { readJsonFile } from '../../io/readFiles.js';
 import { fmt, fmtConc, table } from '../format.js';
 import { finiteNumber, positiveLength, positiveNumber, positiveTime, wholeNumber } from '../optionParsers.js';
 import { inFile } from './shared.js';
+import { snakeCaseJsonText } from '../../output/snakeCaseJson.js';
 
 /** Library argument paths and the options that set them. */
 const COLUMN_OPTIONS: Record<string, string> = { 'bed.ebctS': '--ebct', 'bed.bedDepthM': '--bed-depth', 'bed.porosity': '--porosity', porosity: '--porosity', toBedVolumes: '--to-bv', temperatureC: '--temperature', points: '--points' };
@@ -41,7 +42,7 @@ export const columnCommand: CommandSpec = {
     const mixture = inFile(file, () => readKineticMixture(readJsonFile(file, 'mixture file')));
     const options = { ebctS: opts.ebct as number, bedDepthM: opts.bedDepth as number, porosity: opts.porosity as number, toBedVolumes: opts.toBv as number, temperatureC: opts.temperature as number, points: opts.points as number };
     const res = columnOptionValue(() => inFile(file, () => column(mixture, options)));
-    ctx.out(opts.json ? JSON.stringify(res, null, 2) : render(res));
+    ctx.out(opts.json ? snakeCaseJsonText(res) : render(res));
   },
 };
 

@@ -6,6 +6,7 @@ import { readJsonFile } from '../../io/readFiles.js';
 import { fmt, fmtConc, table } from '../format.js';
 import { positiveMassConcentration, positiveTime, timeList } from '../optionParsers.js';
 import { inFile } from './shared.js';
+import { snakeCaseJsonText } from '../../output/snakeCaseJson.js';
 
 export const contactCommand: CommandSpec = {
   name: 'contact',
@@ -31,10 +32,10 @@ export const contactCommand: CommandSpec = {
     const mixture = inFile(file, () => readKineticMixture(readJsonFile(file, 'mixture file')));
     if (times !== undefined) {
       const res = inFile(file, () => contactOverTime(mixture, times, opts.dose as number | undefined));
-      ctx.out(opts.json ? JSON.stringify(res, null, 2) : renderOverTime(res));
+      ctx.out(opts.json ? snakeCaseJsonText(res) : renderOverTime(res));
     } else {
       const res = inFile(file, () => contactSteadyState(mixture, contactTime!, carbonAge, opts.dose as number | undefined));
-      ctx.out(opts.json ? JSON.stringify(res, null, 2) : renderSteady(res));
+      ctx.out(opts.json ? snakeCaseJsonText(res) : renderSteady(res));
     }
   },
 };

@@ -7,6 +7,7 @@ import { readMixture } from '../../scenario/readMixture.js';
 import { fmt } from '../format.js';
 import { finiteNumber, nonEmptyText, positiveMassConcentration, positiveTime } from '../optionParsers.js';
 import { inFile, optionValue } from './shared.js';
+import { snakeCaseJsonText } from '../../output/snakeCaseJson.js';
 
 export const doseCommand: CommandSpec = {
   name: 'dose',
@@ -33,7 +34,7 @@ export const doseCommand: CommandSpec = {
     const mixture = inFile(file, () => readMixture(readJsonFile(file, 'mixture file')));
     for (const w of mixture.warnings ?? []) ctx.err(`sorbshare: warning: ${w}\n`);
     const res = inFile(file, () => optionValue(() => doseFor(mixture, opts.target as string, goal)));
-    if (opts.json) ctx.out(JSON.stringify(res, null, 2));
+    if (opts.json) ctx.out(snakeCaseJsonText(res));
     else ctx.out([
       `Target ${res.target}: ${fmt(res.removal_fraction * 100, 4)} % removal at a carbon dose of ${fmt(res.dose_mg_per_L, 5)} mg/L (${fmt(res.dose_mg_per_L, 5)} g/m³)`,
       'Equilibrium estimate (batch IAST): real contact times give less removal; confirm with jar and pilot tests.',
@@ -52,7 +53,7 @@ async function contactDoseAction(file: string, opts: OptionValues, goal: DoseGoa
   if (!comp) throw new InputError(`target "${target}" is not in the mixture; its ids are ${mixture.components.map((c) => `"${c.id}"`).join(', ')}`, { option: '--target' });
   const R = optionValue(() => goalToRemovalFraction(goal, comp.c0MgPerL, target));
   const res = inFile(file, () => contactDose(mixture, target, R, opts.contactTime as number, opts.carbonAge as number | undefined));
-  if (opts.json) ctx.out(JSON.stringify(res, null, 2));
+  if (opts.json) ctx.out(snakeCaseJsonText(res));
   else ctx.out([
     `Target ${res.target}: ${fmt(res.removal_fraction * 100, 4)} % removal at a carbon dose of ${fmt(res.dose_mg_per_L, 5)} mg/L in a stirred contact tank (residence ${fmt(res.contact_time_s / 60, 4)} min, mean carbon age ${fmt(res.carbon_age_s / 3600, 4)} h)`,
     `Equilibrium dose for the same goal: ${fmt(res.equilibrium_dose_mg_per_L, 5)} mg/L (ratio ${fmt(res.dose_mg_per_L / res.equilibrium_dose_mg_per_L, 3)}).`,

@@ -7,6 +7,7 @@ import { readMixture } from '../../scenario/readMixture.js';
 import { fmt, fmtConc, table } from '../format.js';
 import { positiveMassConcentration, wholeNumber } from '../optionParsers.js';
 import { inFile, optionValue } from './shared.js';
+import { snakeCaseJsonText } from '../../output/snakeCaseJson.js';
 
 export const equilibriumCommand: CommandSpec = {
   name: 'equilibrium',
@@ -29,12 +30,12 @@ export const equilibriumCommand: CommandSpec = {
       if (opts.dose !== undefined) throw new InputError('give either --dose or --from/--to, not both', { option: '--dose' });
       if (opts.from === undefined || opts.to === undefined) throw new InputError('a sweep needs both --from and --to', { option: opts.from === undefined ? '--from' : '--to' });
       const res = inFile(file, () => optionValue(() => equilibriumCurve(mixture, opts.from as number, opts.to as number, opts.points as number)));
-      if (opts.json) ctx.out(JSON.stringify(res, null, 2));
+      if (opts.json) ctx.out(snakeCaseJsonText(res));
       else ctx.out(renderCurve(res.curve));
       return;
     }
     const res = inFile(file, () => optionValue(() => equilibrium(mixture, opts.dose as number | undefined)));
-    if (opts.json) ctx.out(JSON.stringify(res, null, 2));
+    if (opts.json) ctx.out(snakeCaseJsonText(res));
     else ctx.out(renderOne(res));
   },
 };

@@ -16,6 +16,7 @@ import { assertFiniteResult } from '../../scenario/finiteResult.js';
 import { VERSION } from '../../version.js';
 import { fmt, table } from '../format.js';
 import { contactSummary, type ContactSummaryJson } from '../../output/contactRecord.js';
+import { snakeCaseJsonText } from '../../output/snakeCaseJson.js';
 
 /** A progress callback that prints a line once a step has run for more than a second. */
 export function progressPrinter(ctx: CommandContext, thresholdMs = 1000): { onProgress: (e: ProgressEvent) => void; done: () => void } {
@@ -122,7 +123,7 @@ export async function runAndWrite(input: PipelineInput, outDir: string, json: bo
   writeOutputDir(outDir, files);
   const names = Object.keys(files);
   const s = summaryJson(result, outDir, names);
-  if (json) { ctx.out(JSON.stringify(s, null, 2)); return; }
+  if (json) { ctx.out(snakeCaseJsonText(s)); return; }
   const rows = s.carbons.map((c) => [
     c.carbon, c.required_dose_mg_per_L === null ? '—' : fmt(c.required_dose_mg_per_L, 3), c.governed_by ?? '—',
     c.cost_per_m3 === null ? '—' : `${fmt(c.cost_per_m3, 3)} ${c.currency}`, c.yearly_carbon_kg === null ? '—' : fmt(c.yearly_carbon_kg / 1000, 3),

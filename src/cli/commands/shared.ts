@@ -2,6 +2,7 @@ import { InputError } from '../../core/errors.js';
 import { writeFileAtomic } from '../../io/writeOutputs.js';
 import { checkOutputFile } from '../../io/outputChecks.js';
 import type { CommandContext } from '../commandSpec.js';
+import { snakeCaseJsonText } from '../../output/snakeCaseJson.js';
 
 /** Run `f`; an InputError without a file gains `file`. */
 export function inFile<T>(file: string, f: () => T): T {
@@ -37,7 +38,7 @@ export function optionValue<T>(f: () => T, options: Record<string, string> = DOS
  * JSON or as `text(outPath)`.
  */
 export function emitJson(result: unknown, opts: Record<string, unknown>, ctx: CommandContext, text: (out: string | undefined) => string, inputs: readonly string[] = []): void {
-  const json = JSON.stringify(result, null, 2);
+  const json = snakeCaseJsonText(result);
   const out = opts.out === undefined ? undefined : String(opts.out);
   if (out !== undefined) {
     checkOutputFile(out, inputs);

@@ -1,0 +1,118 @@
+/**
+ * The snake_case JSON shapes, made in one place at the edge. Core result types are camelCase
+ * (`doseMgPerL`); every JSON file and `--json` output is snake_case with the unit in the key
+ * (`dose_mg_per_L`). This module holds the explicit mapping of every camelCase field name of the
+ * core result types to its JSON name, grouped by the type that declares it, and converts a whole
+ * JSON-ready value with it.
+ *
+ * Keys that are user ids (compound ids, step names) are never renamed: a core field listed in
+ * `USER_ID_MAP_FIELDS` holds a map keyed by user ids, and a map built by a writer is marked with
+ * `userIdMap()`. Keys already in snake_case (or one lower-case word) pass unchanged, so the
+ * existing run.json names stay stable. A camelCase field missing from the mapping is left as it
+ * is (the run.json test, tests/design/runRecordSnakeCase.test.ts, then names it).
+ * Typed arrays become plain arrays (JSON.stringify would write them as index-keyed objects).
+ */
+
+/** camelCase field name of a core type → its JSON name. */
+export const SNAKE_CASE_KEYS: Readonly<Record<string, string>> = {
+  // shared by many types (concentrations, doses, flows)
+  c0MgPerL: 'c0_mg_per_L', cMgPerL: 'c_mg_per_L', docMgPerL: 'doc_mg_per_L', doc0MgPerL: 'doc0_mg_per_L',
+  doseMgPerL: 'dose_mg_per_L', dosesMgPerL: 'doses_mg_per_L', doseGPerL: 'dose_g_per_L', limitMgPerL: 'limit_mg_per_L',
+  flowM3PerD: 'flow_m3_per_d', oneOverN: 'one_over_n', compoundId: 'compound_id', compoundIds: 'compound_ids',
+  carbonName: 'carbon_name', targetId: 'target_id', pricePerKg: 'price_per_kg', carbonPricePerKg: 'carbon_price_per_kg',
+  backgroundC0MgPerL: 'background_c0_mg_per_L', fromMgPerL: 'from_mg_per_L', toMgPerL: 'to_mg_per_L',
+  // CompoundGoal, CompoundDose, Design, SurrogateSetPoint (src/design)
+  removalFraction: 'removal_fraction', remainingFraction: 'remaining_fraction', governedBy: 'governed_by',
+  costPerM3: 'cost_per_m3', docReduction: 'doc_reduction', uv254Reduction: 'uv254_reduction',
+  designDoseMgPerL: 'design_dose_mg_per_L', designDoseSource: 'design_dose_source',
+  // IndicatorDose, indicator check (src/design, src/indicators)
+  goalPercent: 'goal_percent', meanRemovalPercent: 'mean_removal_percent', removalPercent: 'removal_percent',
+  // removal curves, reduced loadings (src/design)
+  qSingleMgPerG: 'q_single_mg_per_g', qSiteMgPerG: 'q_site_mg_per_g',
+  // daily doses, dose table, yearly carbon (src/design, src/siteSeries)
+  carbonKg: 'carbon_kg', carbonKgPerD: 'carbon_kg_per_d', carbonKgPerDAtDesign: 'carbon_kg_per_d_at_design',
+  daysWithDose: 'days_with_dose', totalCarbonKg: 'total_carbon_kg', totalCost: 'total_cost', totalDays: 'total_days',
+  totalKg: 'total_kg', yearlyCarbonKg: 'yearly_carbon_kg', yearlyKg: 'yearly_kg', yearlyCost: 'yearly_cost',
+  docNodesMgPerL: 'doc_nodes_mg_per_L', docSeriesMgPerL: 'doc_series_mg_per_L', midpointErrorRel: 'midpoint_error_rel',
+  toleranceRel: 'tolerance_rel', doseAgainstDoc: 'dose_against_doc', flowFromDesign: 'flow_from_design',
+  // surrogates: curve, set-points, pilot check (src/surrogates)
+  uv254PerM: 'uv254_per_m', uv254_0PerM: 'uv254_0_per_m', uv254AbsorbancePerM: 'uv254_absorbance_per_m',
+  goalText: 'goal_text', removalGoal: 'removal_goal', hasUv254: 'has_uv254', rmsePerM: 'rmse_per_m',
+  bandPercentagePoints: 'band_percentage_points', meanResidual: 'mean_residual', measuredRemoval: 'measured_removal',
+  predictedRemoval: 'predicted_removal', outsideBand: 'outside_band', outlierCompounds: 'outlier_compounds',
+  modelCurve: 'model_curve', siteCurve: 'site_curve', atBound: 'at_bound', standardErrorK: 'standard_error_K',
+  // GAC estimate (src/gac)
+  bedDensityKgPerM3: 'bed_density_kg_per_m3', ebctMin: 'ebct_min', bedCarbonTonnes: 'bed_carbon_tonnes',
+  bedVolumeM3: 'bed_volume_m3', bedVolumes: 'bed_volumes', bedVolumesSingleSolute: 'bed_volumes_single_solute',
+  carbonTonnesPerYear: 'carbon_tonnes_per_year', carbonUsageGPerM3: 'carbon_usage_g_per_m3',
+  carbonUsageSingleSoluteGPerM3: 'carbon_usage_single_solute_g_per_m3', lifeDays: 'life_days',
+  lifeDaysSingleSolute: 'life_days_single_solute', qCompetitiveMgPerG: 'q_competitive_mg_per_g', upperBound: 'upper_bound',
+  // Monte Carlo problem, settings and result (src/uncertainty)
+  KRelSd: 'K_rel_sd', oneOverNRelSd: 'one_over_n_rel_sd', docRelSd: 'doc_rel_sd', fractionRelSd: 'fraction_rel_sd',
+  backgroundKRelSd: 'background_K_rel_sd', docLevels: 'doc_levels', chunkSize: 'chunk_size',
+  percentileMethod: 'percentile_method', pointEstimate: 'point_estimate', unreachableDraws: 'unreachable_draws',
+  governingShare: 'governing_share', p10Percent: 'p10_percent', p50Percent: 'p50_percent', p90Percent: 'p90_percent',
+  keepSamples: 'keep_samples', pointDesign: 'point_design',
+  // calibration and fractionation fits (src/calibration, src/fractionation)
+  fractionCi: 'fraction_ci', rmseRelative: 'rmse_relative', residualScale: 'residual_scale',
+  maxRelativeError: 'max_relative_error', modelSelection: 'model_selection',
+  // check cases (src/checks)
+  relativeError: 'relative_error', absoluteError: 'absolute_error',
+};
+
+/** Core fields whose value is a map keyed by user ids (compound ids): keys kept, values converted. */
+export const USER_ID_MAP_FIELDS: ReadonlySet<string> = new Set([
+  'removalPercent', // RemovalCurves: compound id → removal % at each dose
+  'removal', // SurrogateCurve point: compound id → removal
+  'removals', // pilot pair: compound id → measured removal
+  'samples', // Monte Carlo samples: quantity key → draws
+  'jarTests', // compound id → jar-test table
+]);
+
+/** A map built by a writer whose keys are user ids (kept as they are). */
+export class UserIdMap {
+  constructor(readonly entries: Readonly<Record<string, unknown>>) {}
+}
+
+/** Mark a map keyed by user ids (compound ids, file roles, step names) so that its keys are kept. */
+export function userIdMap(entries: Readonly<Record<string, unknown>>): UserIdMap {
+  return new UserIdMap(entries);
+}
+
+/** The JSON name of a field: the explicit mapping, or the key itself. */
+export function snakeCaseKey(key: string): string {
+  return Object.prototype.hasOwnProperty.call(SNAKE_CASE_KEYS, key) ? SNAKE_CASE_KEYS[key]! : key;
+}
+
+function convertMap(entries: Readonly<Record<string, unknown>>): Record<string, unknown> {
+  const out: Record<string, unknown> = {};
+  for (const k of Object.keys(entries)) out[k] = toSnakeCaseJson(entries[k]);
+  return out;
+}
+
+/**
+ * A JSON-ready copy of `value` with every mapped camelCase key renamed (see above); user-id maps
+ * keep their keys. Plain data only (objects, arrays, typed arrays, primitives); other objects
+ * (Date) are returned as they are for JSON.stringify.
+ */
+export function toSnakeCaseJson(value: unknown): unknown {
+  if (value === null || typeof value !== 'object') return value;
+  if (value instanceof UserIdMap) return convertMap(value.entries);
+  if (Array.isArray(value)) return value.map(toSnakeCaseJson);
+  if (ArrayBuffer.isView(value)) return Array.from(value as unknown as ArrayLike<number>);
+  const proto = Object.getPrototypeOf(value);
+  if (proto !== Object.prototype && proto !== null) return value;
+  const src = value as Record<string, unknown>;
+  const out: Record<string, unknown> = {};
+  for (const k of Object.keys(src)) {
+    const v = src[k];
+    const isMap = USER_ID_MAP_FIELDS.has(k) && v !== null && typeof v === 'object' && !Array.isArray(v) && !ArrayBuffer.isView(v);
+    out[snakeCaseKey(k)] = isMap ? convertMap(v as Record<string, unknown>) : toSnakeCaseJson(v);
+  }
+  return out;
+}
+
+/** The JSON text of a result (two-space indent), snake_case: every JSON writer prints through this. */
+export function snakeCaseJsonText(value: unknown): string {
+  return JSON.stringify(toSnakeCaseJson(value), null, 2);
+}

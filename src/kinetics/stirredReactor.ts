@@ -161,6 +161,9 @@ export function stirredReactorFrom(pk: PreparedKinetics, doseGPerL: number, cont
           v = vn; cur = next; accepted = true;
         }
       }
+      // no step helps while the balance already closes to the particle integration's own accuracy
+      // (10 × rtol of c0): the residual left is integration noise, not an open balance
+      if (!accepted && normOf(cur.G) <= 10 * rtol) break;
       if (!accepted || normOf(cur.G) > 0.5 * lastNorm) { J = undefined; fdJacobian = true; } // slow: difference Jacobian
       if (!accepted && lastNorm === Infinity && iterations > 2) {
         throw new ComputationError(`stirred reactor balance: no step reduces the residual (largest ${normOf(cur.G).toExponential(2)} of c0)`);

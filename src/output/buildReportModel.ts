@@ -132,7 +132,7 @@ function indicatorSection(r: PipelineResult): ReportSection | undefined {
   for (const cr of withInd) {
     const ind = cr.indicator!;
     tables.push({
-      caption: `${cr.carbon.name} at ${mgL(ind.doseMgPerL)}: ${ind.selection}, mean ${pct(ind.set.meanRemovalPercent)} (goal ${ind.goalPercent} %) — ${ind.set.admissible ? (ind.met ? 'goal met' : 'goal not met') : `not admissible: ${ind.set.reason}`}`,
+      caption: `${cr.carbon.name} at ${doseWithSpecific(ind.doseMgPerL, r.project.site.docMgPerL)}: ${ind.selection}, mean ${pct(ind.set.meanRemovalPercent)} (goal ${ind.goalPercent} %) — ${ind.set.admissible ? (ind.met ? 'goal met' : 'goal not met') : `not admissible: ${ind.set.reason}`}`,
       columns: ['compound', 'category', 'removal', 'in evaluated set', 'in best subset', 'in worst subset'],
       rows: ind.values.map((v) => [v.id, v.category, pct(v.removalPercent), ind.set.ids.includes(v.id) ? 'yes' : '', ind.range?.best.ids.includes(v.id) ? 'yes' : '', ind.range?.worst.ids.includes(v.id) ? 'yes' : '']),
     });

@@ -14,6 +14,7 @@ import { decisionSection } from './decisionSections.js';
 import { doseWithSpecific, headlineFigures, yearlyBasisText } from './headlineFigures.js';
 import { referencesSection } from './referencesSection.js';
 import { coverLines } from './coverLines.js';
+import { carbonLook } from './carbonLooks.js';
 import { calibrationPlot } from './calibrationPlots.js';
 import { fmtConcentration as fc, fmtMoney, fmtNumber as fn, fmtWhole } from './formatting.js';
 import type { CarbonResult, PipelineResult } from '../pipeline/pipelineTypes.js';
@@ -157,13 +158,13 @@ function comparisonSection(r: PipelineResult): ReportSection {
  * the P10 and P90 of (governing dose of a draw)/(point estimate) at the design DOC — the relative
  * spread taken as the same on every day (an approximation, said so in the section).
  */
-function dailySeries(c: CarbonResult, dates: readonly string[], dayIndex: readonly number[]): PlotSeries {
+function dailySeries(c: CarbonResult, dates: readonly string[], dayIndex: readonly number[], carbonIndex: number): PlotSeries {
   const rows = c.daily!.rows.filter((d) => d.doseMgPerL !== null);
   const position = new Map<string, number>();
   dates.forEach((date, k) => { if (!position.has(date)) position.set(date, k); }); // one pass: no per-day search
-  const series: PlotSeries = { name: c.carbon.name, points: rows.map((d, k) => [dayIndex[position.get(d.date) ?? -1] ?? k + 1, d.doseMgPerL!] as [number, number]) };
+  const series: PlotSeries = { name: c.carbon.name, ...carbonLook(carbonIndex), points: rows.map((d, k) => [dayIndex[position.get(d.date) ?? -1] ?? k + 1, d.doseMgPerL!] as [number, number]) };
   const ratio = c.uncertainty?.governingDoseRatio;
-  if (ratio && Number.isFinite(ratio.p90)) series.band = { lower: rows.map((d) => d.doseMgPerL! * ratio.p10), upper: rows.map((d) => d.doseMgPerL! * ratio.p90), label: 'P10–P90' };
+  if (ratio && Number.isFinite(ratio.p90)) series.band = { lower: rows.map((d) => d.doseMgPerL! * ratio.p10), upper: rows.map((d) => d.doseMgPerL! * ratio.p90), label: `${c.carbon.name} P10–P90` };
   return series;
 }
 
@@ -173,7 +174,7 @@ function yearSection(r: PipelineResult): ReportSection | undefined {
   const withDaily = r.carbons.filter((c) => c.daily);
   const dayIndex = s.dates.map((d) => dayNumber(d));
   const plots: PlotSpec[] = [
-    { kind: 'xy', id: 'daily-dose', title: `Required dose over the DOC series${withDaily.some((c) => c.uncertainty?.governingDoseRatio) ? ' (band: Monte Carlo P10–P90)' : ''}`, xLabel: 'date', xTime: true, yLabel: 'dose (mg/L)', series: withDaily.map((c) => dailySeries(c, s.dates, dayIndex)) },
+    { kind: 'xy', id: 'daily-dose', title: `Required dose over the DOC series${withDaily.some((c) => c.uncertainty?.governingDoseRatio) ? ' (band: Monte Carlo P10–P90)' : ''}`, xLabel: 'date', xTime: true, yLabel: 'dose (mg/L)', series: withDaily.map((c) => dailySeries(c, s.dates, dayIndex, r.carbons.indexOf(c))) },
     { kind: 'xy', id: 'daily-doc', title: 'Effluent DOC over the series', xLabel: 'date', xTime: true, yLabel: 'DOC (mg/L)', series: [{ name: 'DOC', key: 'reference', points: s.docMgPerL.map((v, k) => [dayIndex[k]!, v] as [number, number]) }] },
   ];
   const rows = withDaily.map((c) => {

@@ -177,14 +177,15 @@ function yearSection(r: PipelineResult): ReportSection | undefined {
     { kind: 'xy', id: 'daily-dose', title: `Required dose over the DOC series${withDaily.some((c) => c.uncertainty?.governingDoseRatio) ? ' (band: Monte Carlo P10–P90)' : ''}`, xLabel: 'date', xTime: true, yLabel: 'dose (mg/L)', series: withDaily.map((c) => dailySeries(c, s.dates, dayIndex, r.carbons.indexOf(c))) },
     { kind: 'xy', id: 'daily-doc', title: 'Effluent DOC over the series', xLabel: 'date', xTime: true, yLabel: 'DOC (mg/L)', series: [{ name: 'DOC', key: 'reference', points: s.docMgPerL.map((v, k) => [dayIndex[k]!, v] as [number, number]) }] },
   ];
+  const annualised = isAnnualised(s.dates.length); // a whole year's totals are its yearly figures: no second column
   const rows = withDaily.map((c) => {
     const d = c.daily!;
-    return [c.carbon.name, d.rows.length, `${fn(d.dose!.median, 3)} (${fn(d.dose!.median / s.docMgPerL.slice().sort((x, y) => x - y)[Math.floor(s.docMgPerL.length / 2)]!, 3)})`, fn(d.dose!.p90, 3), fn(d.dose!.max, 3), fmtWhole(d.carbonKgPerD!.median), fmtWhole(d.carbonKgPerD!.p90), fmtWhole(d.totalCarbonKg), fmtMoney(d.totalCost, d.currency), `${fmtWhole(d.yearlyCarbonKg)} kg, ${fmtMoney(d.yearlyCost, d.currency)} (${yearlyBasisText(c)})`];
+    return [c.carbon.name, d.rows.length, `${fn(d.dose!.median, 3)} (${fn(d.dose!.median / s.docMgPerL.slice().sort((x, y) => x - y)[Math.floor(s.docMgPerL.length / 2)]!, 3)})`, fn(d.dose!.p90, 3), fn(d.dose!.max, 3), fmtWhole(d.carbonKgPerD!.median), fmtWhole(d.carbonKgPerD!.p90), fmtWhole(d.totalCarbonKg), fmtMoney(d.totalCost, d.currency), ...(annualised ? [`${fmtWhole(d.yearlyCarbonKg)} kg, ${fmtMoney(d.yearlyCost, d.currency)} (${yearlyBasisText(c)})`] : [])];
   });
   return {
     id: 'year', heading: 'Carbon over the year',
     paragraphs: [`${s.dates.length} days from ${s.dates[0]} to ${s.dates[s.dates.length - 1]}; the background is scaled to each day's DOC; the required dose is solved exactly at ${withDaily[0]?.daily!.table.docMgPerL.length ?? 0} DOC values spanning the series and read linearly in DOC between them (checked within ${fn(100 * (withDaily[0]?.daily!.table.toleranceRel ?? 0), 2)} % of the exact dose at every midpoint; the Monte Carlo reads the same table). Carbon kg/d = dose (mg/L) × flow (m³/d) / 1000; totals are sums over the days${isAnnualised(s.dates.length) ? `; yearly figures are ${annualisedNote(s.dates.length)} (× 365/${s.dates.length})` : ''}. Percentiles: Hyndman & Fan (1996) definition 7.${s.flowFromDesign ? ' The series has no flow column: the design flow is used every day.' : ''}${withDaily.some((c) => c.uncertainty?.governingDoseRatio) ? ' The band on the daily dose is the Monte Carlo P10–P90 of the governing dose relative to its point estimate at the design DOC, applied to every day (an approximation).' : ''}`],
-    tables: [{ caption: 'Daily dose and carbon mass', columns: ['carbon', 'days', 'dose median (mg/L; mg/mg DOC at the median DOC)', 'dose P90 (mg/L)', 'dose max (mg/L)', 'carbon median (kg/d)', 'carbon P90 (kg/d)', 'carbon total over the series (kg)', 'carbon cost over the series', 'per year'], rows }],
+    tables: [{ caption: 'Daily dose and carbon mass', columns: ['carbon', 'days', 'dose median (mg/L; mg/mg DOC at the median DOC)', 'dose P90 (mg/L)', 'dose max (mg/L)', 'carbon median (kg/d)', 'carbon P90 (kg/d)', 'carbon total over the series (kg)', 'carbon cost over the series', ...(annualised ? ['per year (annualised)'] : [])], rows }],
     plots,
   };
 }

@@ -39,3 +39,12 @@ describe('carbon looks', () => {
     expect(CARBON_LOOKS.every((l) => !palette.has(l.colour.toLowerCase()))).toBe(true);
   });
 });
+
+describe('daily dose table', () => {
+  it('a whole-year series gives its totals once: no per-year column repeating them', () => {
+    const t = model.sections.flatMap((s) => s.tables ?? []).find((x) => x.caption === 'Daily dose and carbon mass')!;
+    expect(t.columns).not.toContain('per year (annualised)');
+    expect(t.columns.at(-1)).toBe('carbon cost over the series');
+    for (const row of t.rows) expect(row).toHaveLength(t.columns.length);
+  });
+});

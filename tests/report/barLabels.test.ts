@@ -28,3 +28,13 @@ describe('bar figures', () => {
     expect(formatSegmentValue(0.05657)).toBe('0.0566');
   });
 });
+
+describe('key figure cards', () => {
+  it('keep a number and its unit together (no-break space) and leave other spaces alone', async () => {
+    const { keepUnitWithNumber } = await import('../../src/report/htmlReport.js');
+    expect(keepUnitWithNumber('23.6 mg/L')).toBe('23.6\u00a0mg/L');
+    expect(keepUnitWithNumber('0.0566 EUR')).toBe('0.0566\u00a0EUR');
+    expect(keepUnitWithNumber('Carbon B (wood-based)')).toBe('Carbon B (wood-based)');
+    expect(keepUnitWithNumber('1 goal not met')).toBe('1\u00a0goal not met');
+  });
+});

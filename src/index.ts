@@ -1,69 +1,67 @@
 /**
  * sorbshare as a library: `import { equilibrium, doseFor, … } from 'sorbshare'`.
- * The core is pure (no file access, console or process); the CLI lives in src/cli.
+ * The public API: the command-line computations as functions, the models beneath them, the whole
+ * job from a project file and its output files. Internal steps and helpers are not exported.
+ * Every export carries a doc comment where it is defined (units, sources, what it throws).
+ * The core is pure (no file access, console or process); `loadProject` and `readPilotCsv` read
+ * files; the CLI lives in src/cli.
  */
 export { VERSION } from './version.js';
 export { InputError, ComputationError, SorbshareError, type InputLocation } from './core/errors.js';
 
-// ── units (capability 1)
+// ── units (capability 1): quantities with units, Freundlich K in any unit pair
 export * from './units/index.js';
 
-// ── IAST core (capabilities 2, 3, 9)
+// ── mixtures and the IAST core (capabilities 2, 3, 9): the `equilibrium` and `dose` commands as functions
+export { readMixture, readComponent, parseConcentration, parseDose, type MixtureInput, type ComponentInput, type ParsedMixture } from './scenario/readMixture.js';
+export {
+  equilibrium, equilibriumCurve, doseFor, loadingsAt, logSpacedDoses, goalToRemovalFraction,
+  type EquilibriumResult, type EquilibriumComponentResult, type DoseSearchResult, type DoseGoal, type LoadingResult,
+} from './api/equilibriumApi.js';
 export { prepareMixture, type FreundlichComponent, type PreparedMixture } from './equilibrium/preparedMixture.js';
 export { solveBatchPrepared, type BatchSolution } from './equilibrium/iastBatch.js';
 export { directIastPrepared, type DirectSolution } from './equilibrium/iastDirect.js';
 export { doseForRemoval, MAX_DOSE_G_PER_L, MIN_DOSE_G_PER_L, type DoseResult } from './design/doseForRemoval.js';
-// ── design layer: the removal-at-dose model interface and the one dose search
+// the removal-at-dose model interface (to add a model) and the one dose search
 export { EquilibriumRemoval, equilibriumRemoval } from './design/equilibriumRemoval.js';
 export { searchDose, DEFAULT_DOSE_HINT_G_PER_L, type DoseSearchOutcome, type DoseSearchOptions, type DoseSearchStatus } from './design/doseSearch.js';
 export type { RemovalModel, RemovalModelFactory, CompetitionSet, WarmStart, RemainingAtDose, BackgroundAtDose } from './design/removalModel.js';
-export { readMixture, readComponent, parseConcentration, parseDose, type MixtureInput, type ComponentInput, type ParsedMixture } from './scenario/readMixture.js';
-export {
-  equilibrium, equilibriumCurve, doseFor, loadingsAt, logSpacedDoses, goalToRemovalFraction, formatSolution,
-  type EquilibriumResult, type EquilibriumComponentResult, type DoseSearchResult, type DoseGoal, type LoadingResult,
-} from './api/equilibriumApi.js';
 
-// ── background characterisation (capabilities 4–7) — add exports below this line
-export { readCsvTable, csvUnitFactor, type CsvTable, type CsvColumn, type CsvColumnSpec, type CsvKind, type CsvHeaderRow, type CsvColumnSpecs } from './tables/csvTable.js';
+// ── background and calibration (capabilities 4–7): the `fractionate` and `calibrate` commands as functions
+export { readCsvTable, type CsvTable, type CsvColumn, type CsvColumnSpec, type CsvKind, type CsvHeaderRow, type CsvColumnSpecs } from './tables/csvTable.js';
 export { fractionate, readIsotherm, DEFAULT_EXPONENT, DEFAULT_COMPONENTS, type FractionateOptions, type FractionateResult, type IsothermInput, type ModelAlternative } from './fractionation/fractionate.js';
 export { readBackground, type BackgroundFile, type BackgroundComponentRecord, type BackgroundFit } from './fractionation/backgroundFile.js';
 export { backgroundComponents, predictDoc, predictUv254, predictUv254Reduction } from './fractionation/backgroundPrediction.js';
-export { defaultKGrid, DEFAULT_K_GRIDS } from './fractionation/defaultKGrid.js';
-export { ISOTHERM_COLUMNS, checkIsotherm, type IsothermPoint, type IsothermData } from './fractionation/isothermData.js';
-export { makeIsothermModel, type IsothermModel } from './fractionation/isothermModel.js';
-export { calibrate, POOR_FIT_RMSE_LN, type CalibrateOptions, type CalibrationResult, type CalibrationModel, type CalibrationRow } from './calibration/calibrate.js';
+export { ISOTHERM_COLUMNS, type IsothermPoint, type IsothermData } from './fractionation/isothermData.js';
+export { calibrate, type CalibrateOptions, type CalibrationResult, type CalibrationModel, type CalibrationRow } from './calibration/calibrate.js';
 export { ebcComponent } from './calibration/ebcComponent.js';
 export { readJarTests, JAR_TEST_COLUMNS, type JarTestInput, type JarTestPoint, type JarTestData } from './calibration/jarTestData.js';
-export { fitLeastSquares, type LeastSquaresProblem, type LeastSquaresFit } from './numerics/leastSquares.js';
-export { nnls, type NnlsResult } from './numerics/nnls.js';
-export { studentTQuantile, studentTCdf } from './numerics/studentT.js';
 
-// ── project, pipeline, report (capabilities 8–10, 14, 15) — add exports below this line
+// ── the whole job (capabilities 8–15): project file → result → output files
 export { loadProject } from './io/loadProject.js';
-export { validateProject, DEFAULT_REMOVAL_PERCENT, DEFAULT_SWEEP, type ProjectSpec, type SiteSpec, type BackgroundSpec, type CarbonSpec, type CompoundSpec, type GoalsSpec, type CalibrationModelName } from './project/index.js';
-export { evaluateIndicatorSet, indicatorMean, admissibleRange, ruleViolation, MIN_INDICATOR_SUBSTANCES, CATEGORY_RATIO, type IndicatorValue, type IndicatorCategory, type IndicatorEvaluation, type AdmissibleRange } from './indicators/index.js';
-export { parseSiteSeries, quantile as seriesQuantile, median as seriesMedian, summarise as summariseSeries, type SiteSeries, type SeriesSummary } from './siteSeries/index.js';
-export { runPipeline, runPipelineWithUncertainty, indicatorPlan, surrogateStep, surrogateModel, pilotStep, gacStep, uncertaintyStep, uncertaintyProblem, resolveUncertaintySettings, reducedLoading, buildSystems, systemComponents, prepareSystem, type PipelineInput, type PipelineOptions, type UncertaintyRunOptions, type SurrogateResult, type SetPointRow, type PilotStepResult, type GacStepResult, type CarbonUncertainty, type UncertaintySettings, type PipelineResult, type CarbonResult, type ProgressEvent, type CompoundSystem, type ReducedLoading, type CompoundCalibration, designProblem, carbonModel, competitionSets } from './pipeline/index.js';
-// outputs: CSV tables, the run record, the report model, number formatting; and every output file
-export { surrogatesCsv, setpointsCsv, pilotCheckCsv, gacCsv, uncertaintyCsv, buildReportModel, runRecord, CAUTIONS, type RunEnvironment } from './output/index.js';
+export { validateProject, type ProjectSpec, type SiteSpec, type BackgroundSpec, type CarbonSpec, type CompoundSpec, type GoalsSpec, type CalibrationModelName } from './project/index.js';
+export { runPipeline } from './pipeline/runPipeline.js';
+export { runPipelineWithUncertainty } from './pipeline/runWithUncertainty.js';
+export type { PipelineInput, PipelineOptions, UncertaintyRunOptions, PipelineResult, CarbonResult, ProgressEvent } from './pipeline/pipelineTypes.js';
 export { pipelineOutputs, OUTPUT_FILES } from './outputFiles/pipelineOutputs.js';
-// the design of a carbon at a DOC (doses, governing goal, cost, surrogate set-point, daily doses)
-export {
-  compoundGoal, compoundDose, designDose, surrogatesAt, indicatorCheckAt, indicatorDose, indicatorValuesAt, selectIndicatorSet, removalCurves, dailyDoses,
-  doseTable, interpolateDose, seriesSegments, seriesCarbon, carbonKgPerD, costPerM3, carbonCost, requiredDoseAt, REMOVAL_MODELS,
-  uv254SetPoint, governingSetPoint, doseForUv254Reduction, annualisedNote, isAnnualised, yearlyLabel,
-  type RequiredAtDoc, type SetPointGoal, type Uv254SetPoint, type GoverningSetPoint,
-  type CompoundGoal, type CompoundDose, type CompoundDoseStatus, type Design, type DesignProblem, type SurrogateSetPoint, type IndicatorGoal, type IndicatorMember,
-  type IndicatorCheck, type IndicatorDose, type IndicatorDoseStatus, type RemovalCurves, type DailyDoses, type DailyRow, type DoseTable, type SeriesSegments, type SeriesCarbon,
-} from './design/index.js';
+export { buildReportModel, CAUTIONS, type RunEnvironment } from './output/index.js';
+export { renderHtmlReport, renderMarkdownSummary } from './report/index.js';
 export { readCheckCase, runCheckCase, CHECK_KINDS, type CheckCase, type CheckOutcome, type CheckKind } from './checks/index.js';
-export { renderHtmlReport, renderMarkdownSummary, reportPlotIds, renderPlot } from './report/index.js';
+// the design of a carbon at a DOC, for scripting one step of the job
+export { designDose, type Design, type DesignProblem, type CompoundGoal, type CompoundDose, type CompoundDoseStatus } from './design/index.js';
+// indicator rule (SR 814.201.231) and site DOC series
+export { evaluateIndicatorSet, indicatorMean, MIN_INDICATOR_SUBSTANCES, CATEGORY_RATIO, type IndicatorValue, type IndicatorCategory, type IndicatorEvaluation } from './indicators/index.js';
+export { parseSiteSeries, summarise as summariseSeries, type SiteSeries, type SeriesSummary } from './siteSeries/index.js';
 
-// ── surrogates, GAC, uncertainty (capabilities 11–13) — add exports below this line
-export * from './surrogates/index.js';
+// ── surrogates, GAC estimate, uncertainty (capabilities 11–13)
+export { surrogateCurve, type SurrogateCurve, type SurrogatePoint } from './surrogates/surrogateCurve.js';
+export { fitSiteCurve, siteCurveRemoval, type SiteCurveFit } from './surrogates/siteCurveFit.js';
+export { checkPilotPairs, type PilotPair, type PilotCheckResult, type PilotCompoundCheck, type PilotResidual } from './surrogates/pilotCheck.js';
 export { readPilotCsv } from './io/readPilotCsv.js';
-export * from './gac/index.js';
-export * from './uncertainty/index.js';
+export { gacEstimate, GAC_UPPER_BOUND_CAUTION, type GacInput, type GacEstimate, type GacTargetEstimate } from './gac/gacEstimate.js';
+export { monteCarlo, MAX_DRAWS, type MonteCarloOptions, type MonteCarloResult, type QuantitySummary } from './uncertainty/monteCarlo.js';
+export { parallelMonteCarlo, type ParallelOptions } from './uncertainty/parallelMonteCarlo.js';
+export type { MonteCarloProblem, UncertainTarget, UncertainBackgroundComponent, ParameterCovariance, YearlyCostInput } from './uncertainty/monteCarloProblem.js';
 
 // ── GAC fixed bed, staggered filters, column calibration and scale-up (capabilities 18, 19)
 export { simulateFixedBed, DEFAULT_BREAKTHROUGH_LEVELS, DEFAULT_FIXED_BED_GRID, type FixedBedOptions, type FixedBedResult, type FixedBedComponentResult, type BreakthroughPoint } from './kinetics/fixedBed.js';

@@ -13,6 +13,7 @@ import { readCsvTable, type CsvColumnSpec } from '../tables/csvTable.js';
 /** Largest c/c0 accepted in breakthrough data (ours: displacement peaks and noise above 1). */
 export const MAX_DATA_C_OVER_C0 = 1.2;
 
+/** Columns of a breakthrough table (bed volumes; c/c0, or c with C0): their names, units and whether they are required. */
 export const BREAKTHROUGH_COLUMNS: readonly CsvColumnSpec[] = [
   { key: 'bv', names: ['bed volumes', 'BV', 'bed volume'], kind: 'fraction', required: true, max: Number.MAX_VALUE, description: 'bed volumes treated (dimensionless, unit "-")' },
   { key: 'ratio', names: ['c/c0', 'C/C0'], kind: 'fraction', required: false, max: Number.MAX_VALUE, description: 'outlet c/c0' },

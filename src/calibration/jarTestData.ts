@@ -13,6 +13,7 @@
 import { InputError } from '../core/errors.js';
 import { readCsvTable, type CsvColumnSpec, type CsvTable } from '../tables/csvTable.js';
 
+/** Columns of a jar-test table (C0, dose, c): their names, units and whether they are required. */
 export const JAR_TEST_COLUMNS: readonly CsvColumnSpec[] = [
   { key: 'c0', names: ['C0', 'initial concentration'], kind: 'massConcentration', required: true, description: 'initial target concentration C0' },
   { key: 'dose', names: ['dose', 'carbon dose', 'PAC dose', 'PAC'], kind: 'massConcentration', required: true, description: 'carbon dose' },

@@ -73,6 +73,7 @@ export interface KineticCalibrationResult {
 const DS_MIN = 1e-21, DS_MAX = 1e-11;
 const DS_START = [1e-16];
 
+/** Fits the surface diffusivity of a target, or the one of the fictive DOC components, to kinetic jar tests (CSV text); see the file's opening comment. */
 export function calibrateKinetics(csvText: string, options: KineticCalibrateOptions): KineticCalibrationResult {
   const { model, particle } = options;
   const series = readKineticTests(csvText, model === 'surface-diffusion' ? 'target' : 'doc', options.file);

@@ -11,6 +11,7 @@ import { readCsvTable, type CsvColumnSpec } from '../tables/csvTable.js';
 
 export type KineticTestKind = 'target' | 'doc';
 
+/** Columns of a target kinetic test table (time, dose, C0, c). */
 export const KINETIC_TARGET_COLUMNS: readonly CsvColumnSpec[] = [
   { key: 'time', names: ['time', 't', 'contact time'], kind: 'time', required: true, description: 'contact time' },
   { key: 'dose', names: ['dose', 'carbon dose', 'PAC dose', 'PAC'], kind: 'massConcentration', required: true, description: 'carbon dose' },
@@ -18,6 +19,7 @@ export const KINETIC_TARGET_COLUMNS: readonly CsvColumnSpec[] = [
   { key: 'c', names: ['c', 'concentration'], kind: 'massConcentration', required: true, description: 'target concentration c at the time' },
 ];
 
+/** Columns of a DOC kinetic test table (time, dose, DOC). */
 export const KINETIC_DOC_COLUMNS: readonly CsvColumnSpec[] = [
   { key: 'time', names: ['time', 't', 'contact time'], kind: 'time', required: true, description: 'contact time' },
   { key: 'dose', names: ['dose', 'carbon dose', 'PAC dose', 'PAC'], kind: 'massConcentration', required: true, description: 'carbon dose' },

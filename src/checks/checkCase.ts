@@ -101,6 +101,7 @@ const KINDS = {
 } satisfies Record<string, Compute>;
 
 export type CheckKind = keyof typeof KINDS;
+/** The kinds of reference check case (`kind` in a case's input.json), each a library computation. */
 export const CHECK_KINDS = Object.keys(KINDS) as CheckKind[];
 
 function pick<T extends { id: string }>(list: T[], id: string): T {

@@ -20,6 +20,7 @@ export interface InputLocation {
   option?: string;
 }
 
+/** Base class of the errors sorbshare throws on purpose (InputError: bad input, exit 2; ComputationError: a computation failed, exit 1). */
 export class SorbshareError extends Error {
   override name = 'SorbshareError';
 }

@@ -21,6 +21,7 @@ function scaled(components: readonly FreundlichComponent[], factor: number): Fre
   return components.map((c) => ({ ...c, c0MgPerL: c.c0MgPerL * factor }));
 }
 
+/** The batch-IAST RemovalModel: remaining fraction c/c0 of each compound at a dose in g/L, with warm starts and the same water at another DOC. */
 export class EquilibriumRemoval implements RemovalModel {
   readonly kind = 'equilibrium (batch IAST)';
   readonly compoundIds: readonly string[];

@@ -65,7 +65,9 @@ export interface FractionateResult extends BackgroundFile {
 /** Anything `fractionate` reads: a CSV table read with ISOTHERM_COLUMNS, CSV text, or points. */
 export type IsothermInput = CsvTable | string | readonly IsothermPoint[];
 
+/** Common Freundlich exponent 1/n of the fictive DOC components (common practice 0.2). */
 export const DEFAULT_EXPONENT = 0.2;
+/** Number of adsorbable fictive components (common practice 3). */
 export const DEFAULT_COMPONENTS = 3;
 
 /** Turn any isotherm input into checked data. */

@@ -13,6 +13,7 @@
 import { InputError } from '../core/errors.js';
 import type { CsvColumnSpec, CsvTable } from '../tables/csvTable.js';
 
+/** Columns of a DOC (and UV254) isotherm table: their names, units and whether they are required. */
 export const ISOTHERM_COLUMNS: readonly CsvColumnSpec[] = [
   { key: 'dose', names: ['dose', 'carbon dose', 'PAC dose', 'PAC'], kind: 'massConcentration', required: true, description: 'carbon dose' },
   { key: 'doc0', names: ['DOC0', 'initial DOC'], kind: 'massConcentration', required: false, description: 'initial DOC (DOC0)' },

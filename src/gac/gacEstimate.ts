@@ -24,6 +24,7 @@ import { InputError } from '../core/errors.js';
 import { prepareMixture, type FreundlichComponent } from '../equilibrium/preparedMixture.js';
 import { directIastPrepared } from '../equilibrium/iastDirect.js';
 
+/** The caution every GAC equilibrium estimate carries: it is an upper bound on bed life. */
 export const GAC_UPPER_BOUND_CAUTION =
   'Equilibrium estimate, an upper bound: preloading by DOC and adsorption kinetics make real beds break through far earlier; confirm with rapid small-scale column tests or pilot columns.';
 

@@ -52,7 +52,9 @@ export interface FixedBedOptions {
   traceFraction?: number;
 }
 
+/** c/c0 levels whose bed volumes are reported by default. */
 export const DEFAULT_BREAKTHROUGH_LEVELS = [0.1, 0.2, 0.5] as const;
+/** Default grid of the fixed-bed solver: axial cells and interior collocation points per grain. */
 export const DEFAULT_FIXED_BED_GRID = { cells: 30, interiorPoints: 5 } as const;
 
 export interface BreakthroughPoint {

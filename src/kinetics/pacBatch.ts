@@ -26,6 +26,7 @@ export interface KineticSolverOptions {
 
 /** Defaults (ours): doubling the grid changes removals by < 1e-4 down to Ds·t/R² ≈ 5e-4, and the Crank (1975) checks hold within 1e-4 (tests/kinetics). */
 export const DEFAULT_INTERIOR_POINTS = 16;
+/** Default relative tolerance of the batch kinetic integration. */
 export const DEFAULT_KINETIC_RTOL = 1e-5;
 
 export interface PacBatchResult {

@@ -48,6 +48,7 @@ export interface StirredReactorResult {
 /** Tolerance of the outer balance, relative to c0 (ours). */
 const BALANCE_TOL = 1e-7;
 
+/** Checks a contact time and a carbon age (both positive, the age at least the contact time); throws InputError otherwise. */
 export function checkContactConditions(contactTimeS: number, carbonAgeS: number): void {
   if (!(contactTimeS > 0) || !Number.isFinite(contactTimeS)) throw new InputError(`expected a positive contact time, got ${contactTimeS} s`, { option: '--contact-time' });
   if (!(carbonAgeS > 0) || !Number.isFinite(carbonAgeS)) throw new InputError(`expected a positive carbon age, got ${carbonAgeS} s`, { option: '--carbon-age' });

@@ -14,6 +14,7 @@ import { decisionSection } from './decisionSections.js';
 import { doseWithSpecific, headlineFigures, yearlyBasisText } from './headlineFigures.js';
 import { referencesSection } from './referencesSection.js';
 import { coverLines } from './coverLines.js';
+import { carbonLook } from './carbonLooks.js';
 import { calibrationPlot } from './calibrationPlots.js';
 import { contactSection } from './contactPlots.js';
 import { fmtConcentration as fc, fmtMoney, fmtNumber as fn, fmtWhole } from './formatting.js';
@@ -133,7 +134,7 @@ function indicatorSection(r: PipelineResult): ReportSection | undefined {
   for (const cr of withInd) {
     const ind = cr.indicator!;
     tables.push({
-      caption: `${cr.carbon.name} at ${mgL(ind.doseMgPerL)}: ${ind.selection}, mean ${pct(ind.set.meanRemovalPercent)} (goal ${ind.goalPercent} %) — ${ind.set.admissible ? (ind.met ? 'goal met' : 'goal not met') : `not admissible: ${ind.set.reason}`}`,
+      caption: `${cr.carbon.name} at ${doseWithSpecific(ind.doseMgPerL, r.project.site.docMgPerL)}: ${ind.selection}, mean ${pct(ind.set.meanRemovalPercent)} (goal ${ind.goalPercent} %) — ${ind.set.admissible ? (ind.met ? 'goal met' : 'goal not met') : `not admissible: ${ind.set.reason}`}`,
       columns: ['compound', 'category', 'removal', 'in evaluated set', 'in best subset', 'in worst subset'],
       rows: ind.values.map((v) => [v.id, v.category, pct(v.removalPercent), ind.set.ids.includes(v.id) ? 'yes' : '', ind.range?.best.ids.includes(v.id) ? 'yes' : '', ind.range?.worst.ids.includes(v.id) ? 'yes' : '']),
     });
@@ -158,13 +159,13 @@ function comparisonSection(r: PipelineResult): ReportSection {
  * the P10 and P90 of (governing dose of a draw)/(point estimate) at the design DOC — the relative
  * spread taken as the same on every day (an approximation, said so in the section).
  */
-function dailySeries(c: CarbonResult, dates: readonly string[], dayIndex: readonly number[]): PlotSeries {
+function dailySeries(c: CarbonResult, dates: readonly string[], dayIndex: readonly number[], carbonIndex: number): PlotSeries {
   const rows = c.daily!.rows.filter((d) => d.doseMgPerL !== null);
   const position = new Map<string, number>();
   dates.forEach((date, k) => { if (!position.has(date)) position.set(date, k); }); // one pass: no per-day search
-  const series: PlotSeries = { name: c.carbon.name, points: rows.map((d, k) => [dayIndex[position.get(d.date) ?? -1] ?? k + 1, d.doseMgPerL!] as [number, number]) };
+  const series: PlotSeries = { name: c.carbon.name, ...carbonLook(carbonIndex), points: rows.map((d, k) => [dayIndex[position.get(d.date) ?? -1] ?? k + 1, d.doseMgPerL!] as [number, number]) };
   const ratio = c.uncertainty?.governingDoseRatio;
-  if (ratio && Number.isFinite(ratio.p90)) series.band = { lower: rows.map((d) => d.doseMgPerL! * ratio.p10), upper: rows.map((d) => d.doseMgPerL! * ratio.p90), label: 'P10–P90' };
+  if (ratio && Number.isFinite(ratio.p90)) series.band = { lower: rows.map((d) => d.doseMgPerL! * ratio.p10), upper: rows.map((d) => d.doseMgPerL! * ratio.p90), label: `${c.carbon.name} P10–P90` };
   return series;
 }
 
@@ -174,17 +175,18 @@ function yearSection(r: PipelineResult): ReportSection | undefined {
   const withDaily = r.carbons.filter((c) => c.daily);
   const dayIndex = s.dates.map((d) => dayNumber(d));
   const plots: PlotSpec[] = [
-    { kind: 'xy', id: 'daily-dose', title: `Required dose over the DOC series${withDaily.some((c) => c.uncertainty?.governingDoseRatio) ? ' (band: Monte Carlo P10–P90)' : ''}`, xLabel: 'date', xTime: true, yLabel: 'dose (mg/L)', series: withDaily.map((c) => dailySeries(c, s.dates, dayIndex)) },
+    { kind: 'xy', id: 'daily-dose', title: `Required dose over the DOC series${withDaily.some((c) => c.uncertainty?.governingDoseRatio) ? ' (band: Monte Carlo P10–P90)' : ''}`, xLabel: 'date', xTime: true, yLabel: 'dose (mg/L)', series: withDaily.map((c) => dailySeries(c, s.dates, dayIndex, r.carbons.indexOf(c))) },
     { kind: 'xy', id: 'daily-doc', title: 'Effluent DOC over the series', xLabel: 'date', xTime: true, yLabel: 'DOC (mg/L)', series: [{ name: 'DOC', key: 'reference', points: s.docMgPerL.map((v, k) => [dayIndex[k]!, v] as [number, number]) }] },
   ];
+  const annualised = isAnnualised(s.dates.length); // a whole year's totals are its yearly figures: no second column
   const rows = withDaily.map((c) => {
     const d = c.daily!;
-    return [c.carbon.name, d.rows.length, `${fn(d.dose!.median, 3)} (${fn(d.dose!.median / s.docMgPerL.slice().sort((x, y) => x - y)[Math.floor(s.docMgPerL.length / 2)]!, 3)})`, fn(d.dose!.p90, 3), fn(d.dose!.max, 3), fmtWhole(d.carbonKgPerD!.median), fmtWhole(d.carbonKgPerD!.p90), fmtWhole(d.totalCarbonKg), fmtMoney(d.totalCost, d.currency), `${fmtWhole(d.yearlyCarbonKg)} kg, ${fmtMoney(d.yearlyCost, d.currency)} (${yearlyBasisText(c)})`];
+    return [c.carbon.name, d.rows.length, `${fn(d.dose!.median, 3)} (${fn(d.dose!.median / s.docMgPerL.slice().sort((x, y) => x - y)[Math.floor(s.docMgPerL.length / 2)]!, 3)})`, fn(d.dose!.p90, 3), fn(d.dose!.max, 3), fmtWhole(d.carbonKgPerD!.median), fmtWhole(d.carbonKgPerD!.p90), fmtWhole(d.totalCarbonKg), fmtMoney(d.totalCost, d.currency), ...(annualised ? [`${fmtWhole(d.yearlyCarbonKg)} kg, ${fmtMoney(d.yearlyCost, d.currency)} (${yearlyBasisText(c)})`] : [])];
   });
   return {
     id: 'year', heading: 'Carbon over the year',
     paragraphs: [`${s.dates.length} days from ${s.dates[0]} to ${s.dates[s.dates.length - 1]}; the background is scaled to each day's DOC; the required dose is solved exactly at ${withDaily[0]?.daily!.table.docMgPerL.length ?? 0} DOC values spanning the series and read linearly in DOC between them (checked within ${fn(100 * (withDaily[0]?.daily!.table.toleranceRel ?? 0), 2)} % of the exact dose at every midpoint; the Monte Carlo reads the same table). Carbon kg/d = dose (mg/L) × flow (m³/d) / 1000; totals are sums over the days${isAnnualised(s.dates.length) ? `; yearly figures are ${annualisedNote(s.dates.length)} (× 365/${s.dates.length})` : ''}. Percentiles: Hyndman & Fan (1996) definition 7.${s.flowFromDesign ? ' The series has no flow column: the design flow is used every day.' : ''}${withDaily.some((c) => c.uncertainty?.governingDoseRatio) ? ' The band on the daily dose is the Monte Carlo P10–P90 of the governing dose relative to its point estimate at the design DOC, applied to every day (an approximation).' : ''}`],
-    tables: [{ caption: 'Daily dose and carbon mass', columns: ['carbon', 'days', 'dose median (mg/L; mg/mg DOC at the median DOC)', 'dose P90 (mg/L)', 'dose max (mg/L)', 'carbon median (kg/d)', 'carbon P90 (kg/d)', 'carbon total over the series (kg)', 'carbon cost over the series', 'per year'], rows }],
+    tables: [{ caption: 'Daily dose and carbon mass', columns: ['carbon', 'days', 'dose median (mg/L; mg/mg DOC at the median DOC)', 'dose P90 (mg/L)', 'dose max (mg/L)', 'carbon median (kg/d)', 'carbon P90 (kg/d)', 'carbon total over the series (kg)', 'carbon cost over the series', ...(annualised ? ['per year (annualised)'] : [])], rows }],
     plots,
   };
 }

@@ -49,7 +49,7 @@ export function headlineFigures(r: PipelineResult): KeyFigure[] {
     if (req.doseMgPerL === null) { figs.push({ label: `${cr.carbon.name}: required dose`, value: 'no reachable goal', note: unmet.join('; ') }); continue; }
     const others = [
       req.governedBy !== 'indicator mean' || !req.governing ? '' : `; governing compound ${req.governing.compoundId} at ${mgL(req.governing.doseMgPerL)}`,
-      req.governedBy === 'indicator mean' || req.indicator?.doseMgPerL == null ? '' : `; indicator mean reached at ${mgL(req.indicator.doseMgPerL)}`,
+      req.governedBy === 'indicator mean' || req.indicator?.doseMgPerL == null ? '' : `; indicator mean reached at ${doseWithSpecific(req.indicator.doseMgPerL, doc)}`,
     ].join('');
     const gd = cr.uncertainty?.result.quantities.find((q) => q.key === 'governing_dose');
     const band = gd && Number.isFinite(gd.p90) ? `; P10–P90 ${fn(gd.p10, 3)}–${fn(gd.p90, 3)} mg/L (Monte Carlo)` : '';
@@ -67,7 +67,7 @@ export function headlineFigures(r: PipelineResult): KeyFigure[] {
   const sp = pac.find((c) => c.surrogates?.atRequiredDose?.uv254Reduction != null);
   if (sp) figs.push({ label: 'UV254 set-point', value: pct(sp.surrogates!.atRequiredDose!.uv254Reduction! * 100, 3), note: `UV254 reduction to dose to with ${sp.carbon.name} (required dose ${mgL(sp.surrogates!.atRequiredDose!.doseMgPerL)}, governed by ${sp.surrogates!.atRequiredDose!.governedBy})` });
   const first = pac[0];
-  if (first?.indicator) figs.push({ label: 'Indicator mean', value: pct(first.indicator.set.meanRemovalPercent, 3), note: `${first.carbon.name} at ${mgL(first.indicator.doseMgPerL)}; goal ${first.indicator.goalPercent} % ${first.indicator.met ? 'met' : 'NOT met'}; ${first.indicator.set.admissible ? 'admissible set' : `not admissible: ${first.indicator.set.reason}`}` });
+  if (first?.indicator) figs.push({ label: 'Indicator mean', value: pct(first.indicator.set.meanRemovalPercent, 3), note: `${first.carbon.name} at ${doseWithSpecific(first.indicator.doseMgPerL, r.project.site.docMgPerL)}; goal ${first.indicator.goalPercent} % ${first.indicator.met ? 'met' : 'NOT met'}; ${first.indicator.set.admissible ? 'admissible set' : `not admissible: ${first.indicator.set.reason}`}` });
   for (const cr of r.carbons.filter((c) => c.gac)) {
     const g = cr.gac!.governing;
     figs.push({ label: `${cr.carbon.name}: bed life`, value: g.lifeDays !== undefined ? `≤ ${fn(g.lifeDays, 3)} d` : `≤ ${fmtWhole(g.bedVolumes)} BV`, note: `equilibrium upper bound: ${fmtWhole(g.bedVolumes)} bed volumes, governed by ${g.id}; preloading and kinetics shorten real runs` });

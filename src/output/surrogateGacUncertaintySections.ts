@@ -10,6 +10,7 @@ import { fmtConcentration as fc, fmtFixed, fmtMoney, fmtNumber as fn, fmtWhole }
 import { monteCarloNote } from './monteCarloNote.js';
 import type { CarbonResult, PipelineResult } from '../pipeline/pipelineTypes.js';
 import { CI_TO_SD_NOTE } from '../pipeline/uncertaintyStep.js';
+import { specificDose } from '../design/specificDose.js';
 
 const pct = (x: number | null | undefined, sig = 3) => (x === null || x === undefined ? '—' : `${fn(x * 100, sig)} %`);
 
@@ -145,12 +146,14 @@ export function uncertaintySection(r: PipelineResult): ReportSection | undefined
   const plots: PlotSpec[] = [];
   withU.forEach((cr, k) => {
     const u = cr.uncertainty!;
-    const money = (x: number) => (Number.isFinite(x) ? fmtMoney(x, cr.carbon.currency) : 'unreachable');
-    const val = (unit: string, x: number) => (!Number.isFinite(x) ? 'unreachable' : unit === 'fraction' ? pct(x) : unit === 'currency/a' || unit === 'currency/m3' ? money(x) : unit === 'kg/a' ? `${fmtWhole(x / 1000)} t` : fn(x, 3));
+    const docMgPerL = r.project.site.docMgPerL;
     tables.push({
-      caption: `${cr.carbon.name}: point estimate and P10 / P50 / P90${u.excluded.length ? ` (left out: ${u.excluded.join(', ')})` : ''}`,
+      caption: `${cr.carbon.name}: point estimate and P10 / P50 / P90; doses also per mg of the design DOC (${fn(docMgPerL, 3)} mg/L) in brackets${u.excluded.length ? ` (left out: ${u.excluded.join(', ')})` : ''}`,
       columns: ['quantity', 'unit', 'point', 'P10', 'P50', 'P90'],
-      rows: u.result.quantities.map((q) => [q.label, q.unit === 'fraction' ? '%' : q.unit === 'currency/a' ? `${cr.carbon.currency}/a` : q.unit === 'currency/m3' ? `${cr.carbon.currency}/m³` : q.unit === 'kg/a' ? 't/a' : q.unit, val(q.unit, q.pointEstimate), val(q.unit, q.p10), val(q.unit, q.p50), val(q.unit, q.p90)]),
+      rows: u.result.quantities.map((q) => {
+        const cell = (x: number) => monteCarloCell(q.unit, x, docMgPerL);
+        return [q.label, monteCarloUnit(q.unit, cr.carbon.currency), cell(q.pointEstimate), cell(q.p10), cell(q.p50), cell(q.p90)];
+      }),
     });
     const gc = u.governingCurve;
     if (gc) {
@@ -163,4 +166,24 @@ export function uncertaintySection(r: PipelineResult): ReportSection | undefined
     }
   });
   return { id: 'uncertainty', heading: 'Uncertainty (Monte Carlo)', paragraphs, tables, plots, warnings: withU.flatMap((c) => (c.uncertainty!.result.quantities.some((q) => q.unreachableDraws > 0) ? [`${c.carbon.name}: some draws reach no goal up to 5 g/L (counted as unreachable)`] : [])) };
+}
+
+/** The unit column of the Monte Carlo table; the cells then carry bare numbers. */
+function monteCarloUnit(unit: string, currency: string): string {
+  if (unit === 'mg/L') return 'mg/L (mg/mg DOC)';
+  if (unit === 'fraction') return '%';
+  if (unit === 'currency/a') return `${currency}/a`;
+  if (unit === 'currency/m3') return `${currency}/m³`;
+  if (unit === 'kg/a') return 't/a';
+  return unit;
+}
+
+/** A Monte Carlo cell in the unit of `monteCarloUnit`: a dose with its specific dose (dose ÷ design DOC) in brackets. */
+function monteCarloCell(unit: string, x: number, docMgPerL: number): string {
+  if (!Number.isFinite(x)) return 'unreachable';
+  if (unit === 'mg/L') return `${fn(x, 3)} (${fn(specificDose(x, docMgPerL), 3)})`;
+  if (unit === 'fraction') return fn(x * 100, 3);
+  if (unit === 'currency/a' || unit === 'currency/m3') return fmtMoney(x, '').trim();
+  if (unit === 'kg/a') return fn(x / 1000, 3);
+  return fn(x, 3);
 }

@@ -11,6 +11,7 @@ import { runRecord, type RunEnvironment } from '../output/runRecord.js';
 import type { PipelineResult } from '../pipeline/pipelineTypes.js';
 import { snakeCaseJsonText } from '../output/snakeCaseJson.js';
 
+/** Names of the text output files of a run, in the order they are written. */
 export const OUTPUT_FILES = [
   'summary.md', 'report.html', 'compounds.csv', 'removal_curves.csv', 'carbons.csv', 'daily_doses.csv', 'indicators.csv',
   'surrogates.csv', 'setpoints.csv', 'pilot_check.csv', 'gac.csv', 'uncertainty.csv', 'run.json',

@@ -11,6 +11,7 @@ import { runPipeline } from './runPipeline.js';
 import { resolveUncertaintySettings, uncertaintyStep, withUncertainty } from './uncertaintyStep.js';
 import type { PipelineInput, PipelineResult, UncertaintyRunOptions } from './pipelineTypes.js';
 
+/** The whole job with the Monte Carlo step (see the file's opening comment); draws 0 gives exactly `runPipeline`'s result. */
 export async function runPipelineWithUncertainty(input: PipelineInput, options: UncertaintyRunOptions = {}): Promise<PipelineResult> {
   const result = runPipeline(input, options);
   const overrides: { draws?: number; seed?: number } = {};

@@ -104,7 +104,7 @@ export function renderHtmlReport(model: ReportModel): string {
     ? `<ul class="key-figures" aria-label="Key figures">${model.keyFigures
         .map(
           (k) =>
-            `<li class="card"><div class="label">${escapeHtml(k.label)}</div><div class="value${k.value.length > 22 ? ' long' : ''}">${escapeHtml(k.value)}</div>${
+            `<li class="card"><div class="label">${escapeHtml(k.label)}</div><div class="value${k.value.length > 22 ? ' long' : ''}">${escapeHtml(keepUnitWithNumber(k.value))}</div>${
               k.note ? `<div class="note">${escapeHtml(k.note)}</div>` : ''
             }</li>`,
         )
@@ -148,4 +148,9 @@ export function renderHtmlReport(model: ReportModel): string {
     '</html>',
     '',
   ].join('\n');
+}
+
+/** A key figure's number and its unit on one line: "23.6 mg/L" → "23.6\u00a0mg/L" (a no-break space), so a narrow card never puts the unit alone on the next line. */
+export function keepUnitWithNumber(value: string): string {
+  return value.replace(/(\d) (?=[^\s\d])/g, '$1\u00a0');
 }

@@ -30,7 +30,7 @@ main { padding: 8px 40px 24px; }
 .key-figures { display: grid; grid-template-columns: repeat(auto-fit, minmax(190px, 1fr)); gap: 12px; margin: 22px 0; padding: 0; list-style: none; }
 .card { background: var(--accent-bg); border: 1px solid #cfe2e2; border-top: 3px solid var(--brand-2); border-radius: 4px; padding: 12px 14px; }
 .card .label { font-size: 13px; color: var(--muted); line-height: 1.35; }
-.card .value { font-size: 21px; font-weight: 650; color: var(--brand); margin-top: 2px; font-variant-numeric: tabular-nums; overflow-wrap: anywhere; }
+.card .value { font-size: 21px; font-weight: 650; color: var(--brand); margin-top: 2px; font-variant-numeric: tabular-nums; overflow-wrap: break-word; }
 .card .value.long { font-size: 17px; }
 .card .note { font-size: 12.5px; color: var(--muted); margin-top: 3px; }
 nav.toc { margin: 22px 0 10px; padding: 12px 18px; border: 1px solid var(--line); border-radius: 4px; }
@@ -83,8 +83,9 @@ footer p { margin: 3px 0; }
   .page { max-width: none; margin: 0; box-shadow: none; }
   .report-header, .card, .cautions, .warning, thead th { -webkit-print-color-adjust: exact; print-color-adjust: exact; }
   .report-header { padding: 16px 20px 14px; }
-  .key-figures { grid-template-columns: repeat(auto-fit, minmax(130px, 1fr)); gap: 8px; }
-  .card .value { font-size: 16pt; }
+  .key-figures { grid-template-columns: repeat(auto-fit, minmax(150px, 1fr)); gap: 8px; }
+  .card .value { font-size: 14pt; }
+  .card .value.long { font-size: 12pt; }
   main, footer { padding-left: 0; padding-right: 0; }
   nav.toc a { color: inherit; }
   figure, .card, .cautions, .warning, tr, caption { break-inside: avoid; page-break-inside: avoid; }

@@ -14,6 +14,7 @@ import { PERCENTILE_METHOD, percentileSorted } from '../numerics/percentile.js';
 
 /** Draws per chunk (each chunk has its own random stream). */
 export const CHUNK_SIZE = 250;
+/** Largest number of Monte Carlo draws accepted. */
 export const MAX_DRAWS = 10_000_000;
 
 export const SAMPLING_NOTE =

@@ -31,6 +31,7 @@ export type UnitKind =
   | 'diffusivity'
   | 'velocity';
 
+/** The internal unit of each unit kind (mg/L for concentrations and doses, …): every input is converted to it once. */
 export const INTERNAL_UNIT: Record<UnitKind, string> = {
   massConcentration: 'mg/L',
   massLoading: 'mg/g',
@@ -185,6 +186,7 @@ export function kindOfUnit(unitText: string, kinds: UnitKind[]): UnitKind | unde
   return undefined;
 }
 
+/** The unit kind in words, for messages ("a mass concentration such as mg/L"). */
 export function describeKind(kind: UnitKind): string {
   return KIND_WORDS[kind];
 }

@@ -4,7 +4,7 @@ import { InputError } from '../../core/errors.js';
 import type { CalibrationModel, CalibrationResult } from '../../calibration/calibrate.js';
 import { readCompoundFile } from '../../scenario/readMixture.js';
 import { readJsonFile, readTextFile } from '../../io/readFiles.js';
-import { fmt, fmtConc, table } from '../format.js';
+import { fmt, fmtConc, fmtInput, fmtPercent, table } from '../format.js';
 import { emitJson, inFile } from './shared.js';
 import { TABLE_FORMAT_OPTIONS, tableFormat } from './tableFormatOptions.js';
 import { finiteNumber, nonEmptyText, positiveDensity, positiveDiffusivity, positiveLength, positiveMassConcentration, positiveTime } from '../optionParsers.js';
@@ -71,20 +71,23 @@ export const calibrateCommand: CommandSpec = {
   },
 };
 
+/** Parameter names as the text table shows them (the unit stands in its own column; JSON keeps the keys). */
+const PARAMETER_LABELS: Record<string, string> = { K_EBC: 'K_EBC', one_over_n_EBC: '1/n_EBC', c0_EBC_mg_per_L: 'c0_EBC', K_factor: 'K factor' };
+
 function render(r: CalibrationResult, out: string | undefined): string {
   const ci = (k: string) => { const v = r.ci95[k]; return v ? `${fmt(v[0], 3)} – ${fmt(v[1], 3)}` : '—'; };
   const unit: Record<string, string> = { K_EBC: '(mg/g)/(mg/L)^1/n', one_over_n_EBC: '', c0_EBC_mg_per_L: 'mg/L', K_factor: '' };
   const lines = [
     `${r.model} calibration for ${r.compound} (batch IAST; residuals ${r.fit.residual})`,
     '',
-    table(['parameter', 'value', 'unit', '95 % CI'], Object.entries(r.parameters).map(([k, v]) => [k, fmt(v, 4), unit[k] ?? '', ci(k)])),
+    table(['parameter', 'value', 'unit', '95 % CI'], Object.entries(r.parameters).map(([k, v]) => [PARAMETER_LABELS[k] ?? k, fmt(v), unit[k] ?? '', ci(k)])),
     '',
   ];
   if (r.c0_EBC_per_DOC != null && r.doc_mg_per_L !== null) lines.push(`C0_EBC is ${fmt(r.c0_EBC_per_DOC * 100, 3)} % of the site DOC (${fmt(r.doc_mg_per_L, 3)} mg/L); it scales with DOC.`);
-  if (r.target.K_calibrated !== undefined) lines.push(`Target K ${fmt(r.target.K, 4)} → ${fmt(r.target.K_calibrated, 4)} (mg/g)/(mg/L)^${r.target.one_over_n} in the site water.`);
+  if (r.target.K_calibrated !== undefined) lines.push(`Target K ${fmt(r.target.K)} → ${fmt(r.target.K_calibrated)} (mg/g)/(mg/L)^${r.target.one_over_n} in the site water.`);
   lines.push(`Fit: RMSE ${fmt(r.fit.rmse, 3)} in ln c (about ${fmt((Math.exp(r.fit.rmse) - 1) * 100, 2)} %), ${r.fit.points} points, ${r.fit.parameters} parameter${r.fit.parameters > 1 ? 's' : ''}; converged (${r.fit.stop}).`, '');
   lines.push(table(['row', 'C0', 'dose mg/L', 'c measured', 'c predicted', 'removal meas. %', 'removal pred. %'],
-    r.table.map((x) => [String(x.row), fmtConc(x.c0_mg_per_L), fmt(x.dose_mg_per_L), fmtConc(x.c_measured_mg_per_L), fmtConc(x.c_predicted_mg_per_L), fmt(x.removal_measured * 100, 3), fmt(x.removal_predicted * 100, 3)])));
+    r.table.map((x) => [String(x.row), fmtConc(x.c0_mg_per_L), fmt(x.dose_mg_per_L), fmtConc(x.c_measured_mg_per_L), fmtConc(x.c_predicted_mg_per_L), fmtPercent(x.removal_measured * 100), fmtPercent(x.removal_predicted * 100)])));
   for (const w of r.warnings) lines.push(`Warning: ${w}`);
   if (out) lines.push('', `Calibration written to ${out}.`);
   lines.push('Equilibrium model calibrated to jar tests; contact time and carbon age in the plant differ — confirm with pilot tests.');
@@ -133,7 +136,7 @@ function renderKinetic(r: KineticCalibrationResult, out: string | undefined): st
     `Ds = ${r.parameters.Ds_m2_per_s.toExponential(3)} m2/s${ci ? ` (95 % CI ${ci[0].toExponential(3)} – ${ci[1].toExponential(3)})` : ''}`,
     `Fit: RMSE ${fmt(r.fit.rmse, 3)} in ln c, ${r.fit.points} points; converged (${r.fit.stop}).`,
     '',
-    table(['row', 'time (min)', 'dose mg/L', 'c0', 'c measured', 'c predicted'], r.table.map((x) => [String(x.row), fmt(x.time_s / 60, 4), fmt(x.dose_mg_per_L), fmtConc(x.c0_mg_per_L), fmtConc(x.c_measured_mg_per_L), fmtConc(x.c_predicted_mg_per_L)])),
+    table(['row', 'time (min)', 'dose mg/L', 'c0', 'c measured', 'c predicted'], r.table.map((x) => [String(x.row), fmtInput(x.time_s / 60), fmt(x.dose_mg_per_L), fmtConc(x.c0_mg_per_L), fmtConc(x.c_measured_mg_per_L), fmtConc(x.c_predicted_mg_per_L)])),
   ];
   for (const w of r.warnings) lines.push(`Warning: ${w}`);
   if (out) lines.push('', `Calibration written to ${out}.`);

@@ -8,7 +8,7 @@ import { InputError } from '../../core/errors.js';
 import type { ColumnFitResult } from '../../calibration/columnFit.js';
 import type { FixedBedComponent } from '../../kinetics/fixedBedInput.js';
 import { readJsonFile, readTextFile } from '../../io/readFiles.js';
-import { fmt, table } from '../format.js';
+import { fmt, fmtCount, table } from '../format.js';
 import type { CommandContext, OptionValues } from '../commandSpec.js';
 import { emitJson, inFile } from './shared.js';
 import { columnOptionValue } from './columnCommand.js';
@@ -58,7 +58,7 @@ export async function calibrateColumnAction(file: string, opts: OptionValues, ct
 function render(r: ColumnFitResult, out: string | undefined): string {
   const ci = (v: [number, number] | null | undefined) => (v ? `${fmt(v[0], 3)} – ${fmt(v[1], 3)}` : '—');
   const rows: string[][] = [['Ds', r.parameters.Ds_m2_per_s.toExponential(3), 'm²/s', r.ci95.Ds_m2_per_s ? `${r.ci95.Ds_m2_per_s[0].toExponential(2)} – ${r.ci95.Ds_m2_per_s[1].toExponential(2)}` : '—']];
-  if (r.parameters.kf_factor !== undefined) rows.push(['kf factor', fmt(r.parameters.kf_factor, 4), '', ci(r.ci95.kf_factor)]);
+  if (r.parameters.kf_factor !== undefined) rows.push(['kf factor', fmt(r.parameters.kf_factor), '', ci(r.ci95.kf_factor)]);
   const lines = [
     `column calibration for ${r.compound} (fixed-bed model: film, surface diffusion, IAST at the grain surface)`,
     '',
@@ -66,7 +66,7 @@ function render(r: ColumnFitResult, out: string | undefined): string {
     '',
     `Fit: RMSE ${fmt(r.fit.rmse, 3)} in c/c0, ${r.fit.points} points, ${r.fit.parameters} parameter${r.fit.parameters > 1 ? 's' : ''}; converged (${r.fit.stop}).`,
     '',
-    table(['row', 'bed volumes', 'c/c0 measured', 'c/c0 predicted'], r.table.map((x) => [String(x.row), fmt(x.bed_volumes), fmt(x.c_over_c0_measured, 3), fmt(x.c_over_c0_predicted, 3)])),
+    table(['row', 'bed volumes', 'c/c0 measured', 'c/c0 predicted'], r.table.map((x) => [String(x.row), fmtCount(x.bed_volumes), fmt(x.c_over_c0_measured, 3), fmt(x.c_over_c0_predicted, 3)])),
   ];
   for (const w of r.warnings) lines.push(`Warning: ${w}`);
   if (out) lines.push('', `Calibration written to ${out}.`);

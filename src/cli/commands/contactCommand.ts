@@ -3,7 +3,7 @@ import type { CommandSpec } from '../commandSpec.js';
 import { InputError } from '../../core/errors.js';
 import type { ContactOverTimeResult, ContactSteadyStateResult } from '../../api/contactApi.js';
 import { readJsonFile } from '../../io/readFiles.js';
-import { fmt, fmtConc, table } from '../format.js';
+import { fmt, fmtConc, fmtDuration, fmtInput, fmtPercent, table } from '../format.js';
 import { positiveMassConcentration, positiveTime, timeList } from '../optionParsers.js';
 import { inFile } from './shared.js';
 import { snakeCaseJsonText } from '../../output/snakeCaseJson.js';
@@ -42,14 +42,10 @@ export const contactCommand: CommandSpec = {
 
 const CAUTION = 'Planning estimate from the surface diffusion model: mixing, temperature and preloading change real removal; confirm with jar and pilot tests, and leave design decisions to a licensed engineer.';
 
-function minutes(s: number): string {
-  return s >= 86400 ? `${fmt(s / 86400, 4)} d` : s >= 3600 ? `${fmt(s / 3600, 4)} h` : `${fmt(s / 60, 4)} min`;
-}
-
 function renderOverTime(r: ContactOverTimeResult): string {
-  const rows = r.times_s.map((t, k) => [minutes(t), ...r.components.map((c) => fmt(c.removal_fraction[k]! * 100, 4))]);
+  const rows = r.times_s.map((t, k) => [fmtDuration(t), ...r.components.map((c) => fmtPercent(c.removal_fraction[k]! * 100))]);
   return [
-    `Carbon dose ${fmt(r.dose_mg_per_L)} mg/L — removal (%) over contact time in a batch (HSDM, IAST at the particle surface)`,
+    `Carbon dose ${fmtInput(r.dose_mg_per_L)} mg/L — removal (%) over contact time in a batch (HSDM, IAST at the particle surface)`,
     '',
     table(['time', ...r.components.map((c) => c.id)], rows),
     '',
@@ -58,9 +54,9 @@ function renderOverTime(r: ContactOverTimeResult): string {
 }
 
 function renderSteady(r: ContactSteadyStateResult): string {
-  const rows = r.components.map((c) => [c.id, fmtConc(c.c0_mg_per_L), fmtConc(c.c_mg_per_L), fmt(c.q_mg_per_g), fmt(c.removal_fraction * 100, 4)]);
+  const rows = r.components.map((c) => [c.id, fmtConc(c.c0_mg_per_L), fmtConc(c.c_mg_per_L), fmt(c.q_mg_per_g), fmtPercent(c.removal_fraction * 100)]);
   return [
-    `Stirred contact tank at steady state: carbon dose ${fmt(r.dose_mg_per_L)} mg/L, residence ${minutes(r.contact_time_s)}, mean carbon age ${minutes(r.carbon_age_s)}; carbon held ${fmt(r.carbon_held_mg_per_L)} mg/L`,
+    `Stirred contact tank at steady state: carbon dose ${fmtInput(r.dose_mg_per_L)} mg/L, residence ${fmtDuration(r.contact_time_s)}, mean carbon age ${fmtDuration(r.carbon_age_s)}; carbon held ${fmt(r.carbon_held_mg_per_L)} mg/L`,
     '',
     table(['id', 'c0', 'c (outlet)', 'q leaving (mg/g)', 'removal %'], rows),
     '',

@@ -4,7 +4,7 @@ import { InputError } from '../../core/errors.js';
 import { doseFor, type DoseGoal } from '../../api/equilibriumApi.js';
 import { readJsonFile } from '../../io/readFiles.js';
 import { readMixture } from '../../scenario/readMixture.js';
-import { fmt } from '../format.js';
+import { fmt, fmtDuration, fmtPercent } from '../format.js';
 import { finiteNumber, nonEmptyText, positiveMassConcentration, positiveTime } from '../optionParsers.js';
 import { inFile, optionValue } from './shared.js';
 import { snakeCaseJsonText } from '../../output/snakeCaseJson.js';
@@ -36,7 +36,7 @@ export const doseCommand: CommandSpec = {
     const res = inFile(file, () => optionValue(() => doseFor(mixture, opts.target as string, goal)));
     if (opts.json) ctx.out(snakeCaseJsonText(res));
     else ctx.out([
-      `Target ${res.target}: ${fmt(res.removal_fraction * 100, 4)} % removal at a carbon dose of ${fmt(res.dose_mg_per_L, 5)} mg/L (${fmt(res.dose_mg_per_L, 5)} g/m³)`,
+      `Target ${res.target}: ${fmtPercent(res.removal_fraction * 100)} % removal at a carbon dose of ${fmt(res.dose_mg_per_L)} mg/L`,
       'Equilibrium estimate (batch IAST): real contact times give less removal; confirm with jar and pilot tests.',
     ].join('\n'));
   },
@@ -55,8 +55,8 @@ async function contactDoseAction(file: string, opts: OptionValues, goal: DoseGoa
   const res = inFile(file, () => contactDose(mixture, target, R, opts.contactTime as number, opts.carbonAge as number | undefined));
   if (opts.json) ctx.out(snakeCaseJsonText(res));
   else ctx.out([
-    `Target ${res.target}: ${fmt(res.removal_fraction * 100, 4)} % removal at a carbon dose of ${fmt(res.dose_mg_per_L, 5)} mg/L in a stirred contact tank (residence ${fmt(res.contact_time_s / 60, 4)} min, mean carbon age ${fmt(res.carbon_age_s / 3600, 4)} h)`,
-    `Equilibrium dose for the same goal: ${fmt(res.equilibrium_dose_mg_per_L, 5)} mg/L (ratio ${fmt(res.dose_mg_per_L / res.equilibrium_dose_mg_per_L, 3)}).`,
+    `Target ${res.target}: ${fmtPercent(res.removal_fraction * 100)} % removal at a carbon dose of ${fmt(res.dose_mg_per_L)} mg/L in a stirred contact tank (residence ${fmtDuration(res.contact_time_s)}, mean carbon age ${fmtDuration(res.carbon_age_s)})`,
+    `Equilibrium dose for the same goal: ${fmt(res.equilibrium_dose_mg_per_L)} mg/L (the contact tank needs ${fmt(res.dose_mg_per_L / res.equilibrium_dose_mg_per_L)} times as much).`,
     'Planning estimate from the surface diffusion model; confirm with jar and pilot tests, and leave design decisions to a licensed engineer.',
   ].join('\n'));
 }

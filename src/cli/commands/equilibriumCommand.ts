@@ -4,7 +4,7 @@ import { InputError } from '../../core/errors.js';
 import { equilibrium, equilibriumCurve, type EquilibriumResult } from '../../api/equilibriumApi.js';
 import { readJsonFile } from '../../io/readFiles.js';
 import { readMixture } from '../../scenario/readMixture.js';
-import { fmt, fmtConc, table } from '../format.js';
+import { fmt, fmtConc, fmtInput, fmtPercent, table } from '../format.js';
 import { positiveMassConcentration, wholeNumber } from '../optionParsers.js';
 import { inFile, optionValue } from './shared.js';
 import { snakeCaseJsonText } from '../../output/snakeCaseJson.js';
@@ -41,9 +41,9 @@ export const equilibriumCommand: CommandSpec = {
 };
 
 function renderOne(r: EquilibriumResult): string {
-  const rows = r.components.map((c) => [c.id, fmtConc(c.c0_mg_per_L), fmtConc(c.c_mg_per_L), fmt(c.q_mg_per_g), fmt(c.removal_fraction * 100, 4)]);
+  const rows = r.components.map((c) => [c.id, fmtConc(c.c0_mg_per_L), fmtConc(c.c_mg_per_L), fmt(c.q_mg_per_g), fmtPercent(c.removal_fraction * 100)]);
   return [
-    `Carbon dose ${fmt(r.dose_mg_per_L)} mg/L — batch IAST equilibrium (mass-based, Freundlich)`,
+    `Carbon dose ${fmtInput(r.dose_mg_per_L)} mg/L — batch IAST equilibrium (mass-based, Freundlich)`,
     '',
     table(['id', 'c0', 'c (equilibrium)', 'q (mg/g)', 'removal %'], rows),
     '',
@@ -53,6 +53,6 @@ function renderOne(r: EquilibriumResult): string {
 
 function renderCurve(curve: EquilibriumResult[]): string {
   const ids = curve[0]?.components.map((c) => c.id) ?? [];
-  const rows = curve.map((r) => [fmt(r.dose_mg_per_L), ...r.components.map((c) => fmt(c.removal_fraction * 100, 4))]);
+  const rows = curve.map((r) => [fmt(r.dose_mg_per_L), ...r.components.map((c) => fmtPercent(c.removal_fraction * 100))]);
   return ['Removal (%) against carbon dose — batch IAST', '', table(['dose mg/L', ...ids], rows)].join('\n');
 }

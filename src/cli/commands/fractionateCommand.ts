@@ -43,19 +43,19 @@ function render(r: FractionateResult, out: string | undefined): string {
   const ci = (v: [number, number] | null | undefined) => (v ? `${fmt(v[0] * 100, 3)}–${fmt(v[1] * 100, 3)}` : '—');
   const hasUv = r.components.some((c) => c.specific_uv254_per_m_per_mg_per_L !== undefined);
   const rows = r.components.map((c) => [
-    c.id, c.K === 0 ? '0 (non-adsorbable)' : fmt(c.K), fmt(c.fraction * 100, 4), ci(c.fraction_ci95), fmt(c.c0_mg_per_L, 4),
+    c.id, c.K === 0 ? '0 (non-adsorbable)' : fmt(c.K), fmt(c.fraction * 100), ci(c.fraction_ci95), fmt(c.c0_mg_per_L),
     ...(c.K_ci95 !== undefined ? [c.K_ci95 ? `${fmt(c.K_ci95[0], 3)}–${fmt(c.K_ci95[1], 3)}` : '—'] : []),
-    ...(hasUv ? [fmt(c.specific_uv254_per_m_per_mg_per_L ?? 0, 4)] : []),
+    ...(hasUv ? [fmt(c.specific_uv254_per_m_per_mg_per_L ?? 0)] : []),
   ]);
   const headers = ['id', 'K (mg/g)/(mg/L)^1/n', 'share %', '95 % CI %', 'c0 mg/L', ...(r.components.some((c) => c.K_ci95 !== undefined) ? ['K 95 % CI'] : []), ...(hasUv ? ['UV254 1/m per mg/L'] : [])];
   const lines = [
-    `DOC0 ${fmt(r.doc0_mg_per_L, 4)} mg/L as fictive components (1/n = ${r.one_over_n}, K ${r.fit.k_mode === 'fitted' ? 'fitted' : 'on a grid'}; batch IAST)`,
+    `DOC0 ${fmt(r.doc0_mg_per_L)} mg/L as fictive components (1/n = ${r.one_over_n}, K ${r.fit.k_mode === 'fitted' ? 'fitted' : 'on a grid'}; batch IAST)`,
     '',
     table(headers, rows),
     '',
     `Fit: RMSE ${fmt(r.fit.rmse_mg_per_L, 3)} mg/L (${fmt(r.fit.rmse_relative * 100, 3)} %), largest relative error ${fmt(r.fit.max_relative_error * 100, 3)} %, ${r.fit.points} points, ${r.fit.parameters} parameters; converged (${r.fit.stop}), ${r.fit.agreeing_starts} of ${r.fit.starts} starts agree.`,
   ];
-  if (r.uv254) lines.push(`UV254: RMSE ${fmt(r.uv254.rmse_per_m, 3)} 1/m over ${r.uv254.points} values, largest relative error ${fmt(r.uv254.max_relative_error * 100, 3)} %; UV254 at DOC0 ${fmt(r.uv254.uv254_0_per_m, 4)} 1/m.`);
+  if (r.uv254) lines.push(`UV254: RMSE ${fmt(r.uv254.rmse_per_m, 3)} 1/m over ${r.uv254.points} values, largest relative error ${fmt(r.uv254.max_relative_error * 100, 3)} %; UV254 at DOC0 ${fmt(r.uv254.uv254_0_per_m)} 1/m.`);
   if (r.model_selection) {
     lines.push('', 'Number of components by AICc (lower is better):', table(['components', 'parameters', 'RMSE mg/L', 'AICc', 'ΔAICc', ''],
       r.model_selection.alternatives.map((a) => [String(a.components), String(a.parameters), a.rmse_mg_per_L === null ? '—' : fmt(a.rmse_mg_per_L, 3), a.aicc === null ? '—' : fmt(a.aicc, 4), a.delta_aicc === null ? '—' : fmt(a.delta_aicc, 3), a.chosen ? 'chosen' : (a.note ?? '')])));

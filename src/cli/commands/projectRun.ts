@@ -14,7 +14,7 @@ import { resultsWorkbook } from '../../report/resultsWorkbook.js';
 import { checkOutputFolder } from '../../io/outputChecks.js';
 import { assertFiniteResult } from '../../scenario/finiteResult.js';
 import { VERSION } from '../../version.js';
-import { fmt, table } from '../format.js';
+import { fmt, fmtCount, table } from '../format.js';
 import { contactSummary, type ContactSummaryJson } from '../../output/contactRecord.js';
 import { snakeCaseJsonText } from '../../output/snakeCaseJson.js';
 
@@ -125,7 +125,9 @@ export async function runAndWrite(input: PipelineInput, outDir: string, json: bo
   const s = summaryJson(result, outDir, names);
   if (json) { ctx.out(snakeCaseJsonText(s)); return; }
   const rows = s.carbons.map((c) => [
-    c.carbon, c.required_dose_mg_per_L === null ? '—' : fmt(c.required_dose_mg_per_L, 3), c.governed_by ?? '—',
+    c.carbon, c.required_dose_mg_per_L === null ? '—' : fmt(c.required_dose_mg_per_L, 3),
+    c.required_dose_mg_per_L === null ? '—' : fmt(c.required_dose_mg_per_L / result.project.site.docMgPerL, 3),
+    c.governed_by ?? (c.gac ? 'GAC: bed life below' : '—'),
     c.cost_per_m3 === null ? '—' : `${fmt(c.cost_per_m3, 3)} ${c.currency}`, c.yearly_carbon_kg === null ? '—' : fmt(c.yearly_carbon_kg / 1000, 3),
     c.yearly_cost === null ? '—' : `${Math.round(c.yearly_cost).toLocaleString('en-US')} ${c.currency}`,
     c.indicator_mean_percent === null ? '—' : fmt(c.indicator_mean_percent, 3),
@@ -134,13 +136,13 @@ export async function runAndWrite(input: PipelineInput, outDir: string, json: bo
   for (const c of s.carbons) {
     if (c.uv254_setpoint_percent !== null) extra.push(`${c.carbon}: UV254-reduction set-point ${fmt(c.uv254_setpoint_percent, 3)} % at the required dose`);
     if (c.monte_carlo) extra.push(`${c.carbon}: governing dose P10–P50–P90 ${fmt(c.monte_carlo.governing_dose_mg_per_L.p10, 3)}–${fmt(c.monte_carlo.governing_dose_mg_per_L.p50, 3)}–${fmt(c.monte_carlo.governing_dose_mg_per_L.p90, 3)} mg/L (${c.monte_carlo.draws} draws, seed ${c.monte_carlo.seed})`);
-    if (c.gac) extra.push(`${c.carbon}: GAC ${fmt(c.gac.bed_volumes, 3)} bed volumes${c.gac.life_days !== null ? ` (${fmt(c.gac.life_days, 3)} days)` : ''} for ${c.gac.governing_compound} — equilibrium upper bound`);
+    if (c.gac) extra.push(`${c.carbon}: GAC ${fmtCount(c.gac.bed_volumes)} bed volumes${c.gac.life_days !== null ? ` (${fmt(c.gac.life_days, 3)} days)` : ''} for ${c.gac.governing_compound} — equilibrium upper bound`);
   }
-  if (s.pilot_outliers) extra.push(`Pilot check: ${s.pilot_outliers.length ? `outside the band: ${s.pilot_outliers.join(', ')}` : 'every compound within the band'}`);
+  if (s.pilot_outliers) extra.push(`Pilot check: ${s.pilot_outliers.length ? `measured removal outside the band of the prediction for ${s.pilot_outliers.join(', ')}` : 'every compound within the band'}`);
   ctx.out([
     `${result.project.name}`,
     '',
-    table(['carbon', 'dose mg/L', 'governed by', 'cost per m³', 't/year', 'cost per year', 'indicator mean %'], rows),
+    table(['carbon', 'dose mg/L', 'mg/mg DOC', 'governed by', 'cost per m³', 't/year', 'cost per year', 'indicator mean %'], rows),
     '',
     ...(extra.length ? [...extra, ''] : []),
     ...(result.warnings.length ? ['Warnings:', ...result.warnings.map((w) => `  - ${w}`), ''] : []),

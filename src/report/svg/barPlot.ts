@@ -19,8 +19,8 @@ import { textWidth } from './textWidth.js';
 export function formatSegmentValue(v: number): string {
   if (v === 0) return '0';
   const a = Math.abs(v);
-  if (a >= 1e5 || a < 1e-3) return v.toExponential(1);
-  return String(Number(v.toPrecision(3)));
+  if (a >= 1e9 || a < 1e-3) return v.toExponential(1);
+  return Number(v.toPrecision(3)).toLocaleString('en-US', { maximumSignificantDigits: 3 }); // 297,669 → "298,000"
 }
 
 /** SVG of a stacked bar plot. Never throws on odd data: what cannot be drawn is skipped and noted. */
@@ -45,13 +45,19 @@ export function renderBarPlot(spec: BarPlotSpec): string {
   const areaHeight = spec.compact ? Math.round(PLOT_AREA_HEIGHT * 0.75) : PLOT_AREA_HEIGHT;
 
   const titleX = 6 + FONT.axis;
-  const left = Math.round(titleX + 10 + maxTickLabelWidth(yPlan.ticks) + TICK.length + TICK.gap);
-  const frameWidth = width - left - 16;
-  const band = nCat > 0 ? frameWidth / nCat : frameWidth;
-  const barW = Math.min(72, band * 0.62);
   const catLabels = spec.categories.map((c) => fitText(c, 150, FONT.tick));
   const widest = Math.max(0, ...catLabels.map((c) => textWidth(c, FONT.tick)));
-  const rotate = widest > band - 6;
+  const axisLeft = Math.round(titleX + 10 + maxTickLabelWidth(yPlan.ticks) + TICK.length + TICK.gap);
+  const bandFor = (l: number) => (nCat > 0 ? (width - l - 16) / nCat : width - l - 16);
+  const rotate = widest > bandFor(axisLeft) - 6;
+  // a label rotated by 35° reaches widest·cos 35° left of its bar's centre left + band/2, band = (width − left − 16)/n:
+  // left ≥ widest·cos 35° − band/2 + 6 solved for left keeps the first label inside the figure
+  const n = Math.max(1, nCat);
+  const reach = widest * Math.cos((35 * Math.PI) / 180);
+  const left = rotate ? Math.max(axisLeft, Math.ceil((reach - (width - 16) / (2 * n) + 6) / (1 - 1 / (2 * n)))) : axisLeft;
+  const frameWidth = width - left - 16;
+  const band = bandFor(left);
+  const barW = Math.min(72, band * 0.62);
   const catBand = rotate ? widest * 0.6 + 20 : FONT.tick + 14;
   const frame: Frame = { left, top: 14, width: frameWidth, height: areaHeight };
   const bottom = frame.top + frame.height;

@@ -59,7 +59,7 @@ describe('sorbshare run with PAC contact conditions', () => {
       const rc = rec.results.carbons[0];
       expect(rc.contact.equilibrium_dose_mg_per_L).toBe(c.equilibrium_dose_mg_per_L);
       expect(rc.contact.dose_ratio_contact_to_equilibrium).toBe(c.dose_ratio_contact_to_equilibrium);
-      expect(rc.required_dose.doseMgPerL).toBe(c.required_dose_mg_per_L);
+      expect(rc.required_dose.dose_mg_per_L).toBe(c.required_dose_mg_per_L);
       const html = readFileSync(join(out, 'report.html'), 'utf8');
       for (const id of ['contact-time-1', 'contact-dose-1', 'carbon-age-1']) expect(html).toContain(id);
       expect(html).toContain('PAC contact conditions');

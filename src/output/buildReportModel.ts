@@ -18,6 +18,8 @@ import { calibrationPlot } from './calibrationPlots.js';
 import { fmtConcentration as fc, fmtMoney, fmtNumber as fn, fmtWhole } from './formatting.js';
 import type { CarbonResult, PipelineResult } from '../pipeline/pipelineTypes.js';
 import { gacSection, loadingPlot, pilotSection, surrogateSection, uncertaintySection } from './surrogateGacUncertaintySections.js';
+import { transferNote } from '../pipeline/calibrationTransfer.js';
+import { transferRows } from './transferRows.js';
 
 const pct = (x: number | null | undefined, sig = 4) => (x === null || x === undefined ? '—' : `${fn(x, sig)} %`);
 const mgL = (x: number | null | undefined, sig = 3) => (x === null || x === undefined ? '—' : `${fn(x, sig)} mg/L`);
@@ -83,9 +85,9 @@ function calibrationSection(r: PipelineResult): ReportSection | undefined {
     tables: [{
       caption: 'Calibrated parameters',
       columns: ['compound', 'model', 'target K factor', 'K_EBC', '1/n_EBC', 'c0_EBC (mg/L)', 'at DOC (mg/L)'],
-      rows: r.calibrations.map((c) => [c.compoundId, c.model, c.targetKFactor !== undefined ? fn(c.targetKFactor, 4) : '—', c.ebc ? fn(c.ebc.K, 4) : '—', c.ebc ? fn(c.ebc.oneOverN, 3) : '—', c.ebc ? fn(c.ebc.c0MgPerL, 4) : '—', c.ebc ? fn(c.ebc.docMgPerL, 3) : '—']),
+      rows: [...r.calibrations.map((c) => [c.compoundId, c.model, c.targetKFactor !== undefined ? fn(c.targetKFactor, 4) : '—', c.ebc ? fn(c.ebc.K, 4) : '—', c.ebc ? fn(c.ebc.oneOverN, 3) : '—', c.ebc ? fn(c.ebc.c0MgPerL, 4) : '—', c.ebc ? fn(c.ebc.docMgPerL, 3) : '—']), ...transferRows(r, fn)],
     }],
-    warnings: r.calibrations.flatMap((c) => c.warnings.map((w) => `${c.compoundId}: ${w}`)),
+    warnings: [...r.calibrations.flatMap((c) => c.warnings.map((w) => `${c.compoundId}: ${w}`)), ...(r.calibrationTransfer ? [transferNote(r.calibrationTransfer)] : [])],
     plots: r.calibrations.flatMap((c, i) => calibrationPlot(c, i) ?? []),
   };
 }

@@ -74,6 +74,9 @@ export interface CompoundSpec {
   indicatorCategory?: IndicatorCategory;
 }
 
+/** How compounds without jar tests take the site's correction (src/project/readCalibrationTransfer.ts). */
+export type CalibrationTransferSpec = { kind: 'none' } | { kind: 'mean' } | { kind: 'compound'; compoundId: string };
+
 export interface GoalsSpec {
   /** Removal goal for every compound without a limit, percent. */
   removalPercent: number;
@@ -146,6 +149,8 @@ export interface ProjectSpec {
   goals: GoalsSpec;
   pilot?: PilotSpec;
   uncertainty?: UncertaintySpec;
+  /** Transfer of the jar-test calibration to untested compounds (absent = none). */
+  calibrationTransfer?: CalibrationTransferSpec;
 }
 
 /** Defaults (common practice, CHECKS.md "Regulation and practice"). */

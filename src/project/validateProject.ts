@@ -17,13 +17,14 @@ import { readCarbons } from './readCarbons.js';
 import { readGoals } from './readGoals.js';
 import { readPilot } from './readPilotSpec.js';
 import { readUncertainty } from './readUncertaintySpec.js';
+import { readCalibrationTransfer } from './readCalibrationTransfer.js';
 
 const CALIBRATION_MODELS: readonly CalibrationModelName[] = ['ebc', 'sebc', 'fictive-k'];
 
 /** Validate a parsed project file. */
 export function validateProject(raw: unknown): ProjectSpec {
   const root = expectObject(raw, '$', 'a project');
-  onlyKeys(root, ['$schema', 'name', 'note', ...COVER_KEYS.map((k) => k[0]), 'site', 'background', 'carbons', 'compounds', 'goals', 'pilot', 'uncertainty'], '');
+  onlyKeys(root, ['$schema', 'name', 'note', ...COVER_KEYS.map((k) => k[0]), 'site', 'background', 'carbons', 'compounds', 'goals', 'pilot', 'uncertainty', 'calibration_transfer'], '');
   const name = expectString(required(root, 'name', '', 'the project name as text'), 'name', 'the project name as text');
   const site = readSite(required(root, 'site', '', 'the site object { name, flow, doc }'));
   const compounds = readCompounds(required(root, 'compounds', '', 'an array of compounds'));
@@ -36,6 +37,7 @@ export function validateProject(raw: unknown): ProjectSpec {
   if (cover) out.cover = cover;
   if (root.pilot !== undefined) out.pilot = readPilot(root.pilot, carbons);
   if (root.uncertainty !== undefined) out.uncertainty = readUncertainty(root.uncertainty);
+  if (root.calibration_transfer !== undefined) out.calibrationTransfer = readCalibrationTransfer(root.calibration_transfer, compounds);
   return out;
 }
 

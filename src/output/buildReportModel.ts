@@ -97,7 +97,7 @@ function carbonSection(r: PipelineResult, cr: CarbonResult, index: number): Repo
   const rows = req.compounds.map((d, i) => {
     const comp = r.project.compounds[i]!;
     const rl = cr.reducedLoadings?.[i];
-    return [comp.id, r.goals[comp.id]!.text, d.status === 'met' ? fn(d.doseMgPerL!, 3) : d.status === 'met without carbon' ? '0 (met without carbon)' : d.status === 'met below the smallest dose' ? '0 (met below the smallest dose)' : 'unreachable', d.status === 'met' ? fn(d.doseMgPerL! / req.docMgPerL, 3) : '—', req.governing?.compoundId === comp.id ? 'governing' : '',
+    return [comp.id, r.goals[comp.id]!.text, d.status === 'met' ? fn(d.doseMgPerL!, 3) : d.status === 'met without carbon' ? '0 (met without carbon)' : d.status === 'met below the smallest dose' ? '0 (met below the smallest dose)' : d.status === 'report only' ? 'report only' : 'unreachable', d.status === 'met' ? fn(d.doseMgPerL! / req.docMgPerL, 3) : '—', req.governing?.compoundId === comp.id ? 'governing' : '',
       rl ? pct(rl.removalFraction * 100, 3) : '—', rl ? fc(rl.cMgPerL) : '—', rl ? fn(rl.qSiteMgPerG, 3) : '—', rl ? fn(rl.qSingleMgPerG, 3) : '—', rl ? pct(rl.ratio * 100, 2) : '—'];
   });
   const tables: ReportTable[] = [{

@@ -72,6 +72,8 @@ export interface CompoundSpec {
   /** Effluent limit, mg/L (from the compound or from goals.limits). */
   limitMgPerL?: number;
   indicatorCategory?: IndicatorCategory;
+  /** Report-only compound (project `"goal": "none"`): modelled and reported, never governing. */
+  reportOnly?: boolean;
 }
 
 /** How compounds without jar tests take the site's correction (src/project/readCalibrationTransfer.ts). */

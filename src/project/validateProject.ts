@@ -18,6 +18,7 @@ import { readGoals } from './readGoals.js';
 import { readPilot } from './readPilotSpec.js';
 import { readUncertainty } from './readUncertaintySpec.js';
 import { readCalibrationTransfer } from './readCalibrationTransfer.js';
+import { readReportOnly } from './readCompoundGoalKey.js';
 
 const CALIBRATION_MODELS: readonly CalibrationModelName[] = ['ebc', 'sebc', 'fictive-k'];
 
@@ -77,7 +78,7 @@ function readCompounds(raw: unknown): CompoundSpec[] {
   return arr.map((c, i) => {
     const p = `compounds[${i}]`;
     const o = expectObject(c, p, 'a compound { id, name, K, one_over_n, c0 }');
-    onlyKeys(o, ['id', 'name', 'note', 'K', 'one_over_n', 'K_unit', 'molar_mass', 'c0', 'jar_tests', 'limit', 'indicator_category'], p);
+    onlyKeys(o, ['id', 'name', 'note', 'K', 'one_over_n', 'K_unit', 'molar_mass', 'c0', 'jar_tests', 'limit', 'indicator_category', 'goal'], p);
     required(o, 'id', p, 'a short text id such as "CBZ"');
     required(o, 'K', p, 'the single-solute Freundlich K as a number');
     const comp = readComponent(o, p, true);
@@ -104,6 +105,7 @@ function readCompounds(raw: unknown): CompoundSpec[] {
       }
       spec.jarTests = { file, model: model as CalibrationModelName };
     }
+    if (readReportOnly(o, p)) spec.reportOnly = true;
     if (o.limit !== undefined) spec.limitMgPerL = readLimit(o.limit, `${p}.limit`);
     if (o.indicator_category !== undefined) {
       if (o.indicator_category !== 1 && o.indicator_category !== 2) throw new InputError(`expected indicator category 1 or 2 (SR 814.201.231), got ${describeValue(o.indicator_category)}`, { path: `${p}.indicator_category` });

@@ -6,9 +6,11 @@
  *
  * Checks (InputError naming file, row and column): bed volumes > 0 and strictly increasing;
  * c/c0 in 0–1.2 (above 1 only by displacement or analytical noise; 1.2 is our bound); C0 > 0.
+ * The table comes as CSV text or already read with BREAKTHROUGH_COLUMNS (src/io/readTableFile.ts:
+ * `;`/`,` separators and decimal marks, gaps, .xlsx sheets).
  */
 import { InputError } from '../core/errors.js';
-import { readCsvTable, type CsvColumnSpec } from '../tables/csvTable.js';
+import { readCsvTable, type CsvColumnSpec, type CsvTable } from '../tables/csvTable.js';
 
 /** Largest c/c0 accepted in breakthrough data (ours: displacement peaks and noise above 1). */
 export const MAX_DATA_C_OVER_C0 = 1.2;
@@ -31,12 +33,13 @@ export interface BreakthroughData {
 }
 
 /**
- * Read breakthrough data from CSV text. `c0MgPerL` is the feed when the file has `c` without `C0`.
+ * Read breakthrough data from CSV text or a table read with BREAKTHROUGH_COLUMNS. `c0MgPerL` is the feed when the file has `c` without `C0`.
  * @throws InputError naming file, row and column
  */
-export function readBreakthroughData(text: string, options: { file?: string; c0MgPerL?: number } = {}): BreakthroughData {
-  const { file } = options;
-  const table = readCsvTable(text, BREAKTHROUGH_COLUMNS, file);
+export function readBreakthroughData(source: string | CsvTable, options: { file?: string; c0MgPerL?: number } = {}): BreakthroughData {
+  const table = typeof source === 'string' ? readCsvTable(source, BREAKTHROUGH_COLUMNS, options.file) : source;
+  const file = table.file ?? options.file;
+  if (!table.columns.bv) throw new InputError('the table was read without its bed-volume column; expected the columns of BREAKTHROUGH_COLUMNS', file !== undefined ? { file } : {});
   const col = table.columns;
   const loc = (row: number, column: string) => ({ ...(file !== undefined ? { file } : {}), row, column });
   const bv = col.bv!;

@@ -27,6 +27,7 @@ import { prepareKinetics, type CarbonParticle, type KineticComponent } from '../
 import { pacBatch } from '../kinetics/pacBatch.js';
 import { POOR_FIT_RMSE_LN } from './calibrate.js';
 import { readKineticTests, type KineticSeries } from './kineticTestData.js';
+import type { CsvTable } from '../tables/csvTable.js';
 
 export type KineticCalibrationModel = 'surface-diffusion' | 'surface-diffusion-doc';
 
@@ -73,10 +74,11 @@ export interface KineticCalibrationResult {
 const DS_MIN = 1e-21, DS_MAX = 1e-11;
 const DS_START = [1e-16];
 
-/** Fits the surface diffusivity of a target, or the one of the fictive DOC components, to kinetic jar tests (CSV text); see the file's opening comment. */
-export function calibrateKinetics(csvText: string, options: KineticCalibrateOptions): KineticCalibrationResult {
+/** Fits the surface diffusivity of a target, or the one of the fictive DOC components, to kinetic jar tests; see the file's opening comment.
+ * @param data the kinetic tests as CSV text or a table already read (src/io/readTableFile.ts) */
+export function calibrateKinetics(data: string | CsvTable, options: KineticCalibrateOptions): KineticCalibrationResult {
   const { model, particle } = options;
-  const series = readKineticTests(csvText, model === 'surface-diffusion' ? 'target' : 'doc', options.file);
+  const series = readKineticTests(data, model === 'surface-diffusion' ? 'target' : 'doc', options.file);
   const dl = options.dlM2PerS;
   const withFilm = (c: KineticComponent): KineticComponent => (c.kfMPerS === undefined && c.dlM2PerS === undefined && dl !== undefined ? { ...c, dlM2PerS: dl } : c);
   let target: KineticComponent | undefined;

@@ -3,11 +3,12 @@
  * the headers. Target tests: `time (min),dose (mg/L),C0 (ng/L),c (ng/L)`; DOC tests:
  * `time (min),dose (mg/L),DOC (mg/L)` with an optional `DOC0 (mg/L)` column (default: the DOC0 of
  * the background file). A series is a run of consecutive rows with the same dose and C0 (or
- * DOC0); within a series times must be positive and increasing.
+ * DOC0); within a series times must be positive and increasing. The table comes as CSV text or
+ * already read (src/io/readTableFile.ts: `;`/`,` separators and decimal marks, gaps, .xlsx sheets).
  * @throws InputError naming file, row and column
  */
 import { InputError } from '../core/errors.js';
-import { readCsvTable, type CsvColumnSpec } from '../tables/csvTable.js';
+import { readCsvTable, type CsvColumnSpec, type CsvTable } from '../tables/csvTable.js';
 
 export type KineticTestKind = 'target' | 'doc';
 
@@ -36,9 +37,13 @@ export interface KineticSeries {
   rows: number[];
 }
 
-/** Read kinetic tests from CSV text. */
-export function readKineticTests(text: string, kind: KineticTestKind, file?: string): KineticSeries[] {
-  const table = readCsvTable(text, kind === 'target' ? KINETIC_TARGET_COLUMNS : KINETIC_DOC_COLUMNS, file);
+/** Read kinetic tests from CSV text or a table read with KINETIC_TARGET_COLUMNS / KINETIC_DOC_COLUMNS. */
+export function readKineticTests(source: string | CsvTable, kind: KineticTestKind, fileName?: string): KineticSeries[] {
+  const table = typeof source === 'string' ? readCsvTable(source, kind === 'target' ? KINETIC_TARGET_COLUMNS : KINETIC_DOC_COLUMNS, fileName) : source;
+  const file = table.file ?? fileName;
+  for (const key of ['time', 'dose', 'c']) {
+    if (!table.columns[key]) throw new InputError(`the table was read without its "${key}" column; expected the columns of ${kind === 'target' ? 'KINETIC_TARGET_COLUMNS' : 'KINETIC_DOC_COLUMNS'}`, file !== undefined ? { file } : {});
+  }
   const col = (k: string) => table.columns[k];
   const time = col('time')!, dose = col('dose')!, c = col('c')!, c0 = col('c0');
   const at = (i: number, column: string) => ({ ...(file !== undefined ? { file } : {}), row: table.rowNumbers[i]!, column });

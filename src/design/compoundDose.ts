@@ -5,7 +5,8 @@
  *
  * Statuses, never exceptions: 'met' (the dose and the removal reached there), 'met without
  * carbon' (a limit at or above the feed concentration: dose 0), 'met below the smallest dose'
- * (the goal holds at 1e-9 mg/L: dose 0), 'unreachable' (not met at 5000 mg/L: no dose).
+ * (the goal holds at 1e-9 mg/L: dose 0), 'unreachable' (not met at 5000 mg/L: no dose),
+ * 'report only' (a compound without a goal: no dose, so it never governs).
  * Throws ComputationError if a solve or the search fails, or the dose found misses the goal by
  * more than 1e-9.
  */
@@ -15,14 +16,14 @@ import { MAX_DOSE_G_PER_L, MIN_DOSE_G_PER_L, searchDose } from './doseSearch.js'
 import { removalExcess } from './removalExcess.js';
 import type { RemovalModel, WarmStart } from './removalModel.js';
 
-export type CompoundDoseStatus = 'met' | 'met without carbon' | 'met below the smallest dose' | 'unreachable';
+export type CompoundDoseStatus = 'met' | 'met without carbon' | 'met below the smallest dose' | 'unreachable' | 'report only';
 
 export interface CompoundDose {
   compoundId: string;
   status: CompoundDoseStatus;
-  /** Dose that meets the goal, mg/L (0 when met without carbon or below the smallest dose; null when unreachable). */
+  /** Dose that meets the goal, mg/L (0 when met without carbon or below the smallest dose; null when unreachable or report only). */
   doseMgPerL: number | null;
-  /** Removal reached at that dose (fraction; at 5000 mg/L when unreachable). */
+  /** Removal reached at that dose (fraction; at 5000 mg/L when unreachable; null when report only). */
   removalFraction: number | null;
   /** Why the goal is unreachable or needs no carbon. */
   message?: string;
@@ -36,6 +37,7 @@ export interface CompoundDose {
  */
 export function compoundDose(model: RemovalModel, index: number, goal: CompoundGoal, hintMgPerL?: number): CompoundDose {
   const compoundId = model.compoundIds[index]!;
+  if (goal.kind === 'none') return { compoundId, status: 'report only', doseMgPerL: null, removalFraction: null, message: `"${compoundId}" is reported only: it has no goal and does not govern the dose` };
   if (goal.removalFraction <= 0) {
     return { compoundId, status: 'met without carbon', doseMgPerL: 0, removalFraction: 0, message: `${goal.text} is met without carbon (c0 is already at or below it)` };
   }

@@ -34,7 +34,7 @@ export function requiredDoseAt(model: RemovalModel, problem: DesignProblem, refe
     return { docMgPerL, doseMgPerL: d.doseMgPerL, governedBy: d.governedBy };
   };
   const base = near && near.doseMgPerL !== null ? near : reference;
-  if (base.doseMgPerL === null || !(base.doseMgPerL > 0) || reference.compounds.some((c) => c.status !== 'met') || (reference.indicator && reference.indicator.status !== 'met')) return full();
+  if (base.doseMgPerL === null || !(base.doseMgPerL > 0) || reference.compounds.some((c) => c.status !== 'met' && c.status !== 'report only') || (reference.indicator && reference.indicator.status !== 'met')) return full();
   const hint = base.doseMgPerL * (docMgPerL / base.docMgPerL);
   let dose: number | null;
   if (base.governedBy === 'indicator mean') {
@@ -57,7 +57,7 @@ export function requiredDoseAt(model: RemovalModel, problem: DesignProblem, refe
   });
   for (let i = 0; i < problem.goals.length; i++) {
     const goal = problem.goals[i]!;
-    if (goal.removalFraction > 0 && removal[i]! < goal.removalFraction - 1e-9) return full();
+    if (goal.kind !== 'none' && goal.removalFraction > 0 && removal[i]! < goal.removalFraction - 1e-9) return full();
   }
   if (problem.indicator) {
     const values: IndicatorValue[] = problem.indicator.members.map((m) => ({ id: model.compoundIds[m.index]!, category: m.category, removalPercent: 100 * removal[m.index]! }));

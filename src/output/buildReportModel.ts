@@ -20,6 +20,8 @@ import { contactSection } from './contactPlots.js';
 import { fmtConcentration as fc, fmtMoney, fmtNumber as fn, fmtWhole } from './formatting.js';
 import type { CarbonResult, PipelineResult } from '../pipeline/pipelineTypes.js';
 import { gacSection, loadingPlot, pilotSection, surrogateSection, uncertaintySection } from './surrogateGacUncertaintySections.js';
+import { transferNote } from '../pipeline/calibrationTransfer.js';
+import { transferRows } from './transferRows.js';
 
 const pct = (x: number | null | undefined, sig = 4) => (x === null || x === undefined ? '—' : `${fn(x, sig)} %`);
 const mgL = (x: number | null | undefined, sig = 3) => (x === null || x === undefined ? '—' : `${fn(x, sig)} mg/L`);
@@ -85,9 +87,9 @@ function calibrationSection(r: PipelineResult): ReportSection | undefined {
     tables: [{
       caption: 'Calibrated parameters',
       columns: ['compound', 'model', 'target K factor', 'K_EBC', '1/n_EBC', 'c0_EBC (mg/L)', 'at DOC (mg/L)'],
-      rows: r.calibrations.map((c) => [c.compoundId, c.model, c.targetKFactor !== undefined ? fn(c.targetKFactor, 4) : '—', c.ebc ? fn(c.ebc.K, 4) : '—', c.ebc ? fn(c.ebc.oneOverN, 3) : '—', c.ebc ? fn(c.ebc.c0MgPerL, 4) : '—', c.ebc ? fn(c.ebc.docMgPerL, 3) : '—']),
+      rows: [...r.calibrations.map((c) => [c.compoundId, c.model, c.targetKFactor !== undefined ? fn(c.targetKFactor, 4) : '—', c.ebc ? fn(c.ebc.K, 4) : '—', c.ebc ? fn(c.ebc.oneOverN, 3) : '—', c.ebc ? fn(c.ebc.c0MgPerL, 4) : '—', c.ebc ? fn(c.ebc.docMgPerL, 3) : '—']), ...transferRows(r, fn)],
     }],
-    warnings: r.calibrations.flatMap((c) => c.warnings.map((w) => `${c.compoundId}: ${w}`)),
+    warnings: [...r.calibrations.flatMap((c) => c.warnings.map((w) => `${c.compoundId}: ${w}`)), ...(r.calibrationTransfer ? [transferNote(r.calibrationTransfer)] : [])],
     plots: r.calibrations.flatMap((c, i) => calibrationPlot(c, i) ?? []),
   };
 }
@@ -97,7 +99,7 @@ function carbonSection(r: PipelineResult, cr: CarbonResult, index: number): Repo
   const rows = req.compounds.map((d, i) => {
     const comp = r.project.compounds[i]!;
     const rl = cr.reducedLoadings?.[i];
-    return [comp.id, r.goals[comp.id]!.text, d.status === 'met' ? fn(d.doseMgPerL!, 3) : d.status === 'met without carbon' ? '0 (met without carbon)' : d.status === 'met below the smallest dose' ? '0 (met below the smallest dose)' : 'unreachable', d.status === 'met' ? fn(d.doseMgPerL! / req.docMgPerL, 3) : '—', req.governing?.compoundId === comp.id ? 'governing' : '',
+    return [comp.id, r.goals[comp.id]!.text, d.status === 'met' ? fn(d.doseMgPerL!, 3) : d.status === 'met without carbon' ? '0 (met without carbon)' : d.status === 'met below the smallest dose' ? '0 (met below the smallest dose)' : d.status === 'report only' ? 'report only' : 'unreachable', d.status === 'met' ? fn(d.doseMgPerL! / req.docMgPerL, 3) : '—', req.governing?.compoundId === comp.id ? 'governing' : '',
       rl ? pct(rl.removalFraction * 100, 3) : '—', rl ? fc(rl.cMgPerL) : '—', rl ? fn(rl.qSiteMgPerG, 3) : '—', rl ? fn(rl.qSingleMgPerG, 3) : '—', rl ? pct(rl.ratio * 100, 2) : '—'];
   });
   const tables: ReportTable[] = [{

@@ -46,7 +46,9 @@ export function headlineFigures(r: PipelineResult): KeyFigure[] {
   for (const cr of pac) {
     const req = cr.required!;
     const unmet = unmetGoals(r, cr);
-    if (req.doseMgPerL === null) { figs.push({ label: `${cr.carbon.name}: required dose`, value: 'no reachable goal', note: unmet.join('; ') }); continue; }
+    const reportOnly = req.compounds.filter((c) => c.status === 'report only').map((c) => c.compoundId);
+    const reportOnlyNote = reportOnly.length ? `reported only, without a goal: ${reportOnly.join(', ')}` : '';
+    if (req.doseMgPerL === null) { figs.push({ label: `${cr.carbon.name}: required dose`, value: unmet.length ? 'no reachable goal' : 'no goal to design for', note: [...unmet, ...(reportOnlyNote ? [reportOnlyNote] : [])].join('; ') }); continue; }
     const others = [
       req.governedBy !== 'indicator mean' || !req.governing ? '' : `; governing compound ${req.governing.compoundId} at ${mgL(req.governing.doseMgPerL)}`,
       req.governedBy === 'indicator mean' || req.indicator?.doseMgPerL == null ? '' : `; indicator mean reached at ${doseWithSpecific(req.indicator.doseMgPerL, doc)}`,
@@ -54,7 +56,7 @@ export function headlineFigures(r: PipelineResult): KeyFigure[] {
     const gd = cr.uncertainty?.result.quantities.find((q) => q.key === 'governing_dose');
     const band = gd && Number.isFinite(gd.p90) ? `; P10–P90 ${fn(gd.p10, 3)}–${fn(gd.p90, 3)} mg/L (Monte Carlo)` : '';
     figs.push({ label: `${cr.carbon.name}: dose`, value: mgL(req.doseMgPerL), note: `${fn(specificDose(req.doseMgPerL, doc), 3)} mg carbon per mg DOC; required at DOC ${fn(req.docMgPerL, 3)} mg/L, governed by ${req.governedBy}${others}${band}` });
-    figs.push({ label: `${cr.carbon.name}: goals`, value: unmet.length ? `${unmet.length} goal${unmet.length === 1 ? '' : 's'} not met` : 'all goals met', note: unmet.length ? unmet.join('; ') : 'every compound goal at the required dose' });
+    figs.push({ label: `${cr.carbon.name}: goals`, value: unmet.length ? `${unmet.length} goal${unmet.length === 1 ? '' : 's'} not met` : 'all goals met', note: [unmet.length ? unmet.join('; ') : 'every compound goal at the required dose', ...(reportOnlyNote ? [reportOnlyNote] : [])].join('; ') });
     if (cr.costPerM3 !== undefined) figs.push({ label: `${cr.carbon.name}: cost per m³`, value: fmtMoney(cr.costPerM3, cr.carbon.currency), note: 'carbon only, at the required dose' });
     if (cr.yearly) {
       const yc = cr.uncertainty?.result.quantities.find((q) => q.key === 'yearly_cost');

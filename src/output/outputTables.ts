@@ -33,7 +33,7 @@ export function compoundsCsv(r: PipelineResult): string {
         cr.carbon.name, comp.id, comp.name, comp.indicatorCategory ?? '', comp.c0MgPerL * 1e6, goal.text, Math.max(0, goal.removalFraction * 100),
         d.doseMgPerL, d.status, cr.required!.governing?.compoundId === comp.id ? 'yes' : 'no',
         cr.designDoseMgPerL, rl ? rl.cMgPerL * 1e6 : null, rl ? rl.removalFraction * 100 : null, rl?.qSiteMgPerG, rl?.qSingleMgPerG, rl?.ratio,
-        sys.single.K, sys.single.oneOverN, sys.inMixture.K, sys.competition,
+        sys.single.K, sys.single.oneOverN, sys.inMixture.K, sys.competition, sys.calibration ?? 'none',
       ]);
     });
   }
@@ -41,7 +41,7 @@ export function compoundsCsv(r: PipelineResult): string {
     'carbon', 'compound', 'name', 'indicator category', 'c0 (ng/L)', 'goal', 'goal removal (%)',
     'dose for goal (mg/L)', 'status', 'governing', 'design dose (mg/L)', 'c at design dose (ng/L)', 'removal at design dose (%)',
     'q in site water (mg/g)', 'q single-solute at same c (mg/g)', 'reduced loading ratio',
-    'K single-solute ((mg/g)/(mg/L)^(1/n))', '1/n', 'K in IAST ((mg/g)/(mg/L)^(1/n))', 'competition model',
+    'K single-solute ((mg/g)/(mg/L)^(1/n))', '1/n', 'K in IAST ((mg/g)/(mg/L)^(1/n))', 'competition model', 'site calibration',
   ], rows);
 }
 

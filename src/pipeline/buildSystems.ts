@@ -5,9 +5,12 @@
  * Competitor of each compound, in order of precedence:
  *   1. an EBC calibrated from its jar tests (models "ebc", "sebc"; for "sebc" the EBC takes the
  *      target's own isotherm on each carbon, Qi et al. 2007, from memory);
- *   2. the EBC given for it in the project's background (EBC background);
- *   3. the fractionated DOC (fictive components), with the target's K times the calibrated
- *      factor of model "fictive-k" (Schideman et al. 2006; Worch 2010; both from memory).
+ *   2. for a compound without jar tests, an EBC transferred from the calibrated compounds
+ *      (calibrationTransfer.ts; simplified-EBC rule: the compound's own isotherm);
+ *   3. the EBC given for it in the project's background (EBC background);
+ *   4. the fractionated DOC (fictive components), with the target's K times the calibrated
+ *      factor of model "fictive-k" (Schideman et al. 2006; Worch 2010; both from memory), or,
+ *      without jar tests, the factor transferred from the calibrated compounds.
  * EBC concentrations scale with DOC: c0_EBC(DOC) = c0_EBC,ref · DOC / DOC_ref (Zietzschmann et
  * al. 2016 found the EBC concentration correlated with DOC).
  */
@@ -17,19 +20,22 @@ import type { CarbonSpec, ProjectSpec } from '../project/projectTypes.js';
 import type { BackgroundStep } from './backgroundStep.js';
 import type { CompoundCalibration } from './calibrationStep.js';
 import { scaleK, type CompoundSystem } from './competitionSystem.js';
+import type { TransferredCalibration } from './calibrationTransfer.js';
 
 function fmtK(K: number): string {
   return Number(K.toPrecision(4)).toString();
 }
 
 /** Systems of every compound (project order) on one carbon. */
-export function buildSystems(project: ProjectSpec, carbon: CarbonSpec, bg: BackgroundStep, calibrations: ReadonlyMap<string, CompoundCalibration>): CompoundSystem[] {
+export function buildSystems(project: ProjectSpec, carbon: CarbonSpec, bg: BackgroundStep, calibrations: ReadonlyMap<string, CompoundCalibration>, transfer?: TransferredCalibration): CompoundSystem[] {
   const f = carbon.kFactor;
   return project.compounds.map((comp) => {
     const own = carbon.isotherms[comp.id];
     const single = own ? { K: own.K, oneOverN: own.oneOverN } : { K: comp.K * f, oneOverN: comp.oneOverN };
     const cal = calibrations.get(comp.id);
-    const base = { compoundId: comp.id, carbonName: carbon.name, c0MgPerL: comp.c0MgPerL, single };
+    const t = cal ? undefined : transfer;
+    const calibration = cal ? `jar tests (model ${cal.model})` : t?.label;
+    const base = { compoundId: comp.id, carbonName: carbon.name, c0MgPerL: comp.c0MgPerL, single, ...(calibration ? { calibration } : {}) };
     if (cal?.ebc) {
       const e = cal.ebc;
       const ebcIso = cal.model === 'sebc' ? single : { K: e.K * f, oneOverN: e.oneOverN };
@@ -39,6 +45,16 @@ export function buildSystems(project: ProjectSpec, carbon: CarbonSpec, bg: Backg
         competition: 'ebc',
         background: (doc: number) => [{ id: `EBC ${comp.id}`, c0MgPerL: (e.c0MgPerL * doc) / e.docMgPerL, K: ebcIso.K, oneOverN: ebcIso.oneOverN }],
         description: `EBC calibrated from jar tests (model ${cal.model}): K = ${fmtK(ebcIso.K)} (mg/g)/(mg/L)^${ebcIso.oneOverN}, c0 = ${fmtK(e.c0MgPerL)} mg/L at DOC ${fmtK(e.docMgPerL)} mg/L`,
+      } satisfies CompoundSystem;
+    }
+    if (t?.ebcC0PerDoc !== undefined) {
+      const ratio = t.ebcC0PerDoc;
+      return {
+        ...base,
+        inMixture: single,
+        competition: 'ebc',
+        background: (doc: number) => [{ id: `EBC ${comp.id}`, c0MgPerL: ratio * doc, K: single.K, oneOverN: single.oneOverN }],
+        description: `EBC ${t.label} (simplified-EBC rule, the compound's own isotherm): c0 = ${fmtK(ratio)} mg/L per mg/L DOC`,
       } satisfies CompoundSystem;
     }
     if (project.background.kind === 'ebc') {
@@ -55,13 +71,14 @@ export function buildSystems(project: ProjectSpec, carbon: CarbonSpec, bg: Backg
     }
     const background = bg.background;
     if (!background) throw new InputError('no fractionated background for the fictive-component model', { path: 'background' });
-    const factor = cal?.model === 'fictive-k' && cal.targetKFactor !== undefined ? cal.targetKFactor : 1;
+    const factor = cal?.model === 'fictive-k' && cal.targetKFactor !== undefined ? cal.targetKFactor : t?.targetKFactor ?? 1;
+    const factorText = factor === 1 ? '' : cal ? `, target K × ${fmtK(factor)} from jar tests` : `, target K × ${fmtK(factor)} ${t!.label}`;
     return {
       ...base,
       inMixture: { K: single.K * factor, oneOverN: single.oneOverN },
       competition: 'fictive',
       background: (doc: number) => scaleK(backgroundComponents(background, doc), f),
-      description: `fractionated DOC (${background.components.length} fictive components)${factor !== 1 ? `, target K × ${fmtK(factor)} from jar tests` : ''}${f !== 1 ? `, carbon K factor ${f}` : ''}`,
+      description: `fractionated DOC (${background.components.length} fictive components)${factorText}${f !== 1 ? `, carbon K factor ${f}` : ''}`,
     } satisfies CompoundSystem;
   });
 }

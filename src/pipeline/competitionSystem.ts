@@ -30,6 +30,8 @@ export interface CompoundSystem {
   background(docMgPerL: number): FreundlichComponent[];
   /** Plain-words description for the report. */
   description: string;
+  /** Where the site correction comes from: "jar tests (model …)", "transferred from …"; absent = none. */
+  calibration?: string;
 }
 
 /** Target first, then its competitors, at `docMgPerL`. */

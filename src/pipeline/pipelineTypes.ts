@@ -9,6 +9,7 @@ import type { SiteSeries } from '../siteSeries/siteSeries.js';
 import type { PilotData } from '../surrogates/pilotCsv.js';
 import type { BackgroundStep } from './backgroundStep.js';
 import type { CompoundCalibration } from './calibrationStep.js';
+import type { TransferredCalibration } from './calibrationTransfer.js';
 import type { CompoundSystem } from './competitionSystem.js';
 import type { CompoundGoal } from '../design/compoundGoal.js';
 import type { DailyDoses } from '../design/dailyDoses.js';
@@ -118,6 +119,8 @@ export interface PipelineResult {
   generatedAt: string;
   background: BackgroundStep;
   calibrations: CompoundCalibration[];
+  /** The calibration transferred to compounds without jar tests (project key calibration_transfer). */
+  calibrationTransfer?: TransferredCalibration;
   goals: Record<string, CompoundGoal>;
   carbons: CarbonResult[];
   series?: SiteSeries;

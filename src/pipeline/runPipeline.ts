@@ -12,6 +12,7 @@
 import { backgroundStep, type BackgroundStep } from './backgroundStep.js';
 import { calibrationStep, type CompoundCalibration } from './calibrationStep.js';
 import { buildSystems } from './buildSystems.js';
+import { calibrationTransfer, transferNote } from './calibrationTransfer.js';
 import { compoundGoal, type CompoundGoal } from '../design/compoundGoal.js';
 import { designDose, type DesignProblem } from '../design/designDose.js';
 import { reducedLoading } from '../design/reducedLoading.js';
@@ -78,6 +79,8 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
   const calibrations: CompoundCalibration[] = timed('calibration', () => calibrationStep(project, input.jarTests, bg));
   for (const c of calibrations) warnings.push(...c.warnings.map((w) => `calibration of ${c.compoundId}: ${w}`));
   const calMap = new Map(calibrations.map((c) => [c.compoundId, c] as const));
+  const transfer = calibrationTransfer(project.calibrationTransfer, calibrations, project.compounds.map((c) => c.id));
+  if (transfer) warnings.push(transferNote(transfer));
 
   const goals: Record<string, CompoundGoal> = {};
   for (const c of project.compounds) goals[c.id] = compoundGoal(c, project.goals.removalPercent, fmtConcentration);
@@ -86,7 +89,7 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
 
   const carbons: CarbonResult[] = project.carbons.map((carbon, ci) => {
     const res: CarbonResult = { carbon, systems: [], warnings: [] };
-    const systems = buildSystems(project, carbon, bg, calMap);
+    const systems = buildSystems(project, carbon, bg, calMap, transfer);
     res.systems = systems;
     if (carbon.type === 'GAC') {
       progress({ step: `${carbon.name}: GAC estimate`, done: ci, total: project.carbons.length });
@@ -176,5 +179,6 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
   };
   if (input.series) out.series = input.series;
   if (pilot) out.pilot = pilot;
+  if (transfer) out.calibrationTransfer = transfer;
   return out;
 }

@@ -41,6 +41,8 @@ import type { WarmStart } from '../design/removalModel.js';
 import { NormalSampler } from '../uncertainty/distributions.js';
 import { chunkRng } from '../uncertainty/prng.js';
 import { percentiles } from '../numerics/percentile.js';
+import { prepareSystem } from './competitionSystem.js';
+import { solveBatchPrepared } from '../equilibrium/iastBatch.js';
 
 /** Two-sided 95 % quantile of the standard normal distribution. */
 export const Z95 = 1.959963984540054;
@@ -77,7 +79,7 @@ export function uncertaintyProblem(
   // every compound, whatever its status at the point estimate: unreachable goals count as
   // unreachable draws, goals met without carbon as 0, so each band sits beside the run's figure
   cr.systems.forEach((sys, i) => {
-    targets.push({ id: sys.compoundId, K: sys.inMixture.K, oneOverN: sys.inMixture.oneOverN, c0MgPerL: sys.c0MgPerL, removalGoal: goals[i]!.removalFraction, KRelSd: s.KRelSd, oneOverNRelSd: s.oneOverNRelSd });
+    targets.push({ id: sys.compoundId, K: sys.inMixture.K, oneOverN: sys.inMixture.oneOverN, c0MgPerL: sys.c0MgPerL, removalGoal: goals[i]!.removalFraction, KRelSd: s.KRelSd, oneOverNRelSd: s.oneOverNRelSd, ...(goals[i]!.kind === 'none' ? { reportOnly: true } : {}) });
   });
   if (targets.length === 0) return { skipped: 'no compound on this carbon' };
   if (s.KRelSd > 0) parameters.push({ parameter: "compounds' K", distribution: 'lognormal', sd: s.KRelSd, basis: 'project uncertainty.K_rel_sd' });
@@ -149,12 +151,24 @@ export function removalBand(problem: MonteCarloProblem, seed: number, draws: num
   return { compoundId: targetId, draws: n, dosesMgPerL: dosesMgPerL.slice(), p10Percent: q.map((x) => x[0]!), p50Percent: q.map((x) => x[1]!), p90Percent: q.map((x) => x[2]!) };
 }
 
+/** A report-only compound's removal at the run's required dose (Infinity without a dose, as in the draws). */
+function reportOnlyRemoval(cr: CarbonResult, i: number): number {
+  const dose = cr.required!.doseMgPerL;
+  if (dose === null) return Infinity;
+  if (!(dose > 0)) return 0;
+  const sys = cr.systems[i]!;
+  return 1 - solveBatchPrepared(prepareSystem(sys, cr.required!.docMgPerL), dose / 1000).cMgPerL[0]! / sys.c0MgPerL;
+}
+
 /** The run's own figure for each Monte Carlo quantity (the point estimate printed beside its band). */
 export function runFigures(cr: CarbonResult, problem: MonteCarloProblem): Record<string, number> {
   const req = cr.required!;
   const inf = (v: number | null | undefined) => (v === null || v === undefined ? Infinity : v);
   const out: Record<string, number> = {};
-  problem.targets.forEach((t, i) => { out[`dose:${t.id}`] = inf(req.compounds[i]!.doseMgPerL); });
+  problem.targets.forEach((t, i) => {
+    if (t.reportOnly === true) out[`removal:${t.id}`] = reportOnlyRemoval(cr, i);
+    else out[`dose:${t.id}`] = inf(req.compounds[i]!.doseMgPerL);
+  });
   out.governing_dose = inf(req.doseMgPerL);
   if (req.indicator) out.indicator_dose = inf(req.indicator.doseMgPerL);
   const required = req.doseMgPerL;

@@ -78,7 +78,12 @@ export interface CompoundSpec {
   /** Effluent limit, mg/L (from the compound or from goals.limits). */
   limitMgPerL?: number;
   indicatorCategory?: IndicatorCategory;
+  /** Report-only compound (project `"goal": "none"`): modelled and reported, never governing. */
+  reportOnly?: boolean;
 }
+
+/** How compounds without jar tests take the site's correction (src/project/readCalibrationTransfer.ts). */
+export type CalibrationTransferSpec = { kind: 'none' } | { kind: 'mean' } | { kind: 'compound'; compoundId: string };
 
 export interface GoalsSpec {
   /** Removal goal for every compound without a limit, percent. */
@@ -125,8 +130,6 @@ export interface UncertaintySpec {
   fractionRelSd: number;
   /** Relative SD of the background K values without a fitted interval. */
   backgroundKRelSd: number;
-  /** DOC levels per draw at which the yearly doses are solved exactly (2–50, default 5). */
-  docLevels: number;
 }
 
 /** Cover block of the report (all optional project-file keys). */
@@ -152,6 +155,8 @@ export interface ProjectSpec {
   goals: GoalsSpec;
   pilot?: PilotSpec;
   uncertainty?: UncertaintySpec;
+  /** Transfer of the jar-test calibration to untested compounds (absent = none). */
+  calibrationTransfer?: CalibrationTransferSpec;
 }
 
 /** Defaults (common practice). */
@@ -160,6 +165,6 @@ export const DEFAULT_SWEEP = { fromMgPerL: 0.5, toMgPerL: 100, points: 40 } as c
 /** Pilot acceptance band, ± percentage points (common practice; see src/surrogates/pilotCheck.ts). */
 export const DEFAULT_PILOT_BAND_PERCENT = 10;
 /** Monte Carlo defaults when the section is present but a field is not (common practice). */
-export const DEFAULT_UNCERTAINTY: UncertaintySpec = { draws: 1000, seed: 1, KRelSd: 0, oneOverNRelSd: 0, docRelSd: 0, fractionRelSd: 0, backgroundKRelSd: 0, docLevels: 5 };
+export const DEFAULT_UNCERTAINTY: UncertaintySpec = { draws: 1000, seed: 1, KRelSd: 0, oneOverNRelSd: 0, docRelSd: 0, fractionRelSd: 0, backgroundKRelSd: 0 };
 /** Largest number of draws a project or --draws may ask for. */
 export const MAX_PROJECT_DRAWS = 1_000_000;

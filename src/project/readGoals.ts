@@ -22,6 +22,7 @@ export function readGoals(raw: unknown, compounds: CompoundSpec[]): GoalsSpec {
     for (const [id, v] of Object.entries(lim)) {
       const comp = compounds.find((c) => c.id === id);
       if (!comp) throw new InputError(`"${id}" is not a compound id; expected one of ${compounds.map((c) => `"${c.id}"`).join(', ')}`, { path: join(lp, id) });
+      if (comp.reportOnly) throw new InputError(`"${id}" is a report-only compound ("goal": "none"); it cannot have a limit`, { path: join(lp, id) });
       if (comp.limitMgPerL !== undefined) throw new InputError(`the limit of "${id}" is also given in its compound entry; give it once`, { path: join(lp, id) });
       comp.limitMgPerL = readLimit(v, join(lp, id));
     }

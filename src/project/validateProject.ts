@@ -19,13 +19,15 @@ import { readPilot } from './readPilotSpec.js';
 import { readPacContact } from './readPacContact.js';
 import { checkKineticInputs } from './checkKineticInputs.js';
 import { readUncertainty } from './readUncertaintySpec.js';
+import { readCalibrationTransfer } from './readCalibrationTransfer.js';
+import { readReportOnly } from './readCompoundGoalKey.js';
 
 const CALIBRATION_MODELS: readonly CalibrationModelName[] = ['ebc', 'sebc', 'fictive-k'];
 
 /** Validate a parsed project file. */
 export function validateProject(raw: unknown): ProjectSpec {
   const root = expectObject(raw, '$', 'a project');
-  onlyKeys(root, ['$schema', 'name', 'note', ...COVER_KEYS.map((k) => k[0]), 'site', 'background', 'carbons', 'compounds', 'goals', 'pilot', 'uncertainty'], '');
+  onlyKeys(root, ['$schema', 'name', 'note', ...COVER_KEYS.map((k) => k[0]), 'site', 'background', 'carbons', 'compounds', 'goals', 'pilot', 'uncertainty', 'calibration_transfer'], '');
   const name = expectString(required(root, 'name', '', 'the project name as text'), 'name', 'the project name as text');
   const site = readSite(required(root, 'site', '', 'the site object { name, flow, doc }'));
   const compounds = readCompounds(required(root, 'compounds', '', 'an array of compounds'));
@@ -39,6 +41,7 @@ export function validateProject(raw: unknown): ProjectSpec {
   if (cover) out.cover = cover;
   if (root.pilot !== undefined) out.pilot = readPilot(root.pilot, carbons);
   if (root.uncertainty !== undefined) out.uncertainty = readUncertainty(root.uncertainty);
+  if (root.calibration_transfer !== undefined) out.calibrationTransfer = readCalibrationTransfer(root.calibration_transfer, compounds);
   return out;
 }
 
@@ -80,7 +83,7 @@ function readCompounds(raw: unknown): CompoundSpec[] {
   return arr.map((c, i) => {
     const p = `compounds[${i}]`;
     const o = expectObject(c, p, 'a compound { id, name, K, one_over_n, c0 }');
-    onlyKeys(o, ['id', 'name', 'note', 'K', 'one_over_n', 'K_unit', 'molar_mass', 'c0', 'jar_tests', 'limit', 'indicator_category'], p);
+    onlyKeys(o, ['id', 'name', 'note', 'K', 'one_over_n', 'K_unit', 'molar_mass', 'c0', 'jar_tests', 'limit', 'indicator_category', 'goal'], p);
     required(o, 'id', p, 'a short text id such as "CBZ"');
     required(o, 'K', p, 'the single-solute Freundlich K as a number');
     const comp = readComponent(o, p, true);
@@ -107,6 +110,7 @@ function readCompounds(raw: unknown): CompoundSpec[] {
       }
       spec.jarTests = { file, model: model as CalibrationModelName };
     }
+    if (readReportOnly(o, p)) spec.reportOnly = true;
     if (o.limit !== undefined) spec.limitMgPerL = readLimit(o.limit, `${p}.limit`);
     if (o.indicator_category !== undefined) {
       if (o.indicator_category !== 1 && o.indicator_category !== 2) throw new InputError(`expected indicator category 1 or 2 (SR 814.201.231), got ${describeValue(o.indicator_category)}`, { path: `${p}.indicator_category` });

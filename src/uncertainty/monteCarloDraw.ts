@@ -20,6 +20,7 @@ import { ComputationError } from '../core/errors.js';
 import type { FreundlichComponent } from '../equilibrium/preparedMixture.js';
 import { designDose, type Design, type DesignProblem } from '../design/designDose.js';
 import { requiredDoseAt, type RequiredAtDoc } from '../design/requiredDoseAt.js';
+import { REPORT_ONLY_GOAL } from '../design/compoundGoal.js';
 import { seriesCarbon, seriesSegments, doseTable, type SeriesSegments } from '../design/doseTable.js';
 import { REMOVAL_MODELS } from '../design/removalModels.js';
 import type { RemovalModel, RemovalModelFactory } from '../design/removalModel.js';
@@ -67,12 +68,12 @@ export function compileDrawModel(problem: MonteCarloProblem): DrawModel {
   const factory = REMOVAL_MODELS[problem.model ?? 'equilibrium']!;
   const goals = problem.targets.map((t, i) => targetGoal(t, `targets[${i}]`));
   const design: DesignProblem = {
-    goals: goals.map((R, i) => ({ kind: 'removal' as const, removalFraction: R, text: `${(R * 100).toPrecision(4)} % removal of ${problem.targets[i]!.id}` })),
+    goals: goals.map((R, i) => (problem.targets[i]!.reportOnly === true ? REPORT_ONLY_GOAL : { kind: 'removal' as const, removalFraction: R, text: `${(R * 100).toPrecision(4)} % removal of ${problem.targets[i]!.id}` })),
     pricePerKg: problem.carbonPricePerKg ?? problem.yearly?.carbonPricePerKg ?? 0,
   };
   if (problem.indicator) design.indicator = { members: problem.indicator.members.map((m) => ({ ...m })), goalPercent: problem.indicator.goalPercent, ...(problem.indicator.chosen ? { chosen: problem.indicator.chosen.slice() } : {}) };
   if (problem.uv254AbsorbancePerM) design.uv254AbsorbancePerM = problem.uv254AbsorbancePerM;
-  const quantities: QuantityDef[] = problem.targets.map((t) => ({ key: `dose:${t.id}`, label: `dose for the goal of ${t.id}`, unit: 'mg/L' }));
+  const quantities: QuantityDef[] = problem.targets.map((t) => (t.reportOnly === true ? { key: `removal:${t.id}`, label: `removal of ${t.id} at the required dose (report only)`, unit: 'fraction' } : { key: `dose:${t.id}`, label: `dose for the goal of ${t.id}`, unit: 'mg/L' }));
   quantities.push({ key: 'governing_dose', label: 'required dose (governing goal)', unit: 'mg/L' });
   quantities.push({ key: 'doc_reduction', label: 'DOC reduction at the required dose', unit: 'fraction' });
   const index = { governing: T, docRed: T + 1, uv: -1, yearlyKg: -1, yearlyCost: -1, indicator: -1, costPerM3: -1 };
@@ -199,8 +200,12 @@ export function evaluateDraw(model: DrawModel, d: DrawnParameters, out: Float64A
   const T = p.targets.length;
   const removal = drawModel(model, d);
   const design: Design = designDose(removal, model.design, model.pointDesign);
-  for (let t = 0; t < T; t++) out[t] = orInfinity(design.compounds[t]!.doseMgPerL);
   const required = orInfinity(design.doseMgPerL);
+  for (let t = 0; t < T; t++) {
+    // a report-only compound: its removal at the required dose (none without a dose)
+    out[t] = p.targets[t]!.reportOnly !== true ? orInfinity(design.compounds[t]!.doseMgPerL)
+      : required === Infinity ? Infinity : required > 0 ? 1 - removal.remaining(t, required / 1000).remainingFraction : 0;
+  }
   out[model.index.governing] = required;
   if (model.index.indicator >= 0) out[model.index.indicator] = orInfinity(design.indicator?.doseMgPerL ?? null);
   const s = design.surrogate;

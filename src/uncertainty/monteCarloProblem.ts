@@ -20,6 +20,8 @@ export interface UncertainTarget {
   removalGoal?: number;
   /** Effluent limit, mg/L: the goal becomes R = 1 − limit/c0 (≤ 0 when the limit is at or above c0). */
   limitMgPerL?: number;
+  /** A report-only compound (no goal, never governing): its quantity is its removal at the required dose. */
+  reportOnly?: boolean;
   /** Relative SD of K (lognormal, median K). Default 0. */
   KRelSd?: number;
   /** Relative SD of 1/n (lognormal, median 1/n). Default 0. */
@@ -91,6 +93,7 @@ function positive(v: unknown, path: string, what: string): number {
 
 /** The removal goal of a target as a fraction. @throws InputError when absent or out of range. */
 export function targetGoal(t: UncertainTarget, path: string): number {
+  if (t.reportOnly === true) return 0;
   if (t.removalGoal !== undefined) {
     if (!(t.removalGoal < 1) || !Number.isFinite(t.removalGoal)) throw new InputError(`expected a removal goal below 1 (≤ 0 = met without carbon), got ${t.removalGoal}`, { path: `${path}.removalGoal` });
     return t.removalGoal;

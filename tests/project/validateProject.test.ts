@@ -71,7 +71,7 @@ const BAD: Array<[string, (p: any) => void, string, RegExp]> = [
   ['seed as text', (p) => { p.uncertainty.seed = 'abc'; }, 'uncertainty.seed', /whole-number seed/],
   ['seed above 2^32 − 1', (p) => { p.uncertainty.seed = 4294967296; }, 'uncertainty.seed', /whole-number seed/],
   ['relative SD of 3', (p) => { p.uncertainty.doc_rel_sd = 3; }, 'uncertainty.doc_rel_sd', /relative standard deviation of the DOC/],
-  ['one DOC level', (p) => { p.uncertainty.doc_levels = 1; }, 'uncertainty.doc_levels', /DOC levels from 2 to 50/],
+  ['retired doc_levels', (p) => { p.uncertainty.doc_levels = 4; }, 'uncertainty.doc_levels', /the key "doc_levels" is retired and no longer does anything: .*DOC nodes of the design layer's dose table.*remove the key/],
 ];
 
 describe('bad project files name the JSON path and what was expected', () => {
@@ -111,13 +111,13 @@ describe('bad project files name the JSON path and what was expected', () => {
   it('reads the pilot and uncertainty sections with their defaults (band 10 percentage points; relative SDs 0)', () => {
     const p = validateProject(demo);
     expect(p.pilot).toEqual({ file: 'pilot_pairs.csv', bandPercent: 10, carbon: 'Carbon A (coal-based)' });
-    expect(p.uncertainty).toMatchObject({ seed: 2026, KRelSd: 0.2, oneOverNRelSd: 0.05, docRelSd: 0.05, fractionRelSd: 0.1, backgroundKRelSd: 0, docLevels: 4 });
+    expect(p.uncertainty).toMatchObject({ seed: 2026, KRelSd: 0.2, oneOverNRelSd: 0.05, docRelSd: 0.05, fractionRelSd: 0.1, backgroundKRelSd: 0 });
     const q = clone(demo);
     q.pilot = { file: 'x.csv' };
     q.uncertainty = {};
     const v = validateProject(q);
     expect(v.pilot!.bandPercent).toBe(10);
-    expect(v.uncertainty).toEqual({ draws: 1000, seed: 1, KRelSd: 0, oneOverNRelSd: 0, docRelSd: 0, fractionRelSd: 0, backgroundKRelSd: 0, docLevels: 5 });
+    expect(v.uncertainty).toEqual({ draws: 1000, seed: 1, KRelSd: 0, oneOverNRelSd: 0, docRelSd: 0, fractionRelSd: 0, backgroundKRelSd: 0 });
   });
 
   it('a chosen indicator compound must have a category', () => {

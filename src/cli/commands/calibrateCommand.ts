@@ -3,7 +3,7 @@ import type { CommandContext, CommandSpec, OptionValues } from '../commandSpec.j
 import { InputError } from '../../core/errors.js';
 import type { CalibrationModel, CalibrationResult } from '../../calibration/calibrate.js';
 import { readCompoundFile } from '../../scenario/readMixture.js';
-import { readJsonFile, readTextFile } from '../../io/readFiles.js';
+import { readJsonFile } from '../../io/readFiles.js';
 import { fmt, fmtConc, fmtInput, fmtPercent, table } from '../format.js';
 import { emitJson, inFile } from './shared.js';
 import { TABLE_FORMAT_OPTIONS, tableFormat } from './tableFormatOptions.js';
@@ -114,8 +114,11 @@ async function kineticAction(file: string, opts: OptionValues, ctx: CommandConte
   const bgFile = opts.background as string;
   const bg = inFile(bgFile, () => readBackground(readJsonFile(bgFile, 'background file')));
   const background = bg.components.map((c) => ({ id: c.id, c0MgPerL: c.c0_mg_per_L, K: c.K, oneOverN: c.one_over_n }));
-  const text = readTextFile(file, 'kinetic test file');
-  const result = inFile(file, () => calibrateKinetics(text, {
+  const { readTableFile } = await import('../../io/readTableFile.js');
+  const { KINETIC_TARGET_COLUMNS, KINETIC_DOC_COLUMNS } = await import('../../calibration/kineticTestData.js');
+  const { table } = readTableFile(file, model === 'surface-diffusion' ? KINETIC_TARGET_COLUMNS : KINETIC_DOC_COLUMNS, 'kinetic test file', tableFormat(opts));
+  for (const note of table.notes ?? []) ctx.err(`sorbshare: note: ${note}\n`);
+  const result = inFile(file, () => calibrateKinetics(table, {
     model,
     ...(target ? { target } : {}),
     background,

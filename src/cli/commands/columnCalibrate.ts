@@ -7,7 +7,8 @@
 import { InputError } from '../../core/errors.js';
 import type { ColumnFitResult } from '../../calibration/columnFit.js';
 import type { FixedBedComponent } from '../../kinetics/fixedBedInput.js';
-import { readJsonFile, readTextFile } from '../../io/readFiles.js';
+import { readJsonFile } from '../../io/readFiles.js';
+import { tableFormat } from './tableFormatOptions.js';
 import { fmt, fmtCount, table } from '../format.js';
 import type { CommandContext, OptionValues } from '../commandSpec.js';
 import { emitJson, inFile } from './shared.js';
@@ -44,7 +45,11 @@ export async function calibrateColumnAction(file: string, opts: OptionValues, ct
     const bg = inFile(bgFile, () => backgroundComponents(readBackground(readJsonFile(bgFile, 'background file')), opts.doc as number | undefined));
     background = bg.map((c) => (c.K > 0 ? { ...c, dsM2PerS: opts.docDs as number, dlM2PerS: opts.docDl as number } : { ...c }));
   }
-  const data = inFile(file, () => readBreakthroughData(readTextFile(file, 'breakthrough file'), { file, ...(compound.c0MgPerL > 0 ? { c0MgPerL: compound.c0MgPerL } : {}) }));
+  const { readTableFile } = await import('../../io/readTableFile.js');
+  const { BREAKTHROUGH_COLUMNS } = await import('../../calibration/breakthroughData.js');
+  const { table } = readTableFile(file, BREAKTHROUGH_COLUMNS, 'breakthrough file', tableFormat(opts));
+  for (const note of table.notes ?? []) ctx.err(`sorbshare: note: ${note}\n`);
+  const data = inFile(file, () => readBreakthroughData(table, { file, ...(compound.c0MgPerL > 0 ? { c0MgPerL: compound.c0MgPerL } : {}) }));
   const c0 = data.c0MgPerL ?? (compound.c0MgPerL > 0 ? compound.c0MgPerL : undefined);
   if (c0 === undefined) throw new InputError('the target\'s feed concentration is unknown: give a "C0 (ng/L)" column in the data or "c0" in the compound file', { file: compoundFile, path: 'c0' });
   const target: FixedBedComponent = { id: compound.id, c0MgPerL: c0, K: compound.K, oneOverN: compound.oneOverN };

@@ -4,6 +4,7 @@
  * File references stay as written (paths relative to the project file); `loadProject` reads them.
  */
 import type { FreundlichComponent } from '../equilibrium/preparedMixture.js';
+import type { GacKineticsSpec } from './readGacKinetics.js';
 import type { IndicatorCategory } from '../indicators/indicatorRule.js';
 
 export interface SiteSpec {
@@ -55,6 +56,8 @@ export interface CarbonSpec {
   bedDensityKgPerM3?: number;
   /** GAC only: empty-bed contact time, min. */
   ebctMin?: number;
+  /** GAC only: fixed-bed inputs for the kinetic run length (src/project/readGacKinetics.ts). */
+  kinetics?: GacKineticsSpec;
 }
 
 export type CalibrationModelName = 'ebc' | 'sebc' | 'fictive-k';

@@ -7,6 +7,7 @@ import { InputError } from '../core/errors.js';
 import { readComponent } from '../scenario/readMixture.js';
 import { expectArray, expectNumber, expectObject, expectString, join, onlyKeys, required, describeValue } from '../scenario/jsonChecks.js';
 import type { CarbonIsotherm, CarbonSpec, CompoundSpec } from './projectTypes.js';
+import { readGacKinetics } from './readGacKinetics.js';
 
 export function readCarbons(raw: unknown, compounds: CompoundSpec[]): CarbonSpec[] {
   const arr = expectArray(raw, 'carbons', 'an array of candidate carbons', 1);
@@ -14,7 +15,7 @@ export function readCarbons(raw: unknown, compounds: CompoundSpec[]): CarbonSpec
   return arr.map((c, i) => {
     const p = `carbons[${i}]`;
     const o = expectObject(c, p, 'a carbon { name, type, price_per_kg, currency }');
-    onlyKeys(o, ['name', 'note', 'type', 'price_per_kg', 'currency', 'K_factor', 'isotherms', 'bed_density_kg_per_m3', 'ebct_min'], p);
+    onlyKeys(o, ['name', 'note', 'type', 'price_per_kg', 'currency', 'K_factor', 'isotherms', 'bed_density_kg_per_m3', 'ebct_min', 'kinetics'], p);
     const name = expectString(required(o, 'name', p, 'the carbon name as text'), `${p}.name`, 'the carbon name as text');
     if (names.has(name)) throw new InputError(`duplicate carbon name "${name}"; every carbon needs its own name`, { path: `${p}.name` });
     names.add(name);
@@ -47,6 +48,9 @@ export function readCarbons(raw: unknown, compounds: CompoundSpec[]): CarbonSpec
     if (type === 'GAC') {
       if (spec.bedDensityKgPerM3 === undefined) throw new InputError('missing "bed_density_kg_per_m3"; a GAC carbon needs its bed density in kg/m³', { path: `${p}.bed_density_kg_per_m3` });
       if (spec.ebctMin === undefined) throw new InputError('missing "ebct_min"; a GAC carbon needs its empty-bed contact time in minutes', { path: `${p}.ebct_min` });
+      if (o.kinetics !== undefined) spec.kinetics = readGacKinetics(o.kinetics, `${p}.kinetics`, spec.bedDensityKgPerM3, compounds);
+    } else if (o.kinetics !== undefined) {
+      throw new InputError('"kinetics" (the fixed-bed inputs) applies to GAC carbons only', { path: `${p}.kinetics` });
     }
     return spec;
   });

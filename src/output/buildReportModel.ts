@@ -17,6 +17,7 @@ import { coverLines } from './coverLines.js';
 import { calibrationPlot } from './calibrationPlots.js';
 import { fmtConcentration as fc, fmtMoney, fmtNumber as fn, fmtWhole } from './formatting.js';
 import type { CarbonResult, PipelineResult } from '../pipeline/pipelineTypes.js';
+import { gacBreakthroughSection } from './gacBreakthroughSection.js';
 import { gacSection, loadingPlot, pilotSection, surrogateSection, uncertaintySection } from './surrogateGacUncertaintySections.js';
 
 const pct = (x: number | null | undefined, sig = 4) => (x === null || x === undefined ? '—' : `${fn(x, sig)} %`);
@@ -206,7 +207,7 @@ export function buildReportModel(r: PipelineResult, version: string): ReportMode
   sections.push(comparisonSection(r));
   const decisions = decisionSection(r);
   if (decisions) sections.push(decisions);
-  for (const sec of [gacSection(r), yearSection(r), uncertaintySection(r)]) if (sec) sections.push(sec);
+  for (const sec of [gacSection(r), gacBreakthroughSection(r), yearSection(r), uncertaintySection(r)]) if (sec) sections.push(sec);
   sections.push(inputsSection(r));
   const model: ReportModel = {
     title: r.project.name,

@@ -14,7 +14,7 @@ import { validateAgainstSchema } from './jsonSchemaCheck.js';
 const root = join(__dirname, '../..');
 const schema = JSON.parse(readFileSync(join(root, 'schema/project.schema.json'), 'utf8'));
 const demo = JSON.parse(readFileSync(join(root, 'fixtures/demo/project.json'), 'utf8'));
-const clone = (): any => JSON.parse(JSON.stringify(demo)); // eslint-disable-line @typescript-eslint/no-explicit-any
+const clone = (): any => JSON.parse(JSON.stringify(demo));
 const GAC = 2; // the demo's GAC carbon
 
 describe('GAC fixed-bed inputs in a project', () => {
@@ -36,7 +36,7 @@ describe('GAC fixed-bed inputs in a project', () => {
     expect([k.porosity, k.filters, k.temperatureC]).toEqual([0.4, 1, 12]);
   });
 
-  const BAD: Array<[string, (k: any) => void, string, RegExp, boolean]> = [ // eslint-disable-line @typescript-eslint/no-explicit-any
+  const BAD: Array<[string, (k: any) => void, string, RegExp, boolean]> = [
     ['missing bed depth', (k) => { delete k.bed_depth; }, 'carbons[2].kinetics.bed_depth', /missing "bed_depth"/, true],
     ['missing grain radius', (k) => { delete k.particle_radius; }, 'carbons[2].kinetics.particle_radius', /missing "particle_radius"/, true],
     ['missing Ds of one compound', (k) => { delete k.Ds.HCT; }, 'carbons[2].kinetics.Ds.HCT', /surface diffusivity of "HCT"/, false],

@@ -144,7 +144,7 @@ function indicatorSection(r: PipelineResult): ReportSection | undefined {
 
 function comparisonSection(r: PipelineResult): ReportSection {
   const doc = r.project.site.docMgPerL;
-  const rows = r.carbons.map((cr) => [cr.carbon.name, cr.carbon.type, fmtMoney(cr.carbon.pricePerKg, cr.carbon.currency), mgL(cr.required?.doseMgPerL), cr.required?.doseMgPerL != null ? fn(cr.required.doseMgPerL / doc, 3) : '—', cr.required?.governedBy ?? (cr.gac ? 'GAC: see the GAC estimate' : '—'),
+  const rows = r.carbons.map((cr) => [cr.carbon.name, cr.carbon.type, fmtMoney(cr.carbon.pricePerKg, cr.carbon.currency), mgL(cr.required?.doseMgPerL), cr.required?.doseMgPerL != null ? fn(cr.required.doseMgPerL / doc, 3) : '—', cr.required?.governedBy ?? (cr.gacKinetic ? `GAC run: ${cr.gacKinetic.run.governedBy}` : cr.gac ? 'GAC: see the GAC estimate' : '—'),
     cr.costPerM3 !== undefined ? fmtMoney(cr.costPerM3, cr.carbon.currency) : '—', cr.yearly ? fn(cr.yearly.carbonKg / 1000, 3) : '—', cr.yearly ? fmtMoney(cr.yearly.cost, cr.carbon.currency) : '—', cr.yearly ? yearlyBasisText(cr) : '—',
     cr.daily?.dose ? fn(cr.daily.dose.median, 3) : '—', cr.daily?.dose ? fn(cr.daily.dose.p90, 3) : '—']);
   return {

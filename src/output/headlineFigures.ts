@@ -24,6 +24,7 @@ export function doseWithSpecific(doseMgPerL: number | null | undefined, docMgPer
 /** How the yearly figures were obtained, in words: a whole-year series, an annualised part-year series, or the design values. */
 export function yearlyBasisText(cr: CarbonResult): string {
   if (!cr.yearly) return '';
+  if (cr.gacKinetic) return 'GAC run length at the design DOC and flow × 365 days';
   if (cr.yearly.basis !== 'DOC series' || !cr.daily) return 'design DOC and flow × 365 days';
   const n = cr.daily.rows.length;
   return n === 365 || n === 366 ? `DOC series, ${n} days` : `annualised: ${n}-day DOC series scaled to 365 days`;

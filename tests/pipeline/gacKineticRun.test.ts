@@ -87,7 +87,12 @@ describe('GAC kinetic run length in the run', () => {
     expect(h.value).toMatch(/ d$/);
     expect(h.note).toMatch(/equilibrium estimate .* a reference, not a bound/);
     expect(h.note).toContain(`governed by ${k.run.governedBy}`);
-    expect(buildReportModel(r, 'test').keyFigures.some((f) => f.label === `${carbon.name}: run length`)).toBe(true);
+    const model = buildReportModel(r, 'test');
+    expect(model.keyFigures.some((f) => f.label === `${carbon.name}: run length`)).toBe(true);
+    // the carbons table names what governs the GAC run and the basis of its yearly figures
+    const row = model.sections.find((s) => s.id === 'carbons')!.tables![0]!.rows.find((x) => x[0] === carbon.name)!;
+    expect(row).toContain(`GAC run: ${k.run.governedBy}`);
+    expect(row).toContain('GAC run length at the design DOC and flow × 365 days');
   });
 
   it('"carbons side by side" and the cheapest carbon include the GAC', () => {

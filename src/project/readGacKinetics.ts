@@ -12,7 +12,7 @@
  *
  * Each diffusivity is a number in m²/s or a text with its unit; lengths in m, density in kg/m³.
  * Defaults: porosity 0.4 (DEFAULT_BED_POROSITY, common practice), grain density = bed density/(1 − ε)
- * (ρ_bed = ρp·(1 − ε), DESIGN.md "Fixed bed"), 1 filter, 12 °C (common practice). A given grain
+ * (ρ_bed = ρp·(1 − ε), the bed as a packing of grains), 1 filter, 12 °C (common practice). A given grain
  * density must agree with the bed density and porosity within 2 %. Every compound needs its Ds
  * and DL or kf; the DOC components need doc_Ds and doc_DL or doc_kf.
  * @throws InputError naming the JSON path (carbons[i].kinetics.Ds.CBZ, …) and what was expected

@@ -2,7 +2,7 @@
  * A GAC carbon's fixed-bed inputs (carbons[i].kinetics) in project validation: the hand validator
  * (src/project/readGacKinetics.ts) names the JSON path of every missing or bad quantity, and the
  * schema (schema/project.schema.json, checked with Ajv) rejects what JSON Schema can express.
- * Expected values: the project's own rules (DESIGN.md "Fixed bed": ρ_bed = ρp·(1 − ε)).
+ * Expected values: the project's own rules (closed form: bed density ρ_bed = ρp·(1 − ε)).
  */
 import { describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';

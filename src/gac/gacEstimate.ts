@@ -24,9 +24,13 @@ import { InputError } from '../core/errors.js';
 import { prepareMixture, type FreundlichComponent } from '../equilibrium/preparedMixture.js';
 import { directIastPrepared } from '../equilibrium/iastDirect.js';
 
-/** The caution every GAC equilibrium estimate carries: it is an upper bound on bed life. */
+/**
+ * What the equilibrium estimate is and is not. Not always an upper bound: a target weaker than the
+ * strongest DOC fraction is displaced in a fixed bed and can break through after it (seen in the
+ * fixed-bed model, src/kinetics/fixedBed.ts), and staggered filters run past a single bed.
+ */
 export const GAC_UPPER_BOUND_CAUTION =
-  'Equilibrium estimate, an upper bound: preloading by DOC and adsorption kinetics make real beds break through far earlier; confirm with rapid small-scale column tests or pilot columns.';
+  'Equilibrium estimate, a reference and not a bound: preloading by DOC and adsorption kinetics usually make a single bed break through far earlier, but a compound weaker than the strongest DOC fraction can be displaced and break through after it; confirm with rapid small-scale column tests or pilot columns.';
 
 export interface GacInput {
   /** Target compounds at their feed concentrations (c0MgPerL > 0, K > 0). */

@@ -19,6 +19,7 @@ import { calibrationPlot } from './calibrationPlots.js';
 import { contactSection } from './contactPlots.js';
 import { fmtConcentration as fc, fmtMoney, fmtNumber as fn, fmtWhole } from './formatting.js';
 import type { CarbonResult, PipelineResult } from '../pipeline/pipelineTypes.js';
+import { gacBreakthroughSection } from './gacBreakthroughSection.js';
 import { gacSection, loadingPlot, pilotSection, surrogateSection, uncertaintySection } from './surrogateGacUncertaintySections.js';
 import { transferNote } from '../pipeline/calibrationTransfer.js';
 import { transferRows } from './transferRows.js';
@@ -147,7 +148,7 @@ function indicatorSection(r: PipelineResult): ReportSection | undefined {
 
 function comparisonSection(r: PipelineResult): ReportSection {
   const doc = r.project.site.docMgPerL;
-  const rows = r.carbons.map((cr) => [cr.carbon.name, cr.carbon.type, fmtMoney(cr.carbon.pricePerKg, cr.carbon.currency), mgL(cr.required?.doseMgPerL), cr.required?.doseMgPerL != null ? fn(cr.required.doseMgPerL / doc, 3) : '—', cr.required?.governedBy ?? (cr.gac ? 'GAC: see the GAC estimate' : '—'),
+  const rows = r.carbons.map((cr) => [cr.carbon.name, cr.carbon.type, fmtMoney(cr.carbon.pricePerKg, cr.carbon.currency), mgL(cr.required?.doseMgPerL), cr.required?.doseMgPerL != null ? fn(cr.required.doseMgPerL / doc, 3) : '—', cr.required?.governedBy ?? (cr.gacKinetic ? `GAC run: ${cr.gacKinetic.run.governedBy}` : cr.gac ? 'GAC: see the GAC estimate' : '—'),
     cr.costPerM3 !== undefined ? fmtMoney(cr.costPerM3, cr.carbon.currency) : '—', cr.yearly ? fn(cr.yearly.carbonKg / 1000, 3) : '—', cr.yearly ? fmtMoney(cr.yearly.cost, cr.carbon.currency) : '—', cr.yearly ? yearlyBasisText(cr) : '—',
     cr.daily?.dose ? fn(cr.daily.dose.median, 3) : '—', cr.daily?.dose ? fn(cr.daily.dose.p90, 3) : '—']);
   return {
@@ -213,7 +214,7 @@ export function buildReportModel(r: PipelineResult, version: string): ReportMode
   sections.push(comparisonSection(r));
   const decisions = decisionSection(r);
   if (decisions) sections.push(decisions);
-  for (const sec of [gacSection(r), yearSection(r), uncertaintySection(r)]) if (sec) sections.push(sec);
+  for (const sec of [gacSection(r), gacBreakthroughSection(r), yearSection(r), uncertaintySection(r)]) if (sec) sections.push(sec);
   sections.push(inputsSection(r));
   const model: ReportModel = {
     title: r.project.name,

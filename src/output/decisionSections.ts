@@ -6,7 +6,7 @@
  */
 import type { BarPlotSpec, PlotSpec, ReportSection, ReportTable, TornadoPlotSpec } from './reportModel.js';
 import { fmtFixed, fmtMoney, fmtNumber as fn } from './formatting.js';
-import { pacGacComparison } from './pacGacComparison.js';
+import { gacBasisNote, pacGacComparison } from './pacGacComparison.js';
 import type { PipelineResult } from '../pipeline/pipelineTypes.js';
 import type { Sensitivity } from '../pipeline/sensitivityStep.js';
 
@@ -95,13 +95,13 @@ export function decisionSection(r: PipelineResult): ReportSection | undefined {
       plots.push(bars(`pac-gac-cost-year${suffix}`, `Carbon cost per year (${cur})`, `${cur} per year`, rows.map((x) => x.carbonName), rows.map((x) => x.costPerYear ?? NaN)));
     }
     tables.push({
-      caption: 'PAC against GAC: carbon per year and carbon cost (carbon only; GAC from the equilibrium estimate, a lower bound on carbon)',
+      caption: `PAC against GAC: carbon per year and carbon cost (carbon only; ${gacBasisNote(r.carbons)})`,
       columns: ['carbon', 'type', 'carbon (t/a)', 'cost per m³', 'cost per year', 'basis'],
       rows: cmp.rows.map((x) => [x.carbonName, x.type, x.carbonTonnesPerYear === null ? '—' : fn(x.carbonTonnesPerYear, 3), x.costPerM3 === null ? '—' : fmtMoney(x.costPerM3, x.currency), x.costPerYear === null ? '—' : fmtMoney(x.costPerYear, x.currency), x.basis]),
     });
     paragraphs.push(cmp.cheapestByCurrency.length
-      ? `Lowest carbon cost per year: ${cmp.cheapestByCurrency.map((c) => `${c.carbonName} among the ${c.of} carbons priced in ${c.currency}`).join('; ')}. Carbons priced in different currencies are not ranked against each other. GAC figures rest on an equilibrium bed life, an upper bound: real GAC needs more carbon.`
-      : 'No two carbons share a currency; they are not ranked. GAC figures rest on an equilibrium bed life, an upper bound: real GAC needs more carbon.');
+      ? `Lowest carbon cost per year: ${cmp.cheapestByCurrency.map((c) => `${c.carbonName} among the ${c.of} carbons priced in ${c.currency}`).join('; ')}. Carbons priced in different currencies are not ranked against each other. GAC: ${gacBasisNote(r.carbons)}.`
+      : `No two carbons share a currency; they are not ranked. GAC: ${gacBasisNote(r.carbons)}.`);
   }
   return { id: 'decisions', heading: 'Decision figures: specific dose, DOC, sensitivity, PAC against GAC', paragraphs, tables, plots };
 }

@@ -8,6 +8,7 @@
 import type { KeyFigure } from './reportModel.js';
 import { fmtMoney, fmtNumber as fn, fmtWhole } from './formatting.js';
 import { pacGacComparison } from './pacGacComparison.js';
+import { gacHeadline } from './gacHeadline.js';
 import type { CarbonResult, PipelineResult } from '../pipeline/pipelineTypes.js';
 import { specificDose } from '../design/specificDose.js';
 
@@ -23,6 +24,7 @@ export function doseWithSpecific(doseMgPerL: number | null | undefined, docMgPer
 /** How the yearly figures were obtained, in words: a whole-year series, an annualised part-year series, or the design values. */
 export function yearlyBasisText(cr: CarbonResult): string {
   if (!cr.yearly) return '';
+  if (cr.gacKinetic) return 'GAC run length at the design DOC and flow × 365 days';
   if (cr.yearly.basis !== 'DOC series' || !cr.daily) return 'design DOC and flow × 365 days';
   const n = cr.daily.rows.length;
   return n === 365 || n === 366 ? `DOC series, ${n} days` : `annualised: ${n}-day DOC series scaled to 365 days`;
@@ -64,16 +66,13 @@ export function headlineFigures(r: PipelineResult): KeyFigure[] {
       figs.push({ label: `${cr.carbon.name}: carbon per year`, value: `${fmtWhole(cr.yearly.carbonKg / 1000)} t`, note: `${fmtMoney(cr.yearly.cost, cr.carbon.currency)} per year (${yearlyBasisText(cr)})${ycBand}` });
     }
   }
-  const cheapest = pacGacComparison(pac).cheapestByCurrency;
-  for (const c of cheapest) figs.push({ label: `Lowest yearly carbon cost (${c.currency})`, value: c.carbonName, note: `among the ${c.of} PAC carbons priced in ${c.currency}; carbon cost only` });
+  const cheapest = pacGacComparison(r.carbons.filter((c) => c.required || c.gacKinetic)).cheapestByCurrency;
+  for (const c of cheapest) figs.push({ label: `Lowest yearly carbon cost (${c.currency})`, value: c.carbonName, note: `among the ${c.of} carbons priced in ${c.currency} (PAC, and GAC with a kinetic run length); carbon cost only` });
   const sp = pac.find((c) => c.surrogates?.atRequiredDose?.uv254Reduction != null);
   if (sp) figs.push({ label: 'UV254 set-point', value: pct(sp.surrogates!.atRequiredDose!.uv254Reduction! * 100, 3), note: `UV254 reduction to dose to with ${sp.carbon.name} (required dose ${mgL(sp.surrogates!.atRequiredDose!.doseMgPerL)}, governed by ${sp.surrogates!.atRequiredDose!.governedBy})` });
   const first = pac[0];
   if (first?.indicator) figs.push({ label: 'Indicator mean', value: pct(first.indicator.set.meanRemovalPercent, 3), note: `${first.carbon.name} at ${doseWithSpecific(first.indicator.doseMgPerL, r.project.site.docMgPerL)}; goal ${first.indicator.goalPercent} % ${first.indicator.met ? 'met' : 'NOT met'}; ${first.indicator.set.admissible ? 'admissible set' : `not admissible: ${first.indicator.set.reason}`}` });
-  for (const cr of r.carbons.filter((c) => c.gac)) {
-    const g = cr.gac!.governing;
-    figs.push({ label: `${cr.carbon.name}: bed life`, value: g.lifeDays !== undefined ? `≤ ${fn(g.lifeDays, 3)} d` : `≤ ${fmtWhole(g.bedVolumes)} BV`, note: `equilibrium upper bound: ${fmtWhole(g.bedVolumes)} bed volumes, governed by ${g.id}; preloading and kinetics shorten real runs` });
-  }
+  for (const cr of r.carbons) { const h = gacHeadline(cr); if (h) figs.push(h); }
   if (r.pilot) figs.push({ label: 'Pilot check', value: r.pilot.check.outlierCompounds.length === 0 ? 'all within band' : r.pilot.check.outlierCompounds.length <= 3 ? `${r.pilot.check.outlierCompounds.join(', ')} off` : `${r.pilot.check.outlierCompounds.length} compounds off`, note: r.pilot.check.outlierCompounds.length ? `outside ±${r.pilot.bandPercent} percentage points: ${r.pilot.check.outlierCompounds.join(', ')}` : `±${r.pilot.bandPercent} percentage points` });
   return figs;
 }

@@ -62,7 +62,7 @@ export function carbonsCsv(r: PipelineResult): string {
     const ind = cr.indicator;
     return [
       cr.carbon.name, cr.carbon.type, cr.carbon.pricePerKg, cr.carbon.currency, cr.carbon.kFactor,
-      req?.doseMgPerL, req?.governedBy, req?.governing?.compoundId, req?.governing?.doseMgPerL, req?.indicator?.doseMgPerL,
+      req?.doseMgPerL, req?.governedBy ?? cr.gacKinetic?.run.governedBy, req?.governing?.compoundId, req?.governing?.doseMgPerL, req?.indicator?.doseMgPerL,
       cr.costPerM3, cr.carbonKgPerDAtDesign, cr.yearly?.carbonKg, cr.yearly?.cost, cr.yearly?.basis,
       cr.daily?.dose?.median, cr.daily?.dose?.p90, cr.daily?.carbonKgPerD?.median, cr.daily?.carbonKgPerD?.p90,
       cr.designDoseMgPerL, ind?.set.meanRemovalPercent, ind ? (ind.set.admissible ? 'yes' : 'no') : null, ind?.range?.best.meanRemovalPercent, ind?.range?.worst.meanRemovalPercent,

@@ -7,6 +7,7 @@
 import { systemComponents } from '../pipeline/competitionSystem.js';
 import type { PipelineResult } from '../pipeline/pipelineTypes.js';
 import { CI_TO_SD_NOTE } from '../pipeline/uncertaintyStep.js';
+import { gacKineticRecord } from './gacRunJson.js';
 import type { ProjectSpec } from '../project/projectTypes.js';
 import { contactRecord } from './contactRecord.js';
 import { toSnakeCaseJson, userIdMap } from './snakeCaseJson.js';
@@ -99,6 +100,7 @@ export function runRecord(r: PipelineResult, env: RunEnvironment): Record<string
         } : null,
         gac: cr.gac ?? null,
         ...(cr.contact ? { contact: contactRecord(cr) } : {}),
+        gac_kinetic: gacKineticRecord(cr),
         monte_carlo: cr.uncertainty ? {
           parameters: cr.uncertainty.parameters, excluded: cr.uncertainty.excluded, ci_to_sd: CI_TO_SD_NOTE,
           result: cr.uncertainty.result, governing_removal_band: cr.uncertainty.governingCurve ?? null, governing_dose_ratio: cr.uncertainty.governingDoseRatio ?? null,

@@ -111,21 +111,21 @@ export function pilotSection(r: PipelineResult): ReportSection | undefined {
   };
 }
 
-/** GAC equilibrium estimate per GAC carbon: an upper bound. */
+/** GAC equilibrium estimate per GAC carbon: a reference (GAC_UPPER_BOUND_CAUTION). */
 export function gacSection(r: PipelineResult): ReportSection | undefined {
   const withG = r.carbons.filter((c) => c.gac);
   if (withG.length === 0) return undefined;
   const paragraphs = ['Equilibrium column estimate: bed volumes BV = ρ_bed·q/c0 and carbon usage rate c0/q, with q in equilibrium with the feed (direct IAST of the compound with its competitors at the design DOC); single-solute beside it. Operating life = BV × EBCT.'];
   const tables: ReportTable[] = withG.map((cr) => {
     const g = cr.gac!;
-    paragraphs.push(`${cr.carbon.name}: bed density ${fn(g.bedDensityKgPerM3, 3)} kg/m³, EBCT ${fn(g.ebctMin, 3)} min${g.estimate.bedVolumeM3 !== undefined ? `, bed ${fmtWhole(g.estimate.bedVolumeM3)} m³ holding ${fn(g.estimate.bedCarbonTonnes!, 3)} t of carbon at ${fmtWhole(g.flowM3PerD)} m³/d` : ''}. Governing: ${g.governing.id}, at most ${fmtWhole(g.governing.bedVolumes)} bed volumes (${fn(g.governing.lifeDays ?? NaN, 3)} days), at least ${fn(g.governing.carbonUsageGPerM3, 3)} g/m³ — ${fmtWhole(g.governing.carbonTonnesPerYear ?? 0)} t/a, ${fmtMoney(g.yearlyCost, g.currency)} per year as a lower bound.`);
+    paragraphs.push(`${cr.carbon.name}: bed density ${fn(g.bedDensityKgPerM3, 3)} kg/m³, EBCT ${fn(g.ebctMin, 3)} min${g.estimate.bedVolumeM3 !== undefined ? `, bed ${fmtWhole(g.estimate.bedVolumeM3)} m³ holding ${fn(g.estimate.bedCarbonTonnes!, 3)} t of carbon at ${fmtWhole(g.flowM3PerD)} m³/d` : ''}. Governing: ${g.governing.id}, ${fmtWhole(g.governing.bedVolumes)} bed volumes (${fn(g.governing.lifeDays ?? NaN, 3)} days), ${fn(g.governing.carbonUsageGPerM3, 3)} g/m³ — ${fmtWhole(g.governing.carbonTonnesPerYear ?? 0)} t/a, ${fmtMoney(g.yearlyCost, g.currency)} per year at equilibrium (a reference, not a bound).`);
     return {
-      caption: `${cr.carbon.name} — upper bound (equilibrium)`,
+      caption: `${cr.carbon.name} — equilibrium estimate (a reference, not a bound)`,
       columns: ['compound', 'c0', 'q (mg/g)', 'q single (mg/g)', 'bed volumes', 'BV single', 'usage (g/m³)', 'life (d)', 'carbon (t/a)', 'role'],
       rows: g.estimate.targets.map((t) => [t.id, fc(t.c0MgPerL), fn(t.qCompetitiveMgPerG, 3), fn(t.qSingleMgPerG, 3), fmtWhole(t.bedVolumes), fmtWhole(t.bedVolumesSingleSolute), fn(t.carbonUsageGPerM3, 3), t.lifeDays !== undefined ? fn(t.lifeDays, 3) : '—', t.carbonTonnesPerYear !== undefined ? fn(t.carbonTonnesPerYear, 3) : '—', t.id === g.governing.id ? 'governing' : '']),
     };
   });
-  return { id: 'gac', heading: 'GAC estimate (equilibrium, an upper bound)', paragraphs, tables, warnings: [GAC_UPPER_BOUND_CAUTION] };
+  return { id: 'gac', heading: 'GAC estimate (equilibrium, a reference)', paragraphs, tables, warnings: [GAC_UPPER_BOUND_CAUTION] };
 }
 
 /** Monte Carlo settings, parameters, percentiles and the removal band of the governing compound. */

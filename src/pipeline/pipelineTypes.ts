@@ -20,6 +20,7 @@ import type { Design } from '../design/designDose.js';
 import type { SurrogateResult } from './surrogateStep.js';
 import type { PilotStepResult } from './pilotStep.js';
 import type { GacStepResult } from './gacStep.js';
+import type { GacKineticResult } from './gacKineticStep.js';
 import type { DoseAgainstDoc } from './doseAgainstDocStep.js';
 import type { Sensitivity } from './sensitivityStep.js';
 import type { CarbonUncertainty, UncertaintySettings } from './uncertaintyTypes.js';
@@ -103,6 +104,8 @@ export interface CarbonResult {
   surrogates?: SurrogateResult;
   /** GAC equilibrium estimate (GAC carbons; an upper bound). */
   gac?: GacStepResult;
+  /** GAC kinetic run length of the staggered filters (GAC carbons with "kinetics"). */
+  gacKinetic?: GacKineticResult;
   /** Monte Carlo percentiles (PAC; runPipelineWithUncertainty only). */
   uncertainty?: CarbonUncertainty;
   /** Required dose against DOC beside the constant-specific-dose rule (PAC with a reachable dose). */

@@ -34,6 +34,8 @@ import { fmtConcentration } from '../units/formatQuantity.js';
 import { surrogateModel, surrogateStep } from './surrogateStep.js';
 import { pilotStep, type PilotStepResult } from './pilotStep.js';
 import { gacStep } from './gacStep.js';
+import { gacKineticStep } from './gacKineticStep.js';
+import { gacKineticFigures } from './gacKineticFigures.js';
 import { sweepCovering } from '../design/sweepCovering.js';
 import { docRange, doseAgainstDocStep } from './doseAgainstDocStep.js';
 import { sensitivityStep } from './sensitivityStep.js';
@@ -95,6 +97,12 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
       progress({ step: `${carbon.name}: GAC estimate`, done: ci, total: project.carbons.length });
       res.gac = timed('GAC', () => gacStep(carbon, systems, doc, project.site.flowM3PerD));
       res.warnings.push(`GAC: ${GAC_UPPER_BOUND_CAUTION}`);
+      if (carbon.bedKinetics) {
+        progress({ step: `${carbon.name}: GAC breakthrough`, done: ci, total: project.carbons.length });
+        const kin = timed('GAC breakthrough', () => gacKineticStep(project, ci, carbon, systems, bg.background, goals, res.gac!));
+        res.gacKinetic = kin;
+        res.warnings.push(...gacKineticFigures(res, kin));
+      }
       return res;
     }
     const problem = designProblem(project, carbon, goalList, bg);

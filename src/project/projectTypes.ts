@@ -4,6 +4,7 @@
  * File references stay as written (paths relative to the project file); `loadProject` reads them.
  */
 import type { FreundlichComponent } from '../equilibrium/preparedMixture.js';
+import type { GacKineticsSpec } from './readGacKinetics.js';
 import type { IndicatorCategory } from '../indicators/indicatorRule.js';
 import type { PacContactSpec } from './readPacContact.js';
 import type { CarbonKinetics } from './readCarbonKinetics.js';
@@ -61,6 +62,8 @@ export interface CarbonSpec {
   ebctMin?: number;
   /** PAC only: particle data and diffusivities (readCarbonKinetics.ts). */
   kinetics?: CarbonKinetics;
+  /** GAC only: fixed-bed inputs for the kinetic run length, from the carbon's "kinetics" (src/project/readGacKinetics.ts). */
+  bedKinetics?: GacKineticsSpec;
 }
 
 export type CalibrationModelName = 'ebc' | 'sebc' | 'fictive-k';

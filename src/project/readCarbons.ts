@@ -8,6 +8,7 @@ import { readComponent } from '../scenario/readMixture.js';
 import { expectArray, expectNumber, expectObject, expectString, join, onlyKeys, required, describeValue } from '../scenario/jsonChecks.js';
 import { readCarbonKinetics } from './readCarbonKinetics.js';
 import type { CarbonIsotherm, CarbonSpec, CompoundSpec } from './projectTypes.js';
+import { readGacKinetics } from './readGacKinetics.js';
 
 export function readCarbons(raw: unknown, compounds: CompoundSpec[]): CarbonSpec[] {
   const arr = expectArray(raw, 'carbons', 'an array of candidate carbons', 1);
@@ -45,13 +46,13 @@ export function readCarbons(raw: unknown, compounds: CompoundSpec[]): CarbonSpec
     }
     if (o.bed_density_kg_per_m3 !== undefined) spec.bedDensityKgPerM3 = expectNumber(o.bed_density_kg_per_m3, `${p}.bed_density_kg_per_m3`, 'a positive bed density in kg/m³', (x) => x > 0);
     if (o.ebct_min !== undefined) spec.ebctMin = expectNumber(o.ebct_min, `${p}.ebct_min`, 'a positive empty-bed contact time in minutes', (x) => x > 0);
-    if (o.kinetics !== undefined) {
-      if (type !== 'PAC') throw new InputError('kinetic data belong to a PAC carbon (its contact kinetics); remove "kinetics" from this GAC carbon', { path: `${p}.kinetics` });
-      spec.kinetics = readCarbonKinetics(o.kinetics, `${p}.kinetics`, compounds.map((x) => x.id));
-    }
     if (type === 'GAC') {
       if (spec.bedDensityKgPerM3 === undefined) throw new InputError('missing "bed_density_kg_per_m3"; a GAC carbon needs its bed density in kg/m³', { path: `${p}.bed_density_kg_per_m3` });
       if (spec.ebctMin === undefined) throw new InputError('missing "ebct_min"; a GAC carbon needs its empty-bed contact time in minutes', { path: `${p}.ebct_min` });
+      // a GAC carbon's "kinetics" are its fixed-bed inputs; a PAC carbon's are its particle data
+      if (o.kinetics !== undefined) spec.bedKinetics = readGacKinetics(o.kinetics, `${p}.kinetics`, spec.bedDensityKgPerM3, compounds);
+    } else if (o.kinetics !== undefined) {
+      spec.kinetics = readCarbonKinetics(o.kinetics, `${p}.kinetics`, compounds.map((x) => x.id));
     }
     return spec;
   });

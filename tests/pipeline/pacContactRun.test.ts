@@ -2,8 +2,8 @@
  * The whole job under the plant's PAC contact conditions, in process with small kinetic settings
  * (4 interior collocation points, rtol 1e-4: the kinetic core is being made faster on another
  * branch; these settings keep the test to seconds). Checks: the required dose under contact is at
- * least the equilibrium dose (contact leaves less removal at every dose than equilibrium, DESIGN.md
- * Kinetics: the long-time limit is the batch equilibrium), the ratio is reported, run.json carries
+ * least the equilibrium dose (contact leaves less removal at every dose than equilibrium; in the kinetic model
+ * the long-time limit is the batch equilibrium), the ratio is reported, run.json carries
  * the contact figures, and `equilibrium` contact leaves the run exactly as before.
  */
 import { describe, expect, it } from 'vitest';
@@ -86,7 +86,7 @@ describe('run under PAC contact conditions', () => {
     expect(k.compoundId).toBe(cr.required!.governing!.compoundId);
     expect(k.requiredDoseMgPerL).toBe(cr.required!.doseMgPerL);
     const rising = (xs: number[]) => xs.every((x, i) => i === 0 || x >= xs[i - 1]! - 1e-6);
-    expect(rising(k.time.removalPercent)).toBe(true); // removal rises with contact time (DESIGN.md Kinetics)
+    expect(rising(k.time.removalPercent)).toBe(true); // removal rises with contact time
     expect(rising(k.carbonAge.removalPercent)).toBe(true); // and with carbon age
     expect(k.carbonAge.carbonAgesS[0]).toBe(1800); // from θ = τ (no recirculation)
     // at the plant's 30 min the batch curve gives the goal (80 %) at the required dose, within the solver's tolerance (rtol 1e-4)
@@ -129,7 +129,7 @@ describe('run in a stirred contact tank: what recirculation buys', () => {
     };
     const noRecirculation = dose(1800);
     const threeDays = dose(3 * 86400);
-    // removal rises with carbon age at every dose (DESIGN.md Kinetics), so the dose for the goal falls
+    // removal rises with carbon age at every dose, so the dose for the goal falls
     expect(threeDays.req).toBeLessThan(noRecirculation.req);
     // contact never removes more than equilibrium (the stirred reactor tends to it as θ grows)
     expect(threeDays.req).toBeGreaterThanOrEqual(threeDays.eq);

@@ -38,7 +38,7 @@ describe('surrogates under contact conditions', () => {
       expect(cr.required!.doseMgPerL!).toBeGreaterThanOrEqual(cr.contact!.equilibriumDoseMgPerL!);
       expect(cr.contact!.equilibriumDoseMgPerL).toBe(plain.carbons[i]!.required!.doseMgPerL);
       // the equilibrium DOC and UV254 reduction at the same dose (batch IAST of the same background):
-      // contact leaves more DOC in the water at a dose than equilibrium (DESIGN.md Kinetics)
+      // contact leaves more DOC in the water at a dose than equilibrium
       const eq = surrogatesAtDose(cr.surrogates!.model, s.doseMgPerL);
       expect(s.docReduction).toBeGreaterThan(0);
       expect(s.docReduction).toBeLessThan(eq.docReduction);

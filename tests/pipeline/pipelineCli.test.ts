@@ -28,7 +28,11 @@ describe('sorbshare demo', () => {
       expect(s.carbons).toHaveLength(3);
       expect(s.carbons[0].governing_compound).toBe('HCT');
       expect(s.carbons[2].type).toBe('GAC');
-      expect(s.carbons[2].gac.upper_bound).toBe(true);
+      // the demo's GAC carbon has fixed-bed inputs: the kinetic run length, the equilibrium bed volumes beside it
+      expect(s.carbons[2].gac.upper_bound).toBe(false);
+      expect(s.carbons[2].gac.run_bed_volumes).toBeGreaterThan(0);
+      expect(s.carbons[2].gac.equilibrium_bed_volumes).toBeGreaterThan(0);
+      expect(s.carbons[2].cost_per_m3).toBeGreaterThan(0);
       expect(s.carbons[0].monte_carlo.draws).toBeGreaterThan(0);
       expect(s.pilot_outliers).toEqual(['DCF']); // the demo's pilot data put diclofenac deliberately off (fixtures/demo/README.md)
       expect(readdirSync(out).sort()).toEqual([...FILES].sort());

@@ -118,7 +118,12 @@ describe('PAC against GAC', () => {
     expect(cmp.rows.map((x) => x.type)).toEqual(['PAC', 'PAC', 'GAC']);
     const gac = r.carbons.find((c) => c.gac)!;
     const g = cmp.rows[2]!;
-    expect(g.costPerM3!).toBeCloseTo((gac.gac!.governing.carbonUsageGPerM3 / 1000) * gac.carbon.pricePerKg, 12);
+    // the demo's GAC has fixed-bed inputs: cost per m³ = ρ_bed/BV_run × price (closed-form mass balance)
+    expect(g.costPerM3!).toBeCloseTo((gac.carbon.bedDensityKgPerM3! / gac.gacKinetic!.run.runBedVolumes!) * gac.carbon.pricePerKg, 12);
+    // without them, from the equilibrium carbon usage: usage (g/m³)/1000 × price
+    const { gacKinetic: _k, ...equilibriumOnly } = gac;
+    const e = pacGacComparison([equilibriumOnly]).rows[0]!;
+    expect(e.costPerM3!).toBeCloseTo((gac.gac!.governing.carbonUsageGPerM3 / 1000) * gac.carbon.pricePerKg, 12);
     expect(cmp.cheapestByCurrency).toHaveLength(1);
     const mixed = r.carbons.map((c, i) => (i === 0 ? { ...c, carbon: { ...c.carbon, currency: 'CHF' } } : c));
     const m = pacGacComparison(mixed);

@@ -47,6 +47,7 @@ describe('every CSV of a run with hostile names', () => {
       p.pilot.carbon = p.carbons[0].name;
       p.compounds[3].id = '=CLA';
       p.compounds[4].id = '-VEN';
+      for (const m of [p.carbons[2].kinetics.Ds, p.carbons[2].kinetics.DL]) { m['=CLA'] = m.CLA; m['-VEN'] = m.VEN; delete m.CLA; delete m.VEN; } // the GAC's fixed-bed inputs follow the renamed ids
       p.compounds[5].name = '\u2066@hydrochlorothiazide\u2069';
       writeFileSync(join(dir, 'project.json'), JSON.stringify(p));
       writeFileSync(join(dir, 'pilot_pairs.csv'), readFileSync(join(dir, 'pilot_pairs.csv'), 'utf8').replace(/\nP1,/, '\n=P1,').replace(/\nP2,/, '\n"+P2",'));

@@ -17,6 +17,7 @@ import { VERSION } from '../../version.js';
 import { fmt, fmtCount, table } from '../format.js';
 import { contactSummary, type ContactSummaryJson } from '../../output/contactRecord.js';
 import { snakeCaseJsonText } from '../../output/snakeCaseJson.js';
+import { gacSummaryJson, gacSummaryLine, type GacSummaryJson } from '../../output/gacRunJson.js';
 
 /** A progress callback that prints a line once a step has run for more than a second. */
 export function progressPrinter(ctx: CommandContext, thresholdMs = 1000): { onProgress: (e: ProgressEvent) => void; done: () => void } {
@@ -50,8 +51,8 @@ export interface RunSummaryJson {
     uv254_setpoint_percent: number | null;
     /** Monte Carlo percentiles of the governing dose (mg/L) and yearly cost. */
     monte_carlo: { draws: number; seed: number; governing_dose_mg_per_L: { p10: number; p50: number; p90: number }; yearly_cost: { p10: number; p50: number; p90: number } | null } | null;
-    /** GAC equilibrium estimate of the governing compound (an upper bound). */
-    gac: { governing_compound: string; bed_volumes: number; life_days: number | null; carbon_usage_g_per_m3: number; upper_bound: true } | null;
+    /** GAC: the kinetic run length with the equilibrium bound beside it, or the equilibrium estimate alone (src/output/gacRunJson.ts). */
+    gac: GacSummaryJson | null;
   } & Partial<ContactSummaryJson>>;
   pilot_outliers: string[] | null;
   warnings: string[];
@@ -63,7 +64,7 @@ export function summaryJson(r: PipelineResult, outDir: string, files: string[]):
     files,
     carbons: r.carbons.map((c) => ({
       carbon: c.carbon.name, type: c.carbon.type,
-      required_dose_mg_per_L: c.required?.doseMgPerL ?? null, governed_by: c.required?.governedBy ?? null,
+      required_dose_mg_per_L: c.required?.doseMgPerL ?? null, governed_by: c.required?.governedBy ?? c.gacKinetic?.run.governedBy ?? null,
       governing_compound: c.required?.governing?.compoundId ?? null, governing_dose_mg_per_L: c.required?.governing?.doseMgPerL ?? null,
       indicator_dose_mg_per_L: c.required?.indicator?.doseMgPerL ?? null,
       cost_per_m3: c.costPerM3 ?? null, currency: c.carbon.currency,
@@ -76,7 +77,7 @@ export function summaryJson(r: PipelineResult, outDir: string, files: string[]):
         const y = q('yearly_cost');
         return { draws: c.uncertainty.result.draws, seed: c.uncertainty.result.seed, governing_dose_mg_per_L: { p10: g.p10, p50: g.p50, p90: g.p90 }, yearly_cost: y ? { p10: y.p10, p50: y.p50, p90: y.p90 } : null };
       })() : null,
-      gac: c.gac ? { governing_compound: c.gac.governing.id, bed_volumes: c.gac.governing.bedVolumes, life_days: c.gac.governing.lifeDays ?? null, carbon_usage_g_per_m3: c.gac.governing.carbonUsageGPerM3, upper_bound: true } : null,
+      gac: gacSummaryJson(c),
       ...contactSummary(c),
     })),
     pilot_outliers: r.pilot ? r.pilot.check.outlierCompounds : null,
@@ -136,7 +137,7 @@ export async function runAndWrite(input: PipelineInput, outDir: string, json: bo
   for (const c of s.carbons) {
     if (c.uv254_setpoint_percent !== null) extra.push(`${c.carbon}: UV254-reduction set-point ${fmt(c.uv254_setpoint_percent, 3)} % at the required dose`);
     if (c.monte_carlo) extra.push(`${c.carbon}: governing dose P10–P50–P90 ${fmt(c.monte_carlo.governing_dose_mg_per_L.p10, 3)}–${fmt(c.monte_carlo.governing_dose_mg_per_L.p50, 3)}–${fmt(c.monte_carlo.governing_dose_mg_per_L.p90, 3)} mg/L (${c.monte_carlo.draws} draws, seed ${c.monte_carlo.seed})`);
-    if (c.gac) extra.push(`${c.carbon}: GAC ${fmtCount(c.gac.bed_volumes)} bed volumes${c.gac.life_days !== null ? ` (${fmt(c.gac.life_days, 3)} days)` : ''} for ${c.gac.governing_compound} — equilibrium upper bound`);
+    if (c.gac) extra.push(gacSummaryLine(c.carbon, c.gac));
   }
   if (s.pilot_outliers) extra.push(`Pilot check: ${s.pilot_outliers.length ? `measured removal outside the band of the prediction for ${s.pilot_outliers.join(', ')}` : 'every compound within the band'}`);
   ctx.out([

@@ -28,6 +28,7 @@ import { contactCurvesStep } from './contactCurvesStep.js';
 import { modelBackgroundPoint } from './modelSurrogates.js';
 import { yearlyLabel } from '../design/annualised.js';
 import type { CompoundSystem } from './competitionSystem.js';
+import type { ContactConditions } from '../kinetics/contactRemoval.js';
 import type { CarbonResult, PipelineInput, PipelineOptions, PipelineResult } from './pipelineTypes.js';
 import type { ProjectSpec } from '../project/projectTypes.js';
 import { fmtConcentration } from '../units/formatQuantity.js';
@@ -155,7 +156,7 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
     if (req.doseMgPerL !== null) {
       progress({ step: `${carbon.name}: dose against DOC and sensitivity`, done: ci, total: project.carbons.length });
       res.doseAgainstDoc = timed('dose against DOC', () => doseAgainstDocStep(carbon.name, req, (d) => designDose(model.atDoc(d), problem, req), docRange(doc, input.series?.docMgPerL)));
-      const sens = timed('sensitivity', () => sensitivityStep({ carbon, systems, problem, modelOf: (s, d) => carbonModel(s, d, undefined, factory), docMgPerL: doc, flowM3PerD: project.site.flowM3PerD, ...(input.series ? { series: input.series } : {}), required: req, yearly: res.yearly! }));
+      const sens = timed('sensitivity', () => sensitivityStep({ carbon, systems, problem, modelOf: (s, d) => carbonModel(s, d, undefined, factory), ...(project.site.pacContact ? { contact: { conditions: project.site.pacContact, modelWith: (s: readonly CompoundSystem[], d: number, c: ContactConditions) => carbonModel(s, d, undefined, contactFactory(c, carbon, options.kinetic)) } } : {}), docMgPerL: doc, flowM3PerD: project.site.flowM3PerD, ...(input.series ? { series: input.series } : {}), required: req, yearly: res.yearly! }));
       if (sens) res.sensitivity = sens;
     }
     return res;

@@ -8,8 +8,8 @@
  * yearlyAtOneDose), never a copy of their equations; the price enters the cost linearly, so its
  * case scales the run's yearly carbon mass by the changed price.
  *
- * Contact time and carbon age are not inputs of the equilibrium run; they are listed as not
- * modelled. Thin on purpose: when the design model replaces the dose logic, `evaluate` changes.
+ * Under PAC contact conditions the contact time and (stirred tank) the carbon age are cases too,
+ * the carbon age kept at least the contact time; at equilibrium they are listed as not modelled. Thin on purpose: when the design model replaces the dose logic, `evaluate` changes.
  *
  * @throws ComputationError from the solvers, as the run does
  */
@@ -21,6 +21,7 @@ import { designDose, type Design, type DesignProblem } from '../design/designDos
 import { seriesYearly } from '../design/dailyDoses.js';
 import { doseTable, yearlyAtOneDose } from '../design/doseTable.js';
 import type { RemovalModel } from '../design/removalModel.js';
+import type { ContactConditions } from '../kinetics/contactRemoval.js';
 
 export interface SensitivityRow {
   /** Stable key: 'K', 'one_over_n', 'doc', 'background', 'price'. */
@@ -54,6 +55,8 @@ export interface SensitivityInput {
   problem: DesignProblem;
   /** The removal model of a set of (possibly changed) systems at a DOC, as the run builds it. */
   modelOf: (systems: readonly CompoundSystem[], docMgPerL: number) => RemovalModel;
+  /** The plant's PAC contact conditions and the model under other conditions, when contact is modelled. */
+  contact?: { conditions: ContactConditions; modelWith: (systems: readonly CompoundSystem[], docMgPerL: number, conditions: ContactConditions) => RemovalModel };
   docMgPerL: number;
   flowM3PerD: number;
   series?: SiteSeries;
@@ -74,8 +77,8 @@ export function scaleAdsorbable(components: readonly FreundlichComponent[], f: n
 }
 
 /** The run's dose and yearly cost for a set of (possibly changed) inputs. */
-function evaluate(inp: SensitivityInput, systems: readonly CompoundSystem[], doc: number, series: SiteSeries | undefined): { dose: number | null; cost: number | null } {
-  const model = inp.modelOf(systems, doc);
+function evaluate(inp: SensitivityInput, systems: readonly CompoundSystem[], doc: number, series: SiteSeries | undefined, conditions?: ContactConditions): { dose: number | null; cost: number | null } {
+  const model = conditions && inp.contact ? inp.contact.modelWith(systems, doc, conditions) : inp.modelOf(systems, doc);
   const req = designDose(model, inp.problem, inp.required);
   if (series) {
     const daily = seriesYearly(inp.carbon.pricePerKg, series, doseTable(model, inp.problem, series.docMgPerL, req));
@@ -85,7 +88,7 @@ function evaluate(inp: SensitivityInput, systems: readonly CompoundSystem[], doc
 }
 
 /** One perturbation of the inputs by factor f. */
-type Perturb = (f: number) => { systems: readonly CompoundSystem[]; doc: number; series: SiteSeries | undefined };
+type Perturb = (f: number) => { systems: readonly CompoundSystem[]; doc: number; series: SiteSeries | undefined; conditions?: ContactConditions };
 
 /** @returns undefined when the required dose at the design inputs is not reachable (no base). */
 export function sensitivityStep(inp: SensitivityInput, step = 0.2): Sensitivity | undefined {
@@ -99,11 +102,21 @@ export function sensitivityStep(inp: SensitivityInput, step = 0.2): Sensitivity 
     { key: 'doc', input: 'DOC', perturb: (f) => ({ ...same, doc: inp.docMgPerL * f, series: inp.series ? { ...inp.series, docMgPerL: inp.series.docMgPerL.map((d) => d * f) } : undefined }) },
     { key: 'background', input: 'adsorbable background', perturb: (f) => ({ ...same, systems: inp.systems.map((s) => ({ ...s, background: (doc: number) => scaleAdsorbable(s.background(doc), f) })) }) },
   ];
+  const cond = inp.contact?.conditions;
+  if (cond) {
+    // contact time ±step; a stirred tank without recirculation (θ = τ) keeps θ = τ, one with
+    // recirculation keeps its carbon age, never below the contact time (θ ≥ τ)
+    cases.push({ key: 'contact_time', input: 'contact time', perturb: (f) => ({ ...same, conditions: cond.kind === 'plug-flow'
+      ? { kind: 'plug-flow', contactTimeS: cond.contactTimeS * f }
+      : { kind: 'stirred', contactTimeS: cond.contactTimeS * f, carbonAgeS: cond.carbonAgeS === cond.contactTimeS ? cond.contactTimeS * f : Math.max(cond.carbonAgeS, cond.contactTimeS * f) } }) });
+    // carbon age ±step, never below the contact time
+    if (cond.kind === 'stirred') cases.push({ key: 'carbon_age', input: 'carbon age', perturb: (f) => ({ ...same, conditions: { kind: 'stirred', contactTimeS: cond.contactTimeS, carbonAgeS: Math.max(cond.contactTimeS, cond.carbonAgeS * f) } }) });
+  }
   const rows: SensitivityRow[] = cases.map(({ key, input, perturb }) => {
     const lo = perturb(1 - step);
     const hi = perturb(1 + step);
-    const a = evaluate(inp, lo.systems, lo.doc, lo.series);
-    const b = evaluate(inp, hi.systems, hi.doc, hi.series);
+    const a = evaluate(inp, lo.systems, lo.doc, lo.series, lo.conditions);
+    const b = evaluate(inp, hi.systems, hi.doc, hi.series, hi.conditions);
     return { key, input, doseLowMgPerL: a.dose, doseHighMgPerL: b.dose, yearlyCostLow: a.cost, yearlyCostHigh: b.cost };
   });
   // the price changes no dose; the yearly cost is the run's carbon mass times the changed price
@@ -112,6 +125,6 @@ export function sensitivityStep(inp: SensitivityInput, step = 0.2): Sensitivity 
   return {
     carbonName: inp.carbon.name, currency: inp.carbon.currency, step, governingCompound: gov,
     baseDoseMgPerL: inp.required.doseMgPerL, baseYearlyCost: inp.yearly.cost, rows,
-    notModelled: ['contact time', 'carbon age'],
+    notModelled: !inp.contact ? ['contact time', 'carbon age'] : inp.contact.conditions.kind === 'plug-flow' ? ['carbon age (plug-flow contact)'] : [],
   };
 }

@@ -49,6 +49,18 @@ describe('run under PAC contact conditions', () => {
     expect(cr.contact!.model).toMatch(/plug flow/);
   });
 
+  it('sensitivity under contact: contact time is a case (longer contact, less carbon); the high bar equals a run with a 36-minute tank', () => {
+    const s = cr.sensitivity!;
+    const row = s.rows.find((x) => x.key === 'contact_time')!;
+    expect(row).toBeDefined();
+    expect(row.doseHighMgPerL!).toBeLessThan(row.doseLowMgPerL!); // 36 min needs less carbon than 24 min
+    expect(s.notModelled).toEqual(['carbon age (plug-flow contact)']);
+    // recomputed through the whole run with the contact time raised by 20 % (not through the sensitivity step)
+    const site = { ...input.project.site, pacContact: { kind: 'plug-flow' as const, contactTimeS: 1800 * 1.2 } };
+    const longer = runPipeline({ ...input, project: { ...input.project, site } }, { ...FAST, now: NOW });
+    expect(longer.carbons[0]!.required!.doseMgPerL!).toBeCloseTo(row.doseHighMgPerL!, 9);
+  });
+
   it('the equilibrium dose is the one of the run without contact conditions (same design layer)', () => {
     const plain = runPipeline(withoutContact(input), { now: NOW });
     expect(cr.contact!.equilibriumDoseMgPerL).toBe(plain.carbons[0]!.required!.doseMgPerL);

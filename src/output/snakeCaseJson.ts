@@ -21,6 +21,8 @@ export const SNAKE_CASE_KEYS: Readonly<Record<string, string>> = {
   flowM3PerD: 'flow_m3_per_d', oneOverN: 'one_over_n', compoundId: 'compound_id', compoundIds: 'compound_ids',
   carbonName: 'carbon_name', targetId: 'target_id', pricePerKg: 'price_per_kg', carbonPricePerKg: 'carbon_price_per_kg',
   backgroundC0MgPerL: 'background_c0_mg_per_L', fromMgPerL: 'from_mg_per_L', toMgPerL: 'to_mg_per_L',
+  // IntegratorStats (src/kinetics/implicitIntegrator.ts), in run.json's fixed-bed record
+  rejectedSteps: 'rejected_steps', newtonIterations: 'newton_iterations', newtonFailures: 'newton_failures', rhsEvaluations: 'rhs_evaluations', maxAcceptedError: 'max_accepted_error',
   // CompoundGoal, CompoundDose, Design, SurrogateSetPoint (src/design)
   removalFraction: 'removal_fraction', remainingFraction: 'remaining_fraction', governedBy: 'governed_by',
   costPerM3: 'cost_per_m3', docReduction: 'doc_reduction', uv254Reduction: 'uv254_reduction',

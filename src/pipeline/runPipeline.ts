@@ -98,7 +98,9 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
       progress({ step: `${carbon.name}: GAC estimate`, done: ci, total: project.carbons.length });
       res.gac = timed('GAC', () => gacStep(carbon, systems, doc, project.site.flowM3PerD));
       res.warnings.push(`GAC: ${GAC_UPPER_BOUND_CAUTION}`);
-      if (carbon.bedKinetics) {
+      const needsCarbon = project.goals.indicator !== undefined || goalList.some((g) => g.removalFraction > 0);
+      if (carbon.bedKinetics && !needsCarbon) res.warnings.push('GAC breakthrough: no goal needs carbon (report-only compounds or limits already met); no run length');
+      if (carbon.bedKinetics && needsCarbon) {
         progress({ step: `${carbon.name}: GAC breakthrough`, done: ci, total: project.carbons.length });
         const kin = timed('GAC breakthrough', () => gacKineticStep(project, ci, carbon, systems, bg.background, goals, res.gac!));
         res.gacKinetic = kin;

@@ -45,7 +45,7 @@ beforeAll(() => {
   governing = pac(plain)[0]!.required!.governing!.compoundId;
   ro = runPipeline(loadProject(project((p) => { delete p.goals.indicator; p.compounds.find((c: { id: string }) => c.id === governing).goal = 'none'; })), now);
   // a hard-to-remove compound (K 0.5, invented) that is only to be reported
-  hard = runPipeline(loadProject(project((p) => { delete p.goals.indicator; p.compounds.push({ id: 'SUC', name: 'sucralose (invented values)', K: 0.5, one_over_n: 0.5, c0: '10 ug/L', goal: 'none' }); })), now);
+  hard = runPipeline(loadProject(project((p) => { delete p.goals.indicator; p.compounds.push({ id: 'SUC', name: 'sucralose (invented values)', K: 0.5, one_over_n: 0.5, c0: '10 ug/L', goal: 'none' }); for (const c of p.carbons) if (c.kinetics?.Ds) { c.kinetics.Ds.SUC = '5e-15 m2/s'; if (c.kinetics.DL) c.kinetics.DL.SUC = '7e-10 m2/s'; } })), now);
 }, 120_000);
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
 

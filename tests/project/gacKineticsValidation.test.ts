@@ -65,10 +65,10 @@ describe('GAC fixed-bed inputs in a project', () => {
     });
   }
 
-  it('kinetics on a PAC carbon is an error naming it', () => {
+  it('fixed-bed inputs on a PAC carbon are read as its particle data: the bed keys are unknown there and named', () => {
     const p = clone();
     p.carbons[0].kinetics = p.carbons[GAC].kinetics;
-    expect(() => validateProject(p)).toThrow(/GAC carbons only/);
-    try { validateProject(p); } catch (e) { expect((e as InputError).location.path).toBe('carbons[0].kinetics'); }
+    expect(() => validateProject(p)).toThrow(/unknown key "bed_depth"/);
+    try { validateProject(p); } catch (e) { expect((e as InputError).location.path).toBe('carbons[0].kinetics.bed_depth'); }
   });
 });

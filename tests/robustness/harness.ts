@@ -7,6 +7,7 @@
 import { spawn } from 'node:child_process';
 import { cpSync, mkdirSync, readdirSync, statSync, writeFileSync } from 'node:fs';
 import { dirname, join } from 'node:path';
+import { expect } from 'vitest';
 import { BIN } from '../helpers/cliHarness.js';
 
 export interface BadCase {
@@ -65,4 +66,18 @@ export async function runCases(root: string, cases: readonly BadCase[], parallel
   let next = 0;
   await Promise.all(Array.from({ length: parallel }, async () => { while (next < jobs.length) await jobs[next++]!(); }));
   return results;
+}
+
+/**
+ * The promise every refused input keeps: the expected exit code, nothing on stdout, one error line
+ * naming the place (no stack trace), and the folder exactly as it was (nothing written).
+ */
+export function expectRefused(r: CaseResult, c: BadCase): void {
+    const shown = `exit ${r.code}\nstderr: ${r.err}\nstdout: ${r.out}`;
+    expect(r.code, shown).toBe(c.code);
+    expect(r.out, shown).toBe('');
+    expect(r.err, shown).toMatch(/^sorbshare: (bad input|computation failed): |^error: /m);
+    expect(r.err, shown).not.toMatch(/internal error|\n\s+at .*\(.*:\d+:\d+\)/);
+    for (const p of c.place) expect(r.err, shown).toMatch(p);
+    expect(r.after, 'nothing written').toEqual(r.before);
 }

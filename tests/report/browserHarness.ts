@@ -17,10 +17,10 @@ export const CHROMIUM = process.env.SORBSHARE_CHROMIUM || '/usr/bin/chromium';
 export const HAVE_CHROMIUM = existsSync(CHROMIUM);
 
 /** True when CI is set to anything but "", "0" or "false" (CI services set CI=true). */
-export function isCi(value: string | undefined = process.env.CI): boolean {
+export function isCi(value: string | undefined): boolean {
   return value !== undefined && !['', '0', 'false'].includes(value.trim().toLowerCase());
 }
-export const IN_CI = isCi();
+export const IN_CI = isCi(process.env.CI);
 
 /** What a browser test does: run with Chromium; without it, fail in CI and skip elsewhere. */
 export function chromiumTestMode(haveChromium: boolean, inCi: boolean): 'run' | 'fail' | 'skip' {

@@ -198,7 +198,7 @@ function inputsSection(r: PipelineResult): ReportSection {
   return {
     id: 'inputs', heading: 'Inputs and reproducibility',
     paragraphs: ['Every input resolved with units, all results, the tool and Node versions are in run.json; the tables are in the CSV files beside this report.'],
-    tables: [{ caption: 'Input files (SHA-256)', columns: ['role', 'path', 'bytes', 'SHA-256'], rows: r.provenance.files.map((f) => [f.role, f.path, f.bytes, f.sha256.slice(0, 16) + '…']) }],
+    tables: [{ caption: 'Input files (SHA-256; paths relative to the project file\'s folder, the full paths are in run.json)', columns: ['role', 'path', 'bytes', 'SHA-256'], rows: r.provenance.files.map((f) => [f.role, f.role === 'project' ? fileName(f.path) : f.path, f.bytes, f.sha256.slice(0, 16) + '…']) }],
   };
 }
 
@@ -229,4 +229,9 @@ export function buildReportModel(r: PipelineResult, version: string): ReportMode
   if (cover.length) model.cover = cover;
   sections.push(referencesSection(model));
   return applyCompoundLooks(model, r.project.compounds.map((c) => c.id));
+}
+
+/** The last segment of a path (either separator), so that a report never shows the author's folders. */
+function fileName(path: string): string {
+  return path.split(/[\\/]/).pop() || path;
 }

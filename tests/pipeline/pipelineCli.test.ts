@@ -43,6 +43,8 @@ describe('sorbshare demo', () => {
         expect(text).toContain('licensed engineer');
         expect(text).toContain('Carbon dust is combustible');
         expect(text).toMatch(/invented/i);
+        // the client's copy never shows the author's folders (the full paths stay in run.json)
+        expect(text).not.toContain(process.cwd());
       }
       expect(html).toContain('<svg');
       const rec = JSON.parse(readFileSync(join(out, 'run.json'), 'utf8'));

@@ -53,5 +53,13 @@ describe('sorbshare calibrate --model column (end to end)', () => {
     r = runBin('calibrate', DATA, '--model', 'column', '--compound', COMPOUND, '--background', BACKGROUND, ...BED);
     expect(r.code).toBe(2);
     expect(r.err).toMatch(/--doc-ds/);
+    // one liquid-diffusivity option for every kinetic model: --dl (components without their own DL or kf)
+    r = runBin('calibrate', DATA, '--model', 'column', '--compound', COMPOUND, '--background', BACKGROUND, '--doc-ds', '2e-15 m2/s', ...BED);
+    expect(r.code).toBe(2);
+    expect(r.err).toMatch(/--dl/);
+    expect(r.out).toBe('');
+    r = runBin('calibrate', DATA, '--model', 'column', '--compound', COMPOUND, '--background', BACKGROUND, '--doc-ds', '2e-15 m2/s', '--doc-dl', '4e-10 m2/s', ...BED);
+    expect(r.code).toBe(2);
+    expect(r.err).toMatch(/--doc-dl/);
   });
 });

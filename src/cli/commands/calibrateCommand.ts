@@ -24,7 +24,7 @@ export const calibrateCommand: CommandSpec = {
     { flags: '--doc <quantity>', description: 'site DOC of the jar tests, e.g. "8 mg/L" (scales C0_EBC to other DOC values)', parse: positiveMassConcentration },
     { flags: '--particle-radius <length>', description: 'PAC particle radius for the kinetic models, e.g. "10 um"', parse: positiveLength },
     { flags: '--particle-density <density>', description: 'PAC particle density for the kinetic models, e.g. "650 kg/m3"', parse: positiveDensity },
-    { flags: '--dl <diffusivity>', description: 'liquid diffusivity of components without their own DL or kf (kinetic models; film from Sh = 2), e.g. "5e-10 m2/s"', parse: positiveDiffusivity },
+    { flags: '--dl <diffusivity>', description: 'kinetic and column models: liquid diffusivity of the components without their own DL or kf (the fictive DOC components, for instance), e.g. "5e-10 m2/s"', parse: positiveDiffusivity },
     { flags: '--ebct <time>', description: 'column model: empty-bed contact time of the tested column, e.g. "2 min"', parse: positiveTime },
     { flags: '--bed-depth <length>', description: 'column model: bed depth of the tested column, e.g. "0.3 m"', parse: positiveLength },
     { flags: '--grain-radius <length>', description: 'column model: grain radius of the tested carbon, e.g. "0.1 mm"', parse: positiveLength },
@@ -32,13 +32,12 @@ export const calibrateCommand: CommandSpec = {
     { flags: '--porosity <fraction>', description: 'column model: bed porosity (0.4 is common practice)', parse: finiteNumber, default: '0.4' },
     { flags: '--temperature <celsius>', description: 'column model: water temperature for the film correlation, °C (10–15 °C is common practice)', parse: finiteNumber, default: '12' },
     { flags: '--doc-ds <diffusivity>', description: 'models surface-diffusion and column (with --background): surface diffusivity shared by the fictive DOC components, e.g. "2e-15 m2/s" (for PAC from a surface-diffusion-doc fit)', parse: positiveDiffusivity },
-    { flags: '--doc-dl <diffusivity>', description: 'column model with --background: liquid diffusivity of the fictive DOC components, e.g. "4e-10 m2/s"', parse: positiveDiffusivity },
     { flags: '--fit-kf', description: 'column model: fit a factor on the target\'s film coefficient as well' },
     { flags: '--json', description: 'print JSON instead of text' },
     { flags: '--out <file>', description: 'also write the calibration (JSON) to FILE', parse: nonEmptyText },
     ...TABLE_FORMAT_OPTIONS,
   ],
-  examples: ['sorbshare calibrate jartests.csv --model ebc --compound carbamazepine.json --doc "8 mg/L"', 'sorbshare calibrate jartests.csv --model fictive-k --compound target.json --background background.json --json', 'sorbshare calibrate breakthrough.csv --model column --compound target.json --background background.json --doc-ds "2e-15 m2/s" --doc-dl "4e-10 m2/s" --ebct "2 min" --bed-depth "0.3 m" --grain-radius "0.1 mm" --grain-density "750 kg/m3"', 'sorbshare calibrate doc-kinetics.csv --model surface-diffusion-doc --background background.json --particle-radius "12 um" --particle-density "700 kg/m3" --dl "5e-10 m2/s"'],
+  examples: ['sorbshare calibrate jartests.csv --model ebc --compound carbamazepine.json --doc "8 mg/L"', 'sorbshare calibrate jartests.csv --model fictive-k --compound target.json --background background.json --json', 'sorbshare calibrate breakthrough.csv --model column --compound target.json --background background.json --doc-ds "2e-15 m2/s" --dl "4e-10 m2/s" --ebct "2 min" --bed-depth "0.3 m" --grain-radius "0.1 mm" --grain-density "750 kg/m3"', 'sorbshare calibrate doc-kinetics.csv --model surface-diffusion-doc --background background.json --particle-radius "12 um" --particle-density "700 kg/m3" --dl "5e-10 m2/s"'],
   async action(args, opts, ctx) {
     if (KINETIC.includes(opts.model as string)) {
       await kineticAction(args[0]!, opts, ctx);

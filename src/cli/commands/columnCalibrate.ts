@@ -36,14 +36,18 @@ export async function calibrateColumnAction(file: string, opts: OptionValues, ct
     return readComponentKinetics(raw, readComponent(raw, '$', false), '$');
   });
   if (!(compound.K > 0)) throw new InputError('expected an adsorbable target compound (K > 0)', { file: compoundFile, path: 'K' });
-  if (compound.kfMPerS === undefined && compound.dlM2PerS === undefined) throw new InputError(`compound "${compound.id}" has neither DL nor kf; the film needs one (e.g. "DL": "7e-10 m2/s")`, { file: compoundFile, path: 'DL' });
+  // --dl is the liquid diffusivity of every component without its own DL or kf (as in the PAC kinetic models)
+  if (compound.kfMPerS === undefined && compound.dlM2PerS === undefined) {
+    if (opts.dl === undefined) throw new InputError(`compound "${compound.id}" has neither DL nor kf; the film needs one (e.g. "DL": "7e-10 m2/s" in the file, or --dl)`, { file: compoundFile, path: 'DL' });
+    compound.dlM2PerS = opts.dl as number;
+  }
   let background: FixedBedComponent[] = [];
   if (opts.background !== undefined) {
     const bgFile = opts.background as string;
     if (opts.docDs === undefined) throw new InputError('a background needs --doc-ds: the surface diffusivity shared by the fictive DOC components, e.g. "2e-15 m2/s"', { option: '--doc-ds' });
-    if (opts.docDl === undefined) throw new InputError('a background needs --doc-dl: the liquid diffusivity of the fictive DOC components, e.g. "4e-10 m2/s"', { option: '--doc-dl' });
+    if (opts.dl === undefined) throw new InputError('a background needs --dl: the liquid diffusivity of the components without their own DL or kf, here the fictive DOC components, e.g. "4e-10 m2/s"', { option: '--dl' });
     const bg = inFile(bgFile, () => backgroundComponents(readBackground(readJsonFile(bgFile, 'background file')), opts.doc as number | undefined));
-    background = bg.map((c) => (c.K > 0 ? { ...c, dsM2PerS: opts.docDs as number, dlM2PerS: opts.docDl as number } : { ...c }));
+    background = bg.map((c) => (c.K > 0 ? { ...c, dsM2PerS: opts.docDs as number, dlM2PerS: opts.dl as number } : { ...c }));
   }
   const { readTableFile } = await import('../../io/readTableFile.js');
   const { BREAKTHROUGH_COLUMNS } = await import('../../calibration/breakthroughData.js');

@@ -14,6 +14,7 @@ import type { CalibrationModelName, CompoundSpec, ProjectCover, ProjectSpec, Sit
 import { positive, readAbsorbance, readLimit } from './quantities.js';
 import { readBackground } from './readBackgroundSpec.js';
 import { readCarbons } from './readCarbons.js';
+import { resolveCarbonBackgrounds } from './readCarbonBackground.js';
 import { readGoals } from './readGoals.js';
 import { readPilot } from './readPilotSpec.js';
 import { readPacContact } from './readPacContact.js';
@@ -33,6 +34,7 @@ export function validateProject(raw: unknown): ProjectSpec {
   const compounds = readCompounds(required(root, 'compounds', '', 'an array of compounds'));
   const background = readBackground(required(root, 'background', '', 'the background: { "isotherm": CSV }, { "file": JSON } or { "ebc": {…} }'), compounds, site);
   const carbons = readCarbons(required(root, 'carbons', '', 'an array of candidate carbons'), compounds);
+  resolveCarbonBackgrounds(background, carbons);
   const goals = readGoals(root.goals, compounds);
   checkKineticInputs(site.pacContact, carbons, compounds);
   const out: ProjectSpec = { name, site, background, carbons, compounds, goals };

@@ -8,11 +8,15 @@ import type { FreundlichComponent } from '../equilibrium/preparedMixture.js';
 import { readComponent } from '../scenario/readMixture.js';
 import { parseQuantity } from '../units/parseQuantity.js';
 import { at, expectObject, expectString, join, onlyKeys } from '../scenario/jsonChecks.js';
-import type { BackgroundSpec, CompoundSpec, SiteSpec } from './projectTypes.js';
+import type { BackgroundSpec, CalibrationTransferSpec, CompoundSpec, SiteSpec } from './projectTypes.js';
 import { positive } from './quantities.js';
 import { readFractionationOptions } from './readFractionationOptions.js';
 
-export function readBackground(raw: unknown, compounds: CompoundSpec[], site: SiteSpec): BackgroundSpec {
+/**
+ * @param transfer the project's calibration transfer: with "mean" or a named compound, compounds
+ *   without jar tests take the transferred EBC and need none of their own in an EBC background
+ */
+export function readBackground(raw: unknown, compounds: CompoundSpec[], site: SiteSpec, transfer?: CalibrationTransferSpec): BackgroundSpec {
   const p = 'background';
   const o = expectObject(raw, p, 'the background: { "isotherm": CSV }, { "file": JSON } or { "ebc": {…} }');
   const modes = ['isotherm', 'file', 'ebc'].filter((k) => o[k] !== undefined);
@@ -47,8 +51,9 @@ export function readBackground(raw: unknown, compounds: CompoundSpec[], site: Si
   }
   for (const c of compounds) {
     checkCalibrationFits(c, compounds, 'ebc');
-    if (!ebc[c.id] && !(c.jarTests && c.jarTests.model !== 'fictive-k')) {
-      throw new InputError(`missing the EBC of compound "${c.id}"; expected { "K", "one_over_n", "c0" } or jar tests with model "ebc" or "sebc" for it`, { path: join(ep, c.id) });
+    const transferred = transfer !== undefined && transfer.kind !== 'none' && !c.jarTests;
+    if (!ebc[c.id] && !transferred && !(c.jarTests && c.jarTests.model !== 'fictive-k')) {
+      throw new InputError(`missing the EBC of compound "${c.id}"; expected { "K", "one_over_n", "c0" }, jar tests with model "ebc" or "sebc" for it, or a "calibration_transfer" from a compound with jar tests`, { path: join(ep, c.id) });
     }
   }
   const doc = o.doc === undefined ? site.docMgPerL : positive(at(`${p}.doc`, () => parseQuantity(o.doc, 'massConcentration')), `${p}.doc`, 'the positive DOC at which the EBC concentrations apply');

@@ -32,7 +32,8 @@ export function validateProject(raw: unknown): ProjectSpec {
   const name = expectString(required(root, 'name', '', 'the project name as text'), 'name', 'the project name as text');
   const site = readSite(required(root, 'site', '', 'the site object { name, flow, doc }'));
   const compounds = readCompounds(required(root, 'compounds', '', 'an array of compounds'));
-  const background = readBackground(required(root, 'background', '', 'the background: { "isotherm": CSV }, { "file": JSON } or { "ebc": {…} }'), compounds, site);
+  const transfer = root.calibration_transfer === undefined ? undefined : readCalibrationTransfer(root.calibration_transfer, compounds);
+  const background = readBackground(required(root, 'background', '', 'the background: { "isotherm": CSV }, { "file": JSON } or { "ebc": {…} }'), compounds, site, transfer);
   const carbons = readCarbons(required(root, 'carbons', '', 'an array of candidate carbons'), compounds);
   resolveCarbonBackgrounds(background, carbons);
   const goals = readGoals(root.goals, compounds);
@@ -43,7 +44,7 @@ export function validateProject(raw: unknown): ProjectSpec {
   if (cover) out.cover = cover;
   if (root.pilot !== undefined) out.pilot = readPilot(root.pilot, carbons);
   if (root.uncertainty !== undefined) out.uncertainty = readUncertainty(root.uncertainty);
-  if (root.calibration_transfer !== undefined) out.calibrationTransfer = readCalibrationTransfer(root.calibration_transfer, compounds);
+  if (transfer) out.calibrationTransfer = transfer;
   return out;
 }
 

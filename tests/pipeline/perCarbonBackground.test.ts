@@ -139,6 +139,22 @@ describe('a carbon with its own DOC isotherm', () => {
   }, 120_000);
 });
 
+describe('a GAC carbon with its own background file', () => {
+  it('competes with the file\'s components unscaled (source "own file"); its equilibrium bed volumes differ from the same carbon on the reference background', () => {
+    scratch.write('q_background.json', fractionate(readFileSync(qCsv, 'utf8'), { file: qCsv }));
+    const gac = { name: 'GAC S (invented)', type: 'GAC', price_per_kg: 2.0, currency: 'EUR', bed_density_kg_per_m3: 450, ebct_min: 20 };
+    const r = runPipeline(loadProject(project((p) => { p.carbons = [p.carbons[0], { ...gac, background: { file: 'q_background.json' } }, { ...gac, name: 'GAC T (invented)' }]; })), now);
+    const s = byName(r, 'GAC S');
+    const t = byName(r, 'GAC T');
+    expect(s.background!.source).toBe('own file');
+    expect(s.background!.description).toBe('its own background file (q_background.json), 3 adsorbable fictive components');
+    const doc = r.project.site.docMgPerL;
+    for (const sys of s.systems) expect(sys.background(doc)).toEqual(backgroundComponents(s.background!.background!, doc));
+    expect(t.background!.source).toBe('K factor');
+    s.gac!.estimate.targets.forEach((x, i) => expect(rel(x.bedVolumes, t.gac!.estimate.targets[i]!.bedVolumes)).toBeGreaterThan(1e-3));
+  });
+});
+
 describe('sorbshare run with a per-carbon background', () => {
   it('exits 0; run.json holds Q\'s components as `sorbshare fractionate --json` prints them for its table', () => {
     const out = join(scratch.dir, 'out');

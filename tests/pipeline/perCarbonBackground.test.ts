@@ -25,6 +25,8 @@ import { runRecord } from '../../src/output/runRecord.js';
 import { carbonsCsv } from '../../src/output/outputTables.js';
 import type { CarbonResult, PipelineResult } from '../../src/pipeline/pipelineTypes.js';
 import { runBin, scratchDir } from '../helpers/cliHarness.js';
+import { surrogatesAtDose } from '../../src/pipeline/surrogateStep.js';
+import type { CarbonKinetics } from '../../src/project/readCarbonKinetics.js';
 
 const root = join(__dirname, '../..');
 const fixtureDir = join(root, 'fixtures/project/per-carbon-background');
@@ -137,6 +139,31 @@ describe('a carbon with its own DOC isotherm', () => {
     expect(rr.uncertainty!.problem.background.map((b) => [b.K, b.fraction])).toEqual(r.background.background!.components.map((c) => [c.K * 1.15, c.fraction]));
     expect(q.uncertainty!.parameters.some((x) => x.basis.startsWith('fractionation 95 % interval'))).toBe(true);
   }, 120_000);
+});
+
+describe('under PAC contact conditions', () => {
+  it('a carbon\'s own background is the one its contact model competes with: equilibrium dose as the run without contact, contact DOC reduction below its own equilibrium one', () => {
+    // invented kinetic data of the usual order for PAC (as in fixtures/project/pac-contact); small solver settings keep it to seconds
+    const kinetics: CarbonKinetics = {
+      particleRadiusM: 10e-6, particleDensityGPerL: 650,
+      dsM2PerS: { CBZ: 2e-15, DCF: 2e-15, MET: 2e-15, BTZ: 3e-15 }, dlM2PerS: { CBZ: 7e-10, DCF: 6.5e-10, MET: 6.5e-10, BTZ: 9e-10 },
+      docDsM2PerS: 1e-15, docDlM2PerS: 5e-10,
+    };
+    const loaded = loadProject(project());
+    const q = loaded.project.carbons[1]!;
+    const input = { ...loaded, project: { ...loaded.project, site: { ...loaded.project.site, pacContact: { kind: 'plug-flow' as const, contactTimeS: 1800 } }, carbons: [{ ...q, kinetics }] } };
+    const cr = runPipeline(input, { ...now, kinetic: { interiorPoints: 4, rtol: 1e-4 } }).carbons[0]!;
+    expect(cr.background!.source).toBe('own isotherm');
+    expect(cr.contact!.equilibriumDoseMgPerL).toBe(byName(own, 'Carbon Q').required!.doseMgPerL);
+    expect(cr.required!.doseMgPerL!).toBeGreaterThan(cr.contact!.equilibriumDoseMgPerL!);
+    const s = cr.surrogates!.atRequiredDose!;
+    // the batch IAST of Q's own background at the same dose (surrogatesAtDose): contact leaves more DOC and UV254
+    const eq = surrogatesAtDose(cr.surrogates!.model, s.doseMgPerL);
+    expect(cr.surrogates!.model.background.map((c) => c.K)).toEqual(cr.background!.background!.components.map((c) => c.K));
+    expect(s.docReduction).toBeGreaterThan(0);
+    expect(s.docReduction).toBeLessThan(eq.docReduction);
+    expect(s.uv254Reduction!).toBeLessThan(eq.uv254Reduction!);
+  }, 600_000);
 });
 
 describe('a GAC carbon with its own background file', () => {

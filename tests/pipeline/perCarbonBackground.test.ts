@@ -141,6 +141,23 @@ describe('a carbon with its own DOC isotherm', () => {
   }, 120_000);
 });
 
+describe('with a target-K factor calibrated to jar tests (the demo\'s CBZ, model fictive-k)', () => {
+  it('the factor fitted beside the project\'s background is applied on the carbon with its own, and said so', () => {
+    const demoDir = join(root, 'fixtures/demo');
+    for (const f of ['doc_isotherm.csv', 'jar_tests_cbz.csv']) copyFileSync(join(demoDir, f), join(scratch.dir, f));
+    const p = JSON.parse(readFileSync(join(demoDir, 'project.json'), 'utf8'));
+    delete p.$schema; delete p.site.series; delete p.pilot; delete p.uncertainty;
+    p.carbons = p.carbons.filter((c: { type: string }) => c.type === 'PAC');
+    p.carbons[1].background = { isotherm: 'doc_isotherm_carbon_q.csv' };
+    const r = runPipeline(loadProject(scratch.write('demo-own.json', p)), now);
+    const factor = r.calibrations[0]!.targetKFactor!;
+    const b = r.carbons[1]!.systems.find((x) => x.compoundId === 'CBZ')!;
+    expect(b.inMixture.K).toBeCloseTo(b.single.K * factor, 12);
+    expect(b.description).toContain(`target K × ${Number(factor.toPrecision(4))} from jar tests (calibrated beside the reference carbon's background)`);
+    expect(r.carbons[0]!.systems.find((x) => x.compoundId === 'CBZ')!.description).not.toContain('calibrated beside');
+  }, 120_000);
+});
+
 describe('under PAC contact conditions', () => {
   it('a carbon\'s own background is the one its contact model competes with: equilibrium dose as the run without contact, contact DOC reduction below its own equilibrium one', () => {
     // invented kinetic data of the usual order for PAC (as in fixtures/project/pac-contact); small solver settings keep it to seconds

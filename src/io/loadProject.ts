@@ -17,7 +17,7 @@ import type { CsvColumnSpecs, CsvTable } from '../tables/csvTable.js';
 import type { CsvFormatOptions } from '../tables/csvFormat.js';
 import { splitSheetPath } from './xlsxSheet.js';
 import { ISOTHERM_COLUMNS } from '../fractionation/isothermData.js';
-import { readBackground } from '../fractionation/backgroundFile.js';
+import { readBackground, type BackgroundFile } from '../fractionation/backgroundFile.js';
 import { SITE_SERIES_COLUMNS, siteSeriesFromTable } from '../siteSeries/siteSeries.js';
 import type { InputFileRecord, PipelineInput } from '../pipeline/pipelineTypes.js';
 import { JAR_TEST_COLUMNS } from '../calibration/jarTestData.js';
@@ -54,6 +54,16 @@ function readReferencedTable(baseDir: string, relPath: string, jsonPath: string,
   return read.table;
 }
 
+/** A background file's text checked (src/fractionation/backgroundFile.ts); errors name the file. */
+function readBackgroundFileAt(f: { text: string; file: string }): BackgroundFile {
+  try {
+    return readBackground(parseJsonText(f.text, f.file));
+  } catch (e) {
+    if (e instanceof InputError && !e.location.file) throw e.at({ file: f.file });
+    throw e;
+  }
+}
+
 export function sha256(text: string): string {
   return createHash('sha256').update(text).digest('hex');
 }
@@ -86,14 +96,17 @@ export function loadProject(projectPath: string, options: { demo?: boolean; form
   if (bg.kind === 'isotherm') {
     input.isotherm = readReferencedTable(baseDir, bg.file, 'background.isotherm', 'DOC isotherm CSV', files, 'DOC isotherm', ISOTHERM_COLUMNS, format, notes);
   } else if (bg.kind === 'file') {
-    const f = readReferenced(baseDir, bg.file, 'background.file', 'background file', files, 'background file');
-    try {
-      input.backgroundFile = readBackground(parseJsonText(f.text, f.file));
-    } catch (e) {
-      if (e instanceof InputError && !e.location.file) throw e.at({ file: f.file });
-      throw e;
-    }
+    input.backgroundFile = readBackgroundFileAt(readReferenced(baseDir, bg.file, 'background.file', 'background file', files, 'background file'));
   }
+  project.carbons.forEach((c, i) => {
+    const own = c.background;
+    if (!own) return;
+    const jp = `carbons[${i}].background.${own.kind}`;
+    const entry: NonNullable<PipelineInput['carbonBackgrounds']>[string] = {};
+    if (own.kind === 'isotherm') entry.isotherm = readReferencedTable(baseDir, own.file, jp, 'DOC isotherm CSV', files, `DOC isotherm ${c.name}`, ISOTHERM_COLUMNS, format, notes);
+    else entry.backgroundFile = readBackgroundFileAt(readReferenced(baseDir, own.file, jp, 'background file', files, `background file ${c.name}`));
+    (input.carbonBackgrounds ??= {})[c.name] = entry;
+  });
   project.compounds.forEach((c, i) => {
     if (!c.jarTests) return;
     input.jarTests[c.id] = readReferencedTable(baseDir, c.jarTests.file, `compounds[${i}].jar_tests.file`, 'jar-test CSV', files, `jar tests ${c.id}`, JAR_TEST_COLUMNS, format, notes);

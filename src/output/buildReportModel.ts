@@ -23,6 +23,7 @@ import { gacBreakthroughSection } from './gacBreakthroughSection.js';
 import { gacSection, loadingPlot, pilotSection, surrogateSection, uncertaintySection } from './surrogateGacUncertaintySections.js';
 import { transferNote } from '../pipeline/calibrationTransfer.js';
 import { transferRows } from './transferRows.js';
+import { carbonBackgroundParts } from './carbonBackgroundSection.js';
 
 const pct = (x: number | null | undefined, sig = 4) => (x === null || x === undefined ? '—' : `${fn(x, sig)} %`);
 const mgL = (x: number | null | undefined, sig = 3) => (x === null || x === undefined ? '—' : `${fn(x, sig)} mg/L`);
@@ -77,6 +78,8 @@ function backgroundSection(r: PipelineResult): ReportSection {
   } else {
     sec.paragraphs!.push('An equivalent background compound (EBC) per compound, as given in the project (Najm, Snoeyink & Richard 1991); EBC concentrations scale with DOC.');
   }
+  const perCarbon = carbonBackgroundParts(r);
+  sec.paragraphs!.push(...perCarbon.paragraphs); sec.tables!.push(...perCarbon.tables); sec.warnings!.push(...perCarbon.warnings);
   return sec;
 }
 

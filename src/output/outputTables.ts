@@ -61,7 +61,7 @@ export function carbonsCsv(r: PipelineResult): string {
     const req = cr.required;
     const ind = cr.indicator;
     return [
-      cr.carbon.name, cr.carbon.type, cr.carbon.pricePerKg, cr.carbon.currency, cr.carbon.kFactor,
+      cr.carbon.name, cr.carbon.type, cr.carbon.pricePerKg, cr.carbon.currency, cr.carbon.kFactor, cr.background?.description,
       req?.doseMgPerL, req?.governedBy ?? cr.gacKinetic?.run.governedBy, req?.governing?.compoundId, req?.governing?.doseMgPerL, req?.indicator?.doseMgPerL,
       cr.costPerM3, cr.carbonKgPerDAtDesign, cr.yearly?.carbonKg, cr.yearly?.cost, cr.yearly?.basis,
       cr.daily?.dose?.median, cr.daily?.dose?.p90, cr.daily?.carbonKgPerD?.median, cr.daily?.carbonKgPerD?.p90,
@@ -69,7 +69,7 @@ export function carbonsCsv(r: PipelineResult): string {
     ];
   });
   return toCsv([
-    'carbon', 'type', 'price per kg', 'currency', 'K factor',
+    'carbon', 'type', 'price per kg', 'currency', 'K factor', 'background',
     'required dose (mg/L)', 'governed by', 'governing compound', 'governing compound dose (mg/L)', 'indicator mean dose (mg/L)',
     'carbon cost per m3 treated', 'carbon at design flow (kg/d)', 'yearly carbon (kg)', 'yearly carbon cost', 'yearly basis',
     'daily dose median (mg/L)', 'daily dose P90 (mg/L)', 'daily carbon median (kg/d)', 'daily carbon P90 (kg/d)',

@@ -10,6 +10,7 @@ import { CI_TO_SD_NOTE } from '../pipeline/uncertaintyStep.js';
 import { gacKineticRecord } from './gacRunJson.js';
 import type { ProjectSpec } from '../project/projectTypes.js';
 import { contactRecord } from './contactRecord.js';
+import { carbonBackgroundInputRecord, carbonBackgroundRecord } from './carbonBackgroundRecord.js';
 import { toSnakeCaseJson, userIdMap } from './snakeCaseJson.js';
 
 export interface RunEnvironment {
@@ -33,6 +34,7 @@ function resolvedInputs(p: ProjectSpec): Record<string, unknown> {
       name: c.name, type: c.type, price_per_kg: c.pricePerKg, currency: c.currency, K_factor: c.kFactor,
       isotherms: userIdMap(Object.fromEntries(Object.entries(c.isotherms).map(([id, i]) => [id, { K_mg_per_g_per_mg_per_L_pow_1_over_n: i.K, one_over_n: i.oneOverN }]))),
       bed_density_kg_per_m3: c.bedDensityKgPerM3 ?? null, ebct_min: c.ebctMin ?? null,
+      background: c.background ? carbonBackgroundInputRecord(c.background) : null,
     })),
     pilot: p.pilot ? { file: p.pilot.file, band_percent: p.pilot.bandPercent, carbon: p.pilot.carbon ?? null } : null,
     uncertainty: p.uncertainty ? {
@@ -71,6 +73,7 @@ export function runRecord(r: PipelineResult, env: RunEnvironment): Record<string
       carbons: r.carbons.map((cr) => ({
         carbon: cr.carbon.name,
         type: cr.carbon.type,
+        background: cr.background ? carbonBackgroundRecord(cr.background) : null,
         systems_at_design_doc: cr.systems.map((s) => ({
           compound: s.compoundId, competition: s.competition, description: s.description,
           single: s.single, in_mixture: s.inMixture,

@@ -8,7 +8,8 @@
  *   2. for a compound without jar tests, an EBC transferred from the calibrated compounds
  *      (calibrationTransfer.ts; simplified-EBC rule: the compound's own isotherm);
  *   3. the EBC given for it in the project's background (EBC background);
- *   4. the fractionated DOC (fictive components), with the target's K times the calibrated
+ *   4. the fractionated DOC (fictive components: the carbon's own, carbonBackground.ts, or the
+ *      project's with the carbon's K factor), with the target's K times the calibrated
  *      factor of model "fictive-k" (Schideman et al. 2006; Worch 2010; both from memory), or,
  *      without jar tests, the factor transferred from the calibrated compounds.
  * EBC concentrations scale with DOC: c0_EBC(DOC) = c0_EBC,ref · DOC / DOC_ref (Zietzschmann et
@@ -21,14 +22,21 @@ import type { BackgroundStep } from './backgroundStep.js';
 import type { CompoundCalibration } from './calibrationStep.js';
 import { scaleK, type CompoundSystem } from './competitionSystem.js';
 import type { TransferredCalibration } from './calibrationTransfer.js';
+import type { CarbonBackground } from './carbonBackground.js';
 
 function fmtK(K: number): string {
   return Number(K.toPrecision(4)).toString();
 }
 
 /** Systems of every compound (project order) on one carbon. */
-export function buildSystems(project: ProjectSpec, carbon: CarbonSpec, bg: BackgroundStep, calibrations: ReadonlyMap<string, CompoundCalibration>, transfer?: TransferredCalibration): CompoundSystem[] {
+/**
+ * @param bg the carbon's background (carbonBackground.ts: its own fictive components, or the
+ *   project's with the carbon's K factor); a project-level background step means the latter
+ */
+export function buildSystems(project: ProjectSpec, carbon: CarbonSpec, bg: Pick<BackgroundStep, 'background'> | CarbonBackground, calibrations: ReadonlyMap<string, CompoundCalibration>, transfer?: TransferredCalibration): CompoundSystem[] {
   const f = carbon.kFactor;
+  const ownBackground = 'source' in bg && (bg.source === 'own isotherm' || bg.source === 'own file');
+  const bf = 'backgroundKFactor' in bg ? bg.backgroundKFactor : f;
   return project.compounds.map((comp) => {
     const own = carbon.isotherms[comp.id];
     const single = own ? { K: own.K, oneOverN: own.oneOverN } : { K: comp.K * f, oneOverN: comp.oneOverN };
@@ -72,13 +80,13 @@ export function buildSystems(project: ProjectSpec, carbon: CarbonSpec, bg: Backg
     const background = bg.background;
     if (!background) throw new InputError('no fractionated background for the fictive-component model', { path: 'background' });
     const factor = cal?.model === 'fictive-k' && cal.targetKFactor !== undefined ? cal.targetKFactor : t?.targetKFactor ?? 1;
-    const factorText = factor === 1 ? '' : cal ? `, target K × ${fmtK(factor)} from jar tests` : `, target K × ${fmtK(factor)} ${t!.label}`;
+    const factorText = factor === 1 ? '' : (cal ? `, target K × ${fmtK(factor)} from jar tests` : `, target K × ${fmtK(factor)} ${t!.label}`) + (ownBackground ? " (calibrated beside the reference carbon's background)" : '');
     return {
       ...base,
       inMixture: { K: single.K * factor, oneOverN: single.oneOverN },
       competition: 'fictive',
-      background: (doc: number) => scaleK(backgroundComponents(background, doc), f),
-      description: `fractionated DOC (${background.components.length} fictive components)${factorText}${f !== 1 ? `, carbon K factor ${f}` : ''}`,
+      background: (doc: number) => scaleK(backgroundComponents(background, doc), bf),
+      description: `${ownBackground ? "this carbon's own " : ''}fractionated DOC (${background.components.length} fictive components)${factorText}${f !== 1 ? `, carbon K factor ${f}${ownBackground ? ' on the compounds' : ''}` : ''}`,
     } satisfies CompoundSystem;
   });
 }

@@ -11,6 +11,7 @@ import type { BackgroundStep } from './backgroundStep.js';
 import type { CompoundCalibration } from './calibrationStep.js';
 import type { TransferredCalibration } from './calibrationTransfer.js';
 import type { CompoundSystem } from './competitionSystem.js';
+import type { CarbonBackground, CarbonBackgroundInput } from './carbonBackground.js';
 import type { CompoundGoal } from '../design/compoundGoal.js';
 import type { DailyDoses } from '../design/dailyDoses.js';
 import type { IndicatorCheck } from '../design/indicatorGoal.js';
@@ -46,6 +47,8 @@ export interface PipelineInput {
   backgroundFile?: BackgroundFile;
   /** Jar-test tables by compound id. */
   jarTests: Record<string, CsvTable>;
+  /** Each carbon's own DOC isotherm table or background file, by carbon name (carbons[i].background). */
+  carbonBackgrounds?: Record<string, CarbonBackgroundInput>;
   /** The site's DOC series, if the project has one. */
   series?: SiteSeries;
   /** Pilot pairs (project field `pilot`). */
@@ -82,6 +85,8 @@ export interface UncertaintyRunOptions extends PipelineOptions {
 
 export interface CarbonResult {
   carbon: CarbonSpec;
+  /** The carbon's background: its own fractionated DOC or the project's with its K factor (carbonBackground.ts). */
+  background?: CarbonBackground;
   /** Systems of the compounds on this carbon (project order); PAC only. */
   systems: CompoundSystem[];
   /** Required dose at the site's design DOC (PAC only). */

@@ -12,6 +12,7 @@
 import { backgroundStep, type BackgroundStep } from './backgroundStep.js';
 import { calibrationStep, type CompoundCalibration } from './calibrationStep.js';
 import { buildSystems } from './buildSystems.js';
+import { carbonBackground } from './carbonBackground.js';
 import { calibrationTransfer, transferNote } from './calibrationTransfer.js';
 import { compoundGoal, type CompoundGoal } from '../design/compoundGoal.js';
 import { designDose, type DesignProblem } from '../design/designDose.js';
@@ -56,7 +57,7 @@ export function indicatorPlan(project: ProjectSpec): IndicatorGoal | undefined {
 }
 
 /** The design problem of one carbon: the goals, the indicator goal, the price and UV254 absorbances. */
-export function designProblem(project: ProjectSpec, carbon: { pricePerKg: number }, goals: readonly CompoundGoal[], bg: BackgroundStep): DesignProblem {
+export function designProblem(project: ProjectSpec, carbon: { pricePerKg: number }, goals: readonly CompoundGoal[], bg: Pick<BackgroundStep, 'background'>): DesignProblem {
   const problem: DesignProblem = { goals, pricePerKg: carbon.pricePerKg };
   const plan = indicatorPlan(project);
   if (plan) problem.indicator = plan;
@@ -92,7 +93,10 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
 
   const carbons: CarbonResult[] = project.carbons.map((carbon, ci) => {
     const res: CarbonResult = { carbon, systems: [], warnings: [] };
-    const systems = buildSystems(project, carbon, bg, calMap, transfer);
+    const cb = timed('background', () => carbonBackground(carbon, ci, bg, input.carbonBackgrounds?.[carbon.name]));
+    res.background = cb;
+    res.warnings.push(...cb.warnings.map((w) => `own background: ${w}`));
+    const systems = buildSystems(project, carbon, cb, calMap, transfer);
     res.systems = systems;
     if (carbon.type === 'GAC') {
       progress({ step: `${carbon.name}: GAC estimate`, done: ci, total: project.carbons.length });
@@ -102,15 +106,15 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
       if (carbon.bedKinetics && !needsCarbon) res.warnings.push('GAC breakthrough: no goal needs carbon (report-only compounds or limits already met); no run length');
       if (carbon.bedKinetics && needsCarbon) {
         progress({ step: `${carbon.name}: GAC breakthrough`, done: ci, total: project.carbons.length });
-        const kin = timed('GAC breakthrough', () => gacKineticStep(project, ci, carbon, systems, bg.background, goals, res.gac!));
+        const kin = timed('GAC breakthrough', () => gacKineticStep(project, ci, { ...carbon, kFactor: cb.backgroundKFactor }, systems, cb.background, goals, res.gac!));
         res.gacKinetic = kin;
         res.warnings.push(...gacKineticFigures(res, kin));
       }
       return res;
     }
-    const problem = designProblem(project, carbon, goalList, bg);
+    const problem = designProblem(project, carbon, goalList, cb);
     const factory = contactFactory(project.site.pacContact, carbon, options.kinetic);
-    const bgAtDoc = bg.background ? surrogateModel(bg.background, doc, carbon.kFactor).background : undefined;
+    const bgAtDoc = cb.background ? surrogateModel(cb.background, doc, cb.backgroundKFactor).background : undefined;
     const model = carbonModel(systems, doc, bgAtDoc, factory);
     progress({ step: `${carbon.name}: doses at the design DOC`, done: ci, total: project.carbons.length });
     const eqDesign = factory ? timed('doses', () => designDose(carbonModel(systems, doc, bgAtDoc), problem)) : undefined;
@@ -125,9 +129,9 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
     const curves = timed('curves', () => removalCurves(carbon.name, model, sweepCovering(project.goals.sweep, req.doseMgPerL)));
     res.curves = curves;
     if (res.contact && req.governing) { const gov = req.governing; res.contact.curves = timed('contact curves', () => contactCurvesStep(project.site.pacContact!, carbon, systems, doc, gov.compoundId, req.doseMgPerL!, curves, carbonModel(systems, doc), options.kinetic)); }
-    if (bg.background) {
-      const background = bg.background;
-      res.surrogates = timed('surrogates', () => surrogateStep(carbon.name, background, carbon.kFactor, doc, curves, req, goalList, factory ? modelBackgroundPoint(model, problem.uv254AbsorbancePerM) : undefined));
+    if (cb.background) {
+      const background = cb.background;
+      res.surrogates = timed('surrogates', () => surrogateStep(carbon.name, background, cb.backgroundKFactor, doc, curves, req, goalList, factory ? modelBackgroundPoint(model, problem.uv254AbsorbancePerM) : undefined));
       if (!res.surrogates.hasUv254) res.warnings.push('the background has no UV254 absorbances: DOC reduction only, no UV254 set-point');
     }
     const design = project.goals.designDoseMgPerL ?? req.doseMgPerL ?? undefined;
@@ -169,8 +173,9 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
     const spec = project.pilot;
     const pilotData = input.pilot;
     const cr = spec.carbon !== undefined ? carbons.find((c) => c.carbon.name === spec.carbon) : carbons.find((c) => c.carbon.type === 'PAC');
-    if (!cr || !bg.background) throw new InputError('the pilot check needs a PAC carbon and a fractionated background ("isotherm" or "file")', { path: 'pilot' });
-    const model = surrogateModel(bg.background, doc, cr.carbon.kFactor);
+    const cbg = cr?.background;
+    if (!cr || !cbg?.background) throw new InputError('the pilot check needs a PAC carbon and a fractionated background ("isotherm" or "file")', { path: 'pilot' });
+    const model = surrogateModel(cbg.background, doc, cbg.backgroundKFactor);
     pilot = timed('pilot check', () => pilotStep(cr.carbon.name, pilotData, spec.bandPercent, model, cr.systems, doc));
     if (project.site.pacContact) warnings.push('pilot check: the predictions are equilibrium ones (batch IAST), not under the plant\'s contact conditions; the pilot check does not use the contact model yet');
     for (const c of pilot.check.compounds) {

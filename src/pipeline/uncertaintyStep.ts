@@ -65,10 +65,10 @@ export function resolveUncertaintySettings(spec: UncertaintySpec | undefined, o:
 
 /** The Monte Carlo problem of one PAC carbon, or the reason it cannot be set up. */
 export function uncertaintyProblem(
-  project: ProjectSpec, cr: CarbonResult, bg: BackgroundStep, goals: readonly CompoundGoal[], series: SiteSeries | undefined, s: UncertaintySettings,
+  project: ProjectSpec, cr: CarbonResult, bg: Pick<BackgroundStep, 'background'>, goals: readonly CompoundGoal[], series: SiteSeries | undefined, s: UncertaintySettings,
 ): { problem: MonteCarloProblem; parameters: UncertainParameter[]; excluded: string[] } | { skipped: string } {
   if (cr.contact) return { skipped: `the Monte Carlo does not sample the PAC contact-kinetics model yet (0 draws under contact conditions); the run's doses are under contact conditions (${cr.contact.model}) and equilibrium bands would not match them` };
-  const bgFile = bg.background;
+  const bgFile = (cr.background ?? bg).background; // the carbon's own background, else the project's
   if (!bgFile) return { skipped: 'the Monte Carlo needs a fractionated background (fictive components); an EBC background is not sampled' };
   const ebc = cr.systems.filter((x) => x.competition !== 'fictive').map((x) => x.compoundId);
   if (ebc.length) return { skipped: `compound(s) ${ebc.join(', ')} compete with a calibrated EBC; the Monte Carlo samples the fictive DOC components only` };
@@ -85,7 +85,7 @@ export function uncertaintyProblem(
   if (s.KRelSd > 0) parameters.push({ parameter: "compounds' K", distribution: 'lognormal', sd: s.KRelSd, basis: 'project uncertainty.K_rel_sd' });
   if (s.oneOverNRelSd > 0) parameters.push({ parameter: "compounds' 1/n", distribution: 'lognormal', sd: s.oneOverNRelSd, basis: 'project uncertainty.one_over_n_rel_sd' });
   const cov: { names: string[]; variances: number[] } = { names: [], variances: [] };
-  const f = cr.carbon.kFactor;
+  const f = cr.background?.backgroundKFactor ?? cr.carbon.kFactor;
   const background = bgFile.components.map((c): UncertainBackgroundComponent => {
     const id = `bg:${c.id}`;
     const comp: UncertainBackgroundComponent = { id, K: c.K * f, oneOverN: c.K > 0 ? c.one_over_n : 1, fraction: c.fraction };

@@ -40,6 +40,14 @@ export type BackgroundSpec =
   /** One equivalent background compound per target compound, valid at `docMgPerL`. */
   | { kind: 'ebc'; docMgPerL: number; ebc: Record<string, FreundlichComponent> };
 
+/**
+ * A carbon's own background (src/project/readCarbonBackground.ts): its own DOC (and UV254)
+ * isotherm to fractionate, or a background file; the same kinds as the project's background.
+ * After validation the isotherm's options are the project's fractionation options overridden by
+ * the carbon's own.
+ */
+export type CarbonBackgroundSpec = Extract<BackgroundSpec, { kind: 'isotherm' | 'file' }>;
+
 export interface CarbonIsotherm {
   /** K in (mg/g)/(mg/L)^(1/n). */
   K: number;
@@ -52,10 +60,12 @@ export interface CarbonSpec {
   /** Carbon price per kg, in `currency`. */
   pricePerKg: number;
   currency: string;
-  /** Factor on the reference K of every compound and of the background (1 = reference carbon). */
+  /** Factor on the reference K of every compound and of the background (1 = reference carbon); with its own background, of the compounds only. */
   kFactor: number;
   /** Per-compound single-solute isotherms on this carbon (replace the reference values). */
   isotherms: Record<string, CarbonIsotherm>;
+  /** The carbon's own DOC background (absent = the project's background with `kFactor` on its K). */
+  background?: CarbonBackgroundSpec;
   /** GAC only: bed density, kg/m³. */
   bedDensityKgPerM3?: number;
   /** GAC only: empty-bed contact time, min. */

@@ -7,11 +7,16 @@ import { InputError } from '../core/errors.js';
 import type { FreundlichComponent } from '../equilibrium/preparedMixture.js';
 import { readComponent } from '../scenario/readMixture.js';
 import { parseQuantity } from '../units/parseQuantity.js';
-import { at, describeValue, expectNumber, expectObject, expectString, join, onlyKeys } from '../scenario/jsonChecks.js';
-import type { BackgroundSpec, CompoundSpec, SiteSpec } from './projectTypes.js';
+import { at, expectObject, expectString, join, onlyKeys } from '../scenario/jsonChecks.js';
+import type { BackgroundSpec, CalibrationTransferSpec, CompoundSpec, SiteSpec } from './projectTypes.js';
 import { positive } from './quantities.js';
+import { readFractionationOptions } from './readFractionationOptions.js';
 
-export function readBackground(raw: unknown, compounds: CompoundSpec[], site: SiteSpec): BackgroundSpec {
+/**
+ * @param transfer the project's calibration transfer: with "mean" or a named compound, compounds
+ *   without jar tests take the transferred EBC and need none of their own in an EBC background
+ */
+export function readBackground(raw: unknown, compounds: CompoundSpec[], site: SiteSpec, transfer?: CalibrationTransferSpec): BackgroundSpec {
   const p = 'background';
   const o = expectObject(raw, p, 'the background: { "isotherm": CSV }, { "file": JSON } or { "ebc": {…} }');
   const modes = ['isotherm', 'file', 'ebc'].filter((k) => o[k] !== undefined);
@@ -22,18 +27,7 @@ export function readBackground(raw: unknown, compounds: CompoundSpec[], site: Si
   if (mode === 'isotherm') {
     onlyKeys(o, ['isotherm', 'fractionation', 'note'], p);
     const file = expectString(o.isotherm, `${p}.isotherm`, 'a DOC isotherm CSV path relative to the project file');
-    const options: { components?: number; exponent?: number; fitK?: boolean } = {};
-    if (o.fractionation !== undefined) {
-      const fp = `${p}.fractionation`;
-      const f = expectObject(o.fractionation, fp, 'fractionation options { components, exponent, fit_k }');
-      onlyKeys(f, ['components', 'exponent', 'fit_k'], fp);
-      if (f.components !== undefined) options.components = expectNumber(f.components, `${fp}.components`, 'a whole number of adsorbable fictive components from 2 to 5', (x) => Number.isInteger(x) && x >= 2 && x <= 5);
-      if (f.exponent !== undefined) options.exponent = expectNumber(f.exponent, `${fp}.exponent`, 'a Freundlich exponent 1/n between 0 and 1 (exclusive)', (x) => x > 0 && x < 1);
-      if (f.fit_k !== undefined) {
-        if (typeof f.fit_k !== 'boolean') throw new InputError(`expected true or false, got ${describeValue(f.fit_k)}`, { path: `${fp}.fit_k` });
-        options.fitK = f.fit_k;
-      }
-    }
+    const options = o.fractionation === undefined ? {} : readFractionationOptions(o.fractionation, `${p}.fractionation`);
     for (const c of compounds) checkCalibrationFits(c, compounds, 'fictive');
     return { kind: 'isotherm', file, options };
   }
@@ -57,8 +51,9 @@ export function readBackground(raw: unknown, compounds: CompoundSpec[], site: Si
   }
   for (const c of compounds) {
     checkCalibrationFits(c, compounds, 'ebc');
-    if (!ebc[c.id] && !(c.jarTests && c.jarTests.model !== 'fictive-k')) {
-      throw new InputError(`missing the EBC of compound "${c.id}"; expected { "K", "one_over_n", "c0" } or jar tests with model "ebc" or "sebc" for it`, { path: join(ep, c.id) });
+    const transferred = transfer !== undefined && transfer.kind !== 'none' && !c.jarTests;
+    if (!ebc[c.id] && !transferred && !(c.jarTests && c.jarTests.model !== 'fictive-k')) {
+      throw new InputError(`missing the EBC of compound "${c.id}"; expected { "K", "one_over_n", "c0" }, jar tests with model "ebc" or "sebc" for it, or a "calibration_transfer" from a compound with jar tests`, { path: join(ep, c.id) });
     }
   }
   const doc = o.doc === undefined ? site.docMgPerL : positive(at(`${p}.doc`, () => parseQuantity(o.doc, 'massConcentration')), `${p}.doc`, 'the positive DOC at which the EBC concentrations apply');

@@ -9,6 +9,7 @@ import { expectArray, expectNumber, expectObject, expectString, join, onlyKeys, 
 import { readCarbonKinetics } from './readCarbonKinetics.js';
 import type { CarbonIsotherm, CarbonSpec, CompoundSpec } from './projectTypes.js';
 import { readGacKinetics } from './readGacKinetics.js';
+import { readCarbonBackground } from './readCarbonBackground.js';
 
 export function readCarbons(raw: unknown, compounds: CompoundSpec[]): CarbonSpec[] {
   const arr = expectArray(raw, 'carbons', 'an array of candidate carbons', 1);
@@ -16,7 +17,7 @@ export function readCarbons(raw: unknown, compounds: CompoundSpec[]): CarbonSpec
   return arr.map((c, i) => {
     const p = `carbons[${i}]`;
     const o = expectObject(c, p, 'a carbon { name, type, price_per_kg, currency }');
-    onlyKeys(o, ['name', 'note', 'type', 'price_per_kg', 'currency', 'K_factor', 'isotherms', 'bed_density_kg_per_m3', 'ebct_min', 'kinetics'], p);
+    onlyKeys(o, ['name', 'note', 'type', 'price_per_kg', 'currency', 'K_factor', 'isotherms', 'bed_density_kg_per_m3', 'ebct_min', 'kinetics', 'background'], p);
     const name = expectString(required(o, 'name', p, 'the carbon name as text'), `${p}.name`, 'the carbon name as text');
     if (names.has(name)) throw new InputError(`duplicate carbon name "${name}"; every carbon needs its own name`, { path: `${p}.name` });
     names.add(name);
@@ -44,6 +45,7 @@ export function readCarbons(raw: unknown, compounds: CompoundSpec[]): CarbonSpec
         spec.isotherms[id] = { K: r.K, oneOverN: r.oneOverN } satisfies CarbonIsotherm;
       }
     }
+    if (o.background !== undefined) spec.background = readCarbonBackground(o.background, `${p}.background`);
     if (o.bed_density_kg_per_m3 !== undefined) spec.bedDensityKgPerM3 = expectNumber(o.bed_density_kg_per_m3, `${p}.bed_density_kg_per_m3`, 'a positive bed density in kg/m³', (x) => x > 0);
     if (o.ebct_min !== undefined) spec.ebctMin = expectNumber(o.ebct_min, `${p}.ebct_min`, 'a positive empty-bed contact time in minutes', (x) => x > 0);
     if (type === 'GAC') {

@@ -14,6 +14,7 @@ import type { CalibrationModelName, CompoundSpec, ProjectCover, ProjectSpec, Sit
 import { positive, readAbsorbance, readLimit } from './quantities.js';
 import { readBackground } from './readBackgroundSpec.js';
 import { readCarbons } from './readCarbons.js';
+import { resolveCarbonBackgrounds } from './readCarbonBackground.js';
 import { readGoals } from './readGoals.js';
 import { readPilot } from './readPilotSpec.js';
 import { readPacContact } from './readPacContact.js';
@@ -31,8 +32,10 @@ export function validateProject(raw: unknown): ProjectSpec {
   const name = expectString(required(root, 'name', '', 'the project name as text'), 'name', 'the project name as text');
   const site = readSite(required(root, 'site', '', 'the site object { name, flow, doc }'));
   const compounds = readCompounds(required(root, 'compounds', '', 'an array of compounds'));
-  const background = readBackground(required(root, 'background', '', 'the background: { "isotherm": CSV }, { "file": JSON } or { "ebc": {…} }'), compounds, site);
+  const transfer = root.calibration_transfer === undefined ? undefined : readCalibrationTransfer(root.calibration_transfer, compounds);
+  const background = readBackground(required(root, 'background', '', 'the background: { "isotherm": CSV }, { "file": JSON } or { "ebc": {…} }'), compounds, site, transfer);
   const carbons = readCarbons(required(root, 'carbons', '', 'an array of candidate carbons'), compounds);
+  resolveCarbonBackgrounds(background, carbons);
   const goals = readGoals(root.goals, compounds);
   checkKineticInputs(site.pacContact, carbons, compounds);
   const out: ProjectSpec = { name, site, background, carbons, compounds, goals };
@@ -41,7 +44,7 @@ export function validateProject(raw: unknown): ProjectSpec {
   if (cover) out.cover = cover;
   if (root.pilot !== undefined) out.pilot = readPilot(root.pilot, carbons);
   if (root.uncertainty !== undefined) out.uncertainty = readUncertainty(root.uncertainty);
-  if (root.calibration_transfer !== undefined) out.calibrationTransfer = readCalibrationTransfer(root.calibration_transfer, compounds);
+  if (transfer) out.calibrationTransfer = transfer;
   return out;
 }
 

@@ -21,6 +21,7 @@ import { readBackground } from '../fractionation/backgroundFile.js';
 import { SITE_SERIES_COLUMNS, siteSeriesFromTable } from '../siteSeries/siteSeries.js';
 import type { InputFileRecord, PipelineInput } from '../pipeline/pipelineTypes.js';
 import { JAR_TEST_COLUMNS } from '../calibration/jarTestData.js';
+import { KINETIC_DOC_COLUMNS, KINETIC_TARGET_COLUMNS } from '../calibration/kineticTestData.js';
 import { validateProject } from '../project/validateProject.js';
 import { componentWarnings, docWarnings, traceC0Warnings } from '../scenario/plausibility.js';
 import { pilotColumnSpecs, pilotFromTable } from '../surrogates/pilotCsv.js';
@@ -97,6 +98,15 @@ export function loadProject(projectPath: string, options: { demo?: boolean; form
   project.compounds.forEach((c, i) => {
     if (!c.jarTests) return;
     input.jarTests[c.id] = readReferencedTable(baseDir, c.jarTests.file, `compounds[${i}].jar_tests.file`, 'jar-test CSV', files, `jar tests ${c.id}`, JAR_TEST_COLUMNS, format, notes);
+  });
+  project.carbons.forEach((c, i) => {
+    const tests = c.kinetics?.tests;
+    if (!tests) return;
+    const p = `carbons[${i}].kinetics.kinetic_tests`;
+    const t: NonNullable<PipelineInput['kineticTests']>[string] = { ds: {} };
+    if (tests.docDs !== undefined) t.docDs = readReferencedTable(baseDir, tests.docDs, `${p}.doc_Ds`, 'DOC kinetic test table', files, `DOC kinetic tests (${c.name})`, KINETIC_DOC_COLUMNS, format, notes);
+    for (const [id, f] of Object.entries(tests.ds)) t.ds[id] = readReferencedTable(baseDir, f, `${p}.Ds.${id}`, 'kinetic test table', files, `kinetic tests ${id} (${c.name})`, KINETIC_TARGET_COLUMNS, format, notes);
+    (input.kineticTests ??= {})[c.name] = t;
   });
   if (project.site.seriesFile) {
     const t = readReferencedTable(baseDir, project.site.seriesFile, 'site.series', 'site DOC series CSV', files, 'site DOC series', SITE_SERIES_COLUMNS, format, []);

@@ -104,8 +104,12 @@ export function loadProject(projectPath: string, options: { demo?: boolean; form
     if (!tests) return;
     const p = `carbons[${i}].kinetics.kinetic_tests`;
     const t: NonNullable<PipelineInput['kineticTests']>[string] = { ds: {} };
-    if (tests.docDs !== undefined) t.docDs = readReferencedTable(baseDir, tests.docDs, `${p}.doc_Ds`, 'DOC kinetic test table', files, `DOC kinetic tests (${c.name})`, KINETIC_DOC_COLUMNS, format, notes);
-    for (const [id, f] of Object.entries(tests.ds)) t.ds[id] = readReferencedTable(baseDir, f, `${p}.Ds.${id}`, 'kinetic test table', files, `kinetic tests ${id} (${c.name})`, KINETIC_TARGET_COLUMNS, format, notes);
+    // a bad table names its file, row and column and the field that referenced it
+    const table = (f: string, jsonPath: string, what: string, role: string, specs: CsvColumnSpecs) => {
+      try { return readReferencedTable(baseDir, f, jsonPath, what, files, role, specs, format, notes); } catch (e) { throw e instanceof InputError && !e.location.path && e.location.row !== undefined ? e.at({ path: jsonPath }) : e; }
+    };
+    if (tests.docDs !== undefined) t.docDs = table(tests.docDs, `${p}.doc_Ds`, 'DOC kinetic test table', `DOC kinetic tests (${c.name})`, KINETIC_DOC_COLUMNS);
+    for (const [id, f] of Object.entries(tests.ds)) t.ds[id] = table(f, `${p}.Ds.${id}`, 'kinetic test table', `kinetic tests ${id} (${c.name})`, KINETIC_TARGET_COLUMNS);
     (input.kineticTests ??= {})[c.name] = t;
   });
   if (project.site.seriesFile) {

@@ -57,6 +57,16 @@ export interface CarbonKineticCalibration {
   kinetics: CarbonKinetics;
 }
 
+/** A bad table's InputError (file, row, column) with the project JSON path that named the table added. */
+function named<T>(path: string, f: () => T): T {
+  try {
+    return f();
+  } catch (e) {
+    if (e instanceof InputError && e.location.path === undefined) throw e.at({ path });
+    throw e;
+  }
+}
+
 /**
  * Fit the kinetic tests of one PAC carbon; undefined when it has none.
  * @param carbonIndex position of the carbon in the project (for JSON paths)
@@ -81,9 +91,9 @@ export function kineticCalibrationStep(carbon: CarbonSpec, carbonIndex: number, 
     const table = tables.docDs;
     const fictive = systems.find((s) => s.competition === 'fictive');
     if (!fictive) throw new InputError(`a DOC kinetic test fits the Ds of the fictive DOC components, but no compound on carbon "${carbon.name}" competes with them (EBC background or EBC calibrations)`, { path: `${path}.kinetic_tests.doc_Ds` });
-    const result = calibrateKinetics(table, {
+    const result = named(`${path}.kinetic_tests.doc_Ds`, () => calibrateKinetics(table, {
       model: 'surface-diffusion-doc', background: fictive.background(docMgPerL), docMgPerL, particle, dlM2PerS: k.docDlM2PerS, ...(table.file !== undefined ? { file: table.file } : {}), ...grid,
-    });
+    }));
     const warnings = [...(table.columns.c0 ? [] : [`the DOC kinetic test has no DOC0 column; ${atDoc}`]), ...result.warnings];
     fits.push({ parameter: 'doc_Ds', compoundId: 'DOC', model: 'surface-diffusion-doc', ...(k.docDsM2PerS !== undefined ? { givenM2PerS: k.docDsM2PerS } : {}), result, ...(table.file !== undefined ? { file: table.file } : {}), warnings });
     kinetics.docDsM2PerS = result.parameters.Ds_m2_per_s;
@@ -95,12 +105,12 @@ export function kineticCalibrationStep(carbon: CarbonSpec, carbonIndex: number, 
     const dl = k.dlM2PerS[id];
     if (dl === undefined) throw missing(`DL.${id}`, `the liquid diffusivity DL of "${id}" (film coefficient kf = DL/R), e.g. "7e-10 m2/s"`);
     if (kinetics.docDsM2PerS === undefined) throw missing('doc_Ds', `the surface diffusivity of the background (doc_Ds, or a DOC kinetic test in kinetic_tests.doc_Ds) to fit the Ds of "${id}"`);
-    const result = calibrateKinetics(table, {
+    const result = named(`${path}.kinetic_tests.Ds.${id}`, () => calibrateKinetics(table, {
       model: 'surface-diffusion',
       target: { id, c0MgPerL: 0, K: sys.inMixture.K, oneOverN: sys.inMixture.oneOverN, dlM2PerS: dl },
       background: sys.background(docMgPerL), docMgPerL, particle, backgroundDsM2PerS: kinetics.docDsM2PerS, dlM2PerS: k.docDlM2PerS,
       ...(table.file !== undefined ? { file: table.file } : {}), ...grid,
-    });
+    }));
     const given = k.dsM2PerS[id];
     fits.push({ parameter: 'Ds', compoundId: id, model: 'surface-diffusion', ...(given !== undefined ? { givenM2PerS: given } : {}), result, ...(table.file !== undefined ? { file: table.file } : {}), warnings: [`the target kinetic tests have no DOC column; ${atDoc}`, ...result.warnings] });
     kinetics.dsM2PerS[id] = result.parameters.Ds_m2_per_s;

@@ -98,7 +98,14 @@ describe('kinetic_tests, Ds_rel_sd and contact_draws in a project file', () => {
     expect(err.location.file).toBe(join(dir, 'kinetic_tests_cbz.csv'));
     expect(err.location.row).toBe(4);
     expect(err.location.column).toBe('time (min)');
+    expect(err.location.path).toBe('carbons[0].kinetics.kinetic_tests.Ds.CBZ');
     expect(err.message).toMatch(/times must increase within a series/);
+    // a cell that is not a number is refused when the table is read, also naming the field
+    writeFileSync(join(dir, 'kinetic_tests_cbz.csv'), 'time (min),dose (mg/L),C0 (ng/L),c (ng/L)\n5,10,500,abc\n');
+    let bad: unknown;
+    try { loadProject(join(dir, 'project.json')); } catch (e) { bad = e; }
+    expect(bad).toBeInstanceOf(InputError);
+    expect((bad as InputError).location).toMatchObject({ file: join(dir, 'kinetic_tests_cbz.csv'), row: 2, path: 'carbons[0].kinetics.kinetic_tests.Ds.CBZ' });
   });
 
   it('a target test without the target\'s DL (film coefficient) names carbons[i].kinetics.DL.<id>', () => {

@@ -45,7 +45,7 @@ export interface KineticFit {
   givenM2PerS?: number;
   /** The fit as `sorbshare calibrate --model surface-diffusion[-doc] --json` prints it. */
   result: KineticCalibrationResult;
-  /** The table's file (as read). */
+  /** The table's file as the project names it (relative to the project file; errors name the full path). */
   file?: string;
   warnings: string[];
 }
@@ -95,7 +95,7 @@ export function kineticCalibrationStep(carbon: CarbonSpec, carbonIndex: number, 
       model: 'surface-diffusion-doc', background: fictive.background(docMgPerL), docMgPerL, particle, dlM2PerS: k.docDlM2PerS, ...(table.file !== undefined ? { file: table.file } : {}), ...grid,
     }));
     const warnings = [...(table.columns.c0 ? [] : [`the DOC kinetic test has no DOC0 column; ${atDoc}`]), ...result.warnings];
-    fits.push({ parameter: 'doc_Ds', compoundId: 'DOC', model: 'surface-diffusion-doc', ...(k.docDsM2PerS !== undefined ? { givenM2PerS: k.docDsM2PerS } : {}), result, ...(table.file !== undefined ? { file: table.file } : {}), warnings });
+    fits.push({ parameter: 'doc_Ds', compoundId: 'DOC', model: 'surface-diffusion-doc', ...(k.docDsM2PerS !== undefined ? { givenM2PerS: k.docDsM2PerS } : {}), result, file: k.tests.docDs, warnings });
     kinetics.docDsM2PerS = result.parameters.Ds_m2_per_s;
   }
   for (const [id, table] of Object.entries(tables.ds)) {
@@ -112,7 +112,7 @@ export function kineticCalibrationStep(carbon: CarbonSpec, carbonIndex: number, 
       ...(table.file !== undefined ? { file: table.file } : {}), ...grid,
     }));
     const given = k.dsM2PerS[id];
-    fits.push({ parameter: 'Ds', compoundId: id, model: 'surface-diffusion', ...(given !== undefined ? { givenM2PerS: given } : {}), result, ...(table.file !== undefined ? { file: table.file } : {}), warnings: [`the target kinetic tests have no DOC column; ${atDoc}`, ...result.warnings] });
+    fits.push({ parameter: 'Ds', compoundId: id, model: 'surface-diffusion', ...(given !== undefined ? { givenM2PerS: given } : {}), result, file: k.tests.ds[id], warnings: [`the target kinetic tests have no DOC column; ${atDoc}`, ...result.warnings] });
     kinetics.dsM2PerS[id] = result.parameters.Ds_m2_per_s;
   }
   return { fits, kinetics };

@@ -67,6 +67,15 @@ describe('Monte Carlo under PAC contact conditions', () => {
     const k = rec.results.carbons[0]!.monte_carlo.problem.kinetics as { targets: Array<Record<string, unknown>>; contact: Record<string, unknown> };
     expect(Object.keys(k.targets[0]!).sort()).toEqual(['DL_m2_per_s', 'Ds_m2_per_s', 'ln_Ds_sd']);
     expect(k.contact.contact_time_s).toBe(1800);
+    // the whole run.json of a contact Monte Carlo is snake_case (a key with a lower-case letter or
+    // digit before a capital is camelCase; compound ids are not camelCase in this fixture)
+    const camel: string[] = [];
+    const walk = (v: unknown, path: string): void => {
+      if (Array.isArray(v)) v.forEach((x) => walk(x, `${path}[]`));
+      else if (v !== null && typeof v === 'object') for (const [key, x] of Object.entries(v)) { if (/[a-z0-9][A-Z]/.test(key)) camel.push(`${path}.${key}`); walk(x, `${path}.${key}`); }
+    };
+    walk(rec, '$');
+    expect(camel).toEqual([]);
   }, 300_000);
 
   it('contact_draws 0 skips the Monte Carlo under contact with the reason; equilibrium carbons keep draws', async () => {

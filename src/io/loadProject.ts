@@ -21,6 +21,7 @@ import { readBackground, type BackgroundFile } from '../fractionation/background
 import { SITE_SERIES_COLUMNS, siteSeriesFromTable } from '../siteSeries/siteSeries.js';
 import type { InputFileRecord, PipelineInput } from '../pipeline/pipelineTypes.js';
 import { JAR_TEST_COLUMNS } from '../calibration/jarTestData.js';
+import { KINETIC_DOC_COLUMNS, KINETIC_TARGET_COLUMNS } from '../calibration/kineticTestData.js';
 import { validateProject } from '../project/validateProject.js';
 import { componentWarnings, docWarnings, traceC0Warnings } from '../scenario/plausibility.js';
 import { pilotColumnSpecs, pilotFromTable } from '../surrogates/pilotCsv.js';
@@ -110,6 +111,19 @@ export function loadProject(projectPath: string, options: { demo?: boolean; form
   project.compounds.forEach((c, i) => {
     if (!c.jarTests) return;
     input.jarTests[c.id] = readReferencedTable(baseDir, c.jarTests.file, `compounds[${i}].jar_tests.file`, 'jar-test CSV', files, `jar tests ${c.id}`, JAR_TEST_COLUMNS, format, notes);
+  });
+  project.carbons.forEach((c, i) => {
+    const tests = c.kinetics?.tests;
+    if (!tests) return;
+    const p = `carbons[${i}].kinetics.kinetic_tests`;
+    const t: NonNullable<PipelineInput['kineticTests']>[string] = { ds: {} };
+    // a bad table names its file, row and column and the field that referenced it
+    const table = (f: string, jsonPath: string, what: string, role: string, specs: CsvColumnSpecs) => {
+      try { return readReferencedTable(baseDir, f, jsonPath, what, files, role, specs, format, notes); } catch (e) { throw e instanceof InputError && !e.location.path && e.location.row !== undefined ? e.at({ path: jsonPath }) : e; }
+    };
+    if (tests.docDs !== undefined) t.docDs = table(tests.docDs, `${p}.doc_Ds`, 'DOC kinetic test table', `DOC kinetic tests (${c.name})`, KINETIC_DOC_COLUMNS);
+    for (const [id, f] of Object.entries(tests.ds)) t.ds[id] = table(f, `${p}.Ds.${id}`, 'kinetic test table', `kinetic tests ${id} (${c.name})`, KINETIC_TARGET_COLUMNS);
+    (input.kineticTests ??= {})[c.name] = t;
   });
   if (project.site.seriesFile) {
     const t = readReferencedTable(baseDir, project.site.seriesFile, 'site.series', 'site DOC series CSV', files, 'site DOC series', SITE_SERIES_COLUMNS, format, []);

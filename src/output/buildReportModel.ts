@@ -16,6 +16,7 @@ import { referencesSection } from './referencesSection.js';
 import { coverLines } from './coverLines.js';
 import { carbonLook } from './carbonLooks.js';
 import { calibrationPlot } from './calibrationPlots.js';
+import { withKineticCalibration } from './kineticCalibrationRecord.js';
 import { contactSection } from './contactPlots.js';
 import { fmtConcentration as fc, fmtMoney, fmtNumber as fn, fmtWhole } from './formatting.js';
 import type { CarbonResult, PipelineResult } from '../pipeline/pipelineTypes.js';
@@ -84,8 +85,8 @@ function backgroundSection(r: PipelineResult): ReportSection {
 }
 
 function calibrationSection(r: PipelineResult): ReportSection | undefined {
-  if (r.calibrations.length === 0) return undefined;
-  return {
+  if (r.calibrations.length === 0) return withKineticCalibration(undefined, r);
+  return withKineticCalibration({
     id: 'calibration', heading: 'Calibration to jar tests',
     paragraphs: ['Competition calibrated to jar tests of the compound spiked into the site water: EBC (Najm et al. 1991), simplified EBC (Qi et al. 2007) or a target-K factor beside the fictive DOC components (Schideman et al. 2006).'],
     tables: [{
@@ -95,7 +96,7 @@ function calibrationSection(r: PipelineResult): ReportSection | undefined {
     }],
     warnings: [...r.calibrations.flatMap((c) => c.warnings.map((w) => `${c.compoundId}: ${w}`)), ...(r.calibrationTransfer ? [transferNote(r.calibrationTransfer)] : [])],
     plots: r.calibrations.flatMap((c, i) => calibrationPlot(c, i) ?? []),
-  };
+  }, r);
 }
 
 function carbonSection(r: PipelineResult, cr: CarbonResult, index: number): ReportSection {

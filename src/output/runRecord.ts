@@ -11,6 +11,7 @@ import { gacKineticRecord } from './gacRunJson.js';
 import type { ProjectSpec } from '../project/projectTypes.js';
 import { contactRecord } from './contactRecord.js';
 import { carbonBackgroundInputRecord, carbonBackgroundRecord } from './carbonBackgroundRecord.js';
+import { kineticCalibrationRecord } from './kineticCalibrationRecord.js';
 import { toSnakeCaseJson, userIdMap } from './snakeCaseJson.js';
 
 export interface RunEnvironment {
@@ -40,6 +41,7 @@ function resolvedInputs(p: ProjectSpec): Record<string, unknown> {
     uncertainty: p.uncertainty ? {
       draws: p.uncertainty.draws, seed: p.uncertainty.seed, K_rel_sd: p.uncertainty.KRelSd, one_over_n_rel_sd: p.uncertainty.oneOverNRelSd,
       doc_rel_sd: p.uncertainty.docRelSd, fraction_rel_sd: p.uncertainty.fractionRelSd, background_K_rel_sd: p.uncertainty.backgroundKRelSd,
+      ...(p.uncertainty.dsRelSd !== undefined ? { Ds_rel_sd: p.uncertainty.dsRelSd } : {}), ...(p.uncertainty.contactDraws !== undefined ? { contact_draws: p.uncertainty.contactDraws } : {}),
     } : null,
     compounds: p.compounds.map((c) => ({
       id: c.id, name: c.name, K_mg_per_g_per_mg_per_L_pow_1_over_n: c.K, one_over_n: c.oneOverN, c0_mg_per_L: c.c0MgPerL,
@@ -103,6 +105,7 @@ export function runRecord(r: PipelineResult, env: RunEnvironment): Record<string
         } : null,
         gac: cr.gac ?? null,
         ...(cr.contact ? { contact: contactRecord(cr) } : {}),
+        ...(cr.kineticCalibration ? { kinetic_calibration: kineticCalibrationRecord(cr.kineticCalibration) } : {}),
         gac_kinetic: gacKineticRecord(cr),
         monte_carlo: cr.uncertainty ? {
           parameters: cr.uncertainty.parameters, excluded: cr.uncertainty.excluded, ci_to_sd: CI_TO_SD_NOTE,

@@ -7,6 +7,7 @@ import type { PlotSeries, PlotSpec, ReportSection, ReportTable, XYPlotSpec } fro
 import { siteCurveRemoval } from '../surrogates/siteCurveFit.js';
 import { GAC_UPPER_BOUND_CAUTION } from '../gac/gacEstimate.js';
 import { fmtConcentration as fc, fmtFixed, fmtMoney, fmtNumber as fn, fmtWhole } from './formatting.js';
+import { contactMonteCarloNote } from './contactMonteCarloNote.js';
 import { monteCarloNote } from './monteCarloNote.js';
 import type { CarbonResult, PipelineResult } from '../pipeline/pipelineTypes.js';
 import { CI_TO_SD_NOTE } from '../pipeline/uncertaintyStep.js';
@@ -137,6 +138,7 @@ export function uncertaintySection(r: PipelineResult): ReportSection | undefined
   const paragraphs = [
     `Monte Carlo: ${first.result.draws} draws per carbon, seed ${first.result.seed} (${s.source}); the same draws for every carbon. Sampling: ${first.result.sampling}. Percentiles: ${first.result.percentileMethod}. ${CI_TO_SD_NOTE[0]!.toUpperCase()}${CI_TO_SD_NOTE.slice(1)}. The governing dose here is the largest compound dose (the indicator-mean goal is not sampled).`,
     ...withU.flatMap((cr) => monteCarloNote(cr)),
+    ...contactMonteCarloNote(r),
   ];
   const tables: ReportTable[] = [{
     caption: 'Uncertain parameters',

@@ -10,11 +10,12 @@ import { gacCsv, pilotCheckCsv, setpointsCsv, surrogatesCsv, uncertaintyCsv } fr
 import { runRecord, type RunEnvironment } from '../output/runRecord.js';
 import type { PipelineResult } from '../pipeline/pipelineTypes.js';
 import { snakeCaseJsonText } from '../output/snakeCaseJson.js';
+import { kineticCalibrationCsv } from '../output/kineticCalibrationRecord.js';
 
 /** Names of the text output files of a run, in the order they are written. */
 export const OUTPUT_FILES = [
   'summary.md', 'report.html', 'compounds.csv', 'removal_curves.csv', 'carbons.csv', 'daily_doses.csv', 'indicators.csv',
-  'surrogates.csv', 'setpoints.csv', 'pilot_check.csv', 'gac.csv', 'uncertainty.csv', 'run.json',
+  'surrogates.csv', 'setpoints.csv', 'pilot_check.csv', 'gac.csv', 'uncertainty.csv', 'kinetic_calibration.csv', 'run.json',
 ] as const;
 
 export function pipelineOutputs(r: PipelineResult, env: RunEnvironment): Record<(typeof OUTPUT_FILES)[number], string> {
@@ -32,6 +33,7 @@ export function pipelineOutputs(r: PipelineResult, env: RunEnvironment): Record<
     'pilot_check.csv': pilotCheckCsv(r),
     'gac.csv': gacCsv(r),
     'uncertainty.csv': uncertaintyCsv(r),
+    'kinetic_calibration.csv': kineticCalibrationCsv(r),
     'run.json': snakeCaseJsonText(runRecord(r, env)) + '\n',
   };
 }

@@ -27,6 +27,7 @@ import type { Sensitivity } from './sensitivityStep.js';
 import type { CarbonUncertainty, UncertaintySettings } from './uncertaintyTypes.js';
 import type { ContactFigures } from './contactStep.js';
 import type { KineticSolverOptions } from '../kinetics/pacBatch.js';
+import type { CarbonKineticCalibration, CarbonKineticTables } from './kineticCalibrationStep.js';
 
 /** A file the project referenced, for run.json. */
 export interface InputFileRecord {
@@ -53,6 +54,8 @@ export interface PipelineInput {
   series?: SiteSeries;
   /** Pilot pairs (project field `pilot`). */
   pilot?: PilotData;
+  /** Kinetic jar-test tables of PAC carbons by carbon name (carbons[i].kinetics.kinetic_tests). */
+  kineticTests?: Record<string, CarbonKineticTables>;
   /** Where the inputs came from (for run.json). */
   /** `notes`: how input tables were read and what was left out (gaps); the run's warnings repeat them. */
   provenance: { projectFile?: string; files: InputFileRecord[]; demo?: boolean; notes?: string[] };
@@ -119,6 +122,8 @@ export interface CarbonResult {
   sensitivity?: Sensitivity;
   /** Under the plant's PAC contact conditions: the equilibrium dose beside the required dose and their ratio. */
   contact?: ContactFigures;
+  /** Ds fitted to the carbon's kinetic jar tests (they replace the given values in `carbon.kinetics`). */
+  kineticCalibration?: CarbonKineticCalibration;
   warnings: string[];
 }
 

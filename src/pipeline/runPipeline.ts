@@ -26,6 +26,7 @@ import { carbonModel } from './carbonModel.js';
 import { contactFactory } from './contactModel.js';
 import { contactFigures } from './contactStep.js';
 import { contactCurvesStep } from './contactCurvesStep.js';
+import { kineticCalibrationStep } from './kineticCalibrationStep.js';
 import { modelBackgroundPoint } from './modelSurrogates.js';
 import { yearlyLabel } from '../design/annualised.js';
 import type { CompoundSystem } from './competitionSystem.js';
@@ -111,6 +112,13 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
         res.warnings.push(...gacKineticFigures(res, kin));
       }
       return res;
+    }
+    const kinCal = timed('kinetic calibration', () => kineticCalibrationStep(carbon, ci, systems, doc, input.kineticTests?.[carbon.name], options.kinetic));
+    if (kinCal) { // the fitted Ds replace the given ones in this carbon's contact model
+      carbon = { ...carbon, kinetics: kinCal.kinetics };
+      res.carbon = carbon;
+      res.kineticCalibration = kinCal;
+      for (const f of kinCal.fits) res.warnings.push(...f.warnings.map((w) => `kinetic calibration of ${f.parameter === 'doc_Ds' ? 'doc_Ds' : `Ds of ${f.compoundId}`}: ${w}`));
     }
     const problem = designProblem(project, carbon, goalList, cb);
     const factory = contactFactory(project.site.pacContact, carbon, options.kinetic);

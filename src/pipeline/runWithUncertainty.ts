@@ -22,5 +22,6 @@ export async function runPipelineWithUncertainty(input: PipelineInput, options: 
   const o: Parameters<typeof uncertaintyStep>[3] = {};
   if (options.onMonteCarloProgress) o.onMonteCarloProgress = options.onMonteCarloProgress;
   if (options.workers !== undefined) o.workers = options.workers;
+  if (options.kinetic !== undefined) o.kinetic = options.kinetic;
   return withUncertainty(result, await uncertaintyStep(result, input, settings, o));
 }

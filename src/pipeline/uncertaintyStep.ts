@@ -43,6 +43,10 @@ import { chunkRng } from '../uncertainty/prng.js';
 import { percentiles } from '../numerics/percentile.js';
 import { prepareSystem } from './competitionSystem.js';
 import { solveBatchPrepared } from '../equilibrium/iastBatch.js';
+import { contactDrawCount, contactUncertainty } from './contactUncertainty.js';
+import { contactFactory } from './contactModel.js';
+import { carbonModel } from './carbonModel.js';
+import type { KineticSolverOptions } from '../kinetics/pacBatch.js';
 
 /** Two-sided 95 % quantile of the standard normal distribution. */
 export const Z95 = 1.959963984540054;
@@ -65,9 +69,9 @@ export function resolveUncertaintySettings(spec: UncertaintySpec | undefined, o:
 
 /** The Monte Carlo problem of one PAC carbon, or the reason it cannot be set up. */
 export function uncertaintyProblem(
-  project: ProjectSpec, cr: CarbonResult, bg: Pick<BackgroundStep, 'background'>, goals: readonly CompoundGoal[], series: SiteSeries | undefined, s: UncertaintySettings,
+  project: ProjectSpec, cr: CarbonResult, bg: Pick<BackgroundStep, 'background'>, goals: readonly CompoundGoal[], series: SiteSeries | undefined, s: UncertaintySettings, kinetic: KineticSolverOptions = {},
 ): { problem: MonteCarloProblem; parameters: UncertainParameter[]; excluded: string[] } | { skipped: string } {
-  if (cr.contact) return { skipped: `the Monte Carlo does not sample the PAC contact-kinetics model yet (0 draws under contact conditions); the run's doses are under contact conditions (${cr.contact.model}) and equilibrium bands would not match them` };
+  if (cr.contact && contactDrawCount(s) === 0) return { skipped: 'uncertainty.contact_draws is 0: no draws under the PAC contact conditions' };
   const bgFile = (cr.background ?? bg).background; // the carbon's own background, else the project's
   if (!bgFile) return { skipped: 'the Monte Carlo needs a fractionated background (fictive components); an EBC background is not sampled' };
   const ebc = cr.systems.filter((x) => x.competition !== 'fictive').map((x) => x.compoundId);
@@ -112,6 +116,12 @@ export function uncertaintyProblem(
   if (s.docRelSd > 0) parameters.push({ parameter: 'DOC (design value and series)', distribution: 'lognormal', sd: s.docRelSd, basis: 'project uncertainty.doc_rel_sd' });
   const doc = project.site.docMgPerL;
   const problem: MonteCarloProblem = { targets, background, docMgPerL: doc, docRelSd: s.docRelSd, carbonPricePerKg: cr.carbon.pricePerKg };
+  if (cr.contact && project.site.pacContact) { // the draws use the contact model with sampled Ds (contactUncertainty.ts)
+    const k = contactUncertainty(cr, project.site.pacContact, s, kinetic);
+    if ('skipped' in k) return k;
+    problem.kinetics = k.kinetics;
+    parameters.push(...k.parameters);
+  }
   const plan = indicatorPlan(project);
   if (plan) problem.indicator = { members: plan.members.map((m) => ({ index: m.index, category: m.category })), goalPercent: plan.goalPercent, ...(plan.chosen ? { chosen: plan.chosen } : {}) };
   if (cov.names.length) {
@@ -151,22 +161,23 @@ export function removalBand(problem: MonteCarloProblem, seed: number, draws: num
   return { compoundId: targetId, draws: n, dosesMgPerL: dosesMgPerL.slice(), p10Percent: q.map((x) => x[0]!), p50Percent: q.map((x) => x[1]!), p90Percent: q.map((x) => x[2]!) };
 }
 
-/** A report-only compound's removal at the run's required dose (Infinity without a dose, as in the draws). */
-function reportOnlyRemoval(cr: CarbonResult, i: number): number {
+/** A report-only compound's removal at the run's required dose (Infinity without a dose, as in the draws); under contact from the run's contact model. */
+function reportOnlyRemoval(cr: CarbonResult, i: number, contact?: { project: ProjectSpec; kinetic: KineticSolverOptions }): number {
   const dose = cr.required!.doseMgPerL;
   if (dose === null) return Infinity;
   if (!(dose > 0)) return 0;
   const sys = cr.systems[i]!;
+  if (cr.contact && contact?.project.site.pacContact) return 1 - carbonModel(cr.systems, cr.required!.docMgPerL, undefined, contactFactory(contact.project.site.pacContact, cr.carbon, contact.kinetic)).remaining(i, dose / 1000).remainingFraction;
   return 1 - solveBatchPrepared(prepareSystem(sys, cr.required!.docMgPerL), dose / 1000).cMgPerL[0]! / sys.c0MgPerL;
 }
 
 /** The run's own figure for each Monte Carlo quantity (the point estimate printed beside its band). */
-export function runFigures(cr: CarbonResult, problem: MonteCarloProblem): Record<string, number> {
+export function runFigures(cr: CarbonResult, problem: MonteCarloProblem, contact?: { project: ProjectSpec; kinetic: KineticSolverOptions }): Record<string, number> {
   const req = cr.required!;
   const inf = (v: number | null | undefined) => (v === null || v === undefined ? Infinity : v);
   const out: Record<string, number> = {};
   problem.targets.forEach((t, i) => {
-    if (t.reportOnly === true) out[`removal:${t.id}`] = reportOnlyRemoval(cr, i);
+    if (t.reportOnly === true) out[`removal:${t.id}`] = reportOnlyRemoval(cr, i, contact);
     else out[`dose:${t.id}`] = inf(req.compounds[i]!.doseMgPerL);
   });
   out.governing_dose = inf(req.doseMgPerL);
@@ -192,22 +203,25 @@ export interface UncertaintyOutcome {
  * run's own figure; with every deviation zero the draws reproduce it (tested).
  * @throws InputError for an invalid problem; ComputationError if a solve fails
  */
-export async function uncertaintyStep(result: PipelineResult, input: PipelineInput, settings: UncertaintySettings, o: Pick<UncertaintyRunOptions, 'onMonteCarloProgress' | 'workers'> = {}): Promise<UncertaintyOutcome> {
+export async function uncertaintyStep(result: PipelineResult, input: PipelineInput, settings: UncertaintySettings, o: Pick<UncertaintyRunOptions, 'onMonteCarloProgress' | 'workers' | 'kinetic'> = {}): Promise<UncertaintyOutcome> {
   const goals = result.project.compounds.map((c) => result.goals[c.id]!);
-  const planned = result.carbons.filter((c) => c.carbon.type === 'PAC').map((cr) => ({ cr, setup: uncertaintyProblem(result.project, cr, result.background, goals, input.series, settings) }));
+  const kinetic = o.kinetic ?? {};
+  const drawsOf = (cr: CarbonResult) => (cr.contact ? contactDrawCount(settings) : settings.draws); // kinetic solves are slow: fewer draws under contact
+  const planned = result.carbons.filter((c) => c.carbon.type === 'PAC').map((cr) => ({ cr, setup: uncertaintyProblem(result.project, cr, result.background, goals, input.series, settings, kinetic) }));
   const runs = planned.filter((p) => !('skipped' in p.setup));
-  const total = runs.length * settings.draws;
+  const total = runs.reduce((a, p) => a + drawsOf(p.cr), 0);
   let offset = 0;
   const carbons: UncertaintyOutcome['carbons'] = new Map();
   const t0 = performance.now();
   for (const { cr, setup } of planned) {
     if ('skipped' in setup) { carbons.set(cr.carbon.name, { skipped: setup.skipped }); continue; }
     const base = offset;
-    const opts: Parameters<typeof parallelMonteCarlo>[1] = { draws: settings.draws, seed: settings.seed, keepSamples: true, onProgress: (done) => o.onMonteCarloProgress?.(base + done, total) };
+    const draws = drawsOf(cr);
+    const opts: Parameters<typeof parallelMonteCarlo>[1] = { draws, seed: settings.seed, keepSamples: true, onProgress: (done) => o.onMonteCarloProgress?.(base + done, total) };
     if (o.workers !== undefined) opts.workers = o.workers;
     const mc = await parallelMonteCarlo(setup.problem, opts);
-    offset += settings.draws;
-    const figures = runFigures(cr, setup.problem);
+    offset += draws;
+    const figures = runFigures(cr, setup.problem, { project: result.project, kinetic });
     const quantities = mc.quantities.map((q) => (q.key in figures ? { ...q, pointEstimate: figures[q.key]! } : q));
     const { samples, ...kept } = mc; // keep run.json small; the percentiles are the result
     const cu: CarbonUncertainty = { carbonName: cr.carbon.name, parameters: setup.parameters, excluded: setup.excluded, problem: setup.problem, result: { ...kept, quantities } };
@@ -218,7 +232,7 @@ export async function uncertaintyStep(result: PipelineResult, input: PipelineInp
       cu.governingDoseRatio = { p10: p10!, p90: p90! };
     }
     const govId = cr.required?.governing?.compoundId;
-    if (govId && cr.curves) cu.governingCurve = removalBand(setup.problem, settings.seed, settings.draws, govId, cr.curves.dosesMgPerL);
+    if (govId && cr.curves) cu.governingCurve = removalBand(setup.problem, settings.seed, draws, govId, cr.curves.dosesMgPerL);
     carbons.set(cr.carbon.name, { uncertainty: cu, warnings: setup.excluded.length ? [`Monte Carlo leaves out ${setup.excluded.join(', ')}`] : [] });
   }
   return { settings, carbons, timingMs: performance.now() - t0 };

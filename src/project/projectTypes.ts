@@ -143,6 +143,10 @@ export interface UncertaintySpec {
   fractionRelSd: number;
   /** Relative SD of the background K values without a fitted interval. */
   backgroundKRelSd: number;
+  /** Relative SD of each given (not fitted) surface diffusivity under PAC contact (default: src/pipeline/contactUncertainty.ts). */
+  dsRelSd?: number;
+  /** Draws of a PAC carbon under contact conditions (at most `draws`; default: src/pipeline/contactUncertainty.ts). */
+  contactDraws?: number;
 }
 
 /** Cover block of the report (all optional project-file keys). */

@@ -14,6 +14,7 @@ import { InputError } from '../core/errors.js';
 import { parseQuantity } from '../units/parseQuantity.js';
 import type { UnitKind } from '../units/unitFactor.js';
 import { at, describeValue, expectObject, join, onlyKeys } from '../scenario/jsonChecks.js';
+import { readKineticTests, type KineticTestsSpec } from './readKineticTests.js';
 
 /** Kinetic data of one PAC carbon (internal units: m, g/L, m²/s). */
 export interface CarbonKinetics {
@@ -27,6 +28,8 @@ export interface CarbonKinetics {
   docDsM2PerS?: number;
   /** Liquid diffusivity shared by the background competitors, m²/s. */
   docDlM2PerS?: number;
+  /** Kinetic jar tests whose fits replace Ds of targets and doc_Ds (readKineticTests.ts). */
+  tests?: KineticTestsSpec;
 }
 
 function positiveQuantity(v: unknown, kind: UnitKind, path: string, example: string): number {
@@ -48,7 +51,7 @@ function perCompound(raw: unknown, path: string, compoundIds: readonly string[],
 /** Read `carbons[i].kinetics`. */
 export function readCarbonKinetics(raw: unknown, path: string, compoundIds: readonly string[]): CarbonKinetics {
   const o = expectObject(raw, path, 'the carbon\'s kinetic data { "particle_radius", "particle_density", "Ds", "DL", "doc_Ds", "doc_DL" }');
-  onlyKeys(o, ['particle_radius', 'particle_density', 'Ds', 'DL', 'doc_Ds', 'doc_DL', 'note'], path);
+  onlyKeys(o, ['particle_radius', 'particle_density', 'Ds', 'DL', 'doc_Ds', 'doc_DL', 'kinetic_tests', 'note'], path);
   const k: CarbonKinetics = { dsM2PerS: {}, dlM2PerS: {} };
   if (o.particle_radius !== undefined) k.particleRadiusM = positiveQuantity(o.particle_radius, 'length', `${path}.particle_radius`, '10 um');
   if (o.particle_density !== undefined) k.particleDensityGPerL = positiveQuantity(o.particle_density, 'density', `${path}.particle_density`, '650 kg/m3');
@@ -56,5 +59,6 @@ export function readCarbonKinetics(raw: unknown, path: string, compoundIds: read
   if (o.DL !== undefined) k.dlM2PerS = perCompound(o.DL, `${path}.DL`, compoundIds, '7e-10 m2/s');
   if (o.doc_Ds !== undefined) k.docDsM2PerS = positiveQuantity(o.doc_Ds, 'diffusivity', `${path}.doc_Ds`, '5e-18 m2/s');
   if (o.doc_DL !== undefined) k.docDlM2PerS = positiveQuantity(o.doc_DL, 'diffusivity', `${path}.doc_DL`, '5e-10 m2/s');
+  if (o.kinetic_tests !== undefined) k.tests = readKineticTests(o.kinetic_tests, `${path}.kinetic_tests`, compoundIds);
   return k;
 }

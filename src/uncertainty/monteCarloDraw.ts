@@ -29,6 +29,7 @@ import { yearlyLabel } from '../design/annualised.js';
 import { cholesky, lognormalFromZ, lognormalSigma, multivariateNormalDeviation, NormalSampler } from './distributions.js';
 import { chunkRng } from './prng.js';
 import { targetGoal, validateMonteCarloProblem, type MonteCarloProblem } from './monteCarloProblem.js';
+import { kineticDrawFactory, pointKinetics, sampleKinetics, type DrawnKinetics } from './kineticUncertainty.js';
 
 export interface QuantityDef {
   key: string;
@@ -59,13 +60,15 @@ export interface DrawnParameters {
   background: FreundlichComponent[];
   targets: FreundlichComponent[];
   docMgPerL: number;
+  /** Ds of the draw under PAC contact conditions (problem.kinetics; kineticUncertainty.ts). */
+  kinetics?: DrawnKinetics;
 }
 
 /** Validate a problem and precompute what every draw needs. @throws InputError */
 export function compileDrawModel(problem: MonteCarloProblem): DrawModel {
   validateMonteCarloProblem(problem);
   const T = problem.targets.length;
-  const factory = REMOVAL_MODELS[problem.model ?? 'equilibrium']!;
+  const factory = problem.kinetics ? kineticDrawFactory(problem.kinetics, problem.targets.map((t) => t.id), pointKinetics(problem.kinetics)) : REMOVAL_MODELS[problem.model ?? 'equilibrium']!;
   const goals = problem.targets.map((t, i) => targetGoal(t, `targets[${i}]`));
   const design: DesignProblem = {
     goals: goals.map((R, i) => (problem.targets[i]!.reportOnly === true ? REPORT_ONLY_GOAL : { kind: 'removal' as const, removalFraction: R, text: `${(R * 100).toPrecision(4)} % removal of ${problem.targets[i]!.id}` })),
@@ -181,12 +184,15 @@ export function sampleParameters(model: DrawModel, normal: NormalSampler | undef
       c0MgPerL: (fractions[i]! / sum) * docMgPerL,
     };
   });
-  return { background, targets, docMgPerL };
+  const drawn: DrawnParameters = { background, targets, docMgPerL };
+  if (p.kinetics) drawn.kinetics = sampleKinetics(p.kinetics, z); // after every other normal: equilibrium streams unchanged
+  return drawn;
 }
 
 /** The removal model of one draw at its DOC. */
 export function drawModel(model: DrawModel, d: DrawnParameters): RemovalModel {
-  return model.factory(d.targets.map((t) => ({ target: t, competitors: d.background })), d.docMgPerL, d.background);
+  const factory = d.kinetics ? kineticDrawFactory(model.problem.kinetics!, model.problem.targets.map((t) => t.id), d.kinetics) : model.factory;
+  return factory(d.targets.map((t) => ({ target: t, competitors: d.background })), d.docMgPerL, d.background);
 }
 
 const orInfinity = (v: number | null): number => (v === null ? Infinity : v);

@@ -8,6 +8,7 @@
  */
 import { InputError } from '../core/errors.js';
 import { REMOVAL_MODELS } from '../design/removalModels.js';
+import { validateUncertainKinetics, type UncertainKinetics } from './kineticUncertainty.js';
 
 export interface UncertainTarget {
   id: string;
@@ -79,6 +80,8 @@ export interface MonteCarloProblem {
   carbonPricePerKg?: number;
   /** Removal model by name (src/design/removalModels.ts; default "equilibrium"). */
   model?: string;
+  /** PAC contact kinetics: the draws use the contact model with these (sampled) diffusivities instead of `model`. */
+  kinetics?: UncertainKinetics;
 }
 
 function finiteNonNeg(v: unknown, path: string, what: string): number {
@@ -167,6 +170,7 @@ export function validateMonteCarloProblem(p: MonteCarloProblem): void {
     }
   }
   if (p.carbonPricePerKg !== undefined) finiteNonNeg(p.carbonPricePerKg, 'carbonPricePerKg', 'a carbon price per kg');
+  if (p.kinetics !== undefined) validateUncertainKinetics(p.kinetics, p.targets.length);
   if (p.model !== undefined && !(p.model in REMOVAL_MODELS)) throw new InputError(`expected a removal model among ${Object.keys(REMOVAL_MODELS).join(', ')}, got "${p.model}"`, { path: 'model' });
   if (p.indicator) {
     const ind = p.indicator;

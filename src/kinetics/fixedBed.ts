@@ -41,7 +41,11 @@ export interface FixedBedOptions {
   cells?: number;
   /** Interior collocation points in the grain (default 5). */
   interiorPoints?: number;
-  /** Integrator tolerances on u = c/c0 and q/q_ref (defaults 1e-4 and 1e-7). */
+  /**
+   * Integrator tolerances on u = c/c0 and q/q_ref (defaults FIXED_BED_TOLERANCES: on the demo water
+   * 3e-4 moves no breakthrough point by more than 0.002 % from 1e-4, with 22 % fewer steps; the
+   * grid error is 10–100 times larger).
+   */
   rtol?: number;
   atol?: number;
   /** c/c0 levels whose bed volumes are reported (default 0.1, 0.2, 0.5). */
@@ -57,6 +61,9 @@ export interface FixedBedOptions {
    */
   stopWhen?: (bedVolumes: readonly number[], cOverC0ById: Readonly<Record<string, readonly number[]>>) => boolean;
 }
+
+/** Default integrator tolerances of the fixed-bed model (ours; see FixedBedOptions.rtol). */
+export const FIXED_BED_TOLERANCES = { rtol: 3e-4, atol: 1e-7 } as const;
 
 /** Output points between two questions to `stopWhen`. */
 export const STOP_CHECK_POINTS = 8;
@@ -164,7 +171,7 @@ export function simulateFixedBed(input: FixedBedInput, options: FixedBedOptions)
         }
       });
     };
-    const tol = { rtol: options.rtol ?? 1e-4, atol: options.atol ?? 1e-7 };
+    const tol = { rtol: options.rtol ?? FIXED_BED_TOLERANCES.rtol, atol: options.atol ?? FIXED_BED_TOLERANCES.atol };
     const stop = options.stopWhen;
     if (!stop) {
       const res = integrateImplicit(model, 0, new Float64Array(model.size), bvs, tol);

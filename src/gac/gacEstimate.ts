@@ -13,8 +13,8 @@
  * e.g. Crittenden et al., MWH's Water Treatment: Principles and Design, 3rd ed. 2012, ch. 15 —
  * from memory). Beside it the single-solute estimate (target alone, Freundlich q = K·c0^(1/n)).
  *
- * This is an UPPER BOUND: preloading by DOC and adsorption kinetics (mass-transfer zone) make real
- * beds break through far earlier. Each target is solved with the background alone (trace targets
+ * This is a REFERENCE, not a bound: preloading by DOC and adsorption kinetics (mass-transfer zone)
+ * usually make real beds break through far earlier (see GAC_UPPER_BOUND_CAUTION below). Each target is solved with the background alone (trace targets
  * do not compete measurably with each other). The governing target is the one with the fewest
  * bed volumes.
  *
@@ -52,7 +52,7 @@ export interface GacTargetEstimate {
   qCompetitiveMgPerG: number;
   /** Single-solute loading K·c0^(1/n), mg/g. */
   qSingleMgPerG: number;
-  /** Bed volumes to saturation under competition (upper bound). */
+  /** Bed volumes to saturation under competition (equilibrium reference, not a bound). */
   bedVolumes: number;
   /** Bed volumes with the single-solute loading (higher still). */
   bedVolumesSingleSolute: number;

@@ -32,7 +32,7 @@
  * mass-balance error measures the linear solves, not the step size.
  */
 import { ComputationError } from '../core/errors.js';
-import { denseLu, type DenseLu } from './denseLu.js';
+import { denseLu, luFactorInPlace, luSolveInPlace } from './denseLu.js';
 import type { NewtonSolve, StiffSystem } from './implicitIntegrator.js';
 import { reverseIast, traceSurfaceFactor, type ReverseIastState } from './reverseIast.js';
 import { sphereCollocation, type SphereCollocation } from './sphereCollocation.js';
@@ -109,6 +109,11 @@ export function fixedBedModel(components: readonly BedComponentScales[], backgro
 
   // the limiter is regularised below c/c0 ~ 1e-5 (ETA2 = η²), where it falls back to first order
   const ETA2 = 1e-10;
+  // relative move of the Newton iterate that refreshes the Newton matrix (ours: 0.05 halves the
+  // refreshes of 0 at the same step count on the demo water; 0.1 lets Newton stall again)
+  const REFRESH_MOVE = 0.05;
+  // smallest relative background surface loading in the Newton matrix (see `surface`)
+  const JAC_FLOOR = 1e-12;
   // ∂F_{j+1/2}/∂u_j and ∂F_{j+1/2}/∂u_{j−1} per cell and component (filled by `factor`)
   const faceOwn = new Float64Array(Nz * na);
   const faceUp = new Float64Array(Nz * na);
@@ -122,7 +127,10 @@ export function fixedBedModel(components: readonly BedComponentScales[], backgro
   /** Surface concentrations of all components in cell j (and background Jacobian when asked). */
   const surface = (y: Float64Array, j: number, withJac: boolean, kappas?: Float64Array, dKappas?: Float64Array): ReverseIastState => {
     const base = j * S;
-    for (let b = 0; b < nb; b++) qS[b] = qRef[b]! * y[base + b * P + 1 + N]!;
+    // for the Newton matrix the loadings are floored at JAC_FLOOR·q_ref: reverse IAST's Jacobian
+    // overflows at loadings near the smallest doubles (c°/Σq), and any finite approximation will do
+    if (withJac) for (let b = 0; b < nb; b++) qS[b] = qRef[b]! * Math.max(y[base + b * P + 1 + N]!, JAC_FLOOR);
+    else for (let b = 0; b < nb; b++) qS[b] = qRef[b]! * y[base + b * P + 1 + N]!;
     const st = reverseIast(bgIso, qS, cs, withJac ? jacBg : undefined);
     for (let m = nb; m < na; m++) {
       const comp = components[m]!;
@@ -159,7 +167,35 @@ export function fixedBedModel(components: readonly BedComponentScales[], backgro
     }
   };
 
+  // the state of the last rhs call (Newton's current iterate), for refreshing the Newton matrix:
+  // the integrator solves with the matrix of the step's start (simplified Newton); with the steep
+  // reverse IAST of the DOC components that stalls often and each stall cuts the step by 4, so the
+  // solver refreshes its state-dependent blocks at the current iterate when it has moved (a
+  // Newton matrix nearer the iterate; the integrator's contract holds, any nonsingular
+  // approximation of I − γh·J is allowed, and the linear invariant is kept)
+  const lastState = new Float64Array(size);
+  let rhsCalls = 0;
+  let solvesSinceFactor = 0;
+  const builtState = new Float64Array(size);
+  /**
+   * Has y moved from the state of the Newton matrix by more than REFRESH_MOVE (relative, floor
+   * 1e-3) in any u or any background surface loading? Those carry the nonlinearity (the limiter,
+   * and reverse IAST, c_s ∝ q^(1/β) with 1/β up to 5).
+   */
+  const moved = (y: Float64Array): boolean => {
+    for (let j = 0; j < Nz; j++) {
+      const base = j * S;
+      for (let m = 0; m < na; m++) {
+        const o = base + m * P;
+        if (Math.abs(y[o]! - builtState[o]!) > REFRESH_MOVE * (Math.abs(builtState[o]!) + 1e-3)) return true;
+        if (m < nb && Math.abs(y[o + 1 + N]! - builtState[o + 1 + N]!) > REFRESH_MOVE * (Math.abs(builtState[o + 1 + N]!) + 1e-3)) return true;
+      }
+    }
+    return false;
+  };
   const rhs = (_t: number, y: Float64Array, dy: Float64Array): void => {
+    lastState.set(y);
+    rhsCalls++;
     for (let j = 0; j < Nz; j++) {
       surface(y, j, false);
       const base = j * S;
@@ -202,10 +238,12 @@ export function fixedBedModel(components: readonly BedComponentScales[], backgro
   const aInv = new Float64Array(na * N * N);
   const e = new Float64Array(na * N);
   const sig = new Float64Array(na);
-  const bgMat = Array.from({ length: Nz }, () => new Float64Array(n2 * n2));
+  const bgMat = new Float64Array(Nz * n2 * n2); // per cell the background block, then its LU factors
+  const bgPiv = new Int32Array(Nz * n2);
   const tr = new Float64Array(Nz * Math.max(1, nt) * 4);
   const coupling = new Float64Array(Nz * Math.max(1, nt) * 2 * nb);
   const factor = (_t: number, y: Float64Array, gh: number): NewtonSolve => {
+    solvesSinceFactor = 0;
     for (let m = 0; m < na; m++) {
       const dTau = components[m]!.diffusion;
       const A = new Float64Array(N * N);
@@ -222,27 +260,28 @@ export function fixedBedModel(components: readonly BedComponentScales[], backgro
       for (let i = 0; i < N; i++) { e[m * N + i] = scratch[i]!; s2 += interiorMeanB[i]! * scratch[i]!; }
       sig[m] = 1 + (gh * dTau * s2) / wN;
     }
+    // the state-dependent blocks at y: per cell the background block's LU, and per trace its 2×2
+    // matrix (4 values) and the coupling of its u and w_N rows to the background w_N (2·nb)
+    const blocks = (y: Float64Array): void => {
     faceDerivatives(y);
-    const bgLu: DenseLu[] = [];
-    // per cell and trace: 2×2 matrix (4 values) and the coupling of its u and w_N rows to the background w_N (2·nb)
     for (let j = 0; j < Nz; j++) {
       surface(y, j, true, kappas, dKappas);
       const base = j * S;
-      const M = bgMat[j]!;
-      M.fill(0);
+      const mo = j * n2 * n2;
+      bgMat.fill(0, mo, mo + n2 * n2);
       for (let m = 0; m < nb; m++) {
         const comp = components[m]!;
         const ru = 2 * m, rs = 2 * m + 1;
-        M[ru * n2 + ru] = 1 + gh * (faceOwn[j * na + m]! / (eps * dz) + comp.stanton / eps);
-        M[rs * n2 + ru] = -gh * comp.film / wN;
-        M[rs * n2 + rs] = sig[m]!;
+        bgMat[mo + ru * n2 + ru] = 1 + gh * (faceOwn[j * na + m]! / (eps * dz) + comp.stanton / eps);
+        bgMat[mo + rs * n2 + ru] = -gh * comp.film / wN;
+        bgMat[mo + rs * n2 + rs] = sig[m]!;
         for (let b = 0; b < nb; b++) {
           const dFilm = -(jacBg[m * nb + b]! * qRef[b]!) / c0[m]!; // ∂(u − c_s/c0)/∂w_b,N
-          M[ru * n2 + 2 * b + 1] = M[ru * n2 + 2 * b + 1]! + gh * (comp.stanton / eps) * dFilm;
-          M[rs * n2 + 2 * b + 1] = M[rs * n2 + 2 * b + 1]! - gh * (comp.film / wN) * dFilm;
+          bgMat[mo + ru * n2 + 2 * b + 1] = bgMat[mo + ru * n2 + 2 * b + 1]! + gh * (comp.stanton / eps) * dFilm;
+          bgMat[mo + rs * n2 + 2 * b + 1] = bgMat[mo + rs * n2 + 2 * b + 1]! - gh * (comp.film / wN) * dFilm;
         }
       }
-      bgLu.push(denseLu(M, n2, 'fixed bed (background block)'));
+      luFactorInPlace(bgMat, j * n2 * n2, n2, bgPiv, j * n2, 'fixed bed (background block)');
       for (let m = nb; m < na; m++) {
         const comp = components[m]!;
         const t = j * nt + (m - nb);
@@ -262,7 +301,23 @@ export function fixedBedModel(components: readonly BedComponentScales[], backgro
         }
       }
     }
+    };
+    blocks(y);
+    builtState.set(y);
+    let builtAt = rhsCalls;
     return (x: Float64Array): void => {
+      // a later Newton iteration whose iterate (the state of the last rhs call) has moved: refresh
+      // the blocks there, so the reverse-IAST nonlinearity does not stall Newton into step cuts
+      if (rhsCalls !== builtAt && solvesSinceFactor++ > 0 && moved(lastState)) {
+        builtAt = rhsCalls;
+        try {
+          blocks(lastState);
+          builtState.set(lastState);
+        } catch (err) {
+          if (!(err instanceof ComputationError)) throw err;
+          blocks(builtState); // singular at a wild iterate: keep the last good matrix
+        }
+      }
       for (let j = 0; j < Nz; j++) {
         const base = j * S;
         for (let m = 0; m < na; m++) {
@@ -284,7 +339,7 @@ export function fixedBedModel(components: readonly BedComponentScales[], backgro
           x[o + 1 + N] = x[o + 1 + N]! - (gh * components[m]!.diffusion * corr) / wN;
         }
         for (let m = 0; m < nb; m++) { rBg[2 * m] = x[base + m * P]!; rBg[2 * m + 1] = x[base + m * P + 1 + N]!; }
-        bgLu[j]!.solve(rBg, 0);
+        luSolveInPlace(bgMat, j * n2 * n2, n2, bgPiv, j * n2, rBg, 0);
         for (let m = 0; m < nb; m++) { x[base + m * P] = rBg[2 * m]!; x[base + m * P + 1 + N] = rBg[2 * m + 1]!; }
         for (let m = nb; m < na; m++) {
           const o = base + m * P;

@@ -1,8 +1,9 @@
 /**
  * The `gac` object of a GAC carbon in `run --json` and the `gac_kinetic` record of run.json.
  * With fixed-bed inputs ("kinetics") the headline is the kinetic run length of the staggered
- * filters with the equilibrium bound beside it (`upper_bound: false`: the run length is the
- * model's estimate, not a bound); without them the equilibrium estimate alone (`upper_bound: true`).
+ * filters with the equilibrium estimate beside it as a reference (`upper_bound: false`: the run
+ * length is the model's estimate, not a bound); without them the equilibrium estimate alone
+ * (`upper_bound: true`, the documented key; the text calls it a reference, GAC_UPPER_BOUND_CAUTION).
  * Presentation only: every number comes from gacStep and gacKineticStep.
  */
 import type { CarbonResult } from '../pipeline/pipelineTypes.js';
@@ -58,7 +59,7 @@ function sig3(x: number): string {
 
 /** One line of `run`'s text summary for a GAC carbon. */
 export function gacSummaryLine(carbon: string, g: GacSummaryJson): string {
-  if (g.upper_bound) return `${carbon}: GAC ${sig3(g.bed_volumes)} bed volumes${g.life_days !== null ? ` (${sig3(g.life_days)} days)` : ''} for ${g.governing_compound} — equilibrium upper bound`;
+  if (g.upper_bound) return `${carbon}: GAC ${sig3(g.bed_volumes)} bed volumes${g.life_days !== null ? ` (${sig3(g.life_days)} days)` : ''} for ${g.governing_compound} — equilibrium estimate (a reference, not a bound)`;
   const run = g.run_bed_volumes === null ? 'no run meets every goal' : `run ${g.at_curve_end ? '≥ ' : ''}${sig3(g.run_bed_volumes)} bed volumes${g.run_days !== null ? ` (${sig3(g.run_days)} days)` : ''}`;
-  return `${carbon}: GAC ${run} with ${g.filters} staggered filter(s), governed by ${g.governed_by} (fixed-bed model); equilibrium bound ${sig3(g.equilibrium_bed_volumes)} bed volumes for ${g.equilibrium_governing_compound}`;
+  return `${carbon}: GAC ${run} with ${g.filters} staggered filter(s), governed by ${g.governed_by} (fixed-bed model); equilibrium reference ${sig3(g.equilibrium_bed_volumes)} bed volumes for ${g.equilibrium_governing_compound}`;
 }

@@ -47,7 +47,7 @@ export function pacGacComparison(carbons: readonly CarbonResult[]): PacGacCompar
         carbonTonnesPerYear: g.carbonTonnesPerYear ?? null,
         costPerM3: (g.carbonUsageGPerM3 / 1000) * c.pricePerKg, // g/m³ → kg/m³ × price per kg
         costPerYear: g.carbonTonnesPerYear !== undefined ? cr.gac.yearlyCost : null,
-        basis: `equilibrium carbon usage of ${g.id} (lower bound on carbon)`,
+        basis: `equilibrium carbon usage of ${g.id} (a reference, not a bound)`,
       };
     }
     return {

@@ -54,7 +54,10 @@ export function pilotCheckCsv(r: PipelineResult): string {
     'band (± percentage points)', 'site curve k', 'model curve k', 'compound named as outlier'], rows);
 }
 
-/** GAC equilibrium estimate per (GAC carbon, compound): an upper bound. */
+/**
+ * GAC equilibrium estimate per (GAC carbon, compound): a reference, not a bound (GAC_UPPER_BOUND_CAUTION);
+ * for a carbon with fixed-bed inputs the note says the run length is the kinetic one (gac_kinetic).
+ */
 export function gacCsv(r: PipelineResult): string {
   const rows: Cell[][] = [];
   for (const cr of r.carbons) {
@@ -63,7 +66,7 @@ export function gacCsv(r: PipelineResult): string {
     for (const t of g.estimate.targets) {
       rows.push([cr.carbon.name, t.id, t.c0MgPerL * 1e6, g.docMgPerL, g.bedDensityKgPerM3, g.ebctMin, t.qCompetitiveMgPerG, t.qSingleMgPerG, t.bedVolumes, t.bedVolumesSingleSolute,
         t.carbonUsageGPerM3, t.carbonUsageSingleSoluteGPerM3, t.lifeDays, t.lifeDaysSingleSolute, t.carbonTonnesPerYear, (t.carbonTonnesPerYear ?? 0) * 1000 * cr.carbon.pricePerKg, cr.carbon.currency,
-        g.governing.id === t.id ? 'yes' : 'no', 'upper bound (equilibrium; preloading and kinetics shorten real runs)']);
+        g.governing.id === t.id ? 'yes' : 'no', cr.gacKinetic ? 'reference (equilibrium, not a bound); the run length is the fixed-bed model\'s (GAC breakthrough)' : 'reference (equilibrium, not a bound; preloading and kinetics usually shorten real runs)']);
     }
   }
   return toCsv(['carbon', 'compound', 'c0 (ng/L)', 'DOC (mg/L)', 'bed density (kg/m3)', 'EBCT (min)', 'q with competition (mg/g)', 'q single-solute (mg/g)', 'bed volumes', 'bed volumes single-solute',

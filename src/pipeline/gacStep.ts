@@ -8,8 +8,9 @@
  *
  * Each compound is estimated with its own competitors (fictive DOC components or its EBC, as in
  * the batch systems) at the design DOC. Beside it the single-solute estimate uses the compound's
- * own isotherm on this carbon (before any calibrated K factor). AN UPPER BOUND: preloading by DOC
- * and kinetics make real beds break through far earlier (GAC_UPPER_BOUND_CAUTION).
+ * own isotherm on this carbon (before any calibrated K factor). A REFERENCE, NOT A BOUND: preloading
+ * by DOC and kinetics usually make real beds break through far earlier, displacement can make a
+ * weak compound break through later (GAC_UPPER_BOUND_CAUTION).
  *
  * Units: ρ_bed kg/m³, EBCT min, flow m³/d, concentrations mg/L, q mg/g.
  * @throws InputError for invalid carbon data; ComputationError if direct IAST fails
@@ -27,7 +28,7 @@ export interface GacStepResult {
   estimate: GacEstimate;
   /** Governing compound's estimate (fewest bed volumes). */
   governing: GacTargetEstimate;
-  /** Carbon cost per year at the governing usage rate (a lower bound, as the usage is). */
+  /** Carbon cost per year at the governing usage rate (equilibrium reference, as the usage is). */
   yearlyCost: number;
   currency: string;
 }

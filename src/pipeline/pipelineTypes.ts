@@ -110,7 +110,7 @@ export interface CarbonResult {
   yearly?: { carbonKg: number; cost: number; basis: string; annualised: boolean };
   /** DOC/UV254 reduction beside removal and the UV254 set-points (PAC with a fractionated background). */
   surrogates?: SurrogateResult;
-  /** GAC equilibrium estimate (GAC carbons; an upper bound). */
+  /** GAC equilibrium estimate (GAC carbons; a reference, not a bound). */
   gac?: GacStepResult;
   /** GAC kinetic run length of the staggered filters (GAC carbons with "kinetics"). */
   gacKinetic?: GacKineticResult;

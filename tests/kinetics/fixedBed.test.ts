@@ -52,7 +52,7 @@ describe('fixed bed: DOC preloading, grids, mass balance in the site water', () 
     site4 = simulateFixedBed(siteWater(4), run);
     site6 = simulateFixedBed(siteWater(6), run);
     alone = simulateFixedBed({ components: [TARGET], bed: BED }, run);
-    fine4 = simulateFixedBed(siteWater(4), { ...run, cells: 60, interiorPoints: 10 });
+    fine4 = simulateFixedBed(siteWater(4), { ...run, cells: 120, interiorPoints: 10 });
   });
   const bv = (r: FixedBedResult, id: string, level: number) => r.components.find((c) => c.id === id)!.breakthrough.find((b) => b.cOverC0 === level)!.bedVolumes;
 
@@ -85,8 +85,8 @@ describe('fixed bed: DOC preloading, grids, mass balance in the site water', () 
       const a = bv(site4, id, level)!, b = bv(fine4, id, level)!;
       expect(Math.abs(a - b) / b).toBeLessThan(0.005);
     }
-    expect(site4.grid).toEqual({ cells: 30, interiorPoints: 5 });
-    expect(fine4.grid).toEqual({ cells: 60, interiorPoints: 10 });
+    expect(site4.grid).toEqual({ cells: 60, interiorPoints: 5 });
+    expect(fine4.grid).toEqual({ cells: 120, interiorPoints: 10 });
   });
 
   it('DOC and UV254 outlets are the c0- and absorbance-weighted sums of the components (Beer–Lambert additivity)', () => {

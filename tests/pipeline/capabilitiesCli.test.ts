@@ -41,7 +41,9 @@ describe('pilot check through `sorbshare run`', () => {
       const html = readFileSync(join(out, 'report.html'), 'utf8');
       expect(html).toContain('Outside the band: CBZ');
       expect(readFileSync(join(out, 'setpoints.csv'), 'utf8')).toMatch(/governing compound/);
-      expect(readFileSync(join(out, 'gac.csv'), 'utf8')).toMatch(/upper bound/);
+      // issue 10: the equilibrium estimate is a reference, never called an upper bound
+      expect(readFileSync(join(out, 'gac.csv'), 'utf8')).toMatch(/reference \(equilibrium, not a bound/);
+      expect(readFileSync(join(out, 'gac.csv'), 'utf8')).not.toMatch(/upper bound/);
     } finally { rmSync(dir, { recursive: true, force: true }); }
   });
 });

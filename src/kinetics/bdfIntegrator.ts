@@ -18,8 +18,8 @@
  * steps comes from the interpolating polynomial (order k, the method's own); the last requested
  * time is stepped onto exactly.
  *
- * Replay (`stepTimes` with `stepOrders` of an earlier run): the same steps and orders without
- * error control, each corrector solved to 1e-4 of the scaled norm, so that the results are smooth
+ * Replay (`stepTimes` with `stepOrders` of an earlier run, stretched to end at the last output
+ * time when they end elsewhere): the same steps and orders without error control, each corrector solved to 1e-4 of the scaled norm, so that the results are smooth
  * functions of the model's parameters (for difference quotients). A Newton failure then throws.
  *
  * The model owns its Jacobian through `StiffSystem.factor(t, y, c)` (a solver for (I − c·J)x = b).
@@ -56,22 +56,26 @@ const ALPHA_K = KAPPA.map((k, i) => (1 - k) * GAMMA_K[i]!);
 const ERROR_CONST = KAPPA.map((k, i) => k * GAMMA_K[i]! + 1 / (i + 1));
 const NEWTON_MAXITER = 4;
 
-/** R(k, ρ) of Shampine & Reichelt 1997 §2.3: R_ij = Π_(m=1..i) (m − 1 − ρ·j)/m, (k+1)×(k+1). */
-function rMatrix(k: number, rho: number): Float64Array {
+/** R(k, ρ) of Shampine & Reichelt 1997 §2.3: R_ij = Π_(m=1..i) (m − 1 − ρ·j)/m, (k+1)×(k+1), into R. */
+function rMatrix(k: number, rho: number, R: Float64Array): Float64Array {
   const m = k + 1;
-  const R = new Float64Array(m * m);
   for (let j = 0; j < m; j++) R[j] = 1;
   for (let i = 1; i < m; i++) for (let j = 0; j < m; j++) R[i * m + j] = j === 0 ? 0 : R[(i - 1) * m + j]! * (i - 1 - rho * j) / i;
   return R;
 }
 
+/** U = R(k, 1) for every order (constant). */
+const U_BY_ORDER = Array.from({ length: MAX_ORDER + 1 }, (_, k) => rMatrix(k, 1, new Float64Array((k + 1) * (k + 1))));
+const R_BUF = new Float64Array((MAX_ORDER + 1) * (MAX_ORDER + 1));
+const RU_BUF = new Float64Array((MAX_ORDER + 1) * (MAX_ORDER + 1));
+
 /** Re-interpolate the differences ∇⁰…∇ᵏ for a step ratio ρ: D ← (R·U)ᵀ·D. */
 function changeDifferences(Dif: Float64Array[], k: number, rho: number, tmp: Float64Array[]): void {
   if (rho === 1) return;
   const m = k + 1;
-  const R = rMatrix(k, rho);
-  const U = rMatrix(k, 1);
-  const RU = new Float64Array(m * m);
+  const R = rMatrix(k, rho, R_BUF);
+  const U = U_BY_ORDER[k]!;
+  const RU = RU_BUF;
   for (let i = 0; i < m; i++) for (let j = 0; j < m; j++) {
     let s = 0;
     for (let l = 0; l < m; l++) s += R[i * m + l]! * U[l * m + j]!;
@@ -192,10 +196,19 @@ export function integrateBdf(system: StiffSystem, t0: number, y0: Float64Array, 
   const span = tEnd - t0;
   const maxStep = options.maxStep ?? span;
   const maxSteps = options.maxSteps ?? 100_000;
-  const replay = options.stepTimes;
   const replayOrders = options.stepOrders;
+  let replay = options.stepTimes;
   if (replay && (!replayOrders || replayOrders.length !== replay.length)) throw new ComputationError(`${what}: a replay needs one order per step time`);
-  if (replay && !(replay.length > 0 && replay[replay.length - 1] === tEnd)) throw new ComputationError(`${what}: a replay must end at the last output time`);
+  if (replay) {
+    const last = replay[replay.length - 1];
+    if (!(last !== undefined && last > t0)) throw new ComputationError(`${what}: a replay needs steps after the start`);
+    // steps recorded over another span are stretched to end at the last output time (a smooth
+    // map, so that results stay smooth in a parameter that moves the end, e.g. t_c of logTime)
+    if (last !== tEnd) {
+      const f = (tEnd - t0) / (last - t0);
+      replay = replay.map((x, k) => (k === replay!.length - 1 ? tEnd : t0 + (x - t0) * f));
+    }
+  }
 
   const Dif = Array.from({ length: MAX_ORDER + 3 }, () => new Float64Array(n));
   const tmp = Array.from({ length: MAX_ORDER + 1 }, () => new Float64Array(n));
@@ -316,8 +329,9 @@ export function integrateBdf(system: StiffSystem, t0: number, y0: Float64Array, 
     let iters = 0;
     for (;;) {
       // the Newton matrix of a nearby c is kept (within 30 %, as in variable-coefficient codes):
-      // simplified Newton still converges, and the rate test catches it when it does not
-      if (!solve || (replay ? solveC !== c : Math.abs(c / solveC - 1) > 0.3)) {
+      // simplified Newton still converges, and the rate test catches it when it does not; a
+      // replay, whose corrector is solved tightly, refactorises whenever the step changes
+      if (!solve || Math.abs(c / solveC - 1) > (replay ? 1e-9 : 0.3)) {
         stats.factorizations++;
         try { solve = system.factor(tNew, yPred, c); } catch (e) {
           if (!(e instanceof ComputationError) || replay) throw e;

@@ -14,7 +14,7 @@
  * solver, not of the time integration.
  * Coupled components: quasi-Newton on v = ln(c_out/c0) with Broyden updates (Broyden 1965, Math.
  * Comp. 19:577) and backtracking on the scaled residual. It is solved first on a coarse particle
- * grid (4 interior points, a difference Jacobian, cheap), whose outlet and Jacobian start the
+ * grid (2 interior points, a difference Jacobian, cheap), whose outlet and Jacobian start the
  * solve on the requested grid (ours: the Jacobian hardly depends on the grid). The particle runs
  * replay the steps of a run with error control recorded at the start, so the residual is smooth
  * in v; when the solution lies more than 5 % from where the steps were recorded, they are
@@ -91,7 +91,10 @@ export function stirredReactorFrom(pk: PreparedKinetics, doseGPerL: number, cont
   let J: Float64Array | undefined;
   if (nB > 0 && interior > COARSE_POINTS) {
     try {
-      const coarse = balance.solve(sphereCollocation(COARSE_POINTS), v, undefined, COARSE_TOL);
+      const coarseBalance = new BalanceSolver(pk, doseGPerL, theta, COARSE_RTOL);
+      const coarse = coarseBalance.solve(sphereCollocation(COARSE_POINTS), v, undefined, COARSE_TOL);
+      balance.iterations += coarseBalance.iterations;
+      balance.integrations += coarseBalance.integrations;
       v = coarse.v;
       J = coarse.J;
     } catch (e) {
@@ -118,9 +121,11 @@ export function stirredReactorFrom(pk: PreparedKinetics, doseGPerL: number, cont
   return { doseGPerL, contactTimeS, carbonAgeS: theta, cMgPerL: c, qMeanMgPerG: qMean, carbonHeldGPerL: (doseGPerL * theta) / contactTimeS, iterations: balance.iterations, integrations: balance.integrations };
 }
 
-/** Interior points of the coarse grid that starts the balance, and its balance tolerance (ours: only a start). */
-const COARSE_POINTS = 4;
+/** Interior points of the coarse grid that starts the balance, its balance tolerance and its
+ *  integration tolerance (ours: only a start). */
+const COARSE_POINTS = 2;
 const COARSE_TOL = 1e-4;
+const COARSE_RTOL = 1e-4;
 
 interface Evaluation {
   /** Residual (c0 − c_out − D·∫q̄E)/c0 of the coupled components. */

@@ -52,6 +52,8 @@ export interface StirredReactorResult {
   /** Newton iterations and particle integrations used. */
   iterations: number;
   integrations: number;
+  /** ∂G/∂ln(c_out/c0) of the balance at the solution (coupled components, row-major), a start for a nearby solve. */
+  balanceJacobian?: Float64Array;
 }
 
 /** Tolerance of the outer balance, relative to c0 (ours). */
@@ -70,10 +72,12 @@ export function stirredReactor(pk: PreparedKinetics, doseGPerL: number, contactT
 
 /**
  * The stirred reactor started from a given outlet of the coupled components (`startRemaining`,
- * c_out/c0 in the order of pk.coupled, e.g. the result at a nearby dose of a dose search); the
- * result does not depend on the start beyond the balance tolerance.
+ * c_out/c0 in the order of pk.coupled, e.g. the result at a nearby dose of a dose search) and,
+ * when given, the balance Jacobian of that result (`startJacobian`, StirredReactorResult.
+ * balanceJacobian): the coarse-grid start is then skipped. The result does not depend on the
+ * start beyond the balance tolerance.
  */
-export function stirredReactorFrom(pk: PreparedKinetics, doseGPerL: number, contactTimeS: number, carbonAgeS: number = contactTimeS, options: KineticSolverOptions = {}, startRemaining?: Float64Array): StirredReactorResult {
+export function stirredReactorFrom(pk: PreparedKinetics, doseGPerL: number, contactTimeS: number, carbonAgeS: number = contactTimeS, options: KineticSolverOptions = {}, startRemaining?: Float64Array, startJacobian?: Float64Array): StirredReactorResult {
   if (!(doseGPerL > 0) || !Number.isFinite(doseGPerL)) throw new InputError(`expected a positive carbon dose, got ${doseGPerL * 1000} mg/L`, { option: '--dose' });
   checkContactConditions(contactTimeS, carbonAgeS);
   const theta = Math.max(carbonAgeS, contactTimeS);
@@ -85,11 +89,10 @@ export function stirredReactorFrom(pk: PreparedKinetics, doseGPerL: number, cont
   const m = comps.length;
   const nB = pk.coupled.length;
   const balance = new BalanceSolver(pk, doseGPerL, theta, rtol);
-  let v = startRemaining && startRemaining.length === nB && startRemaining.every((r) => r > 0 && r <= 1)
-    ? Float64Array.from(startRemaining, (r) => Math.log(r))
-    : startGuess(pk, doseGPerL, theta);
-  let J: Float64Array | undefined;
-  if (nB > 0 && interior > COARSE_POINTS) {
+  const warm = !!startRemaining && startRemaining.length === nB && startRemaining.every((r) => r > 0 && r <= 1);
+  let v = warm ? Float64Array.from(startRemaining!, (r) => Math.log(r)) : startGuess(pk, doseGPerL, theta);
+  let J: Float64Array | undefined = warm && startJacobian && startJacobian.length === nB * nB && startJacobian.every(Number.isFinite) ? Float64Array.from(startJacobian) : undefined;
+  if (nB > 0 && interior > COARSE_POINTS && !J) {
     try {
       const coarseBalance = new BalanceSolver(pk, doseGPerL, theta, COARSE_RTOL);
       const coarse = coarseBalance.solve(sphereCollocation(COARSE_POINTS), v, undefined, COARSE_TOL);
@@ -118,7 +121,7 @@ export function stirredReactorFrom(pk: PreparedKinetics, doseGPerL: number, cont
       qMean[i] = phiT * c[i]!;
     }
   });
-  return { doseGPerL, contactTimeS, carbonAgeS: theta, cMgPerL: c, qMeanMgPerG: qMean, carbonHeldGPerL: (doseGPerL * theta) / contactTimeS, iterations: balance.iterations, integrations: balance.integrations };
+  return { doseGPerL, contactTimeS, carbonAgeS: theta, cMgPerL: c, qMeanMgPerG: qMean, carbonHeldGPerL: (doseGPerL * theta) / contactTimeS, iterations: balance.iterations, integrations: balance.integrations, ...(fine ? { balanceJacobian: fine.J } : {}) };
 }
 
 /** Interior points of the coarse grid that starts the balance, its balance tolerance and its

@@ -16,9 +16,10 @@
  * Comp. 19:577) and backtracking on the scaled residual. It is solved first on a coarse particle
  * grid (2 interior points, a difference Jacobian, cheap), whose outlet and Jacobian start the
  * solve on the requested grid (ours: the Jacobian hardly depends on the grid). The particle runs
- * replay the steps of a run with error control recorded at the start, so the residual is smooth
- * in v; when the solution lies more than 5 % from where the steps were recorded, they are
- * recorded there and the solve repeated. Trace targets are linear given the background:
+ * replay the steps of a run with error control recorded with every component at its feed
+ * concentration (the same steps for every dose, so the outlet is smooth in the dose), so the
+ * residual is smooth in v; one Newton step past the tolerance makes the answer independent of
+ * the path of the iterations. Trace targets are linear given the background:
  * c_out,T = c0_T/(1 + D·Φ_T), Φ_T = ∫q̄_T·E dt per unit c_out,T, one run at the solution.
  * Carbon held in the reactor: D·θ/τ.
  *
@@ -92,10 +93,16 @@ export function stirredReactorFrom(pk: PreparedKinetics, doseGPerL: number, cont
   const warm = !!startRemaining && startRemaining.length === nB && startRemaining.every((r) => r > 0 && r <= 1);
   let v = warm ? Float64Array.from(startRemaining!, (r) => Math.log(r)) : startGuess(pk, doseGPerL, theta);
   let J: Float64Array | undefined = warm && startJacobian && startJacobian.length === nB * nB && startJacobian.every(Number.isFinite) ? Float64Array.from(startJacobian) : undefined;
+  // the steps of the requested grid are recorded with every component at its feed concentration
+  // (v = 0), the same for every dose: error-controlled step sequences react to the smallest change
+  // of their input through discrete decisions (rejected steps, order changes, a kept Newton
+  // matrix), so steps recorded at a dose-dependent start would make the outlet jump between doses
+  // 1e-12 apart, and a dose search would land on such a jump
+  const recordAt = new Float64Array(nB);
   if (nB > 0 && interior > COARSE_POINTS && !J) {
     try {
       const coarseBalance = new BalanceSolver(pk, doseGPerL, theta, COARSE_RTOL);
-      const coarse = coarseBalance.solve(sphereCollocation(COARSE_POINTS), v, undefined, COARSE_TOL);
+      const coarse = coarseBalance.solve(sphereCollocation(COARSE_POINTS), v, undefined, COARSE_TOL, false);
       balance.iterations += coarseBalance.iterations;
       balance.integrations += coarseBalance.integrations;
       v = coarse.v;
@@ -104,7 +111,7 @@ export function stirredReactorFrom(pk: PreparedKinetics, doseGPerL: number, cont
       if (!(e instanceof ComputationError)) throw e; // only a start: solve on the requested grid alone
     }
   }
-  const fine = nB > 0 ? balance.solve(sphereCollocation(interior), v, J) : undefined;
+  const fine = nB > 0 ? balance.solve(sphereCollocation(interior), v, J, BALANCE_TOL, false, recordAt, true) : undefined;
   if (fine) v = fine.v;
   // the trace targets (linear given the background): one run of everything at the solution
   const fin = balance.evaluate(sphereCollocation(interior), v, fine ? 'replay-all' : 'record');
@@ -123,6 +130,9 @@ export function stirredReactorFrom(pk: PreparedKinetics, doseGPerL: number, cont
   });
   return { doseGPerL, contactTimeS, carbonAgeS: theta, cMgPerL: c, qMeanMgPerG: qMean, carbonHeldGPerL: (doseGPerL * theta) / contactTimeS, iterations: balance.iterations, integrations: balance.integrations, ...(fine ? { balanceJacobian: fine.J } : {}) };
 }
+
+/** Dose that scales the particle's loadings in the reactor's runs, g/L (ours; 10 mg/L). */
+const SCALE_DOSE_G_PER_L = 0.01;
 
 /** Interior points of the coarse grid that starts the balance, its balance tolerance and its
  *  integration tolerance (ours: only a start). */
@@ -187,21 +197,26 @@ class BalanceSolver {
         qEq[i] = kappa > 0 ? comps[i]!.c0MgPerL / kappa : 0; // c_s,T = κ_T·q_T at equilibrium
       }
     }
-    const particleFor = (which: PreparedKinetics) => hsdmParticleSystem(which, this.dose, col, { kind: 'fixed', cMgPerL: cFixed, meanAgeS: this.theta, equilibriumMgPerG: qEq });
+    // a particle at a fixed liquid does not depend on the dose; its loadings are scaled by c0/D
+    // for a fixed reference D, so that the recorded steps do not change with the dose either
+    const particleFor = (which: PreparedKinetics) => hsdmParticleSystem(which, SCALE_DOSE_G_PER_L, col, { kind: 'fixed', cMgPerL: cFixed, meanAgeS: this.theta, equilibriumMgPerG: qEq });
     let part: ParticleSystem | undefined;
     let y: Float64Array | undefined;
     if (mode !== 'record' && this.steps && this.steps.col === col) {
       part = particleFor(mode === 'replay' ? this.pkB : pk);
       try {
-        y = integrateBdf(logTimeSystem(part, this.tc), 0, part.initialState(), [this.sEnd], { stepTimes: this.steps.times, stepOrders: this.steps.orders }).states[0]!;
+        // the corrector is solved to 1e-4 of the recording's own error norm (bdfIntegrator)
+        y = integrateBdf(logTimeSystem(part, this.tc), 0, part.initialState(), [this.sEnd], { stepTimes: this.steps.times, stepOrders: this.steps.orders, rtol: this.rtol, atol: this.rtol * 1e-3 }).states[0]!;
       } catch (e) {
-        if (!(e instanceof ComputationError)) throw e; // the recorded steps do not suit v: record anew
+        if (!(e instanceof ComputationError)) throw e; // the recorded steps do not suit v: this one runs with error control
       }
     }
     if (!y) {
       part = particleFor(pk);
       const run = integrateBdf(logTimeSystem(part, this.tc), 0, part.initialState(), [this.sEnd], { rtol: this.rtol, atol: this.rtol * 1e-3 });
-      this.steps = { times: run.stepTimes, orders: run.stepOrders, col };
+      // only a recording sets the steps that later evaluations replay (a failed replay does not
+      // change the residual function in the middle of a solve)
+      if (mode === 'record' || !this.steps || this.steps.col !== col) this.steps = { times: run.stepTimes, orders: run.stepOrders, col };
       y = run.states[0]!;
     }
     this.integrations++;
@@ -227,22 +242,22 @@ class BalanceSolver {
   }
 
   /** Newton–Broyden on v from `v0` (with the Jacobian `J0`, else differences) until the balance closes. */
-  solve(col: SphereCollocation, v0: Float64Array, J0: Float64Array | undefined, tol = BALANCE_TOL): { v: Float64Array; J: Float64Array; I: Float64Array } {
+  solve(col: SphereCollocation, v0: Float64Array, J0: Float64Array | undefined, tol = BALANCE_TOL, reRecord = true, recordAt: Float64Array = v0, polish = false): { v: Float64Array; J: Float64Array; I: Float64Array } {
     const nB = v0.length;
     const normOf = (G: Float64Array) => G.reduce((s, g) => Math.max(s, Math.abs(g)), 0);
     let v = Float64Array.from(v0);
-    let recordedAt = Float64Array.from(v);
+    let recordedAt = onRecordGrid(recordAt);
     let J: Float64Array | undefined = J0 ? Float64Array.from(J0) : undefined;
     // record the steps, then evaluate by replay, so that every residual of the solve (and the
     // difference Jacobian) comes from the same smooth function of v
-    this.evaluate(col, v, 'record');
+    this.evaluate(col, recordedAt, 'record');
     let cur = this.evaluate(col, v, 'replay');
     let iterations = 0;
     for (let round = 0; round < 3; round++) {
       if (round > 0) {
-        if (!v.some((x, p) => Math.abs(x - recordedAt[p]!) > 0.05)) break;
-        recordedAt = Float64Array.from(v);
-        this.evaluate(col, v, 'record');
+        if (!reRecord || !v.some((x, p) => Math.abs(x - recordedAt[p]!) > 0.05)) break;
+        recordedAt = onRecordGrid(v);
+        this.evaluate(col, recordedAt, 'record');
         cur = this.evaluate(col, v, 'replay');
       }
       let lastNorm = Infinity;
@@ -280,7 +295,17 @@ class BalanceSolver {
         throw new ComputationError(`stirred reactor balance: no step reduces the residual (largest ${normOf(cur.G).toExponential(2)} of c0)`);
       }
     }
-    return { v, J: J ?? this.differenceJacobian(col, v, cur.G), I: cur.I };
+    const Jend = J ?? this.differenceJacobian(col, v, cur.G);
+    if (polish && nB > 0) {
+      // one more Newton step past the tolerance (quadratic: the residual falls far below it), so
+      // that the answer does not depend on the path the iterations took
+      const step = Float64Array.from(cur.G, (g) => -g);
+      denseLu(Float64Array.from(Jend), nB, 'stirred reactor Newton step').solve(step);
+      const vn = Float64Array.from(v, (x, p) => Math.min(0, x + step[p]!));
+      const next = this.evaluate(col, vn, 'replay');
+      if (normOf(next.G) <= normOf(cur.G)) { v = vn; cur = next; }
+    }
+    return { v, J: Jend, I: cur.I };
   }
 }
 
@@ -311,6 +336,17 @@ function startGuess(pk: PreparedKinetics, doseGPerL: number, thetaS: number): Fl
     const ratio = 1 - F * (1 - eq[p]! / c.c0MgPerL);
     return Math.log(Math.min(1, Math.max(1e-6, ratio)));
   });
+}
+
+/**
+ * Where steps are recorded (ours): v rounded to multiples of 0.05. Error-controlled step sequences
+ * react to the smallest change of their input through discrete decisions (rejected steps, order
+ * changes, a kept Newton matrix), so steps recorded at the exact start would make the outlet jump
+ * between doses 1e-12 apart; on this grid the steps, and so the outlet, are smooth in the dose
+ * except at the rare cell boundaries. The steps still suit the particle (5 % in c_out).
+ */
+function onRecordGrid(v: Float64Array): Float64Array {
+  return Float64Array.from(v, (x) => Math.min(0, Math.round(x / 0.05) * 0.05));
 }
 
 /** Broyden's rank-one update of J (row-major n×n) for the step s and residuals gNew, gOld. */

@@ -10,10 +10,11 @@
  *
  * Fit of x = ln Ds by least squares on r = ln c_pred − ln c_meas (fitLeastSquares: Nelder–Mead
  * then Levenberg–Marquardt), 95 % interval exp(x ± t(0.975, n − 1)·se) with se from the Jacobian
- * (s²·(JᵀJ)⁻¹, the usual linearised interval). The particle runs of each series replay the step
- * times of a first run, scaled by Ds_first/Ds (the diffusion clock), so the residuals are smooth in
- * Ds for the difference quotients; a second round records them at the first answer with a tight
- * tolerance (1e-8) and polishes from there. Warnings: poor fit (RMSE of ln c above 0.3, as for the other
+ * (s²·(JᵀJ)⁻¹, the usual linearised interval). The particle runs of each series replay the steps
+ * and orders of a first run in logarithmic time s = ln(1 + t/t_c), where t_c ∝ R²/Ds follows the
+ * diffusion clock (src/kinetics/logTimeSystem.ts), so the residuals are smooth in Ds for the
+ * difference quotients; a second round records them at the first answer with a tight tolerance
+ * (1e-7; the first round 1e-5) and polishes from there. Warnings: poor fit (RMSE of ln c above 0.3, as for the other
  * fits), Ds not determined within a decade, Ds at the search bound.
  *
  * Units: Ds, DL m²/s; times s; doses and concentrations mg/L (internally g/L for the dose).
@@ -101,8 +102,8 @@ export function calibrateKinetics(data: string | CsvTable, options: KineticCalib
 
   const n = series.reduce((a, s) => a + s.timesS.length, 0);
   const lnMeas = Float64Array.from(series.flatMap((s) => s.cMgPerL.map((c) => Math.log(c))));
-  let recorded: { ds: number; steps: number[] }[] = [];
-  let recordRtol = 1e-6;
+  let recorded: { steps: number[]; orders: number[] }[] = [];
+  let recordRtol = 1e-5;
   const grid = options.interiorPoints !== undefined ? { interiorPoints: options.interiorPoints } : {};
   const predict = (ds: number): Float64Array => {
     const out = new Float64Array(n);
@@ -113,12 +114,10 @@ export function calibrateKinetics(data: string | CsvTable, options: KineticCalib
       let run;
       if (!rec) {
         run = pacBatch(pk, s.doseMgPerL / 1000, s.timesS, { rtol: recordRtol, ...grid });
-        rec = recorded[j] = { ds, steps: run.stepTimes };
+        rec = recorded[j] = { steps: run.stepTimes, orders: run.stepOrders };
       }
-      const scaled = rec.steps.map((t) => (t * rec!.ds) / ds);
-      const steps = model === 'surface-diffusion' ? [...new Set([...rec.steps, ...scaled])].sort((a, b) => a - b) : scaled;
       try {
-        run = pacBatch(pk, s.doseMgPerL / 1000, s.timesS, { stepTimes: steps, ...grid });
+        run = pacBatch(pk, s.doseMgPerL / 1000, s.timesS, { stepTimes: rec.steps, stepOrders: rec.orders, ...grid });
       } catch (e) {
         if (!(e instanceof ComputationError)) throw e;
         run = pacBatch(pk, s.doseMgPerL / 1000, s.timesS, { rtol: 1e-6, ...grid }); // the replay does not suit this Ds
@@ -136,11 +135,11 @@ export function calibrateKinetics(data: string | CsvTable, options: KineticCalib
     return r;
   };
   const what = `${model} calibration`;
-  const first = fitLeastSquares({ residuals, starts: DS_START.map((d) => [Math.log(d)]), lower: [Math.log(DS_MIN)], upper: [Math.log(DS_MAX)], residualScale: 1, maxIterations: 20, what });
+  const first = fitLeastSquares({ residuals, starts: DS_START.map((d) => [Math.log(d)]), lower: [Math.log(DS_MIN)], upper: [Math.log(DS_MAX)], residualScale: 1, maxIterations: 8, what });
   if (!first.converged) throw new ComputationError(`${what} did not converge (${first.stop})`);
   // second round: steps recorded at the first answer with a tight tolerance, polished from there
   recorded = [];
-  recordRtol = 1e-8;
+  recordRtol = 1e-7;
   const fit = fitLeastSquares({ residuals, starts: [first.x], lower: [Math.log(DS_MIN)], upper: [Math.log(DS_MAX)], residualScale: 1, maxIterations: 4, what });
   if (!fit.converged) throw new ComputationError(`${what} did not converge (${fit.stop})`);
   const x = fit.x[0]!;

@@ -85,23 +85,25 @@ export function doseUnderContact(pk: PreparedKinetics, targetIndex: number, remo
 
 /**
  * remainingUnderContact over the doses of one search: remembers every dose's result (a dose
- * asked again costs nothing) and starts each stirred reactor from the outlet at the nearest dose
- * already solved (warm start; the result does not depend on the start beyond the balance tolerance).
+ * asked again costs nothing) and starts each stirred reactor from the outlet and the balance
+ * Jacobian at the nearest dose already solved (warm start; the result does not depend on the
+ * start beyond the balance tolerance).
  */
 function remainingAtDoses(pk: PreparedKinetics, cond: ContactConditions, options: KineticSolverOptions) {
   const done = new Map<number, Float64Array>();
-  const outlets: Array<{ dose: number; coupled: Float64Array }> = [];
+  const outlets: Array<{ dose: number; coupled: Float64Array; jacobian?: Float64Array }> = [];
   const at = (d: number): Float64Array => {
     const hit = done.get(d);
     if (hit) return hit;
     let f: Float64Array;
     if (cond.kind === 'plug-flow') f = remainingUnderContact(pk, d, cond, options);
     else {
-      let near: Float64Array | undefined;
+      let near: (typeof outlets)[number] | undefined;
       let best = Infinity;
-      for (const o of outlets) { const dist = Math.abs(Math.log(o.dose / d)); if (dist < best) { best = dist; near = o.coupled; } }
-      const c = stirredReactorFrom(pk, d, cond.contactTimeS, cond.carbonAgeS, options, near).cMgPerL;
-      outlets.push({ dose: d, coupled: Float64Array.from(pk.coupled, (i) => c[i]! / pk.components[i]!.c0MgPerL) });
+      for (const o of outlets) { const dist = Math.abs(Math.log(o.dose / d)); if (dist < best) { best = dist; near = o; } }
+      const res = stirredReactorFrom(pk, d, cond.contactTimeS, cond.carbonAgeS, options, near?.coupled, near?.jacobian);
+      const c = res.cMgPerL;
+      outlets.push({ dose: d, coupled: Float64Array.from(pk.coupled, (i) => c[i]! / pk.components[i]!.c0MgPerL), ...(res.balanceJacobian ? { jacobian: res.balanceJacobian } : {}) });
       f = remainingFraction(pk, c);
     }
     done.set(d, f);

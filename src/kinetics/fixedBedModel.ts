@@ -32,7 +32,7 @@
  * mass-balance error measures the linear solves, not the step size.
  */
 import { ComputationError } from '../core/errors.js';
-import { denseLu, luFactorInPlace, luSolveInPlace } from './denseLu.js';
+import { denseLu, luFactorAt, luSolveAt } from './denseLu.js';
 import type { NewtonSolve, StiffSystem } from './implicitIntegrator.js';
 import { reverseIast, traceSurfaceFactor, type ReverseIastState } from './reverseIast.js';
 import { sphereCollocation, type SphereCollocation } from './sphereCollocation.js';
@@ -281,7 +281,7 @@ export function fixedBedModel(components: readonly BedComponentScales[], backgro
           bgMat[mo + rs * n2 + 2 * b + 1] = bgMat[mo + rs * n2 + 2 * b + 1]! - gh * (comp.film / wN) * dFilm;
         }
       }
-      luFactorInPlace(bgMat, j * n2 * n2, n2, bgPiv, j * n2, 'fixed bed (background block)');
+      luFactorAt(bgMat, j * n2 * n2, n2, bgPiv, j * n2, 'fixed bed (background block)');
       for (let m = nb; m < na; m++) {
         const comp = components[m]!;
         const t = j * nt + (m - nb);
@@ -339,7 +339,7 @@ export function fixedBedModel(components: readonly BedComponentScales[], backgro
           x[o + 1 + N] = x[o + 1 + N]! - (gh * components[m]!.diffusion * corr) / wN;
         }
         for (let m = 0; m < nb; m++) { rBg[2 * m] = x[base + m * P]!; rBg[2 * m + 1] = x[base + m * P + 1 + N]!; }
-        luSolveInPlace(bgMat, j * n2 * n2, n2, bgPiv, j * n2, rBg, 0);
+        luSolveAt(bgMat, j * n2 * n2, n2, bgPiv, j * n2, rBg, 0);
         for (let m = 0; m < nb; m++) { x[base + m * P] = rBg[2 * m]!; x[base + m * P + 1 + N] = rBg[2 * m + 1]!; }
         for (let m = nb; m < na; m++) {
           const o = base + m * P;

@@ -10,24 +10,32 @@
  * so the mean loading q̄ = Σ w_j q_j follows the film flux exactly and (batch) the liquid
  * c_i = c0_i − D·q̄_i keeps the mass balance to rounding at every time.
  * Liquid: `batch` (closed vessel, dose D) or `fixed` (every particle at a given concentration, the
- * stirred reactor); `fixed` adds I_i = ∫₀ᵗ q̄_i(s)·exp(−s/θ)/θ ds, the age-weighted mean loading.
+ * stirred reactor); `fixed` adds the age states X_i = ∫₀ᵗ (q_eq,i − q̄_i(s))·exp(−s/θ)/θ ds, so that
+ * ∫₀ᵗ q̄_i·E ds = q_eq,i·(1 − exp(−t/θ)) − X_i (q_eq,i the loading in equilibrium with the fixed
+ * liquid when given, else 0); the deficit form keeps the age integral accurate relative to what is
+ * still missing from equilibrium, which vanishes as θ grows.
  * Trace targets (kineticMixture) follow the background: c_s,T = κ_T(q_B)·q_T, so the Jacobian is
  * block lower-triangular: the background block is factorised densely, each target on its own.
  * States are scaled loadings y = q/(c0/D) (fraction of the component that the carbon could hold).
  *
  * Units: t s, q mg/g, c mg/L, D g/L, R m, ρp g/L, Ds m²/s, kf m/s.
+ * The hot paths (rhs, factor, solve) allocate nothing: the Newton matrices live in one array.
  * Throws ComputationError (from the LU) when a Newton matrix is singular.
  */
 import type { StiffSystem, NewtonSolve } from './implicitIntegrator.js';
 import type { SphereCollocation } from './sphereCollocation.js';
 import type { PreparedKinetics } from './kineticMixture.js';
-import { reverseIast, traceSurfaceFactor, type SurfaceIsotherms } from './reverseIast.js';
-import { denseLu } from './denseLu.js';
+import { reverseIast, traceSurfaceFactor, type ReverseIastState, type SurfaceIsotherms } from './reverseIast.js';
+import { luFactorAt, luSolveAt } from './denseLu.js';
 
 export type LiquidSpec =
   | { kind: 'batch' }
-  /** Every particle at `cMgPerL` (per component of the mixture); θ the mean carbon age, s. */
-  | { kind: 'fixed'; cMgPerL: Float64Array; meanAgeS: number };
+  /**
+   * Every particle at `cMgPerL` (per component of the mixture); θ the mean carbon age, s.
+   * `equilibriumMgPerG` (per component, optional): the loading in equilibrium with `cMgPerL`;
+   * the age states then hold the deficit ∫(q_eq − q̄)·E dt, small when θ is long.
+   */
+  | { kind: 'fixed'; cMgPerL: Float64Array; meanAgeS: number; equilibriumMgPerG?: Float64Array };
 
 export interface ParticleSystem extends StiffSystem {
   /** Component index (into the mixture) of each block: coupled first, then trace. */
@@ -38,8 +46,8 @@ export interface ParticleSystem extends StiffSystem {
   readonly scale: Float64Array;
   /** Mean loading q̄ of block b from a state, mg/g. */
   meanLoading(y: Float64Array, b: number): number;
-  /** Age-weighted mean loading ∫q̄·E dt of block b (fixed liquid only), mg/g. */
-  ageIntegral(y: Float64Array, b: number): number;
+  /** Age-weighted mean loading ∫₀ᵗ q̄·E ds of block b at time t (fixed liquid only), mg/g. */
+  ageIntegral(y: Float64Array, b: number, tS?: number): number;
   /** Initial state (clean carbon). */
   initialState(): Float64Array;
 }
@@ -50,6 +58,7 @@ export function hsdmParticleSystem(pk: PreparedKinetics, doseGPerL: number, col:
   const nBlocks = blocks.length;
   const M = col.interiorPoints + 1;
   const N = M - 1;
+  const MM = M * M;
   const { radiusM: R, densityGPerL: rho } = pk.particle;
   const fixed = liquid.kind === 'fixed';
   const size = nBlocks * M + (fixed ? nBlocks : 0);
@@ -58,12 +67,16 @@ export function hsdmParticleSystem(pk: PreparedKinetics, doseGPerL: number, col:
   const a = Float64Array.from(comps, (c) => c.dsM2PerS! / (R * R));
   const phi = Float64Array.from(blocks, (i) => (3 * pk.kfMPerS[i]!) / (R * rho)); // 3kf/(Rρp)
   const c0 = Float64Array.from(comps, (c) => c.c0MgPerL);
-  const cFixed = fixed ? Float64Array.from(blocks, (i) => liquid.cMgPerL[i]!) : undefined;
+  const traceK = Float64Array.from(comps, (c) => c.K);
+  const traceBeta = Float64Array.from(comps, (c) => c.oneOverN);
+  const cFixed = fixed ? Float64Array.from(blocks, (i) => liquid.cMgPerL[i]!) : new Float64Array(nBlocks);
   const theta = fixed ? liquid.meanAgeS : 0;
-  const iso: SurfaceIsotherms = { K: Float64Array.from(comps.slice(0, nB), (c) => c.K), beta: Float64Array.from(comps.slice(0, nB), (c) => c.oneOverN) };
+  const qEqScaled = Float64Array.from(blocks, (i, b) => (fixed && liquid.equilibriumMgPerG ? liquid.equilibriumMgPerG[i]! / scale[b]! : 0));
+  const iso: SurfaceIsotherms = { K: traceK.slice(0, nB), beta: traceBeta.slice(0, nB) };
   const B = col.laplacian;
   const w = col.weights;
   const wN = w[N]!;
+  const dose = doseGPerL;
   // wB_l = Σ_(j<N) w_j B_jl: the interior part of the mean-loading rate
   const wB = new Float64Array(M);
   for (let l = 0; l < M; l++) { let s = 0; for (let j = 0; j < N; j++) s += w[j]! * B[j * M + l]!; wB[l] = s; }
@@ -72,40 +85,44 @@ export function hsdmParticleSystem(pk: PreparedKinetics, doseGPerL: number, col:
   const cs = new Float64Array(nB);
   const jrev = new Float64Array(nB * nB);
   const dKappa = new Float64Array(nB);
-  const q = new Float64Array(M);
+  const surf: ReverseIastState = { psi: 0, total: 0 };
 
-  const meanLoading = (y: Float64Array, b: number): number => {
+  const meanScaled = (y: Float64Array, b: number): number => {
     let s = 0;
-    for (let j = 0; j < M; j++) s += w[j]! * y[b * M + j]!;
-    return s * scale[b]!;
+    const off = b * M;
+    for (let j = 0; j < M; j++) s += w[j]! * y[off + j]!;
+    return s;
   };
-  const liquidC = (y: Float64Array, b: number): number => (fixed ? cFixed![b]! : c0[b]! - doseGPerL * meanLoading(y, b));
+  const meanLoading = (y: Float64Array, b: number): number => meanScaled(y, b) * scale[b]!;
 
   const rhs = (t: number, y: Float64Array, dy: Float64Array): void => {
     for (let b = 0; b < nB; b++) qs[b] = y[b * M + N]! * scale[b]!;
-    const state = reverseIast(iso, qs, cs);
+    reverseIast(iso, qs, cs, undefined, surf);
     const E = fixed ? Math.exp(-t / theta) / theta : 0;
     for (let b = 0; b < nBlocks; b++) {
       const off = b * M;
       const s = scale[b]!;
-      for (let j = 0; j < M; j++) q[j] = y[off + j]! * s;
+      const ab = a[b]!;
       let csb: number;
       if (b < nB) csb = cs[b]!;
       else {
-        const c = comps[b]!;
-        csb = traceSurfaceFactor(c.K, c.oneOverN, state, iso.beta) * Math.max(q[N]!, 0);
+        const qN = y[off + N]! * s;
+        csb = traceSurfaceFactor(traceK[b]!, traceBeta[b]!, surf, iso.beta) * (qN > 0 ? qN : 0);
       }
-      const flux = phi[b]! * (liquidC(y, b) - csb);
+      const mean = meanScaled(y, b);
+      const c = fixed ? cFixed[b]! : c0[b]! - dose * mean * s;
+      const flux = phi[b]! * (c - csb);
       let interior = 0;
       for (let j = 0; j < N; j++) {
         let lap = 0;
-        for (let l = 0; l < M; l++) lap += B[j * M + l]! * q[l]!;
-        const r = a[b]! * lap;
+        const row = j * M;
+        for (let l = 0; l < M; l++) lap += B[row + l]! * y[off + l]!;
+        const r = ab * lap;
         interior += w[j]! * r;
-        dy[off + j] = r / s;
+        dy[off + j] = r;
       }
-      dy[off + N] = (flux - interior) / wN / s;
-      if (fixed) dy[nBlocks * M + b] = (meanLoading(y, b) * E) / s;
+      dy[off + N] = (flux / s - interior) / wN;
+      if (fixed) dy[nBlocks * M + b] = (qEqScaled[b]! - mean) * E;
     }
   };
 
@@ -113,88 +130,90 @@ export function hsdmParticleSystem(pk: PreparedKinetics, doseGPerL: number, col:
   // term) plus the coupling of the coupled components' surface rows through reverse IAST,
   // M = A + U·C·Vᵀ with U, V picking surface rows/nodes. Surface values z = Vᵀx solve the small
   // system (I + diag(S)·C)·z = Vᵀ·A⁻¹b with S_p = (A_p⁻¹)_NN; then x = A⁻¹b − A⁻¹U·(C·z).
-  const ownMats = Array.from({ length: nBlocks }, () => new Float64Array(M * M));
-  const unitCols = Array.from({ length: nB }, () => new Float64Array(M));
+  const lu = new Float64Array(nBlocks * MM);
+  const piv = new Int32Array(nBlocks * M);
+  const unitCols = new Float64Array(nB * M);
   const coupling = new Float64Array(nB * nB);
   const small = new Float64Array(nB * nB);
+  const smallPiv = new Int32Array(nB);
+  const traceCross = new Float64Array(Math.max(nBlocks - nB, 0) * nB);
   const zBuf = new Float64Array(nB);
   const czBuf = new Float64Array(nB);
+  let gCur = 0;
+  let eCur = 0;
+
+  const solve: NewtonSolve = (x: Float64Array) => {
+    for (let b = 0; b < nB; b++) luSolveAt(lu, b * MM, M, piv, b * M, x, b * M);
+    if (nB > 1) {
+      for (let p = 0; p < nB; p++) zBuf[p] = x[p * M + N]!;
+      luSolveAt(small, 0, nB, smallPiv, 0, zBuf, 0);
+      for (let p = 0; p < nB; p++) {
+        let s = 0;
+        for (let k = 0; k < nB; k++) s += coupling[p * nB + k]! * zBuf[k]!;
+        czBuf[p] = s;
+      }
+      for (let p = 0; p < nB; p++) {
+        const cz = czBuf[p]!;
+        if (cz !== 0) for (let l = 0; l < M; l++) x[p * M + l] = x[p * M + l]! - unitCols[p * M + l]! * cz;
+      }
+    }
+    for (let b = nB; b < nBlocks; b++) {
+      const cOff = (b - nB) * nB;
+      let add = 0;
+      for (let k = 0; k < nB; k++) add += traceCross[cOff + k]! * x[k * M + N]!;
+      x[b * M + N] = x[b * M + N]! + add;
+      luSolveAt(lu, b * MM, M, piv, b * M, x, b * M);
+    }
+    if (fixed) {
+      // age rows: X_b' = (q_eq − q̄_b)·E, so x_X = b_X − g·E·Σ w_l x_l
+      for (let b = 0; b < nBlocks; b++) x[nBlocks * M + b] = x[nBlocks * M + b]! - gCur * eCur * meanScaled(x, b);
+    }
+  };
+
   const factor = (t: number, y: Float64Array, g: number): NewtonSolve => {
     for (let b = 0; b < nB; b++) qs[b] = y[b * M + N]! * scale[b]!;
-    const state = reverseIast(iso, qs, cs, jrev);
-    const E = fixed ? Math.exp(-t / theta) / theta : 0;
-    const lus: ReturnType<typeof denseLu>[] = [];
-    const traceCross: Float64Array[] = [];
+    reverseIast(iso, qs, cs, jrev, surf);
+    gCur = g;
+    eCur = fixed ? Math.exp(-t / theta) / theta : 0;
     for (let b = 0; b < nBlocks; b++) {
-      const A = ownMats[b]!;
-      fillOwnBlock(A, M, 0, b, g);
+      const off = b * MM;
+      fillOwnBlock(lu, off, b, g);
       if (b < nB) {
-        A[N * M + N] = A[N * M + N]! + g * phi[b]! * jrev[b * nB + b]! / wN; // own surface term
+        lu[off + N * M + N] = lu[off + N * M + N]! + g * phi[b]! * jrev[b * nB + b]! / wN; // own surface term
         for (let k = 0; k < nB; k++) {
           coupling[b * nB + k] = k === b ? 0 : g * phi[b]! * jrev[b * nB + k]! / wN * scale[k]! / scale[b]!;
         }
       } else {
-        const c = comps[b]!;
-        const kappa = traceSurfaceFactor(c.K, c.oneOverN, state, iso.beta, dKappa);
-        A[N * M + N] = A[N * M + N]! + g * phi[b]! * kappa / wN;
+        const kappa = traceSurfaceFactor(traceK[b]!, traceBeta[b]!, surf, iso.beta, dKappa);
+        lu[off + N * M + N] = lu[off + N * M + N]! + g * phi[b]! * kappa / wN;
         const qT = Math.max(y[b * M + N]! * scale[b]!, 0);
         // g·J_y[(b,N),(k,N)] for the background surface nodes k
-        traceCross.push(Float64Array.from(dKappa, (dk, k) => g * (-phi[b]! * qT * dk / wN) * scale[k]! / scale[b]!));
+        const cOff = (b - nB) * nB;
+        for (let k = 0; k < nB; k++) traceCross[cOff + k] = g * (-phi[b]! * qT * dKappa[k]! / wN) * scale[k]! / scale[b]!;
       }
-      lus.push(denseLu(A, M, 'HSDM Newton matrix'));
+      luFactorAt(lu, off, M, piv, b * M, 'HSDM Newton matrix');
     }
-    let smallLu: ReturnType<typeof denseLu> | undefined;
     if (nB > 1) {
       for (let p = 0; p < nB; p++) {
-        const u = unitCols[p]!;
-        u.fill(0); u[N] = 1;
-        lus[p]!.solve(u);
-        for (let k = 0; k < nB; k++) small[p * nB + k] = (p === k ? 1 : 0) + u[N]! * coupling[p * nB + k]!;
+        const u0 = p * M;
+        unitCols.fill(0, u0, u0 + M);
+        unitCols[u0 + N] = 1;
+        luSolveAt(lu, p * MM, M, piv, p * M, unitCols, u0);
+        for (let k = 0; k < nB; k++) small[p * nB + k] = (p === k ? 1 : 0) + unitCols[u0 + N]! * coupling[p * nB + k]!;
       }
-      smallLu = denseLu(small, nB, 'HSDM surface coupling');
+      luFactorAt(small, 0, nB, smallPiv, 0, 'HSDM surface coupling');
     }
-    return (x: Float64Array) => {
-      for (let b = 0; b < nB; b++) lus[b]!.solve(x, b * M);
-      if (smallLu) {
-        for (let p = 0; p < nB; p++) zBuf[p] = x[p * M + N]!;
-        smallLu.solve(zBuf);
-        for (let p = 0; p < nB; p++) {
-          let s = 0;
-          for (let k = 0; k < nB; k++) s += coupling[p * nB + k]! * zBuf[k]!;
-          czBuf[p] = s;
-        }
-        for (let p = 0; p < nB; p++) {
-          const u = unitCols[p]!;
-          const cz = czBuf[p]!;
-          if (cz !== 0) for (let l = 0; l < M; l++) x[p * M + l] = x[p * M + l]! - u[l]! * cz;
-        }
-      }
-      for (let b = nB; b < nBlocks; b++) {
-        const cross = traceCross[b - nB]!;
-        let add = 0;
-        for (let k = 0; k < nB; k++) add += cross[k]! * x[k * M + N]!;
-        x[b * M + N] = x[b * M + N]! + add;
-        lus[b]!.solve(x, b * M);
-      }
-      if (fixed) {
-        for (let b = 0; b < nBlocks; b++) {
-          let s = 0;
-          for (let l = 0; l < M; l++) s += w[l]! * x[b * M + l]!;
-          x[nBlocks * M + b] = x[nBlocks * M + b]! + g * E * s;
-        }
-      }
-    };
+    return solve;
   };
 
   /** I − g·J for the block's own rows: diffusion and (batch) the liquid's dependence on q̄. */
-  function fillOwnBlock(mat: Float64Array, ld: number, off: number, b: number, g: number): void {
+  function fillOwnBlock(mat: Float64Array, off: number, b: number, g: number): void {
     const ab = a[b]!;
+    const liq = fixed ? 0 : phi[b]! * dose;
     for (let j = 0; j < M; j++) {
       for (let l = 0; l < M; l++) {
-        let jq: number;
-        if (j < N) jq = ab * B[j * M + l]!;
-        else jq = (-(fixed ? 0 : phi[b]! * doseGPerL * w[l]!) - ab * wB[l]!) / wN;
-        mat[(off + j) * ld + off + l] = (j === l ? 1 : 0) - g * jq;
+        const jq = j < N ? ab * B[j * M + l]! : (-liq * w[l]! - ab * wB[l]!) / wN;
+        mat[off + j * M + l] = (j === l ? 1 : 0) - g * jq;
       }
     }
   }
@@ -208,7 +227,7 @@ export function hsdmParticleSystem(pk: PreparedKinetics, doseGPerL: number, col:
     nodes: M,
     scale,
     meanLoading,
-    ageIntegral: (y, b) => y[nBlocks * M + b]! * scale[b]!,
+    ageIntegral: (y, b, tS = Infinity) => (qEqScaled[b]! * (fixed ? -Math.expm1(-tS / theta) : 0) - y[nBlocks * M + b]!) * scale[b]!,
     initialState: () => new Float64Array(size),
   };
 }

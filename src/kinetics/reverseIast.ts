@@ -32,9 +32,10 @@ export interface ReverseIastState {
 
 /**
  * c_s for loadings q (length m); fills `cs` and, when given, the m×m row-major Jacobian `jac`.
- * @returns ψ and Q of the surface phase.
+ * @returns ψ and Q of the surface phase (written into `out` when given, so that an integrator's
+ *          inner loop allocates nothing).
  */
-export function reverseIast(iso: SurfaceIsotherms, q: ArrayLike<number>, cs: Float64Array, jac?: Float64Array): ReverseIastState {
+export function reverseIast(iso: SurfaceIsotherms, q: ArrayLike<number>, cs: Float64Array, jac?: Float64Array, out?: ReverseIastState): ReverseIastState {
   const m = iso.K.length;
   let psi = 0, total = 0;
   for (let j = 0; j < m; j++) {
@@ -45,6 +46,7 @@ export function reverseIast(iso: SurfaceIsotherms, q: ArrayLike<number>, cs: Flo
   if (!(total > 0)) {
     cs.fill(0, 0, m);
     if (jac) jac.fill(0, 0, m * m);
+    if (out) { out.psi = 0; out.total = 0; return out; }
     return { psi: 0, total: 0 };
   }
   const lnPsi = Math.log(psi);
@@ -62,6 +64,7 @@ export function reverseIast(iso: SurfaceIsotherms, q: ArrayLike<number>, cs: Flo
       }
     }
   }
+  if (out) { out.psi = psi; out.total = total; return out; }
   return { psi, total };
 }
 

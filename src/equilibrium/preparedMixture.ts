@@ -107,19 +107,24 @@ export function duplicateIdIndex(components: readonly { id: string }[]): number 
  * Falls back to `prepareMixture` when a scaled concentration leaves the active set.
  */
 export function scaleMixture(pm: PreparedMixture, factor: number, fixedIndex = -1): PreparedMixture {
-  const source = pm.source.map((c, i) => (i === fixedIndex ? c : { ...c, c0MgPerL: c.c0MgPerL * factor }));
   const m = pm.active.length;
   const c0 = new Float64Array(m);
   let cTotal = 0;
+  let ok = true;
   for (let j = 0; j < m; j++) {
-    const v = source[pm.active[j]!]!.c0MgPerL;
-    if (!(v > 0) || !Number.isFinite(v)) return prepareMixture(source);
+    const idx = pm.active[j]!;
+    const v = idx === fixedIndex ? pm.c0[j]! : pm.c0[j]! * factor;
+    if (!(v > 0) || !Number.isFinite(v)) { ok = false; break; }
     c0[j] = v;
     cTotal += v;
   }
-  for (let i = 0; i < source.length; i++) {
-    const v = source[i]!.c0MgPerL;
-    if (!(v >= 0) || !Number.isFinite(v)) return prepareMixture(source); // its error message
-  }
-  return { ids: pm.ids, size: pm.size, active: pm.active, c0, n: pm.n, beta: pm.beta, lnK: pm.lnK, a: pm.a, cTotal, lnCTotal: Math.log(cTotal), source };
+  if (ok && !(factor >= 0 && Number.isFinite(factor))) ok = false;
+  const scaledSource = (): FreundlichComponent[] => pm.source.map((c, i) => (i === fixedIndex ? c : { ...c, c0MgPerL: c.c0MgPerL * factor }));
+  if (!ok) return prepareMixture(scaledSource()); // leaves the active set, or its error message
+  // the scaled components are built only when asked for (hot loops never read them)
+  let source: FreundlichComponent[] | undefined;
+  return {
+    ids: pm.ids, size: pm.size, active: pm.active, c0, n: pm.n, beta: pm.beta, lnK: pm.lnK, a: pm.a, cTotal, lnCTotal: Math.log(cTotal),
+    get source() { return (source ??= scaledSource()); },
+  };
 }

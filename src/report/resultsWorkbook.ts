@@ -12,6 +12,12 @@ import { zipArchive } from './zipArchive.js';
 
 /** RFC 4180 fields of CSV text (quotes doubled inside quoted fields; \n or \r\n line ends). */
 export function parseCsv(text: string): string[][] {
+  if (!text.includes('"')) {
+    // no quoted fields: lines split at commas (the same fields, without the per-character loop)
+    const lines = text.split(/\r?\n|\r/);
+    if (lines[lines.length - 1] === '') lines.pop();
+    return lines.map((l) => l.split(','));
+  }
   const rows: string[][] = [];
   let row: string[] = [];
   let field = '';

@@ -5,7 +5,7 @@
  * bit 11); every entry carries the same fixed DOS time, so the same files give the same bytes.
  * Pure: returns the bytes, the caller writes them. Throws RangeError beyond ZIP's 4 GiB limits.
  */
-import { deflateRawSync } from 'node:zlib';
+import * as zlib from 'node:zlib';
 
 /** CRC-32 (ISO 3309 / ITU-T V.42 polynomial 0xEDB88320, as ZIP uses), table-driven. */
 const CRC_TABLE = (() => {
@@ -18,7 +18,11 @@ const CRC_TABLE = (() => {
   return t;
 })();
 
+// node:zlib's own CRC-32 (the same polynomial) where the Node version has it (20.15 and later)
+const nativeCrc32 = (zlib as unknown as { crc32?: (data: Uint8Array) => number }).crc32;
+
 export function crc32(data: Uint8Array): number {
+  if (nativeCrc32) return nativeCrc32(data) >>> 0;
   let c = -1;
   for (let i = 0; i < data.length; i++) c = CRC_TABLE[(c ^ data[i]!) & 0xff]! ^ (c >>> 8);
   return (c ^ -1) >>> 0;
@@ -45,7 +49,7 @@ export function zipArchive(files: ReadonlyArray<{ name: string; data: Uint8Array
   for (const f of files) {
     const name = Buffer.from(f.name, 'utf8');
     const raw = typeof f.data === 'string' ? Buffer.from(f.data, 'utf8') : f.data;
-    const packed = deflateRawSync(raw, { level: 6 });
+    const packed = zlib.deflateRawSync(raw, { level: 4 });
     const crc = crc32(raw);
     if (raw.length >= 0xffffffff || offset >= 0xffffffff) throw new RangeError('ZIP archive: a file or the archive exceeds 4 GiB');
     const local = Buffer.alloc(30);

@@ -101,7 +101,7 @@ export function designDose(model: RemovalModel, problem: DesignProblem, near?: D
   const compounds = problem.goals.map((goal, i) => {
     const prior = near?.compounds[i];
     const hint = prior && prior.status === 'met' && prior.doseMgPerL ? prior.doseMgPerL * scale : undefined;
-    const r = compoundDoseSolved(model, i, goal, hint);
+    const r = compoundDoseSolved(model, i, goal, hint, problem.indicator !== undefined);
     solved[i] = r.solved;
     return r.dose;
   });
@@ -117,7 +117,7 @@ export function designDose(model: RemovalModel, problem: DesignProblem, near?: D
   if (problem.indicator) {
     const prior = near?.indicator;
     const hint = indicatorHint(problem.indicator, solved) ?? (prior && prior.status === 'met' && prior.doseMgPerL ? prior.doseMgPerL * scale : undefined);
-    const ind = indicatorDose(model, problem.indicator, hint);
+    const ind = indicatorDose(model, problem.indicator, hint, solved.map((d) => d?.warm));
     out.indicator = ind;
     if (ind.doseMgPerL !== null && (out.doseMgPerL === null || ind.doseMgPerL > out.doseMgPerL)) {
       out.doseMgPerL = ind.doseMgPerL;

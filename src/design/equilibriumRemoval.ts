@@ -175,11 +175,13 @@ export class EquilibriumRemoval implements RemovalModel {
     return (this.groupCache = g);
   }
 
-  doseForRemoval(index: number, removalFraction: number, warm?: WarmStart): DoseAtRemoval | undefined {
+  doseForRemoval(index: number, removalFraction: number, warm?: WarmStart, withSlope = false): DoseAtRemoval | undefined {
     const pm = this.mixture(index);
     if (pm.active[0] !== 0 || !(removalFraction > 0 && removalFraction < 1)) return undefined;
     const r = iastDoseForRemoval(pm, 0, removalFraction, (warm as IastState | undefined)?.u);
-    return { doseGPerL: r.doseGPerL, remainingFraction: remainingAtState(pm, 0, r.state), slope: remainingSlopeAtState(pm, r.doseGPerL, 0, r.state), warm: r.state };
+    const out: DoseAtRemoval = { doseGPerL: r.doseGPerL, remainingFraction: remainingAtState(pm, 0, r.state), warm: r.state };
+    if (withSlope) out.slope = remainingSlopeAtState(pm, r.doseGPerL, 0, r.state);
+    return out;
   }
 
   backgroundRemaining(doseGPerL: number, warm?: WarmStart): BackgroundAtDose {

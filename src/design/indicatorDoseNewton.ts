@@ -47,15 +47,16 @@ export function powerLawRoot(x0: number, xi: ArrayLike<number>, li: ArrayLike<nu
 /**
  * @param set        indices (into the model) of the compounds averaged
  * @param goalPercent the goal of the mean removal, percent
+ * @param warmStarts solve states by compound index (e.g. from nearby doses), only a speed-up
  * @returns the dose in g/L, or undefined (search instead)
  */
-export function indicatorDoseNewton(model: RemovalModel, set: readonly number[], goalPercent: number, hintGPerL?: number): number | undefined {
+export function indicatorDoseNewton(model: RemovalModel, set: readonly number[], goalPercent: number, hintGPerL?: number, warmStarts?: ReadonlyArray<WarmStart>): number | undefined {
   if (!model.remainingWithSlope || set.length === 0) return undefined;
   const lo0 = Math.log(MIN_DOSE_G_PER_L), hi0 = Math.log(MAX_DOSE_G_PER_L);
   let x = Math.log(hintGPerL !== undefined && hintGPerL > 0 && Number.isFinite(hintGPerL) ? hintGPerL : DEFAULT_DOSE_HINT_G_PER_L);
   if (!(x > lo0 && x < hi0)) return undefined;
   let lo = lo0, hi = hi0; // leaving the searched doses means "search" (statuses)
-  const warm: WarmStart[] = set.map(() => undefined);
+  const warm: WarmStart[] = set.map((i) => warmStarts?.[i]);
   const xs = new Float64Array(set.length), l = new Float64Array(set.length), s = new Float64Array(set.length);
   for (let it = 0; it < 30; it++) {
     const D = Math.exp(x);

@@ -108,7 +108,7 @@ export function indicatorInadmissible(model: RemovalModel, goal: IndicatorGoal):
 }
 
 /** The indices of a set that does not depend on the removals (chosen, or all when admissible), else undefined. */
-function fixedIndicatorSet(model: RemovalModel, goal: IndicatorGoal): { set: number[]; selection: IndicatorSelection } | undefined {
+export function fixedIndicatorSet(model: RemovalModel, goal: IndicatorGoal): { set: number[]; selection: IndicatorSelection } | undefined {
   if (goal.chosen) return { set: goal.members.filter((m) => goal.chosen!.includes(model.compoundIds[m.index]!)).map((m) => m.index), selection: 'chosen set' };
   const n1 = goal.members.filter((m) => m.category === 1).length;
   if (ruleViolation(n1, goal.members.length - n1)) return undefined;
@@ -118,9 +118,10 @@ function fixedIndicatorSet(model: RemovalModel, goal: IndicatorGoal): { set: num
 /**
  * The dose (mg/L) at which the mean removal of the indicator set reaches the goal.
  * @param hintMgPerL a dose near the answer (only a speed-up)
+ * @param warmStarts solve states by compound index near that dose (only a speed-up)
  * @throws ComputationError if the search fails
  */
-export function indicatorDose(model: RemovalModel, goal: IndicatorGoal, hintMgPerL?: number): IndicatorDose {
+export function indicatorDose(model: RemovalModel, goal: IndicatorGoal, hintMgPerL?: number, warmStarts?: ReadonlyArray<WarmStart>): IndicatorDose {
   const why = indicatorInadmissible(model, goal);
   if (why) return { status: 'not admissible', doseMgPerL: null, message: why };
   let selection: IndicatorSelection | undefined;
@@ -133,7 +134,7 @@ export function indicatorDose(model: RemovalModel, goal: IndicatorGoal, hintMgPe
   // a fixed set (chosen, or all compounds when admissible): Newton's method on the mean first
   const fixed = fixedIndicatorSet(model, goal);
   if (fixed) {
-    const d = indicatorDoseNewton(model, fixed.set, goal.goalPercent, hintMgPerL !== undefined ? hintMgPerL / 1000 : undefined);
+    const d = indicatorDoseNewton(model, fixed.set, goal.goalPercent, hintMgPerL !== undefined ? hintMgPerL / 1000 : undefined, warmStarts);
     if (d !== undefined) return { status: 'met', doseMgPerL: d * 1000, selection: fixed.selection };
   }
   const opts: Parameters<typeof searchDose>[1] = { what: 'indicator-mean dose search' };

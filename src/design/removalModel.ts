@@ -49,7 +49,7 @@ export interface DoseAtRemoval {
   doseGPerL: number;
   /** c/c0 at that dose (1 − goal, to the model's own tolerance). */
   remainingFraction: number;
-  /** d ln(c/c0)/d ln D there, when the model gives it. */
+  /** d ln(c/c0)/d ln D there, when asked for (`withSlope`) and the model gives it. */
   slope?: number;
   warm: WarmStart;
 }
@@ -82,7 +82,7 @@ export interface RemovalModel {
    * solved directly from the model's equations to the same tolerance as `remaining` (a shortcut
    * of the dose search, which callers use when it is absent or returns undefined).
    */
-  doseForRemoval?(index: number, removalFraction: number, warm?: WarmStart): DoseAtRemoval | undefined;
+  doseForRemoval?(index: number, removalFraction: number, warm?: WarmStart, withSlope?: boolean): DoseAtRemoval | undefined;
   /** Optional: `remaining` with its slope d ln(c/c0)/d ln D at the dose (for Newton steps on the dose). */
   remainingWithSlope?(index: number, doseGPerL: number, warm?: WarmStart): RemainingAtDose & { slope: number };
   /**

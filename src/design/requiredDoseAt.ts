@@ -8,7 +8,7 @@
  */
 import { compoundDoseSolved } from './compoundDose.js';
 import { designDose, type Design, type DesignProblem } from './designDose.js';
-import { indicatorDose, selectIndicatorSet } from './indicatorGoal.js';
+import { fixedIndicatorSet, indicatorDose, selectIndicatorSet } from './indicatorGoal.js';
 import type { IndicatorValue } from '../indicators/indicatorRule.js';
 import type { DoseAtRemoval, RemainingEstimates, RemovalModel, WarmStart } from './removalModel.js';
 
@@ -79,7 +79,14 @@ export function requiredDoseAt(model: RemovalModel, problem: DesignProblem, refe
   }
   if (problem.indicator) {
     const ind = problem.indicator;
+    const fixed = fixedIndicatorSet(model, ind);
     const check = (value: (i: number) => number): boolean => {
+      if (fixed) {
+        // a set that does not depend on the removals: its mean directly (what selectIndicatorSet gives)
+        let sum = 0;
+        for (const i of fixed.set) sum += 100 * value(i);
+        return sum / fixed.set.length >= ind.goalPercent - 1e-7;
+      }
       const values: IndicatorValue[] = ind.members.map((m) => ({ id: model.compoundIds[m.index]!, category: m.category, removalPercent: 100 * value(m.index) }));
       return selectIndicatorSet(ind, values, false).set.meanRemovalPercent >= ind.goalPercent - 1e-7;
     };

@@ -119,12 +119,38 @@ export function scaleMixture(pm: PreparedMixture, factor: number, fixedIndex = -
     cTotal += v;
   }
   if (ok && !(factor >= 0 && Number.isFinite(factor))) ok = false;
-  const scaledSource = (): FreundlichComponent[] => pm.source.map((c, i) => (i === fixedIndex ? c : { ...c, c0MgPerL: c.c0MgPerL * factor }));
-  if (!ok) return prepareMixture(scaledSource()); // leaves the active set, or its error message
-  // the scaled components are built only when asked for (hot loops never read them)
-  let source: FreundlichComponent[] | undefined;
-  return {
-    ids: pm.ids, size: pm.size, active: pm.active, c0, n: pm.n, beta: pm.beta, lnK: pm.lnK, a: pm.a, cTotal, lnCTotal: Math.log(cTotal),
-    get source() { return (source ??= scaledSource()); },
-  };
+  if (!ok) return prepareMixture(scaledSource(pm, factor, fixedIndex)); // leaves the active set, or its error message
+  return new ScaledMixture(pm, factor, fixedIndex, c0, cTotal);
+}
+
+function scaledSource(pm: PreparedMixture, factor: number, fixedIndex: number): FreundlichComponent[] {
+  return pm.source.map((c, i) => (i === fixedIndex ? c : { ...c, c0MgPerL: c.c0MgPerL * factor }));
+}
+
+/** A prepared mixture scaled from another; its components are built only when asked for (hot loops never read them). */
+class ScaledMixture implements PreparedMixture {
+  readonly ids: readonly string[];
+  readonly size: number;
+  readonly active: Int32Array;
+  readonly n: Float64Array;
+  readonly beta: Float64Array;
+  readonly lnK: Float64Array;
+  readonly a: Float64Array;
+  readonly lnCTotal: number;
+  private sourceCache?: readonly FreundlichComponent[];
+
+  constructor(private readonly from: PreparedMixture, private readonly factor: number, private readonly fixedIndex: number, readonly c0: Float64Array, readonly cTotal: number) {
+    this.ids = from.ids;
+    this.size = from.size;
+    this.active = from.active;
+    this.n = from.n;
+    this.beta = from.beta;
+    this.lnK = from.lnK;
+    this.a = from.a;
+    this.lnCTotal = Math.log(cTotal);
+  }
+
+  get source(): readonly FreundlichComponent[] {
+    return (this.sourceCache ??= scaledSource(this.from, this.factor, this.fixedIndex));
+  }
 }

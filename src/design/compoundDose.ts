@@ -40,14 +40,17 @@ export function compoundDose(model: RemovalModel, index: number, goal: CompoundG
   return compoundDoseSolved(model, index, goal, hintMgPerL).dose;
 }
 
-/** `compoundDose` with what the model's inverse gave besides (the slope and solve state at the dose, for hints). */
-export function compoundDoseSolved(model: RemovalModel, index: number, goal: CompoundGoal, hintMgPerL?: number, withSlope = false): { dose: CompoundDose; solved?: DoseAtRemoval } {
+/**
+ * `compoundDose` with what the model's inverse gave besides (the slope and solve state at the
+ * dose, for hints); `warmStart` is a solve state of the compound near the answer (only a speed-up).
+ */
+export function compoundDoseSolved(model: RemovalModel, index: number, goal: CompoundGoal, hintMgPerL?: number, withSlope = false, warmStart?: WarmStart): { dose: CompoundDose; solved?: DoseAtRemoval } {
   const compoundId = model.compoundIds[index]!;
   if (goal.kind === 'none') return { dose: { compoundId, status: 'report only', doseMgPerL: null, removalFraction: null, message: `"${compoundId}" is reported only: it has no goal and does not govern the dose` } };
   if (goal.removalFraction <= 0) {
     return { dose: { compoundId, status: 'met without carbon', doseMgPerL: 0, removalFraction: 0, message: `${goal.text} is met without carbon (c0 is already at or below it)` } };
   }
-  const direct = model.doseForRemoval?.(index, goal.removalFraction, undefined, withSlope);
+  const direct = model.doseForRemoval?.(index, goal.removalFraction, warmStart, withSlope);
   if (direct && direct.doseGPerL >= MIN_DOSE_G_PER_L && direct.doseGPerL <= MAX_DOSE_G_PER_L) {
     // the model's inverse: the same root as the search below, without searching
     const reached = 1 - direct.remainingFraction;

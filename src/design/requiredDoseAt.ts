@@ -45,7 +45,7 @@ export function requiredDoseAt(model: RemovalModel, problem: DesignProblem, refe
   } else {
     const i = model.compoundIds.indexOf(base.governedBy.replace(/^compound /, ''));
     if (i < 0) return full();
-    const d = compoundDoseSolved(model, i, problem.goals[i]!, hint);
+    const d = compoundDoseSolved(model, i, problem.goals[i]!, hint, false, near?.warm?.[i]);
     dose = d.dose.status === 'met' ? d.dose.doseMgPerL : null;
     solved = d.solved;
   }

@@ -53,9 +53,11 @@ interface Eval {
 function evaluate(pm: PreparedMixture, lnD: number, u: number, theta: number, out: Eval): void {
   const { c0, n, a } = pm;
   const m = c0.length;
-  const p = theta >= 0 ? Math.exp(-theta) / (1 + Math.exp(-theta)) : 1 / (1 + Math.exp(theta)); // σ(−θ)
+  // σ(−θ) and softplus(−θ) from one exponential (the same values as the two-branch forms)
+  const eTheta = Math.exp(-Math.abs(theta));
+  const p = theta >= 0 ? eTheta / (1 + eTheta) : 1 / (1 + eTheta); // σ(−θ)
   const sTheta = 1 - p;
-  const lnx = pm.lnCTotal - softplus(-theta);
+  const lnx = pm.lnCTotal - (theta >= 0 ? Math.log1p(eTheta) : -theta + Math.log1p(eTheta)); // ln C − softplus(−θ)
   let A = 0, B = 0, N = 0, W = 0, Wn = 0, Wnn = 0;
   for (let i = 0; i < m; i++) {
     const ni = n[i]!;

@@ -1,7 +1,8 @@
 /**
  * The carbon dose that meets one compound's goal on a removal model: the design layer's one dose
  * search (src/design/doseSearch.ts) on e(D) = ln(1 − R) − ln(c(D)/c0), warm-starting each solve
- * from the previous one. Doses mg/L at this layer (g/L into the model).
+ * from the previous one; or, when the model solves its own inverse (`doseForRemoval`, e.g. the
+ * batch IAST read at a fixed removal) and the dose lies within the searched range, that dose. Doses mg/L at this layer (g/L into the model).
  *
  * Statuses, never exceptions: 'met' (the dose and the removal reached there), 'met without
  * carbon' (a limit at or above the feed concentration: dose 0), 'met below the smallest dose'
@@ -14,7 +15,7 @@ import { ComputationError } from '../core/errors.js';
 import type { CompoundGoal } from './compoundGoal.js';
 import { MAX_DOSE_G_PER_L, MIN_DOSE_G_PER_L, searchDose } from './doseSearch.js';
 import { removalExcess } from './removalExcess.js';
-import type { RemovalModel, WarmStart } from './removalModel.js';
+import type { DoseAtRemoval, RemovalModel, WarmStart } from './removalModel.js';
 
 export type CompoundDoseStatus = 'met' | 'met without carbon' | 'met below the smallest dose' | 'unreachable' | 'report only';
 
@@ -36,11 +37,27 @@ export interface CompoundDose {
  * @param hintMgPerL  a dose near the answer (e.g. the dose at another DOC scaled by DOC)
  */
 export function compoundDose(model: RemovalModel, index: number, goal: CompoundGoal, hintMgPerL?: number): CompoundDose {
+  return compoundDoseSolved(model, index, goal, hintMgPerL).dose;
+}
+
+/**
+ * `compoundDose` with what the model's inverse gave besides (the slope and solve state at the
+ * dose, for hints); `warmStart` is a solve state of the compound near the answer (only a speed-up).
+ */
+export function compoundDoseSolved(model: RemovalModel, index: number, goal: CompoundGoal, hintMgPerL?: number, withSlope = false, warmStart?: WarmStart): { dose: CompoundDose; solved?: DoseAtRemoval } {
   const compoundId = model.compoundIds[index]!;
-  if (goal.kind === 'none') return { compoundId, status: 'report only', doseMgPerL: null, removalFraction: null, message: `"${compoundId}" is reported only: it has no goal and does not govern the dose` };
+  if (goal.kind === 'none') return { dose: { compoundId, status: 'report only', doseMgPerL: null, removalFraction: null, message: `"${compoundId}" is reported only: it has no goal and does not govern the dose` } };
   if (goal.removalFraction <= 0) {
-    return { compoundId, status: 'met without carbon', doseMgPerL: 0, removalFraction: 0, message: `${goal.text} is met without carbon (c0 is already at or below it)` };
+    return { dose: { compoundId, status: 'met without carbon', doseMgPerL: 0, removalFraction: 0, message: `${goal.text} is met without carbon (c0 is already at or below it)` } };
   }
+  const direct = model.doseForRemoval?.(index, goal.removalFraction, warmStart, withSlope);
+  if (direct && direct.doseGPerL >= MIN_DOSE_G_PER_L && direct.doseGPerL <= MAX_DOSE_G_PER_L) {
+    // the model's inverse: the same root as the search below, without searching
+    const reached = 1 - direct.remainingFraction;
+    if (!(Math.abs(reached - goal.removalFraction) <= 1e-9)) throw new ComputationError(`dose for "${compoundId}" ended at ${(reached * 100).toPrecision(6)} % instead of ${(goal.removalFraction * 100).toPrecision(6)} %`);
+    return { dose: { compoundId, status: 'met', doseMgPerL: direct.doseGPerL * 1000, removalFraction: reached }, solved: direct };
+  }
+  // outside the searched doses (or no inverse): the search gives the status and its message
   let warm: WarmStart;
   let lastDose = NaN;
   let lastRemaining = 1;
@@ -57,13 +74,13 @@ export function compoundDose(model: RemovalModel, index: number, goal: CompoundG
   const pct = (f: number) => `${(f * 100).toPrecision(4)} %`;
   if (r.status === 'unreachable') {
     const reached = 1 - model.remaining(index, MAX_DOSE_G_PER_L).remainingFraction;
-    return { compoundId, status: 'unreachable', doseMgPerL: null, removalFraction: reached, message: `the goal of ${pct(goal.removalFraction)} removal of "${compoundId}" is not reached by any dose up to ${MAX_DOSE_G_PER_L * 1000} mg/L (it reaches ${pct(reached)} there)` };
+    return { dose: { compoundId, status: 'unreachable', doseMgPerL: null, removalFraction: reached, message: `the goal of ${pct(goal.removalFraction)} removal of "${compoundId}" is not reached by any dose up to ${MAX_DOSE_G_PER_L * 1000} mg/L (it reaches ${pct(reached)} there)` } };
   }
   if (r.status === 'met below the smallest dose') {
-    return { compoundId, status: 'met below the smallest dose', doseMgPerL: 0, removalFraction: null, message: `the goal of ${pct(goal.removalFraction)} removal of "${compoundId}" is already met below ${MIN_DOSE_G_PER_L * 1000} mg/L of carbon` };
+    return { dose: { compoundId, status: 'met below the smallest dose', doseMgPerL: 0, removalFraction: null, message: `the goal of ${pct(goal.removalFraction)} removal of "${compoundId}" is already met below ${MIN_DOSE_G_PER_L * 1000} mg/L of carbon` } };
   }
   // Brent's answer is normally its last evaluation: reuse it rather than solve again
   const reached = 1 - (lastDose === r.doseGPerL ? lastRemaining : model.remaining(index, r.doseGPerL, warm).remainingFraction);
   if (!(Math.abs(reached - goal.removalFraction) <= 1e-9)) throw new ComputationError(`dose search for "${compoundId}" ended at ${(reached * 100).toPrecision(6)} % instead of ${(goal.removalFraction * 100).toPrecision(6)} %`);
-  return { compoundId, status: 'met', doseMgPerL: r.doseGPerL * 1000, removalFraction: reached };
+  return { dose: { compoundId, status: 'met', doseMgPerL: r.doseGPerL * 1000, removalFraction: reached } };
 }

@@ -14,9 +14,10 @@
  * Throws ComputationError if a solve fails; statuses (not exceptions) for unreachable goals.
  */
 import type { CompoundGoal } from './compoundGoal.js';
-import { compoundDose, type CompoundDose } from './compoundDose.js';
+import { compoundDoseSolved, type CompoundDose } from './compoundDose.js';
+import { powerLawRoot } from './indicatorDoseNewton.js';
 import { indicatorDose, type IndicatorDose, type IndicatorGoal } from './indicatorGoal.js';
-import type { RemovalModel } from './removalModel.js';
+import type { DoseAtRemoval, RemovalModel } from './removalModel.js';
 import { costPerM3 } from './carbonCost.js';
 
 export interface DesignProblem {
@@ -67,6 +68,28 @@ export function surrogatesAt(model: RemovalModel, doseMgPerL: number, uv254Absor
 }
 
 /**
+ * A starting dose (mg/L) for the indicator-mean search from the members' own goal doses: each
+ * member's ln c/c0 taken linear in ln D through its goal dose with the slope there
+ * (indicatorDoseNewton.ts); undefined unless every member has such a point.
+ */
+function indicatorHint(goal: IndicatorGoal, solved: ReadonlyArray<DoseAtRemoval | undefined>): number | undefined {
+  const n = goal.members.length;
+  const x = new Float64Array(n), l = new Float64Array(n), s = new Float64Array(n);
+  for (let k = 0; k < n; k++) {
+    const d = solved[goal.members[k]!.index];
+    if (!d || d.slope === undefined || !(d.slope < 0) || !(d.remainingFraction > 0)) return undefined;
+    x[k] = Math.log(d.doseGPerL);
+    l[k] = Math.log(d.remainingFraction);
+    s[k] = d.slope;
+  }
+  if (goal.chosen) return undefined; // the chosen set is a subset: keep the general hint
+  let x0 = 0;
+  for (let k = 0; k < n; k++) x0 += x[k]! / n;
+  const root = powerLawRoot(x0, x, l, s, goal.goalPercent);
+  return root === undefined ? undefined : Math.exp(root) * 1000;
+}
+
+/**
  * @param model the removal model of the carbon at the water's DOC
  * @param near  the design at another DOC, for starting guesses only (doses scaled by DOC:
  *              the dose per mg DOC is roughly constant, Zietzschmann et al. 2016)
@@ -74,10 +97,13 @@ export function surrogatesAt(model: RemovalModel, doseMgPerL: number, uv254Absor
 export function designDose(model: RemovalModel, problem: DesignProblem, near?: Design): Design {
   const docMgPerL = model.docMgPerL;
   const scale = near ? docMgPerL / near.docMgPerL : 1;
+  const solved: Array<DoseAtRemoval | undefined> = [];
   const compounds = problem.goals.map((goal, i) => {
     const prior = near?.compounds[i];
     const hint = prior && prior.status === 'met' && prior.doseMgPerL ? prior.doseMgPerL * scale : undefined;
-    return compoundDose(model, i, goal, hint);
+    const r = compoundDoseSolved(model, i, goal, hint, problem.indicator !== undefined);
+    solved[i] = r.solved;
+    return r.dose;
   });
   let governing: Design['governing'];
   for (const c of compounds) {
@@ -90,7 +116,8 @@ export function designDose(model: RemovalModel, problem: DesignProblem, near?: D
   if (governing) out.governing = governing;
   if (problem.indicator) {
     const prior = near?.indicator;
-    const ind = indicatorDose(model, problem.indicator, prior && prior.status === 'met' && prior.doseMgPerL ? prior.doseMgPerL * scale : undefined);
+    const hint = indicatorHint(problem.indicator, solved) ?? (prior && prior.status === 'met' && prior.doseMgPerL ? prior.doseMgPerL * scale : undefined);
+    const ind = indicatorDose(model, problem.indicator, hint, solved.map((d) => d?.warm));
     out.indicator = ind;
     if (ind.doseMgPerL !== null && (out.doseMgPerL === null || ind.doseMgPerL > out.doseMgPerL)) {
       out.doseMgPerL = ind.doseMgPerL;

@@ -11,9 +11,11 @@
  * It is the limit of any contact-time model at long contact (the carbon reaches equilibrium).
  */
 import { InputError } from '../core/errors.js';
+import { softplus } from '../core/logistic.js';
 import { prepareMixture, scaleMixture, type FreundlichComponent, type PreparedMixture } from '../equilibrium/preparedMixture.js';
-import { solveBatchPrepared } from '../equilibrium/iastBatch.js';
-import type { BackgroundAtDose, CompetitionSet, RemainingAtDose, RemovalModel, RemovalModelFactory, WarmStart } from './removalModel.js';
+import { remainingAtState, remainingSlopeAtState, solveBatchPrepared, solveBatchState } from '../equilibrium/iastBatch.js';
+import { iastDoseForRemoval } from '../equilibrium/iastDoseForRemoval.js';
+import type { BackgroundAtDose, CompetitionSet, DoseAtRemoval, RemainingAtDose, RemainingEstimates, RemovalModel, RemovalModelFactory, WarmStart } from './removalModel.js';
 
 type IastState = { u: number; theta: number };
 
@@ -21,61 +23,179 @@ function scaled(components: readonly FreundlichComponent[], factor: number): Fre
   return components.map((c) => ({ ...c, c0MgPerL: c.c0MgPerL * factor }));
 }
 
+/** The model this one was moved from with atDoc, and the DOC factor (mixtures are scaled on first use). */
+interface Moved {
+  parent: EquilibriumRemoval;
+  factor: number;
+}
+
 /** The batch-IAST RemovalModel: remaining fraction c/c0 of each compound at a dose in g/L, with warm starts and the same water at another DOC. */
 export class EquilibriumRemoval implements RemovalModel {
   readonly kind = 'equilibrium (batch IAST)';
   readonly compoundIds: readonly string[];
   readonly backgroundC0MgPerL?: Float64Array;
-  private readonly mixtures: PreparedMixture[];
+  private readonly mixtures: Array<PreparedMixture | undefined>;
   private readonly c0: Float64Array;
-  private readonly bgMixture?: PreparedMixture;
+  private bgMixture?: PreparedMixture;
+  private setsCache?: readonly CompetitionSet[];
+  private backgroundCache?: readonly FreundlichComponent[];
+  private readonly moved?: Moved;
+  private groupCache?: Int32Array;
 
   /**
    * @param sets       each target with its competitors at `docMgPerL`
    * @param docMgPerL  DOC of the water, mg/L (> 0)
    * @param background the fictive DOC components at `docMgPerL` (for the surrogates), if any
-   * @param prepared   the mixtures of `sets` and `background` already prepared (atDoc), if any
    */
-  constructor(readonly sets: readonly CompetitionSet[], readonly docMgPerL: number, readonly background?: readonly FreundlichComponent[], prepared?: { mixtures: PreparedMixture[]; background?: PreparedMixture }) {
+  constructor(sets: readonly CompetitionSet[], readonly docMgPerL: number, background?: readonly FreundlichComponent[], moved?: Moved) {
     if (!(docMgPerL > 0) || !Number.isFinite(docMgPerL)) throw new InputError(`expected a DOC > 0 mg/L, got ${docMgPerL}`, { path: 'doc' });
+    if (moved) {
+      // the same water at another DOC: targets as in the parent, competitors scaled when first used
+      const p = moved.parent;
+      this.moved = moved;
+      this.compoundIds = p.compoundIds;
+      this.c0 = p.c0;
+      this.mixtures = new Array<PreparedMixture | undefined>(p.mixtures.length);
+      if (p.backgroundC0MgPerL) this.backgroundC0MgPerL = p.backgroundC0MgPerL.map((c) => c * moved.factor);
+      return;
+    }
+    this.setsCache = sets;
     this.compoundIds = sets.map((s) => s.target.id);
     this.c0 = Float64Array.from(sets, (s, i) => {
       if (!(s.target.c0MgPerL > 0) || !Number.isFinite(s.target.c0MgPerL)) throw new InputError(`expected a feed concentration > 0 mg/L for "${s.target.id}", got ${s.target.c0MgPerL}`, { path: `compounds[${i}].c0` });
       return s.target.c0MgPerL;
     });
-    this.mixtures = prepared ? prepared.mixtures : sets.map((s) => prepareMixture([s.target, ...s.competitors]));
+    this.mixtures = sets.map((s) => prepareMixture([s.target, ...s.competitors]));
     if (background && background.length) {
-      this.bgMixture = prepared?.background ?? prepareMixture(background);
+      this.backgroundCache = background;
+      this.bgMixture = prepareMixture(background);
       this.backgroundC0MgPerL = Float64Array.from(background, (c) => c.c0MgPerL);
     }
   }
 
+  /** Each target with its competitors at this DOC. */
+  get sets(): readonly CompetitionSet[] {
+    return (this.setsCache ??= this.compoundIds.map((_, i) => {
+      const src = this.mixture(i).source;
+      return { target: src[0]!, competitors: src.slice(1) };
+    }));
+  }
+
+  /** The fictive DOC components at this DOC (for the surrogates), if any. */
+  get background(): readonly FreundlichComponent[] | undefined {
+    if (this.backgroundCache || !this.moved) return this.backgroundCache;
+    const bg = this.background0();
+    return (this.backgroundCache = bg ? bg.source : undefined);
+  }
+
+  private mixture(index: number): PreparedMixture {
+    let pm = this.mixtures[index];
+    if (pm) return pm;
+    if (!this.moved || index < 0 || index >= this.mixtures.length) throw new InputError(`compound index ${index} is not in the model (${this.mixtures.length} compounds)`);
+    // the prepared mixture scaled in place of preparing it again (the target, component 0, keeps its c0)
+    pm = scaleMixture(this.moved.parent.mixture(index), this.moved.factor, 0);
+    this.mixtures[index] = pm;
+    return pm;
+  }
+
+  private background0(): PreparedMixture | undefined {
+    if (this.bgMixture || !this.moved) return this.bgMixture;
+    const p = this.moved.parent.background0();
+    if (p) this.bgMixture = scaleMixture(p, this.moved.factor);
+    return this.bgMixture;
+  }
+
   remaining(index: number, doseGPerL: number, warm?: WarmStart): RemainingAtDose {
-    const pm = this.mixtures[index];
-    if (!pm) throw new InputError(`compound index ${index} is not in the model (${this.mixtures.length} compounds)`);
+    const pm = this.mixture(index);
     if (doseGPerL === 0) return { remainingFraction: 1, warm };
-    const s = solveBatchPrepared(pm, doseGPerL, warm as IastState | undefined);
-    return { remainingFraction: s.cMgPerL[0]! / this.c0[index]!, warm: s.state };
+    if (pm.active[0] !== 0) {
+      // a target that does not adsorb stays in solution (the general solver, for its checks)
+      const s = solveBatchPrepared(pm, doseGPerL, warm as IastState | undefined);
+      return { remainingFraction: s.cMgPerL[0]! / this.c0[index]!, warm: s.state };
+    }
+    if (!(doseGPerL > 0) || !Number.isFinite(doseGPerL)) throw new InputError(`expected a non-negative finite carbon dose, got ${doseGPerL}`, { path: 'dose' });
+    const state = solveBatchState(pm, doseGPerL, warm as IastState | undefined);
+    return { remainingFraction: remainingAtState(pm, 0, state), warm: state };
+  }
+
+  remainingWithSlope(index: number, doseGPerL: number, warm?: WarmStart): RemainingAtDose & { slope: number } {
+    const pm = this.mixture(index);
+    if (pm.active[0] !== 0 || !(doseGPerL > 0) || !Number.isFinite(doseGPerL)) {
+      const r = this.remaining(index, doseGPerL, warm);
+      return { remainingFraction: r.remainingFraction, warm: r.warm, slope: 0 };
+    }
+    const state = solveBatchState(pm, doseGPerL, warm as IastState | undefined);
+    return { remainingFraction: remainingAtState(pm, 0, state), warm: state, slope: remainingSlopeAtState(pm, doseGPerL, 0, state) };
+  }
+
+  /**
+   * Trace estimates (Knappe et al. 1998: a trace compound does not change its background's state):
+   * every compound whose competitors are those of `from` is evaluated at the spreading pressure ψ
+   * and adsorbed total x of the solve of `from`, ln c_i/c0_i = ln σ(n_i·ln ψ + a_i − ln x)
+   * (iastBatch.ts). The error comes from the two targets' own share of the adsorbed phase; it is
+   * first order in ε = (c0_from + c0_i)/x, and the bound used is 0.005 + 5·max(n_from, n_i)·ε
+   * (ours: several times the largest error found on the demo and on random trace mixtures, see
+   * tests/design/remainingEstimates.test.ts). Compounds with other competitors get no estimate.
+   */
+  remainingEstimates(from: number, doseGPerL: number, warm: WarmStart): RemainingEstimates | undefined {
+    const pf = this.mixture(from);
+    const st = warm as IastState | undefined;
+    if (pf.active[0] !== 0 || !st || !(doseGPerL > 0)) return undefined;
+    const root = this.moved ? this.moved.parent : this;
+    const group = root.groups();
+    const lnx = pf.lnCTotal - softplus(-st.theta); // ln x = ln C − softplus(−θ) (iastBatch.ts)
+    const x = Math.exp(lnx);
+    const T = this.c0.length;
+    const lnRemaining = new Float64Array(T), lnBound = new Float64Array(T).fill(Infinity);
+    for (let i = 0; i < T; i++) {
+      if (group[i] !== group[from]) continue;
+      const pm = root.mixture(i); // the target's n and a do not change with the DOC
+      if (pm.active[0] !== 0) continue;
+      const t = pm.n[0]! * st.u + pm.a[0]! - lnx;
+      lnRemaining[i] = -softplus(-t); // ln σ(t)
+      lnBound[i] = 0.005 + 5 * Math.max(pf.n[0]!, pm.n[0]!) * ((this.c0[from]! + this.c0[i]!) / x);
+    }
+    return { lnRemaining, lnBound };
+  }
+
+  /** Compounds with identical competitors share a group number (the first compound's index). */
+  private groups(): Int32Array {
+    if (this.groupCache) return this.groupCache;
+    const T = this.mixtures.length;
+    const g = new Int32Array(T);
+    const same = (p: PreparedMixture, q: PreparedMixture): boolean => {
+      if (p.active[0] !== 0 || q.active[0] !== 0 || p.c0.length !== q.c0.length) return false;
+      for (let k = 1; k < p.c0.length; k++) if (p.c0[k] !== q.c0[k] || p.n[k] !== q.n[k] || p.a[k] !== q.a[k]) return false;
+      return true;
+    };
+    for (let i = 0; i < T; i++) {
+      g[i] = i;
+      for (let k = 0; k < i; k++) if (g[k] === k && same(this.mixture(k), this.mixture(i))) { g[i] = k; break; }
+    }
+    return (this.groupCache = g);
+  }
+
+  doseForRemoval(index: number, removalFraction: number, warm?: WarmStart, withSlope = false): DoseAtRemoval | undefined {
+    const pm = this.mixture(index);
+    if (pm.active[0] !== 0 || !(removalFraction > 0 && removalFraction < 1)) return undefined;
+    const r = iastDoseForRemoval(pm, 0, removalFraction, (warm as IastState | undefined)?.u);
+    const out: DoseAtRemoval = { doseGPerL: r.doseGPerL, remainingFraction: remainingAtState(pm, 0, r.state), warm: r.state };
+    if (withSlope) out.slope = remainingSlopeAtState(pm, r.doseGPerL, 0, r.state);
+    return out;
   }
 
   backgroundRemaining(doseGPerL: number, warm?: WarmStart): BackgroundAtDose {
-    if (!this.bgMixture) throw new InputError('this model has no fractionated background');
+    const bg = this.background0();
+    if (!bg) throw new InputError('this model has no fractionated background');
     if (doseGPerL === 0) return { cMgPerL: this.backgroundC0MgPerL!.slice(), warm };
-    const s = solveBatchPrepared(this.bgMixture, doseGPerL, warm as IastState | undefined);
+    const s = solveBatchPrepared(bg, doseGPerL, warm as IastState | undefined);
     return { cMgPerL: s.cMgPerL, warm: s.state };
   }
 
   atDoc(docMgPerL: number): EquilibriumRemoval {
     const f = docMgPerL / this.docMgPerL;
-    // the prepared mixtures scaled in place of preparing them again (the target, component 0, keeps its c0)
-    const mixtures = this.mixtures.map((pm) => scaleMixture(pm, f, 0));
-    const bg = this.bgMixture ? scaleMixture(this.bgMixture, f) : undefined;
-    return new EquilibriumRemoval(
-      this.sets.map((s, i) => ({ target: s.target, competitors: mixtures[i]!.source.slice(1) })),
-      docMgPerL,
-      bg ? bg.source : this.background ? scaled(this.background, f) : undefined,
-      bg ? { mixtures, background: bg } : { mixtures },
-    );
+    if (this.moved) return new EquilibriumRemoval([], docMgPerL, undefined, { parent: this.moved.parent, factor: this.moved.factor * f });
+    return new EquilibriumRemoval([], docMgPerL, undefined, { parent: this, factor: f });
   }
 }
 

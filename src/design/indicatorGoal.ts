@@ -16,6 +16,7 @@ import {
 } from '../indicators/indicatorRule.js';
 import type { RemovalModel, WarmStart } from './removalModel.js';
 import { searchDose, MAX_DOSE_G_PER_L } from './doseSearch.js';
+import { indicatorDoseNewton } from './indicatorDoseNewton.js';
 
 export interface IndicatorMember {
   /** Index of the compound in the removal model. */
@@ -106,12 +107,21 @@ export function indicatorInadmissible(model: RemovalModel, goal: IndicatorGoal):
   return why && (n1 < 4 || n2 < 2) ? `no admissible indicator set: ${why}` : undefined;
 }
 
+/** The indices of a set that does not depend on the removals (chosen, or all when admissible), else undefined. */
+export function fixedIndicatorSet(model: RemovalModel, goal: IndicatorGoal): { set: number[]; selection: IndicatorSelection } | undefined {
+  if (goal.chosen) return { set: goal.members.filter((m) => goal.chosen!.includes(model.compoundIds[m.index]!)).map((m) => m.index), selection: 'chosen set' };
+  const n1 = goal.members.filter((m) => m.category === 1).length;
+  if (ruleViolation(n1, goal.members.length - n1)) return undefined;
+  return { set: goal.members.map((m) => m.index), selection: 'all indicator compounds' };
+}
+
 /**
  * The dose (mg/L) at which the mean removal of the indicator set reaches the goal.
  * @param hintMgPerL a dose near the answer (only a speed-up)
+ * @param warmStarts solve states by compound index near that dose (only a speed-up)
  * @throws ComputationError if the search fails
  */
-export function indicatorDose(model: RemovalModel, goal: IndicatorGoal, hintMgPerL?: number): IndicatorDose {
+export function indicatorDose(model: RemovalModel, goal: IndicatorGoal, hintMgPerL?: number, warmStarts?: ReadonlyArray<WarmStart>): IndicatorDose {
   const why = indicatorInadmissible(model, goal);
   if (why) return { status: 'not admissible', doseMgPerL: null, message: why };
   let selection: IndicatorSelection | undefined;
@@ -121,6 +131,12 @@ export function indicatorDose(model: RemovalModel, goal: IndicatorGoal, hintMgPe
     selection = sel.selection;
     return sel.set.meanRemovalPercent - goal.goalPercent;
   };
+  // a fixed set (chosen, or all compounds when admissible): Newton's method on the mean first
+  const fixed = fixedIndicatorSet(model, goal);
+  if (fixed) {
+    const d = indicatorDoseNewton(model, fixed.set, goal.goalPercent, hintMgPerL !== undefined ? hintMgPerL / 1000 : undefined, warmStarts);
+    if (d !== undefined) return { status: 'met', doseMgPerL: d * 1000, selection: fixed.selection };
+  }
   const opts: Parameters<typeof searchDose>[1] = { what: 'indicator-mean dose search' };
   if (hintMgPerL !== undefined && hintMgPerL > 0) opts.hintGPerL = hintMgPerL / 1000;
   const r = searchDose(excess, opts);

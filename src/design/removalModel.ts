@@ -12,6 +12,8 @@
  *   - `atDoc(doc)` is the same model in water of another DOC: every competitor's concentration
  *     proportional to the DOC (fictive DOC components and EBCs alike; Zietzschmann et al. 2016,
  *     Water Research 102:190 support scaling the background with DOC), targets unchanged;
+ *   - `doseForRemoval(i, R)` (optional) is the inverse of `remaining`: the dose at which
+ *     c/c0 = 1 − R, solved from the model's own equations (a shortcut of the dose search);
  *   - `backgroundRemaining(D)` (optional) gives the fictive DOC components left at the dose, for
  *     the DOC and UV254 surrogates;
  *   - never NaN: a failed solve throws ComputationError with the reason.
@@ -42,6 +44,23 @@ export interface BackgroundAtDose {
   warm: WarmStart;
 }
 
+export interface DoseAtRemoval {
+  /** Dose at which the compound's removal equals the goal, g/L. */
+  doseGPerL: number;
+  /** c/c0 at that dose (1 − goal, to the model's own tolerance). */
+  remainingFraction: number;
+  /** d ln(c/c0)/d ln D there, when asked for (`withSlope`) and the model gives it. */
+  slope?: number;
+  warm: WarmStart;
+}
+
+export interface RemainingEstimates {
+  /** ln(c/c0) of each compound (model order). */
+  lnRemaining: Float64Array;
+  /** Bound on the error of each estimate in ln(c/c0). */
+  lnBound: Float64Array;
+}
+
 /** One target and its competitors in the water at one DOC (target c0 > 0). */
 export interface CompetitionSet {
   target: FreundlichComponent;
@@ -58,6 +77,21 @@ export interface RemovalModel {
   readonly docMgPerL: number;
   /** Remaining fraction c/c0 of compound `index` at a dose in g/L. @throws ComputationError */
   remaining(index: number, doseGPerL: number, warm?: WarmStart): RemainingAtDose;
+  /**
+   * Optional: the dose (g/L) at which compound `index` is removed by `removalFraction` (0 < R < 1),
+   * solved directly from the model's equations to the same tolerance as `remaining` (a shortcut
+   * of the dose search, which callers use when it is absent or returns undefined).
+   */
+  doseForRemoval?(index: number, removalFraction: number, warm?: WarmStart, withSlope?: boolean): DoseAtRemoval | undefined;
+  /** Optional: `remaining` with its slope d ln(c/c0)/d ln D at the dose (for Newton steps on the dose). */
+  remainingWithSlope?(index: number, doseGPerL: number, warm?: WarmStart): RemainingAtDose & { slope: number };
+  /**
+   * Optional: c/c0 of every compound estimated from one solve (compound `from` at the dose, its
+   * `warm` from `remaining`), as ln c/c0 with a bound on |ln estimate − ln exact| (Infinity where
+   * the model gives no estimate). Callers use it only to skip solves whose outcome the bound
+   * already decides; undefined when the model has no estimate.
+   */
+  remainingEstimates?(from: number, doseGPerL: number, warm: WarmStart): RemainingEstimates | undefined;
   /** The same model in water of another DOC (competitors scaled by DOC). */
   atDoc(docMgPerL: number): RemovalModel;
   /** Initial concentrations of the fictive DOC components, mg/L (absent without a fractionated background). */

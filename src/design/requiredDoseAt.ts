@@ -6,11 +6,11 @@
  * largest of the goal doses, i.e. what designDose returns; otherwise the full designDose runs.
  * Used for the dose table's nodes by the run and by every Monte Carlo draw alike.
  */
-import { compoundDose } from './compoundDose.js';
+import { compoundDoseSolved } from './compoundDose.js';
 import { designDose, type Design, type DesignProblem } from './designDose.js';
-import { indicatorDose, selectIndicatorSet } from './indicatorGoal.js';
+import { fixedIndicatorSet, indicatorDose, selectIndicatorSet } from './indicatorGoal.js';
 import type { IndicatorValue } from '../indicators/indicatorRule.js';
-import type { RemovalModel, WarmStart } from './removalModel.js';
+import type { DoseAtRemoval, RemainingEstimates, RemovalModel, WarmStart } from './removalModel.js';
 
 export interface RequiredAtDoc {
   docMgPerL: number;
@@ -37,6 +37,7 @@ export function requiredDoseAt(model: RemovalModel, problem: DesignProblem, refe
   if (base.doseMgPerL === null || !(base.doseMgPerL > 0) || reference.compounds.some((c) => c.status !== 'met' && c.status !== 'report only') || (reference.indicator && reference.indicator.status !== 'met')) return full();
   const hint = base.doseMgPerL * (docMgPerL / base.docMgPerL);
   let dose: number | null;
+  let solved: DoseAtRemoval | undefined;
   if (base.governedBy === 'indicator mean') {
     if (!problem.indicator) return full();
     const r = indicatorDose(model, problem.indicator, hint);
@@ -44,25 +45,54 @@ export function requiredDoseAt(model: RemovalModel, problem: DesignProblem, refe
   } else {
     const i = model.compoundIds.indexOf(base.governedBy.replace(/^compound /, ''));
     if (i < 0) return full();
-    const d = compoundDose(model, i, problem.goals[i]!, hint);
-    dose = d.status === 'met' ? d.doseMgPerL : null;
+    const d = compoundDoseSolved(model, i, problem.goals[i]!, hint, false, near?.warm?.[i]);
+    dose = d.dose.status === 'met' ? d.dose.doseMgPerL : null;
+    solved = d.solved;
   }
   if (dose === null || !(dose > 0)) return full();
-  // every compound's removal at that dose, once (the indicator mean uses the same values)
-  const warm: WarmStart[] = [];
-  const removal = problem.goals.map((_, i) => {
-    const r = model.remaining(i, dose / 1000, near?.warm?.[i]);
-    warm[i] = r.warm;
-    return 1 - r.remainingFraction;
-  });
+  // every compound's removal at that dose, once (the indicator mean uses the same values); a
+  // model's estimates with error bounds skip the solves whose outcome they already decide
+  const D = dose / 1000;
+  const warm: WarmStart[] = near?.warm ? near.warm.slice() : [];
+  const removal: Array<number | undefined> = [];
+  const exact = (i: number): number => {
+    let v = removal[i];
+    if (v === undefined) {
+      const r = model.remaining(i, D, warm[i]);
+      warm[i] = r.warm;
+      removal[i] = v = 1 - r.remainingFraction;
+    }
+    return v;
+  };
+  const governing = base.governedBy === 'indicator mean' ? -1 : model.compoundIds.indexOf(base.governedBy.replace(/^compound /, ''));
+  let est: RemainingEstimates | undefined;
+  if (governing >= 0 && solved) { warm[governing] = solved.warm; removal[governing] = 1 - solved.remainingFraction; }
+  if (governing >= 0 && model.remainingEstimates) {
+    exact(governing);
+    est = model.remainingEstimates(governing, D, warm[governing]);
+  }
   for (let i = 0; i < problem.goals.length; i++) {
     const goal = problem.goals[i]!;
-    if (goal.kind !== 'none' && goal.removalFraction > 0 && removal[i]! < goal.removalFraction - 1e-9) return full();
+    if (goal.kind === 'none' || !(goal.removalFraction > 0)) continue;
+    if (est && est.lnRemaining[i]! + est.lnBound[i]! <= Math.log1p(-goal.removalFraction)) continue; // met for certain
+    if (exact(i) < goal.removalFraction - 1e-9) return full();
   }
   if (problem.indicator) {
-    const values: IndicatorValue[] = problem.indicator.members.map((m) => ({ id: model.compoundIds[m.index]!, category: m.category, removalPercent: 100 * removal[m.index]! }));
-    const sel = selectIndicatorSet(problem.indicator, values, false);
-    if (sel.set.meanRemovalPercent < problem.indicator.goalPercent - 1e-7) return full();
+    const ind = problem.indicator;
+    const fixed = fixedIndicatorSet(model, ind);
+    const check = (value: (i: number) => number): boolean => {
+      if (fixed) {
+        // a set that does not depend on the removals: its mean directly (what selectIndicatorSet gives)
+        let sum = 0;
+        for (const i of fixed.set) sum += 100 * value(i);
+        return sum / fixed.set.length >= ind.goalPercent - 1e-7;
+      }
+      const values: IndicatorValue[] = ind.members.map((m) => ({ id: model.compoundIds[m.index]!, category: m.category, removalPercent: 100 * value(m.index) }));
+      return selectIndicatorSet(ind, values, false).set.meanRemovalPercent >= ind.goalPercent - 1e-7;
+    };
+    // lower bounds of the removals first (the mean of any set rises with every removal)
+    const certain = est !== undefined && check((i) => (removal[i] !== undefined ? removal[i]! : 1 - Math.exp(est!.lnRemaining[i]! + est!.lnBound[i]!)));
+    if (!certain && !check(exact)) return full();
   }
   return { docMgPerL, doseMgPerL: dose, governedBy: base.governedBy, warm };
 }

@@ -53,9 +53,11 @@ interface Eval {
 function evaluate(pm: PreparedMixture, lnD: number, u: number, theta: number, out: Eval): void {
   const { c0, n, a } = pm;
   const m = c0.length;
-  const p = theta >= 0 ? Math.exp(-theta) / (1 + Math.exp(-theta)) : 1 / (1 + Math.exp(theta)); // σ(−θ)
+  // σ(−θ) and softplus(−θ) from one exponential (the same values as the two-branch forms)
+  const eTheta = Math.exp(-Math.abs(theta));
+  const p = theta >= 0 ? eTheta / (1 + eTheta) : 1 / (1 + eTheta); // σ(−θ)
   const sTheta = 1 - p;
-  const lnx = pm.lnCTotal - softplus(-theta);
+  const lnx = pm.lnCTotal - (theta >= 0 ? Math.log1p(eTheta) : -theta + Math.log1p(eTheta)); // ln C − softplus(−θ)
   let A = 0, B = 0, N = 0, W = 0, Wn = 0, Wnn = 0;
   for (let i = 0; i < m; i++) {
     const ni = n[i]!;
@@ -205,6 +207,42 @@ export function solveBatchPrepared(
     for (let j = 0; j < m; j++) q[pm.active[j]!] = d.qMgPerG[j]!;
     return { doseGPerL, cMgPerL: c, qMgPerG: q, psiMgPerG: d.psiMgPerG, state: { u: Math.log(d.psiMgPerG), theta: -Infinity }, iterations: d.iterations, method: 'trivial' };
   }
+  const { u, theta, iterations, method } = solveState(pm, doseGPerL, warm, options.forceBracketed === true);
+  const lnx = pm.lnCTotal - softplus(-theta);
+  for (let j = 0; j < m; j++) {
+    const t = pm.n[j]! * u + pm.a[j]! - lnx;
+    const e = Math.exp(-Math.abs(t));
+    const inv = 1 / (1 + e);
+    const sp = t >= 0 ? inv : e * inv; // σ(t): fraction remaining
+    const sm = t >= 0 ? e * inv : inv; // σ(−t): fraction adsorbed
+    const idx = pm.active[j]!;
+    c[idx] = pm.c0[j]! * sp;
+    q[idx] = (pm.c0[j]! * sm) / doseGPerL;
+  }
+  return { doseGPerL, cMgPerL: c, qMgPerG: q, psiMgPerG: Math.exp(u), state: { u, theta }, iterations, method };
+}
+
+/**
+ * The converged state (u = ln ψ, θ) of the batch problem at a dose > 0 (g/L), without the
+ * concentration arrays: what `solveBatchPrepared` solves, for hot loops (dose searches, Monte
+ * Carlo draws) that need one component's fraction only (`remainingAtState`). Needs at least one
+ * adsorbable component. @throws ComputationError if no converged root is found.
+ */
+export function solveBatchState(pm: PreparedMixture, doseGPerL: number, warm?: { u: number; theta: number }): { u: number; theta: number; iterations: number } {
+  return solveState(pm, doseGPerL, warm, false);
+}
+
+/** c/c0 of active component j (index into pm.c0) at a converged state: σ(t_j). */
+export function remainingAtState(pm: PreparedMixture, j: number, state: { u: number; theta: number }): number {
+  const lnx = pm.lnCTotal - softplus(-state.theta);
+  const t = pm.n[j]! * state.u + pm.a[j]! - lnx;
+  if (t >= 0) return 1 / (1 + Math.exp(-t));
+  const e = Math.exp(t);
+  return e / (1 + e);
+}
+
+function solveState(pm: PreparedMixture, doseGPerL: number, warm: { u: number; theta: number } | undefined, forceBracketed: boolean): { u: number; theta: number; iterations: number; method: BatchSolution['method'] } {
+  const options = { forceBracketed };
   const lnD = Math.log(doseGPerL);
   const start = warm && Number.isFinite(warm.u) && Number.isFinite(warm.theta) ? warm : lumpedStart(pm, doseGPerL);
   let sol = options.forceBracketed ? undefined : newton(pm, lnD, start.u, start.theta);
@@ -221,20 +259,27 @@ export function solveBatchPrepared(
   if (!(Math.abs(scratch.f1) < 1e-11 && Math.abs(scratch.f2) < 1e-11)) {
     throw new ComputationError(`batch IAST did not converge at dose ${doseGPerL * 1000} mg/L (residuals ${scratch.f1.toExponential(2)}, ${scratch.f2.toExponential(2)})`);
   }
-  const lnx = pm.lnCTotal - softplus(-theta);
-  for (let j = 0; j < m; j++) {
-    const t = pm.n[j]! * u + pm.a[j]! - lnx;
-    const e = Math.exp(-Math.abs(t));
-    const inv = 1 / (1 + e);
-    const sp = t >= 0 ? inv : e * inv; // σ(t): fraction remaining
-    const sm = t >= 0 ? e * inv : inv; // σ(−t): fraction adsorbed
-    const idx = pm.active[j]!;
-    c[idx] = pm.c0[j]! * sp;
-    q[idx] = (pm.c0[j]! * sm) / doseGPerL;
-  }
-  return { doseGPerL, cMgPerL: c, qMgPerG: q, psiMgPerG: Math.exp(u), state: { u, theta }, iterations: sol.iterations, method };
+  return { u, theta, iterations: sol.iterations, method };
 }
 
 function spread(s: { u: number; theta: number }): [number, number] {
   return [s.u, s.theta];
+}
+
+/**
+ * d ln(c_j/c0_j)/d ln D of active component j at a converged state (u, θ) at dose D (g/L): the
+ * implicit-function derivative of the batch conditions F(u, θ; ln D) = 0, with ∂F1/∂ln D = 0 and
+ * ∂F2/∂ln D = −1, so (du, dθ)/d ln D = J⁻¹·(0, 1); then d ln σ(t_j) = σ(−t_j)·(n_j du − σ(−θ) dθ).
+ * Used by dose searches that step with Newton's method. @throws ComputationError on a singular Jacobian.
+ */
+export function remainingSlopeAtState(pm: PreparedMixture, doseGPerL: number, j: number, state: { u: number; theta: number }): number {
+  const { u, theta } = state;
+  evaluate(pm, Math.log(doseGPerL), u, theta, scratch);
+  const det = scratch.j11 * scratch.j22 - scratch.j12 * scratch.j21;
+  if (!(Number.isFinite(det) && det !== 0)) throw new ComputationError(`batch IAST: singular Jacobian at dose ${doseGPerL * 1000} mg/L`);
+  const du = -scratch.j12 / det;
+  const dth = scratch.j11 / det;
+  const p = theta >= 0 ? Math.exp(-theta) / (1 + Math.exp(-theta)) : 1 / (1 + Math.exp(theta)); // σ(−θ)
+  const f = remainingAtState(pm, j, state);
+  return (1 - f) * (pm.n[j]! * du - p * dth);
 }

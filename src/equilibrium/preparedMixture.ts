@@ -107,19 +107,50 @@ export function duplicateIdIndex(components: readonly { id: string }[]): number 
  * Falls back to `prepareMixture` when a scaled concentration leaves the active set.
  */
 export function scaleMixture(pm: PreparedMixture, factor: number, fixedIndex = -1): PreparedMixture {
-  const source = pm.source.map((c, i) => (i === fixedIndex ? c : { ...c, c0MgPerL: c.c0MgPerL * factor }));
   const m = pm.active.length;
   const c0 = new Float64Array(m);
   let cTotal = 0;
+  let ok = true;
   for (let j = 0; j < m; j++) {
-    const v = source[pm.active[j]!]!.c0MgPerL;
-    if (!(v > 0) || !Number.isFinite(v)) return prepareMixture(source);
+    const idx = pm.active[j]!;
+    const v = idx === fixedIndex ? pm.c0[j]! : pm.c0[j]! * factor;
+    if (!(v > 0) || !Number.isFinite(v)) { ok = false; break; }
     c0[j] = v;
     cTotal += v;
   }
-  for (let i = 0; i < source.length; i++) {
-    const v = source[i]!.c0MgPerL;
-    if (!(v >= 0) || !Number.isFinite(v)) return prepareMixture(source); // its error message
+  if (ok && !(factor >= 0 && Number.isFinite(factor))) ok = false;
+  if (!ok) return prepareMixture(scaledSource(pm, factor, fixedIndex)); // leaves the active set, or its error message
+  return new ScaledMixture(pm, factor, fixedIndex, c0, cTotal);
+}
+
+function scaledSource(pm: PreparedMixture, factor: number, fixedIndex: number): FreundlichComponent[] {
+  return pm.source.map((c, i) => (i === fixedIndex ? c : { ...c, c0MgPerL: c.c0MgPerL * factor }));
+}
+
+/** A prepared mixture scaled from another; its components are built only when asked for (hot loops never read them). */
+class ScaledMixture implements PreparedMixture {
+  readonly ids: readonly string[];
+  readonly size: number;
+  readonly active: Int32Array;
+  readonly n: Float64Array;
+  readonly beta: Float64Array;
+  readonly lnK: Float64Array;
+  readonly a: Float64Array;
+  readonly lnCTotal: number;
+  private sourceCache?: readonly FreundlichComponent[];
+
+  constructor(private readonly from: PreparedMixture, private readonly factor: number, private readonly fixedIndex: number, readonly c0: Float64Array, readonly cTotal: number) {
+    this.ids = from.ids;
+    this.size = from.size;
+    this.active = from.active;
+    this.n = from.n;
+    this.beta = from.beta;
+    this.lnK = from.lnK;
+    this.a = from.a;
+    this.lnCTotal = Math.log(cTotal);
   }
-  return { ids: pm.ids, size: pm.size, active: pm.active, c0, n: pm.n, beta: pm.beta, lnK: pm.lnK, a: pm.a, cTotal, lnCTotal: Math.log(cTotal), source };
+
+  get source(): readonly FreundlichComponent[] {
+    return (this.sourceCache ??= scaledSource(this.from, this.factor, this.fixedIndex));
+  }
 }

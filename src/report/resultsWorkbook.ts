@@ -2,14 +2,22 @@
  * The results workbook (results.xlsx): one sheet per CSV table of the run, built from the CSV
  * texts themselves so the workbook holds exactly the numbers of the CSV files. Header cells keep
  * their units ("dose (mg/L)"); a cell that reads as a number in the CSV is written as a number,
- * everything else as text; an empty cell stays empty. Built in memory with exceljs (Office Open
- * XML, ECMA-376; its streaming writer); the caller writes the bytes.
+ * everything else as text; an empty cell stays empty; the header row is bold and stays in view.
+ * The SpreadsheetML parts (Office Open XML, ECMA-376 Part 1: workbook, worksheets with inline
+ * strings, one style sheet, core properties) are written as text straight from the CSV cells and
+ * packed with zipArchive.ts: a 36,500-day series has 73,000 daily rows, and building cell objects
+ * for them cost seconds. The caller writes the bytes.
  */
-import ExcelJS from 'exceljs';
-import { PassThrough } from 'node:stream';
+import { zipArchive } from './zipArchive.js';
 
 /** RFC 4180 fields of CSV text (quotes doubled inside quoted fields; \n or \r\n line ends). */
 export function parseCsv(text: string): string[][] {
+  if (!text.includes('"')) {
+    // no quoted fields: lines split at commas (the same fields, without the per-character loop)
+    const lines = text.split(/\r?\n|\r/);
+    if (lines[lines.length - 1] === '') lines.pop();
+    return lines.map((l) => l.split(','));
+  }
   const rows: string[][] = [];
   let row: string[] = [];
   let field = '';
@@ -44,30 +52,68 @@ export function sheetName(file: string): string {
   return file.replace(/\.csv$/i, '').slice(0, 31);
 }
 
+/** Column letters of a 0-based column index (A … Z, AA …). */
+function columnName(c: number): string {
+  let s = '';
+  for (let n = c + 1; n > 0; n = Math.floor((n - 1) / 26)) s = String.fromCharCode(65 + ((n - 1) % 26)) + s;
+  return s;
+}
+
+// characters XML 1.0 does not allow in text, and the five that need escaping
+const XML_ILLEGAL = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\uFFFE\uFFFF]/g;
+const XML_SPECIAL = /[<>&"]/g;
+const XML_ENTITY: Record<string, string> = { '<': '&lt;', '>': '&gt;', '&': '&amp;', '"': '&quot;' };
+function xmlText(s: string): string {
+  return s.replace(XML_ILLEGAL, '').replace(XML_SPECIAL, (c) => XML_ENTITY[c]!);
+}
+
+/** One worksheet's XML: frozen header row (bold, style 1), column widths, numbers and inline strings. */
+function sheetXml(rows: string[][]): string {
+  const header = rows[0] ?? [];
+  const out: string[] = [
+    '<?xml version="1.0" encoding="UTF-8" standalone="yes"?>\n<worksheet xmlns="http://schemas.openxmlformats.org/spreadsheetml/2006/main" xmlns:r="http://schemas.openxmlformats.org/officeDocument/2006/relationships">',
+    '<sheetViews><sheetView workbookViewId="0"><pane ySplit="1" topLeftCell="A2" activePane="bottomLeft" state="frozen"/><selection pane="bottomLeft" activeCell="A2" sqref="A2"/></sheetView></sheetViews>',
+    '<sheetFormatPr defaultRowHeight="15"/>',
+  ];
+  if (header.length) out.push(`<cols>${header.map((h, c) => `<col min="${c + 1}" max="${c + 1}" width="${Math.min(40, Math.max(10, h.length + 2))}" customWidth="1"/>`).join('')}</cols>`);
+  out.push('<sheetData>');
+  const letters = Array.from({ length: rows.reduce((m, r) => Math.max(m, r.length), 0) }, (_, c) => columnName(c));
+  for (let i = 0; i < rows.length; i++) {
+    const r = rows[i]!;
+    let line = `<row r="${i + 1}">`;
+    for (let c = 0; c < r.length; c++) {
+      const text = r[c]!;
+      const ref = `${letters[c]}${i + 1}`;
+      if (i === 0) { line += `<c r="${ref}" s="1" t="inlineStr"><is><t xml:space="preserve">${xmlText(text)}</t></is></c>`; continue; }
+      const v = cellValue(text);
+      if (v === null) continue;
+      line += typeof v === 'number' ? `<c r="${ref}"><v>${v}</v></c>` : `<c r="${ref}" t="inlineStr"><is><t xml:space="preserve">${xmlText(v)}</t></is></c>`;
+    }
+    out.push(line + '</row>');
+  }
+  out.push('</sheetData></worksheet>');
+  return out.join('');
+}
+
+const NS_MAIN = 'http://schemas.openxmlformats.org/spreadsheetml/2006/main';
+const NS_REL = 'http://schemas.openxmlformats.org/officeDocument/2006/relationships';
+const XML_HEAD = '<?xml version="1.0" encoding="UTF-8" standalone="yes"?>\n';
+
 /**
  * @param csvFiles CSV texts keyed by file name, in the order the sheets should take
  * @returns the .xlsx file's bytes
  */
 export async function resultsWorkbook(csvFiles: Record<string, string>, meta: { creator?: string; created?: Date } = {}): Promise<Uint8Array> {
-  // the streaming writer without shared strings: rows are serialised as they are added (a
-  // 36,500-day series has 73,000 daily rows; the in-memory model cost several times more)
-  const chunks: Buffer[] = [];
-  const stream = new PassThrough();
-  stream.on('data', (c: Buffer) => chunks.push(c));
-  const wb = new ExcelJS.stream.xlsx.WorkbookWriter({ stream, useStyles: true, useSharedStrings: false });
-  wb.creator = meta.creator ?? 'sorbshare';
-  if (meta.created) { wb.created = meta.created; wb.modified = meta.created; }
-  for (const [file, text] of Object.entries(csvFiles)) {
-    const rows = parseCsv(text);
-    const ws = wb.addWorksheet(sheetName(file), { views: [{ state: 'frozen', ySplit: 1 }] });
-    ws.columns = (rows[0] ?? []).map((h) => ({ width: Math.min(40, Math.max(10, h.length + 2)) }));
-    rows.forEach((r, i) => {
-      const row = ws.addRow(i === 0 ? r : r.map(cellValue));
-      if (i === 0) row.font = { bold: true };
-      row.commit();
-    });
-    ws.commit();
-  }
-  await wb.commit();
-  return new Uint8Array(Buffer.concat(chunks));
+  const sheets = Object.entries(csvFiles).map(([file, text], k) => ({ name: sheetName(file), xml: sheetXml(parseCsv(text)), part: `worksheets/sheet${k + 1}.xml` }));
+  const created = (meta.created ?? new Date()).toISOString().replace(/\.\d{3}Z$/, 'Z');
+  const files = [
+    { name: '[Content_Types].xml', data: `${XML_HEAD}<Types xmlns="http://schemas.openxmlformats.org/package/2006/content-types"><Default Extension="rels" ContentType="application/vnd.openxmlformats-package.relationships+xml"/><Default Extension="xml" ContentType="application/xml"/><Override PartName="/xl/workbook.xml" ContentType="application/vnd.openxmlformats-officedocument.spreadsheetml.sheet.main+xml"/><Override PartName="/xl/styles.xml" ContentType="application/vnd.openxmlformats-officedocument.spreadsheetml.styles+xml"/>${sheets.map((s) => `<Override PartName="/xl/${s.part}" ContentType="application/vnd.openxmlformats-officedocument.spreadsheetml.worksheet+xml"/>`).join('')}<Override PartName="/docProps/core.xml" ContentType="application/vnd.openxmlformats-package.core-properties+xml"/></Types>` },
+    { name: '_rels/.rels', data: `${XML_HEAD}<Relationships xmlns="http://schemas.openxmlformats.org/package/2006/relationships"><Relationship Id="rId1" Type="${NS_REL}/officeDocument" Target="xl/workbook.xml"/><Relationship Id="rId2" Type="http://schemas.openxmlformats.org/package/2006/relationships/metadata/core-properties" Target="docProps/core.xml"/></Relationships>` },
+    { name: 'docProps/core.xml', data: `${XML_HEAD}<cp:coreProperties xmlns:cp="http://schemas.openxmlformats.org/package/2006/metadata/core-properties" xmlns:dc="http://purl.org/dc/elements/1.1/" xmlns:dcterms="http://purl.org/dc/terms/" xmlns:xsi="http://www.w3.org/2001/XMLSchema-instance"><dc:creator>${xmlText(meta.creator ?? 'sorbshare')}</dc:creator><dcterms:created xsi:type="dcterms:W3CDTF">${created}</dcterms:created><dcterms:modified xsi:type="dcterms:W3CDTF">${created}</dcterms:modified></cp:coreProperties>` },
+    { name: 'xl/workbook.xml', data: `${XML_HEAD}<workbook xmlns="${NS_MAIN}" xmlns:r="${NS_REL}"><bookViews><workbookView/></bookViews><sheets>${sheets.map((s, k) => `<sheet name="${xmlText(s.name)}" sheetId="${k + 1}" r:id="rId${k + 1}"/>`).join('')}</sheets></workbook>` },
+    { name: 'xl/_rels/workbook.xml.rels', data: `${XML_HEAD}<Relationships xmlns="http://schemas.openxmlformats.org/package/2006/relationships">${sheets.map((s, k) => `<Relationship Id="rId${k + 1}" Type="${NS_REL}/worksheet" Target="${s.part}"/>`).join('')}<Relationship Id="rId${sheets.length + 1}" Type="${NS_REL}/styles" Target="styles.xml"/></Relationships>` },
+    { name: 'xl/styles.xml', data: `${XML_HEAD}<styleSheet xmlns="${NS_MAIN}"><fonts count="2"><font><sz val="11"/><name val="Calibri"/></font><font><b/><sz val="11"/><name val="Calibri"/></font></fonts><fills count="2"><fill><patternFill patternType="none"/></fill><fill><patternFill patternType="gray125"/></fill></fills><borders count="1"><border><left/><right/><top/><bottom/><diagonal/></border></borders><cellStyleXfs count="1"><xf numFmtId="0" fontId="0" fillId="0" borderId="0"/></cellStyleXfs><cellXfs count="2"><xf numFmtId="0" fontId="0" fillId="0" borderId="0" xfId="0"/><xf numFmtId="0" fontId="1" fillId="0" borderId="0" xfId="0" applyFont="1"/></cellXfs><cellStyles count="1"><cellStyle name="Normal" xfId="0" builtinId="0"/></cellStyles></styleSheet>` },
+    ...sheets.map((s) => ({ name: `xl/${s.part}`, data: s.xml })),
+  ];
+  return zipArchive(files, meta.created);
 }

@@ -89,7 +89,8 @@ export function readComponent(raw: unknown, rootPath: string, needC0: boolean): 
   if (raw.c0 === undefined) {
     if (needC0) throw new InputError('missing c0; expected an initial concentration such as "100 ng/L"', { path: sub('c0') });
   } else {
-    c0 = atPath(sub('c0'), () => parseConcentration(raw.c0, molarMass as number | undefined));
+    // a bare number is already mg/L (what parseConcentration returns for it); paths only on error
+    c0 = typeof raw.c0 === 'number' && raw.c0 > 0 && Number.isFinite(raw.c0) ? raw.c0 : atPath(sub('c0'), () => parseConcentration(raw.c0, molarMass as number | undefined));
   }
   const K = raw.K;
   if (K === undefined) throw new InputError('missing K; expected the Freundlich K as a number (0 = non-adsorbable)', { path: sub('K') });
@@ -110,7 +111,8 @@ export function readComponent(raw: unknown, rootPath: string, needC0: boolean): 
     }
     kUnit = { q: raw.K_unit.q as string | undefined, c: raw.K_unit.c as string | undefined };
   }
-  const Kint = atPath(sub('K_unit'), () => freundlichKToInternal(K, exp, kUnit, molarMass as number | undefined));
+  // no K_unit: K is already in (mg/g)/(mg/L)^(1/n), the internal unit (factor 1)
+  const Kint = raw.K_unit === undefined ? K : atPath(sub('K_unit'), () => freundlichKToInternal(K, exp, kUnit, molarMass as number | undefined));
   return { id, c0MgPerL: c0, K: Kint, oneOverN: exp };
 }
 

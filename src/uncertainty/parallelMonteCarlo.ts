@@ -24,9 +24,13 @@ import type { WorkerInput, WorkerMessage } from './monteCarloWorker.js';
  * Below this many dose searches (draws × targets × (1 + DOC levels when a yearly cost is asked))
  * the workers' start-up and JIT warm-up do not pay; the run stays in this thread. Measured on the
  * 2-core machine from dist: 10,000 single-target draws took 0.33 s in-thread and 0.53 s on 2
- * workers; 50,000 took 1.37 s and 1.10 s.
+ * workers; 50,000 took 1.37 s and 1.10 s (break-even near 30,000 at about 30 µs per search).
+ * Since a dose comes from the model's inverse and the checks from bounded estimates, a search
+ * costs about 5 times less (the demo's 500 draws: 45,000 searches, about 0.2 s of CPU per carbon,
+ * while starting two workers cost about 0.5 s of wall time on the loaded 2-core machine), so the
+ * break-even moved up in proportion.
  */
-export const PARALLEL_MIN_SEARCHES = 30_000;
+export const PARALLEL_MIN_SEARCHES = 150_000;
 
 export interface ParallelOptions extends MonteCarloOptions {
   /** Number of worker threads (default: available cores, at most 8). 0 forces in-thread. */

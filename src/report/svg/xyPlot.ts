@@ -20,6 +20,7 @@ import { plural, renderNotes, svgOpen } from './svgRoot.js';
 import { renderSeries } from './svgSeries.js';
 import { r2 } from './svgNumber.js';
 import { textWidth } from './textWidth.js';
+import { thinRun } from './thinPolyline.js';
 import { type BandRuns, bandRuns, validRuns, type ValidRuns } from './validRuns.js';
 
 export interface PlotRenderOptions {
@@ -62,6 +63,9 @@ export function renderXYPlot(spec: XYPlotSpec, opts: PlotRenderOptions = {}): st
   const frame: Frame = { left, top: 14, width: PLOT_WIDTH - left - right, height: PLOT_AREA_HEIGHT };
   const xs = makeScale(xPlan.domain, [frame.left, frame.left + frame.width], xLog);
   const ys = makeScale(yPlan.domain, [frame.top + frame.height, frame.top], yLog);
+
+  // long lines thinned to the pixel columns (the tables keep every point)
+  for (const e of series) if (e.s.style !== 'points') e.runs.runs = e.runs.runs.map((r) => thinRun(r, xs, frame.width) as Array<[number, number]>);
 
   const legendItems: LegendItem[] = [];
   series.forEach(({ s, runs }, i) => {

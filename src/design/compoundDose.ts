@@ -9,7 +9,7 @@
  * (the goal holds at 1e-9 mg/L: dose 0), 'unreachable' (not met at 5000 mg/L: no dose),
  * 'report only' (a compound without a goal: no dose, so it never governs).
  * Throws ComputationError if a solve or the search fails, or the dose found misses the goal by
- * more than 1e-9.
+ * more than the model's `removalTolerance` (1e-9 by default).
  */
 import { ComputationError } from '../core/errors.js';
 import type { CompoundGoal } from './compoundGoal.js';
@@ -54,7 +54,7 @@ export function compoundDoseSolved(model: RemovalModel, index: number, goal: Com
   if (direct && direct.doseGPerL >= MIN_DOSE_G_PER_L && direct.doseGPerL <= MAX_DOSE_G_PER_L) {
     // the model's inverse: the same root as the search below, without searching
     const reached = 1 - direct.remainingFraction;
-    if (!(Math.abs(reached - goal.removalFraction) <= 1e-9)) throw new ComputationError(`dose for "${compoundId}" ended at ${(reached * 100).toPrecision(6)} % instead of ${(goal.removalFraction * 100).toPrecision(6)} %`);
+    checkReached(model, compoundId, reached, goal.removalFraction, 'dose');
     return { dose: { compoundId, status: 'met', doseMgPerL: direct.doseGPerL * 1000, removalFraction: reached }, solved: direct };
   }
   // outside the searched doses (or no inverse): the search gives the status and its message
@@ -81,6 +81,12 @@ export function compoundDoseSolved(model: RemovalModel, index: number, goal: Com
   }
   // Brent's answer is normally its last evaluation: reuse it rather than solve again
   const reached = 1 - (lastDose === r.doseGPerL ? lastRemaining : model.remaining(index, r.doseGPerL, warm).remainingFraction);
-  if (!(Math.abs(reached - goal.removalFraction) <= 1e-9)) throw new ComputationError(`dose search for "${compoundId}" ended at ${(reached * 100).toPrecision(6)} % instead of ${(goal.removalFraction * 100).toPrecision(6)} %`);
+  checkReached(model, compoundId, reached, goal.removalFraction, 'dose search');
   return { dose: { compoundId, status: 'met', doseMgPerL: r.doseGPerL * 1000, removalFraction: reached } };
+}
+
+/** The removal reached at the dose found must sit within the model's accuracy of the goal. @throws ComputationError */
+function checkReached(model: RemovalModel, compoundId: string, reached: number, goal: number, what: string): void {
+  const tol = model.removalTolerance ?? 1e-9;
+  if (!(Math.abs(reached - goal) <= tol)) throw new ComputationError(`${what} for "${compoundId}" ended at a removal of ${reached} instead of ${goal} (off by ${Math.abs(reached - goal).toExponential(2)}, more than the model's accuracy ${tol.toExponential(0)})`);
 }

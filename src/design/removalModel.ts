@@ -78,6 +78,12 @@ export interface RemovalModel {
   /** Remaining fraction c/c0 of compound `index` at a dose in g/L. @throws ComputationError */
   remaining(index: number, doseGPerL: number, warm?: WarmStart): RemainingAtDose;
   /**
+   * Optional: the absolute accuracy of `remaining` (c/c0), how far the removal reached at the
+   * dose found may sit from the goal. Default 1e-9 (the equilibrium solve, converged far below
+   * it); a model integrated numerically states its own (its results jitter with the steps chosen).
+   */
+  readonly removalTolerance?: number;
+  /**
    * Optional: the dose (g/L) at which compound `index` is removed by `removalFraction` (0 < R < 1),
    * solved directly from the model's equations to the same tolerance as `remaining` (a shortcut
    * of the dose search, which callers use when it is absent or returns undefined).

@@ -248,6 +248,7 @@ export function integrateBdf(system: StiffSystem, t0: number, y0: Float64Array, 
   scaleInto(Dif[1]!, f, h);
   let order = 1;
   let equalSteps = 0;
+  let errorFailures = 0;
   let solve: NewtonSolve | undefined;
   let solveC = 0;
   let jacFresh = false;
@@ -349,6 +350,9 @@ export function integrateBdf(system: StiffSystem, t0: number, y0: Float64Array, 
       if (replay) throw new ComputationError(`${what}: Newton failure in a replayed step at t = ${t} (h = ${h})`);
       stats.newtonFailures++;
       stats.rejectedSteps++;
+      // a corrector that fails from a fresh Jacobian is started too far off: halve the step and
+      // lower the order (a lower-order predictor extrapolates less), as the order decrease below
+      if (order > 1) order--;
       changeDifferences(Dif, order, 0.5, tmp);
       h *= 0.5; equalSteps = 0; solve = undefined;
       continue;
@@ -360,11 +364,15 @@ export function integrateBdf(system: StiffSystem, t0: number, y0: Float64Array, 
     const safety = (0.9 * (2 * NEWTON_MAXITER + 1)) / (2 * NEWTON_MAXITER + Math.min(iters, NEWTON_MAXITER));
     if (!replay && !(en <= 1)) {
       stats.rejectedSteps++;
+      // repeated error-test failures: the higher differences are not to be trusted, lower the
+      // order (CVODE's rule, Hindmarsh et al. 2005, ACM TOMS 31:363, §2.1)
+      if (++errorFailures >= 2 && order > 1) order--;
       const factor = Number.isFinite(en) ? Math.max(0.2, safety * en ** (-1 / (order + 1))) : 0.2;
       changeDifferences(Dif, order, factor, tmp);
       h *= factor; equalSteps = 0;
       continue;
     }
+    errorFailures = 0;
     // accepted: update the differences (∇ᵏ⁺¹y_(n+1) = d, ∇ᵏ⁺² = d − old ∇ᵏ⁺¹)
     stats.steps++;
     if (en > stats.maxAcceptedError) stats.maxAcceptedError = en;

@@ -26,7 +26,7 @@ import { MAX_DOSE_G_PER_L, searchDose } from '../design/doseSearch.js';
 import { removalExcess } from '../design/removalExcess.js';
 import type { BackgroundAtDose, CompetitionSet, RemainingAtDose, RemovalModel, WarmStart } from '../design/removalModel.js';
 import { prepareKinetics, type CarbonParticle, type KineticComponent, type PreparedKinetics } from './kineticMixture.js';
-import { checkTimes, pacBatch, type KineticSolverOptions } from './pacBatch.js';
+import { checkTimes, DEFAULT_KINETIC_RTOL, pacBatch, type KineticSolverOptions } from './pacBatch.js';
 import { checkContactConditions, stirredReactor, stirredReactorFrom } from './stirredReactor.js';
 
 export type ContactConditions =
@@ -121,6 +121,8 @@ export class ContactRemoval implements RemovalModel {
   readonly kind: string;
   readonly compoundIds: readonly string[];
   readonly backgroundC0MgPerL?: Float64Array;
+  /** c/c0 is accurate to about a hundredth of the integrator's rtol (tests/kinetics/contactRemovalTolerance.test.ts). */
+  readonly removalTolerance: number;
   private readonly prepared: PreparedKinetics[];
   private readonly bgPrepared?: PreparedKinetics;
 
@@ -137,6 +139,7 @@ export class ContactRemoval implements RemovalModel {
       ? `contact time ${conditions.contactTimeS} s, plug flow (HSDM with IAST at the surface)`
       : `stirred contact tank, residence ${conditions.contactTimeS} s, carbon age ${conditions.carbonAgeS} s (HSDM with IAST at the surface)`;
     this.compoundIds = sets.map((s) => s.target.id);
+    this.removalTolerance = Math.max(1e-9, (options.rtol ?? DEFAULT_KINETIC_RTOL) * 1e-2);
     this.prepared = sets.map((s) => prepareKinetics([s.target as KineticComponent, ...(s.competitors as KineticComponent[])], particle));
     if (background && background.length) {
       this.bgPrepared = prepareKinetics(background as KineticComponent[], particle);

@@ -10,7 +10,7 @@
  * @throws InputError for a dose or times that are not positive and increasing;
  *         ComputationError when the integration fails (with its reason).
  */
-import { InputError } from '../core/errors.js';
+import { ComputationError, InputError } from '../core/errors.js';
 import type { IntegratorStats } from './implicitIntegrator.js';
 import { integrateBdf } from './bdfIntegrator.js';
 import { logTime, logTimeSystem, particleTimeScale } from './logTimeSystem.js';
@@ -66,7 +66,13 @@ export function pacBatch(pk: PreparedKinetics, doseGPerL: number, timesS: readon
   const rtol = options.rtol ?? DEFAULT_KINETIC_RTOL;
   // in logarithmic time (logTimeSystem); step times are values of s = ln(1 + t/t_c)
   const tc = particleTimeScale(pk.particle.radiusM, sys.blocks.map((i) => pk.components[i]!.dsM2PerS!));
-  const run = integrateBdf(logTimeSystem(sys, tc), 0, sys.initialState(), timesS.map((t) => logTime(t, tc)), options.stepTimes ? { stepTimes: options.stepTimes, stepOrders: options.stepOrders } : { rtol, atol: options.atol ?? rtol * 1e-3 });
+  let run: ReturnType<typeof integrateBdf>;
+  try {
+    run = integrateBdf(logTimeSystem(sys, tc), 0, sys.initialState(), timesS.map((t) => logTime(t, tc)), options.stepTimes ? { stepTimes: options.stepTimes, stepOrders: options.stepOrders } : { rtol, atol: options.atol ?? rtol * 1e-3 });
+  } catch (e) { // name the case: the dose and the components
+    if (e instanceof ComputationError) throw new ComputationError(`${e.message}, at a carbon dose of ${doseGPerL * 1000} mg/L (components ${pk.components.map((c) => c.id).join(', ')})`);
+    throw e;
+  }
   const m = pk.components.length;
   const cMgPerL: Float64Array[] = [];
   const qMeanMgPerG: Float64Array[] = [];

@@ -148,6 +148,6 @@ export async function runAndWrite(input: PipelineInput, outDir: string, json: bo
     ...(extra.length ? [...extra, ''] : []),
     ...(result.warnings.length ? ['Warnings:', ...result.warnings.map((w) => `  - ${w}`), ''] : []),
     `Wrote ${names.join(', ')} to ${outDir}`,
-    'Planning estimates from equilibrium models: confirm with jar and pilot tests (see the cautions in summary.md).',
+    'Planning estimates from adsorption models: confirm with jar and pilot tests (see the cautions in summary.md).',
   ].join('\n'));
 }

@@ -23,6 +23,7 @@ import { DEFAULT_WATER_TEMPERATURE_C } from '../kinetics/waterProperties.js';
 import { parseQuantity } from '../units/parseQuantity.js';
 import { at, expectNumber, expectObject, join, onlyKeys } from '../scenario/jsonChecks.js';
 import type { CompoundSpec } from './projectTypes.js';
+import { readColumnTests, type ColumnTestsSpec } from './readColumnTests.js';
 
 /** Diffusivities and film coefficient of one component (m²/s, m/s); DL or kf is set. */
 export interface ComponentKinetics {
@@ -43,9 +44,11 @@ export interface GacKineticsSpec {
   doc: ComponentKinetics;
   /** By compound id (every compound of the project). */
   compounds: Record<string, ComponentKinetics>;
+  /** Column tests whose fits replace the Ds of targets (readColumnTests.ts). */
+  columnTests?: ColumnTestsSpec;
 }
 
-const KEYS = ['bed_depth', 'porosity', 'particle_radius', 'particle_density', 'filters', 'temperature_c', 'doc_Ds', 'doc_DL', 'doc_kf', 'Ds', 'DL', 'kf', 'note'];
+const KEYS = ['bed_depth', 'porosity', 'particle_radius', 'particle_density', 'filters', 'temperature_c', 'doc_Ds', 'doc_DL', 'doc_kf', 'Ds', 'DL', 'kf', 'column_tests', 'note'];
 
 function quantity(v: unknown, path: string, kind: 'length' | 'density' | 'diffusivity' | 'velocity'): number {
   return at(path, () => parseQuantity(v, kind, { allowZero: false }));
@@ -89,14 +92,17 @@ export function readGacKinetics(raw: unknown, path: string, bedDensityKgPerM3: n
     else throw new InputError(`missing the liquid diffusivity of "${c.id}"; expected e.g. "7e-10 m2/s" (or a film coefficient under "kf")`, { path: join(join(path, 'DL'), c.id) });
     perCompound[c.id] = k;
   }
+  const particleRadiusM = quantity(need('particle_radius', '"0.5 mm"'), join(path, 'particle_radius'), 'length');
+  const columnTests = o.column_tests === undefined ? undefined : readColumnTests(o.column_tests, join(path, 'column_tests'), compounds.map((c) => c.id), particleRadiusM);
   return {
     bedDepthM: quantity(need('bed_depth', '"2.5 m"'), join(path, 'bed_depth'), 'length'),
     porosity,
-    particleRadiusM: quantity(need('particle_radius', '"0.5 mm"'), join(path, 'particle_radius'), 'length'),
+    particleRadiusM,
     particleDensityKgPerM3,
     filters: o.filters === undefined ? 1 : expectNumber(o.filters, join(path, 'filters'), 'a whole number of filters in parallel (1–100)', (x) => Number.isInteger(x) && x >= 1 && x <= 100),
     temperatureC: o.temperature_c === undefined ? DEFAULT_WATER_TEMPERATURE_C : expectNumber(o.temperature_c, join(path, 'temperature_c'), 'a water temperature in °C between 0 and 40', (x) => x >= 0 && x <= 40),
     doc: { dsM2PerS: quantity(need('doc_Ds', '"2e-15 m2/s"'), join(path, 'doc_Ds'), 'diffusivity'), ...film(o, 'doc_DL', 'doc_kf', path, 'the DOC components') },
     compounds: perCompound,
+    ...(columnTests ? { columnTests } : {}),
   };
 }

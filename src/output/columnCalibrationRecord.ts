@@ -15,7 +15,7 @@ export function columnCalibrationRecord(c: CarbonColumnCalibration): Array<Recor
   return c.fits.map((f) => ({
     parameter: 'Ds', compound: f.compoundId, model: 'column', file: f.test.file,
     test_ebct_s: f.test.ebctS, test_bed_depth_m: f.test.bedDepthM, test_particle_radius_m: f.test.particleRadiusM ?? null, scale_up: f.test.scaleUp ?? null,
-    given_m2_per_s: f.givenM2PerS, fitted_m2_per_s: f.dsM2PerS, ci95_m2_per_s: f.ci95M2PerS,
+    given_m2_per_s: f.givenM2PerS ?? null, fitted_m2_per_s: f.dsM2PerS, ci95_m2_per_s: f.ci95M2PerS,
     result: f.result, warnings: f.warnings,
   }));
 }
@@ -30,7 +30,7 @@ export function columnCalibrationCsv(r: PipelineResult): string {
   const rows = r.carbons.flatMap((cr) => (cr.columnCalibration?.fits ?? []).map((f) => {
     const ci = f.ci95M2PerS;
     const onTest = f.result.ci95.Ds_m2_per_s;
-    return [cr.carbon.name, f.compoundId, f.dsM2PerS, ci ? ci[0] : null, ci ? ci[1] : null, f.result.parameters.Ds_m2_per_s, onTest ? onTest[0] : null, onTest ? onTest[1] : null, f.test.scaleUp ?? '', f.givenM2PerS, f.result.fit.rmse, f.result.fit.points, f.test.file, f.warnings.join(' | ')];
+    return [cr.carbon.name, f.compoundId, f.dsM2PerS, ci ? ci[0] : null, ci ? ci[1] : null, f.result.parameters.Ds_m2_per_s, onTest ? onTest[0] : null, onTest ? onTest[1] : null, f.test.scaleUp ?? '', f.givenM2PerS ?? null, f.result.fit.rmse, f.result.fit.points, f.test.file, f.warnings.join(' | ')];
   }));
   return toCsv(['carbon', 'compound', 'Ds of the carbon\'s grains (m2/s)', 'Ds 95 % lower (m2/s)', 'Ds 95 % upper (m2/s)', 'Ds fitted on the test grains (m2/s)', 'test Ds 95 % lower (m2/s)', 'test Ds 95 % upper (m2/s)', 'scale-up', 'given Ds replaced (m2/s)', 'RMSE of c/c0', 'points', 'file', 'warnings'], rows);
 }
@@ -38,7 +38,7 @@ export function columnCalibrationCsv(r: PipelineResult): string {
 function rowsOf(r: PipelineResult): string[][] {
   return r.carbons.flatMap((cr) => (cr.columnCalibration?.fits ?? []).map((f) => {
     const ci = f.ci95M2PerS;
-    return [cr.carbon.name, f.compoundId, f.dsM2PerS.toExponential(3), ci ? `${ci[0].toExponential(3)}–${ci[1].toExponential(3)}` : '—', f.test.scaleUp ?? 'same grains', f.givenM2PerS.toExponential(3), fn(f.result.fit.rmse, 3), String(f.result.fit.points)];
+    return [cr.carbon.name, f.compoundId, f.dsM2PerS.toExponential(3), ci ? `${ci[0].toExponential(3)}–${ci[1].toExponential(3)}` : '—', f.test.scaleUp ?? 'same grains', f.givenM2PerS !== undefined ? f.givenM2PerS.toExponential(3) : '—', fn(f.result.fit.rmse, 3), String(f.result.fit.points)];
   }));
 }
 

@@ -43,8 +43,8 @@ export interface ColumnFit {
   compoundId: string;
   /** The test as the project gives it (file relative to the project file, EBCT s, lengths m). */
   test: ColumnTestSpec;
-  /** The value given in the project before the fit, m²/s. */
-  givenM2PerS: number;
+  /** The value given in the project before the fit, m²/s (absent when none was given). */
+  givenM2PerS?: number;
   /** The fit on the test's grains, as `sorbshare calibrate --model column --json` prints it. */
   result: ColumnFitResult;
   /** Ds of the carbon's grains (the fitted value, scaled when the test's grains differ), m²/s. */
@@ -79,8 +79,12 @@ function named<T>(path: string, f: () => T): T {
  */
 export function columnCalibrationStep(carbon: CarbonSpec, carbonIndex: number, systems: readonly CompoundSystem[], background: BackgroundFile | undefined, docMgPerL: number, tables: CarbonColumnTables | undefined): CarbonColumnCalibration | undefined {
   const k = carbon.bedKinetics;
-  if (!k?.columnTests || !tables) return undefined;
+  if (!k?.columnTests) return undefined;
   const path = `carbons[${carbonIndex}].kinetics.column_tests.Ds`;
+  for (const id of Object.keys(k.columnTests.ds)) {
+    if (!tables?.ds[id] && k.compounds[id]?.dsM2PerS === undefined) throw new InputError(`the column test of "${id}" was not read (no table) and no Ds is given; load the project with loadProject or give Ds`, { path: `${path}.${id}.file` });
+  }
+  if (!tables) return undefined;
   const bg = gacDocComponents(fractionatedBackground(background, carbonIndex), docMgPerL, carbon.kFactor, k.doc);
   const compounds = { ...k.compounds };
   const fits: ColumnFit[] = [];
@@ -102,7 +106,7 @@ export function columnCalibrationStep(carbon: CarbonSpec, carbonIndex: number, s
     const warnings = [`the column test is taken to be at the site's design DOC of ${docMgPerL} mg/L (the background scaled to it)`, ...result.warnings];
     if (test.scaleUp !== undefined) warnings.push(`Ds fitted on grains of radius ${radius} m, scaled to the carbon's ${k.particleRadiusM} m with ${test.scaleUp} diffusivity (Crittenden et al. 1986, from memory); confirm with a pilot column`);
     const ds = scale(result.parameters.Ds_m2_per_s);
-    fits.push({ compoundId: id, test, givenM2PerS: given, result, dsM2PerS: ds, ci95M2PerS: ci ? [scale(ci[0]), scale(ci[1])] : null, warnings });
+    fits.push({ compoundId: id, test, ...(given !== undefined ? { givenM2PerS: given } : {}), result, dsM2PerS: ds, ci95M2PerS: ci ? [scale(ci[0]), scale(ci[1])] : null, warnings });
     compounds[id] = { ...k.compounds[id]!, dsM2PerS: ds };
   }
   return { fits, bedKinetics: { ...k, compounds } };

@@ -11,6 +11,7 @@ import { join } from 'node:path';
 import { validateProject } from '../../src/project/validateProject.js';
 import { InputError } from '../../src/core/errors.js';
 import { validateAgainstSchema } from './jsonSchemaCheck.js';
+import { columnCalibrationStep } from '../../src/pipeline/columnCalibrationStep.js';
 
 const root = join(__dirname, '../..');
 const schema = JSON.parse(readFileSync(join(root, 'schema/project.schema.json'), 'utf8'));
@@ -40,6 +41,29 @@ describe('GAC column tests in a project', () => {
     expect(c.particleRadiusM).toBeUndefined();
     expect(c.scaleUp).toBeUndefined();
     expect(validateAgainstSchema(schema, p)).toEqual([]);
+  });
+
+  it('a tested compound needs no given Ds (the fit supplies it); an untested one still does', () => {
+    const p = clone();
+    delete p.carbons[0].kinetics.Ds;
+    const k = validateProject(p).carbons[0]!.bedKinetics!;
+    expect(k.compounds.CBZ).toEqual({ dlM2PerS: 7e-10 });
+    expect(validateAgainstSchema(schema, p)).toEqual([]);
+    delete p.carbons[0].kinetics.column_tests;
+    let err: unknown;
+    try { validateProject(p); } catch (e) { err = e; }
+    expect((err as InputError).location.path).toBe('carbons[0].kinetics.Ds.CBZ');
+    expect((err as InputError).message).toMatch(/surface diffusivity of "CBZ"/);
+  });
+
+  it('a column test whose table was not read, with no Ds given, is an InputError naming the test (library callers without loadProject)', () => {
+    const p = clone();
+    delete p.carbons[0].kinetics.Ds;
+    const carbon = validateProject(p).carbons[0]!;
+    let err: unknown;
+    try { columnCalibrationStep(carbon, 0, [], undefined, 8, undefined); } catch (e) { err = e; }
+    expect(err).toBeInstanceOf(InputError);
+    expect((err as InputError).location.path).toBe(`${P}.Ds.CBZ.file`);
   });
 
   const BAD: Array<[string, (t: any) => void, string, RegExp, boolean]> = [

@@ -22,6 +22,7 @@ import { SITE_SERIES_COLUMNS, siteSeriesFromTable } from '../siteSeries/siteSeri
 import type { InputFileRecord, PipelineInput } from '../pipeline/pipelineTypes.js';
 import { JAR_TEST_COLUMNS } from '../calibration/jarTestData.js';
 import { KINETIC_DOC_COLUMNS, KINETIC_TARGET_COLUMNS } from '../calibration/kineticTestData.js';
+import { BREAKTHROUGH_COLUMNS } from '../calibration/breakthroughData.js';
 import { validateProject } from '../project/validateProject.js';
 import { componentWarnings, docWarnings, traceC0Warnings } from '../scenario/plausibility.js';
 import { pilotColumnSpecs, pilotFromTable } from '../surrogates/pilotCsv.js';
@@ -124,6 +125,16 @@ export function loadProject(projectPath: string, options: { demo?: boolean; form
     if (tests.docDs !== undefined) t.docDs = table(tests.docDs, `${p}.doc_Ds`, 'DOC kinetic test table', `DOC kinetic tests (${c.name})`, KINETIC_DOC_COLUMNS);
     for (const [id, f] of Object.entries(tests.ds)) t.ds[id] = table(f, `${p}.Ds.${id}`, 'kinetic test table', `kinetic tests ${id} (${c.name})`, KINETIC_TARGET_COLUMNS);
     (input.kineticTests ??= {})[c.name] = t;
+  });
+  project.carbons.forEach((c, i) => {
+    const tests = c.bedKinetics?.columnTests;
+    if (!tests) return;
+    const t: NonNullable<PipelineInput['columnTests']>[string] = { ds: {} };
+    for (const [id, test] of Object.entries(tests.ds)) {
+      const jsonPath = `carbons[${i}].kinetics.column_tests.Ds.${id}.file`;
+      try { t.ds[id] = readReferencedTable(baseDir, test.file, jsonPath, 'breakthrough table', files, `column test ${id} (${c.name})`, BREAKTHROUGH_COLUMNS, format, notes); } catch (e) { throw e instanceof InputError && !e.location.path && e.location.row !== undefined ? e.at({ path: jsonPath }) : e; }
+    }
+    (input.columnTests ??= {})[c.name] = t;
   });
   if (project.site.seriesFile) {
     const t = readReferencedTable(baseDir, project.site.seriesFile, 'site.series', 'site DOC series CSV', files, 'site DOC series', SITE_SERIES_COLUMNS, format, []);

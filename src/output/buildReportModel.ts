@@ -17,6 +17,7 @@ import { coverLines } from './coverLines.js';
 import { carbonLook } from './carbonLooks.js';
 import { calibrationPlot } from './calibrationPlots.js';
 import { withKineticCalibration } from './kineticCalibrationRecord.js';
+import { withColumnCalibration } from './columnCalibrationRecord.js';
 import { contactSection } from './contactPlots.js';
 import { fmtConcentration as fc, fmtMoney, fmtNumber as fn, fmtWhole } from './formatting.js';
 import type { CarbonResult, PipelineResult } from '../pipeline/pipelineTypes.js';
@@ -209,7 +210,7 @@ function inputsSection(r: PipelineResult): ReportSection {
 /** Fill the report model. */
 export function buildReportModel(r: PipelineResult, version: string): ReportModel {
   const sections: ReportSection[] = [siteSection(r), backgroundSection(r)];
-  const cal = calibrationSection(r);
+  const cal = withColumnCalibration(calibrationSection(r), r);
   if (cal) sections.push(cal);
   pacCarbons(r).forEach((cr) => sections.push(carbonSection(r, cr, r.carbons.indexOf(cr))));
   const contact = contactSection(r);

@@ -12,6 +12,7 @@ import type { ProjectSpec } from '../project/projectTypes.js';
 import { contactRecord } from './contactRecord.js';
 import { carbonBackgroundInputRecord, carbonBackgroundRecord } from './carbonBackgroundRecord.js';
 import { kineticCalibrationRecord } from './kineticCalibrationRecord.js';
+import { columnCalibrationRecord } from './columnCalibrationRecord.js';
 import { toSnakeCaseJson, userIdMap } from './snakeCaseJson.js';
 
 export interface RunEnvironment {
@@ -106,6 +107,7 @@ export function runRecord(r: PipelineResult, env: RunEnvironment): Record<string
         gac: cr.gac ?? null,
         ...(cr.contact ? { contact: contactRecord(cr) } : {}),
         ...(cr.kineticCalibration ? { kinetic_calibration: kineticCalibrationRecord(cr.kineticCalibration) } : {}),
+        ...(cr.columnCalibration ? { column_calibration: columnCalibrationRecord(cr.columnCalibration) } : {}),
         gac_kinetic: gacKineticRecord(cr),
         monte_carlo: cr.uncertainty ? {
           parameters: cr.uncertainty.parameters, excluded: cr.uncertainty.excluded, ci_to_sd: CI_TO_SD_NOTE,

@@ -11,6 +11,7 @@ import { runRecord, type RunEnvironment } from '../output/runRecord.js';
 import type { PipelineResult } from '../pipeline/pipelineTypes.js';
 import { snakeCaseJsonText } from '../output/snakeCaseJson.js';
 import { kineticCalibrationCsv } from '../output/kineticCalibrationRecord.js';
+import { columnCalibrationCsv, hasColumnCalibration } from '../output/columnCalibrationRecord.js';
 
 /** Names of the text output files of a run, in the order they are written. */
 export const OUTPUT_FILES = [
@@ -18,7 +19,10 @@ export const OUTPUT_FILES = [
   'surrogates.csv', 'setpoints.csv', 'pilot_check.csv', 'gac.csv', 'uncertainty.csv', 'kinetic_calibration.csv', 'run.json',
 ] as const;
 
-export function pipelineOutputs(r: PipelineResult, env: RunEnvironment): Record<(typeof OUTPUT_FILES)[number], string> {
+/** Output files written only when the run has them (column_calibration.csv: a GAC carbon with column tests). */
+export type OptionalOutputFile = 'column_calibration.csv';
+
+export function pipelineOutputs(r: PipelineResult, env: RunEnvironment): Record<(typeof OUTPUT_FILES)[number], string> & Partial<Record<OptionalOutputFile, string>> {
   const model = buildReportModel(r, env.toolVersion);
   return {
     'summary.md': renderMarkdownSummary(model),
@@ -34,6 +38,7 @@ export function pipelineOutputs(r: PipelineResult, env: RunEnvironment): Record<
     'gac.csv': gacCsv(r),
     'uncertainty.csv': uncertaintyCsv(r),
     'kinetic_calibration.csv': kineticCalibrationCsv(r),
+    ...(hasColumnCalibration(r) ? { 'column_calibration.csv': columnCalibrationCsv(r) } : {}),
     'run.json': snakeCaseJsonText(runRecord(r, env)) + '\n',
   };
 }

@@ -31,6 +31,7 @@ import { allowedCOverC0 } from '../kinetics/staggeredFilters.js';
 import { gacCarbonUse, type CarbonUse } from '../kinetics/staggeredFiltersCarbon.js';
 import { staggeredRun, type StaggeredRun } from '../kinetics/staggeredFiltersRun.js';
 import type { CarbonSpec, ProjectSpec } from '../project/projectTypes.js';
+import type { ComponentKinetics } from '../project/readGacKinetics.js';
 import type { CompoundSystem } from './competitionSystem.js';
 import type { GacStepResult } from './gacStep.js';
 
@@ -53,7 +54,7 @@ export interface GacKineticResult {
   equilibriumBedVolumes: number;
 }
 
-function fractionatedBackground(bg: BackgroundFile | undefined, carbonIndex: number): BackgroundFile {
+export function fractionatedBackground(bg: BackgroundFile | undefined, carbonIndex: number): BackgroundFile {
   if (!bg) throw new InputError('the GAC fixed-bed model needs a fractionated background ("isotherm" or "file"), not EBCs', { path: `carbons[${carbonIndex}].kinetics` });
   return bg;
 }
@@ -79,17 +80,22 @@ function runEnded(bedVolumes: readonly number[], byId: Readonly<Record<string, r
   return !run.atCurveEnd && (run.runBedVolumes ?? 0) * GAC_FIGURE_MARGIN <= bedVolumes[last]!;
 }
 
+/** The fictive DOC components of the fixed bed at DOC `docMgPerL` (K times the carbon's K factor, UV254 per mg/L, the carbon's DOC diffusivities); also the column calibration's background. */
+export function gacDocComponents(bg: BackgroundFile, docMgPerL: number, kFactor: number, film: ComponentKinetics): FixedBedComponent[] {
+  return backgroundComponents(bg, docMgPerL).map((c, i) => {
+    const out: FixedBedComponent = { id: `DOC ${c.id}`, c0MgPerL: c.c0MgPerL, K: c.K * kFactor, oneOverN: c.oneOverN, doc: true, ...film };
+    const a = bg.components[i]!.specific_uv254_per_m_per_mg_per_L;
+    if (a !== undefined && a > 0) out.uv254PerMgPerL = a;
+    return out;
+  });
+}
+
 /** Kinetic run length of a GAC carbon with `carbon.bedKinetics`; see the file comment. */
 export function gacKineticStep(project: ProjectSpec, carbonIndex: number, carbon: CarbonSpec, systems: readonly CompoundSystem[], background: BackgroundFile | undefined, goals: Readonly<Record<string, CompoundGoal>>, equilibrium: GacStepResult): GacKineticResult {
   const k = carbon.bedKinetics!;
   const bg = fractionatedBackground(background, carbonIndex);
   const doc = project.site.docMgPerL;
-  const docComponents: FixedBedComponent[] = backgroundComponents(bg, doc).map((c, i) => {
-    const out: FixedBedComponent = { id: `DOC ${c.id}`, c0MgPerL: c.c0MgPerL, K: c.K * carbon.kFactor, oneOverN: c.oneOverN, doc: true, ...k.doc };
-    const a = bg.components[i]!.specific_uv254_per_m_per_mg_per_L;
-    if (a !== undefined && a > 0) out.uv254PerMgPerL = a;
-    return out;
-  });
+  const docComponents = gacDocComponents(bg, doc, carbon.kFactor, k.doc);
   const targets: FixedBedComponent[] = systems.map((s) => ({ id: s.compoundId, c0MgPerL: s.c0MgPerL, K: s.inMixture.K, oneOverN: s.inMixture.oneOverN, ...k.compounds[s.compoundId]! }));
   const allowed: Record<string, number> = {};
   for (const c of project.compounds) {

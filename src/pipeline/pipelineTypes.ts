@@ -28,6 +28,7 @@ import type { CarbonUncertainty, UncertaintySettings } from './uncertaintyTypes.
 import type { ContactFigures } from './contactStep.js';
 import type { KineticSolverOptions } from '../kinetics/pacBatch.js';
 import type { CarbonKineticCalibration, CarbonKineticTables } from './kineticCalibrationStep.js';
+import type { CarbonColumnCalibration, CarbonColumnTables } from './columnCalibrationStep.js';
 
 /** A file the project referenced, for run.json. */
 export interface InputFileRecord {
@@ -56,6 +57,8 @@ export interface PipelineInput {
   pilot?: PilotData;
   /** Kinetic jar-test tables of PAC carbons by carbon name (carbons[i].kinetics.kinetic_tests). */
   kineticTests?: Record<string, CarbonKineticTables>;
+  /** Column-test tables of GAC carbons by carbon name (carbons[i].kinetics.column_tests). */
+  columnTests?: Record<string, CarbonColumnTables>;
   /** Where the inputs came from (for run.json). */
   /** `notes`: how input tables were read and what was left out (gaps); the run's warnings repeat them. */
   provenance: { projectFile?: string; files: InputFileRecord[]; demo?: boolean; notes?: string[] };
@@ -124,6 +127,8 @@ export interface CarbonResult {
   contact?: ContactFigures;
   /** Ds fitted to the carbon's kinetic jar tests (they replace the given values in `carbon.kinetics`). */
   kineticCalibration?: CarbonKineticCalibration;
+  /** GAC: Ds fitted to the carbon's column tests (they replace the given values in `carbon.bedKinetics`). */
+  columnCalibration?: CarbonColumnCalibration;
   warnings: string[];
 }
 

@@ -38,6 +38,7 @@ import { surrogateModel, surrogateStep } from './surrogateStep.js';
 import { pilotStep, type PilotStepResult } from './pilotStep.js';
 import { gacStep } from './gacStep.js';
 import { gacKineticStep } from './gacKineticStep.js';
+import { columnCalibrationStep } from './columnCalibrationStep.js';
 import { gacKineticFigures } from './gacKineticFigures.js';
 import { sweepCovering } from '../design/sweepCovering.js';
 import { docRange, doseAgainstDocStep } from './doseAgainstDocStep.js';
@@ -103,6 +104,13 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
       progress({ step: `${carbon.name}: GAC estimate`, done: ci, total: project.carbons.length });
       res.gac = timed('GAC', () => gacStep(carbon, systems, doc, project.site.flowM3PerD));
       res.warnings.push(`GAC: ${GAC_UPPER_BOUND_CAUTION}`);
+      const colCal = timed('column calibration', () => columnCalibrationStep({ ...carbon, kFactor: cb.backgroundKFactor }, ci, systems, cb.background, doc, input.columnTests?.[carbon.name]));
+      if (colCal) { // the fitted Ds replace the given ones in this carbon's fixed-bed inputs
+        carbon = { ...carbon, bedKinetics: colCal.bedKinetics };
+        res.carbon = carbon;
+        res.columnCalibration = colCal;
+        for (const f of colCal.fits) res.warnings.push(...f.warnings.map((w) => `column calibration of Ds of ${f.compoundId}: ${w}`));
+      }
       const needsCarbon = project.goals.indicator !== undefined || goalList.some((g) => g.removalFraction > 0);
       if (carbon.bedKinetics && !needsCarbon) res.warnings.push('GAC breakthrough: no goal needs carbon (report-only compounds or limits already met); no run length');
       if (carbon.bedKinetics && needsCarbon) {

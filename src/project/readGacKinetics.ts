@@ -14,7 +14,8 @@
  * Defaults: porosity 0.4 (DEFAULT_BED_POROSITY, common practice), grain density = bed density/(1 − ε)
  * (ρ_bed = ρp·(1 − ε), the bed as a packing of grains), 1 filter, 12 °C (common practice). A given grain
  * density must agree with the bed density and porosity within 2 %. Every compound needs its Ds
- * and DL or kf; the DOC components need doc_Ds and doc_DL or doc_kf.
+ * (unless a column test under "column_tests" supplies it, src/project/readColumnTests.ts) and DL
+ * or kf; the DOC components need doc_Ds and doc_DL or doc_kf.
  * @throws InputError naming the JSON path (carbons[i].kinetics.Ds.CBZ, …) and what was expected
  */
 import { InputError } from '../core/errors.js';
@@ -23,6 +24,7 @@ import { DEFAULT_WATER_TEMPERATURE_C } from '../kinetics/waterProperties.js';
 import { parseQuantity } from '../units/parseQuantity.js';
 import { at, expectNumber, expectObject, join, onlyKeys } from '../scenario/jsonChecks.js';
 import type { CompoundSpec } from './projectTypes.js';
+import { readColumnTests, type ColumnTestsSpec } from './readColumnTests.js';
 
 /** Diffusivities and film coefficient of one component (m²/s, m/s); DL or kf is set. */
 export interface ComponentKinetics {
@@ -30,6 +32,9 @@ export interface ComponentKinetics {
   dlM2PerS?: number;
   kfMPerS?: number;
 }
+
+/** A compound's kinetics: Ds absent only while a column test is still to supply it (columnCalibrationStep). */
+export type TargetKinetics = Omit<ComponentKinetics, 'dsM2PerS'> & { dsM2PerS?: number };
 
 export interface GacKineticsSpec {
   bedDepthM: number;
@@ -41,11 +46,13 @@ export interface GacKineticsSpec {
   temperatureC: number;
   /** Shared by every fictive DOC component. */
   doc: ComponentKinetics;
-  /** By compound id (every compound of the project). */
-  compounds: Record<string, ComponentKinetics>;
+  /** By compound id (every compound of the project); Ds may be absent only for a compound with a column test (its fit supplies it). */
+  compounds: Record<string, TargetKinetics>;
+  /** Column tests whose fits replace the Ds of targets (readColumnTests.ts). */
+  columnTests?: ColumnTestsSpec;
 }
 
-const KEYS = ['bed_depth', 'porosity', 'particle_radius', 'particle_density', 'filters', 'temperature_c', 'doc_Ds', 'doc_DL', 'doc_kf', 'Ds', 'DL', 'kf', 'note'];
+const KEYS = ['bed_depth', 'porosity', 'particle_radius', 'particle_density', 'filters', 'temperature_c', 'doc_Ds', 'doc_DL', 'doc_kf', 'Ds', 'DL', 'kf', 'column_tests', 'note'];
 
 function quantity(v: unknown, path: string, kind: 'length' | 'density' | 'diffusivity' | 'velocity'): number {
   return at(path, () => parseQuantity(v, kind, { allowZero: false }));
@@ -80,10 +87,13 @@ export function readGacKinetics(raw: unknown, path: string, bedDensityKgPerM3: n
     if (Math.abs(particleDensityKgPerM3 - fromBed) > 0.02 * fromBed) throw new InputError(`the grain density ${particleDensityKgPerM3} kg/m³ disagrees with the bed density and porosity (${bedDensityKgPerM3}/(1 − ${porosity}) = ${fromBed.toPrecision(4)} kg/m³); give consistent values or leave particle_density out`, { path: join(path, 'particle_density') });
   }
   const ds = byId(o, 'Ds', path, compounds), dl = byId(o, 'DL', path, compounds), kf = byId(o, 'kf', path, compounds);
-  const perCompound: Record<string, ComponentKinetics> = {};
+  const particleRadiusM = quantity(need('particle_radius', '"0.5 mm"'), join(path, 'particle_radius'), 'length');
+  const columnTests = o.column_tests === undefined ? undefined : readColumnTests(o.column_tests, join(path, 'column_tests'), compounds.map((c) => c.id), particleRadiusM);
+  const perCompound: Record<string, TargetKinetics> = {};
   for (const c of compounds) {
-    if (ds[c.id] === undefined) throw new InputError(`missing the surface diffusivity of "${c.id}"; expected e.g. "5e-15 m2/s"`, { path: join(join(path, 'Ds'), c.id) });
-    const k: ComponentKinetics = { dsM2PerS: quantity(ds[c.id], join(join(path, 'Ds'), c.id), 'diffusivity') };
+    const tested = columnTests?.ds[c.id] !== undefined;
+    if (ds[c.id] === undefined && !tested) throw new InputError(`missing the surface diffusivity of "${c.id}"; expected e.g. "5e-15 m2/s" (or a column test under "column_tests")`, { path: join(join(path, 'Ds'), c.id) });
+    const k: TargetKinetics = ds[c.id] === undefined ? {} : { dsM2PerS: quantity(ds[c.id], join(join(path, 'Ds'), c.id), 'diffusivity') };
     if (kf[c.id] !== undefined) k.kfMPerS = quantity(kf[c.id], join(join(path, 'kf'), c.id), 'velocity');
     else if (dl[c.id] !== undefined) k.dlM2PerS = quantity(dl[c.id], join(join(path, 'DL'), c.id), 'diffusivity');
     else throw new InputError(`missing the liquid diffusivity of "${c.id}"; expected e.g. "7e-10 m2/s" (or a film coefficient under "kf")`, { path: join(join(path, 'DL'), c.id) });
@@ -92,11 +102,12 @@ export function readGacKinetics(raw: unknown, path: string, bedDensityKgPerM3: n
   return {
     bedDepthM: quantity(need('bed_depth', '"2.5 m"'), join(path, 'bed_depth'), 'length'),
     porosity,
-    particleRadiusM: quantity(need('particle_radius', '"0.5 mm"'), join(path, 'particle_radius'), 'length'),
+    particleRadiusM,
     particleDensityKgPerM3,
     filters: o.filters === undefined ? 1 : expectNumber(o.filters, join(path, 'filters'), 'a whole number of filters in parallel (1–100)', (x) => Number.isInteger(x) && x >= 1 && x <= 100),
     temperatureC: o.temperature_c === undefined ? DEFAULT_WATER_TEMPERATURE_C : expectNumber(o.temperature_c, join(path, 'temperature_c'), 'a water temperature in °C between 0 and 40', (x) => x >= 0 && x <= 40),
     doc: { dsM2PerS: quantity(need('doc_Ds', '"2e-15 m2/s"'), join(path, 'doc_Ds'), 'diffusivity'), ...film(o, 'doc_DL', 'doc_kf', path, 'the DOC components') },
     compounds: perCompound,
+    ...(columnTests ? { columnTests } : {}),
   };
 }

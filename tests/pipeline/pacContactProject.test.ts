@@ -92,7 +92,7 @@ const BAD: Array<[string, (p: any) => void, string, RegExp, boolean]> = [
   ['Ds for an unknown compound', (p) => { p.carbons[0].kinetics.Ds.XYZ = '1e-15 m2/s'; }, 'carbons[0].kinetics.Ds.XYZ', /not a compound id/, false],
   ['negative Ds', (p) => { p.carbons[0].kinetics.Ds.CBZ = -1e-15; }, 'carbons[0].kinetics.Ds.CBZ', /expected a non-negative value, got -1e-15/, true],
   ['Ds with a length unit', (p) => { p.carbons[0].kinetics.Ds.CBZ = '2e-15 m'; }, 'carbons[0].kinetics.Ds.CBZ', /diffusivity/, false],
-  ['kinetics on a GAC carbon are its fixed-bed inputs, which then need every compound', (p) => { p.carbons.push({ name: 'G', type: 'GAC', price_per_kg: 1, currency: 'CHF', bed_density_kg_per_m3: 450, ebct_min: 20, kinetics: {} }); }, 'carbons[1].kinetics.Ds.CBZ', /missing the surface diffusivity of "CBZ"/, false],
+  ['kinetics on a GAC carbon are its fixed-bed inputs, which then need every compound', (p) => { p.carbons.push({ name: 'G', type: 'GAC', price_per_kg: 1, currency: 'CHF', bed_density_kg_per_m3: 450, ebct_min: 20, kinetics: { bed_depth: '2.5 m', particle_radius: '0.5 mm' } }); }, 'carbons[1].kinetics.Ds.CBZ', /missing the surface diffusivity of "CBZ"/, false],
 ];
 
 describe('bad contact conditions and kinetic data name the JSON path, component and field', () => {

@@ -136,7 +136,7 @@ export function uncertaintySection(r: PipelineResult): ReportSection | undefined
   const s = r.uncertainty;
   const first = withU[0]!.uncertainty!;
   const paragraphs = [
-    `Monte Carlo: ${first.result.draws} draws per carbon, seed ${first.result.seed} (${s.source}); the same draws for every carbon. Sampling: ${first.result.sampling}. Percentiles: ${first.result.percentileMethod}. ${CI_TO_SD_NOTE[0]!.toUpperCase()}${CI_TO_SD_NOTE.slice(1)}. The governing dose here is the largest compound dose (the indicator-mean goal is not sampled).`,
+    `Monte Carlo: ${first.result.draws} draws per carbon, seed ${first.result.seed} (${s.source}); the same draws for every carbon. Sampling: ${first.result.sampling}. Percentiles: ${first.result.percentileMethod}. ${CI_TO_SD_NOTE[0]!.toUpperCase()}${CI_TO_SD_NOTE.slice(1)}. In each draw the required dose is the largest of the compound doses and, where the project sets one, the indicator-mean dose, as in the run.`,
     ...withU.flatMap((cr) => monteCarloNote(cr)),
     ...contactMonteCarloNote(r),
   ];

@@ -23,7 +23,7 @@ import { fmtConcentration as fc, fmtMoney, fmtNumber as fn, fmtWhole } from './f
 import type { CarbonResult, PipelineResult } from '../pipeline/pipelineTypes.js';
 import { gacBreakthroughSection } from './gacBreakthroughSection.js';
 import { gacSection, loadingPlot, pilotSection, surrogateSection, uncertaintySection } from './surrogateGacUncertaintySections.js';
-import { transferNote } from '../pipeline/calibrationTransfer.js';
+import { transferNote } from '../pipeline/calibrationTransferStep.js';
 import { transferRows } from './transferRows.js';
 import { carbonBackgroundParts } from './carbonBackgroundSection.js';
 

@@ -5,7 +5,7 @@
  * carbon's K factor), in snake_case.
  */
 import type { CarbonBackgroundSpec } from '../project/projectTypes.js';
-import type { CarbonBackground } from '../pipeline/carbonBackground.js';
+import type { CarbonBackground } from '../pipeline/carbonBackgroundStep.js';
 
 export function carbonBackgroundInputRecord(b: CarbonBackgroundSpec): Record<string, unknown> {
   return b.kind === 'isotherm'

@@ -4,7 +4,7 @@
  * reproduce and audit the run. Functions (the systems' background builders) are written out as
  * their components at the design DOC.
  */
-import { systemComponents } from '../pipeline/competitionSystem.js';
+import { systemComponents } from '../design/competitionSystem.js';
 import type { PipelineResult } from '../pipeline/pipelineTypes.js';
 import { CI_TO_SD_NOTE } from '../pipeline/uncertaintyStep.js';
 import { gacKineticRecord } from './gacRunJson.js';

@@ -1,14 +1,14 @@
 /**
  * Step 3 of the job: one adsorption system per (carbon, compound) from the project, the
- * background step and the calibrations (see competitionSystem.ts for the carbon rules).
+ * background step and the calibrations (see src/design/competitionSystem.ts for the carbon rules).
  *
  * Competitor of each compound, in order of precedence:
  *   1. an EBC calibrated from its jar tests (models "ebc", "sebc"; for "sebc" the EBC takes the
  *      target's own isotherm on each carbon, Qi et al. 2007, from memory);
  *   2. for a compound without jar tests, an EBC transferred from the calibrated compounds
- *      (calibrationTransfer.ts; simplified-EBC rule: the compound's own isotherm);
+ *      (calibrationTransferStep.ts; simplified-EBC rule: the compound's own isotherm);
  *   3. the EBC given for it in the project's background (EBC background);
- *   4. the fractionated DOC (fictive components: the carbon's own, carbonBackground.ts, or the
+ *   4. the fractionated DOC (fictive components: the carbon's own, carbonBackgroundStep.ts, or the
  *      project's with the carbon's K factor), with the target's K times the calibrated
  *      factor of model "fictive-k" (Schideman et al. 2006; Worch 2010; both from memory), or,
  *      without jar tests, the factor transferred from the calibrated compounds.
@@ -20,9 +20,9 @@ import { InputError } from '../core/errors.js';
 import type { CarbonSpec, ProjectSpec } from '../project/projectTypes.js';
 import type { BackgroundStep } from './backgroundStep.js';
 import type { CompoundCalibration } from './calibrationStep.js';
-import { scaleK, type CompoundSystem } from './competitionSystem.js';
-import type { TransferredCalibration } from './calibrationTransfer.js';
-import type { CarbonBackground } from './carbonBackground.js';
+import { scaleK, type CompoundSystem } from '../design/competitionSystem.js';
+import type { TransferredCalibration } from './calibrationTransferStep.js';
+import type { CarbonBackground } from './carbonBackgroundStep.js';
 
 function fmtK(K: number): string {
   return Number(K.toPrecision(4)).toString();
@@ -30,7 +30,7 @@ function fmtK(K: number): string {
 
 /** Systems of every compound (project order) on one carbon. */
 /**
- * @param bg the carbon's background (carbonBackground.ts: its own fictive components, or the
+ * @param bg the carbon's background (carbonBackgroundStep.ts: its own fictive components, or the
  *   project's with the carbon's K factor); a project-level background step means the latter
  */
 export function buildSystems(project: ProjectSpec, carbon: CarbonSpec, bg: Pick<BackgroundStep, 'background'> | CarbonBackground, calibrations: ReadonlyMap<string, CompoundCalibration>, transfer?: TransferredCalibration): CompoundSystem[] {

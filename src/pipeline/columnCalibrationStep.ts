@@ -30,7 +30,7 @@ import type { CarbonSpec } from '../project/projectTypes.js';
 import type { ColumnTestSpec } from '../project/readColumnTests.js';
 import type { GacKineticsSpec } from '../project/readGacKinetics.js';
 import type { CsvTable } from '../tables/csvTable.js';
-import type { CompoundSystem } from './competitionSystem.js';
+import type { CompoundSystem } from '../design/competitionSystem.js';
 import { fractionatedBackground, gacDocComponents } from './gacKineticStep.js';
 
 /** The column-test tables of one carbon by compound id, as read by src/io/loadProject.ts. */

@@ -17,9 +17,9 @@ import type { ContactConditions } from '../kinetics/contactRemoval.js';
 import type { RemovalModel } from '../design/removalModel.js';
 import type { RemovalCurves } from '../design/removalCurves.js';
 import type { CarbonSpec } from '../project/projectTypes.js';
-import { competitionSets } from './carbonModel.js';
-import type { CompoundSystem } from './competitionSystem.js';
-import { kineticMixture } from './contactModel.js';
+import { competitionSets } from '../design/carbonModel.js';
+import type { CompoundSystem } from '../design/competitionSystem.js';
+import { kineticMixture } from '../kinetics/contactModel.js';
 
 export interface ContactCurves {
   compoundId: string;

@@ -32,7 +32,7 @@ import { gacCarbonUse, type CarbonUse } from '../kinetics/staggeredFiltersCarbon
 import { staggeredRun, type StaggeredRun } from '../kinetics/staggeredFiltersRun.js';
 import type { CarbonSpec, ProjectSpec } from '../project/projectTypes.js';
 import type { ComponentKinetics } from '../project/readGacKinetics.js';
-import type { CompoundSystem } from './competitionSystem.js';
+import type { CompoundSystem } from '../design/competitionSystem.js';
 import type { GacStepResult } from './gacStep.js';
 
 /** Longest simulated run, bed volumes (a cap on 1.5 × the largest equilibrium bound). */

@@ -17,7 +17,7 @@
  */
 import { gacEstimate, GAC_UPPER_BOUND_CAUTION, type GacEstimate, type GacTargetEstimate } from '../gac/gacEstimate.js';
 import type { CarbonSpec } from '../project/projectTypes.js';
-import type { CompoundSystem } from './competitionSystem.js';
+import type { CompoundSystem } from '../design/competitionSystem.js';
 
 export interface GacStepResult {
   carbonName: string;

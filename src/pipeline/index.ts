@@ -1,10 +1,10 @@
 export * from './pipelineTypes.js';
 export { runPipeline, indicatorPlan, designProblem } from './runPipeline.js';
-export { carbonModel, competitionSets } from './carbonModel.js';
+export { carbonModel, competitionSets } from '../design/carbonModel.js';
 export { backgroundStep, type BackgroundStep } from './backgroundStep.js';
 export { calibrationStep, type CompoundCalibration } from './calibrationStep.js';
 export { buildSystems } from './buildSystems.js';
-export { systemComponents, prepareSystem, scaleK, type CompoundSystem } from './competitionSystem.js';
+export { systemComponents, prepareSystem, scaleK, type CompoundSystem } from '../design/competitionSystem.js';
 export { reducedLoading, type ReducedLoading } from '../design/reducedLoading.js';
 export { surrogateStep, surrogateModel, surrogatesAtDose, type SurrogateResult, type SetPointRow, type SurrogatePointAtDose } from './surrogateStep.js';
 export { pilotStep, predictedRelations, type PilotStepResult } from './pilotStep.js';

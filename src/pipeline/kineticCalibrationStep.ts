@@ -24,7 +24,7 @@ import type { CsvTable } from '../tables/csvTable.js';
 import type { KineticSolverOptions } from '../kinetics/pacBatch.js';
 import type { CarbonKinetics } from '../project/readCarbonKinetics.js';
 import type { CarbonSpec } from '../project/projectTypes.js';
-import type { CompoundSystem } from './competitionSystem.js';
+import type { CompoundSystem } from '../design/competitionSystem.js';
 
 /** The kinetic test tables of one carbon, as read by src/io/loadProject.ts. */
 export interface CarbonKineticTables {

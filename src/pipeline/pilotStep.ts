@@ -19,7 +19,7 @@ import { solveBatchPrepared } from '../equilibrium/iastBatch.js';
 import type { PilotData } from '../surrogates/pilotCsv.js';
 import { checkPilotPairs, type PilotCheckResult, type PredictedRelation } from '../surrogates/pilotCheck.js';
 import { backgroundSurrogatesAt, type SurrogateModel } from '../surrogates/surrogateCurve.js';
-import { prepareSystem, type CompoundSystem } from './competitionSystem.js';
+import { prepareSystem, type CompoundSystem } from '../design/competitionSystem.js';
 
 export interface PilotStepResult {
   carbonName: string;

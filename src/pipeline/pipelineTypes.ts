@@ -9,9 +9,9 @@ import type { SiteSeries } from '../siteSeries/siteSeries.js';
 import type { PilotData } from '../surrogates/pilotCsv.js';
 import type { BackgroundStep } from './backgroundStep.js';
 import type { CompoundCalibration } from './calibrationStep.js';
-import type { TransferredCalibration } from './calibrationTransfer.js';
-import type { CompoundSystem } from './competitionSystem.js';
-import type { CarbonBackground, CarbonBackgroundInput } from './carbonBackground.js';
+import type { TransferredCalibration } from './calibrationTransferStep.js';
+import type { CompoundSystem } from '../design/competitionSystem.js';
+import type { CarbonBackground, CarbonBackgroundInput } from './carbonBackgroundStep.js';
 import type { CompoundGoal } from '../design/compoundGoal.js';
 import type { DailyDoses } from '../design/dailyDoses.js';
 import type { IndicatorCheck } from '../design/indicatorGoal.js';
@@ -91,7 +91,7 @@ export interface UncertaintyRunOptions extends PipelineOptions {
 
 export interface CarbonResult {
   carbon: CarbonSpec;
-  /** The carbon's background: its own fractionated DOC or the project's with its K factor (carbonBackground.ts). */
+  /** The carbon's background: its own fractionated DOC or the project's with its K factor (carbonBackgroundStep.ts). */
   background?: CarbonBackground;
   /** Systems of the compounds on this carbon (project order); PAC only. */
   systems: CompoundSystem[];

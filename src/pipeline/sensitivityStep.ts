@@ -16,7 +16,7 @@
 import type { FreundlichComponent } from '../equilibrium/preparedMixture.js';
 import type { CarbonSpec } from '../project/projectTypes.js';
 import type { SiteSeries } from '../siteSeries/siteSeries.js';
-import type { CompoundSystem } from './competitionSystem.js';
+import type { CompoundSystem } from '../design/competitionSystem.js';
 import { designDose, type Design, type DesignProblem } from '../design/designDose.js';
 import { seriesYearly } from '../design/dailyDoses.js';
 import { doseTable, yearlyAtOneDose } from '../design/doseTable.js';

@@ -11,23 +11,23 @@
  *   the governing compound; at the required dose = the one of the dose actually applied (it may be
  *   governed by the indicator mean). UV254 reduction as a dosing control parameter: Altmann et
  *   al. 2016, Water Research 94:240–245.
- * On a carbon with K factor f the background's K are f times the reference ones (competitionSystem.ts).
+ * On a carbon with K factor f the background's K are f times the reference ones (src/design/competitionSystem.ts).
  * Needs a fractionated background (isotherm or file); UV254 needs every component's absorbance.
  *
  * `pointAt` (optional) gives the background at a dose from another removal model (the PAC contact
- * model, modelSurrogates.ts) instead of batch IAST.
+ * model, src/design/modelSurrogates.ts) instead of batch IAST.
  *
  * Units: doses mg/L; reductions and removals fractions.
  */
 import { backgroundComponents } from '../fractionation/backgroundPrediction.js';
 import type { BackgroundFile } from '../fractionation/backgroundFile.js';
 import { backgroundSurrogatesAt, type SurrogateCurve, type SurrogateModel } from '../surrogates/surrogateCurve.js';
-import { scaleK } from './competitionSystem.js';
+import { scaleK } from '../design/competitionSystem.js';
 import type { CompoundGoal } from '../design/compoundGoal.js';
 import type { CompoundDoseStatus } from '../design/compoundDose.js';
 import type { RemovalCurves } from '../design/removalCurves.js';
 import type { Design } from '../design/designDose.js';
-import type { BackgroundPointAt } from './modelSurrogates.js';
+import type { BackgroundPointAt } from '../design/modelSurrogates.js';
 
 export interface SetPointRow {
   compoundId: string;

@@ -41,11 +41,11 @@ import type { WarmStart } from '../design/removalModel.js';
 import { NormalSampler } from '../uncertainty/distributions.js';
 import { chunkRng } from '../uncertainty/prng.js';
 import { percentiles } from '../numerics/percentile.js';
-import { prepareSystem } from './competitionSystem.js';
+import { prepareSystem } from '../design/competitionSystem.js';
 import { solveBatchPrepared } from '../equilibrium/iastBatch.js';
 import { contactDrawCount, contactUncertainty } from './contactUncertainty.js';
-import { contactFactory } from './contactModel.js';
-import { carbonModel } from './carbonModel.js';
+import { contactFactory } from '../kinetics/contactModel.js';
+import { carbonModel } from '../design/carbonModel.js';
 import type { KineticSolverOptions } from '../kinetics/pacBatch.js';
 
 /** Two-sided 95 % quantile of the standard normal distribution. */

@@ -7,7 +7,7 @@
  *   "calibration_transfer": "CBZ"    the correction of one named calibrated compound.
  *
  * The corrections must be of one kind to be averaged: target-K factors (model "fictive-k") or
- * equivalent background compounds (models "ebc", "sebc"); src/pipeline/calibrationTransfer.ts
+ * equivalent background compounds (models "ebc", "sebc"); src/pipeline/calibrationTransferStep.ts
  * applies them.
  * @throws InputError naming `calibration_transfer` and what was expected
  */

@@ -14,7 +14,7 @@ import { doseForRemoval } from '../../src/design/doseForRemoval.js';
 import { designDose } from '../../src/design/designDose.js';
 import { loadProject } from '../../src/io/loadProject.js';
 import { designProblem, runPipeline } from '../../src/pipeline/runPipeline.js';
-import { carbonModel } from '../../src/pipeline/carbonModel.js';
+import { carbonModel } from '../../src/design/carbonModel.js';
 
 interface Baseline {
   random: Array<{ components: FreundlichComponent[]; removalFraction: number; doseGPerL: number | null }>;

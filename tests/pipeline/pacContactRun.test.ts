@@ -10,7 +10,7 @@ import { describe, expect, it } from 'vitest';
 import { join } from 'node:path';
 import { loadProject } from '../../src/io/loadProject.js';
 import { runPipeline } from '../../src/pipeline/runPipeline.js';
-import { carbonModel } from '../../src/pipeline/carbonModel.js';
+import { carbonModel } from '../../src/design/carbonModel.js';
 import { runRecord } from '../../src/output/runRecord.js';
 import { contactSummary } from '../../src/output/contactRecord.js';
 import { buildReportModel } from '../../src/output/buildReportModel.js';

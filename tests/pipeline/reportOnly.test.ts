@@ -14,7 +14,7 @@ import { runPipelineWithUncertainty } from '../../src/pipeline/runWithUncertaint
 import { compoundsCsv } from '../../src/output/outputTables.js';
 import { headlineFigures } from '../../src/output/headlineFigures.js';
 import { buildReportModel } from '../../src/output/buildReportModel.js';
-import { prepareSystem } from '../../src/pipeline/competitionSystem.js';
+import { prepareSystem } from '../../src/design/competitionSystem.js';
 import { solveBatchPrepared } from '../../src/equilibrium/iastBatch.js';
 import type { PipelineResult } from '../../src/pipeline/pipelineTypes.js';
 

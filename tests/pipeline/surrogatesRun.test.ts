@@ -9,7 +9,7 @@ import { join } from 'node:path';
 import { loadProject } from '../../src/io/loadProject.js';
 import { runPipeline } from '../../src/pipeline/runPipeline.js';
 import { surrogatesAtDose } from '../../src/pipeline/surrogateStep.js';
-import { prepareSystem } from '../../src/pipeline/competitionSystem.js';
+import { prepareSystem } from '../../src/design/competitionSystem.js';
 import { solveBatchPrepared } from '../../src/equilibrium/iastBatch.js';
 import { doseForUv254Reduction } from '../../src/design/uv254SetPoint.js';
 import { predictUv254Reduction } from '../../src/fractionation/backgroundPrediction.js';

@@ -10,7 +10,7 @@ import { fileURLToPath } from 'node:url';
 import { loadProject } from '../../src/io/loadProject.js';
 import { runPipeline } from '../../src/pipeline/runPipeline.js';
 import { surrogatesAtDose } from '../../src/pipeline/surrogateStep.js';
-import { prepareSystem } from '../../src/pipeline/competitionSystem.js';
+import { prepareSystem } from '../../src/design/competitionSystem.js';
 import { solveBatchPrepared } from '../../src/equilibrium/iastBatch.js';
 
 export const FIXTURE = join(dirname(fileURLToPath(import.meta.url)), '../../fixtures/project/surrogates-gac-mc');

@@ -1,5 +1,5 @@
 /**
- * The removal model of a PAC carbon under the plant's contact conditions (site.pac_contact):
+ * The removal model of a PAC carbon under the plant's contact conditions (project key site.pac_contact):
  * a factory of `ContactRemoval` (src/kinetics/contactRemoval.ts: HSDM with IAST at the particle
  * surface, in a plug-flow or stirred contact tank with carbon age) whose components carry the
  * carbon's kinetic data: each target its own Ds and DL, every background competitor (fictive DOC
@@ -13,13 +13,29 @@
 import { InputError } from '../core/errors.js';
 import type { FreundlichComponent } from '../equilibrium/preparedMixture.js';
 import type { CompetitionSet, RemovalModelFactory } from '../design/removalModel.js';
-import { ContactRemoval, type ContactConditions } from '../kinetics/contactRemoval.js';
-import type { CarbonParticle, KineticComponent } from '../kinetics/kineticMixture.js';
-import type { KineticSolverOptions } from '../kinetics/pacBatch.js';
-import type { CarbonSpec } from '../project/projectTypes.js';
+import { ContactRemoval, type ContactConditions } from './contactRemoval.js';
+import type { CarbonParticle, KineticComponent } from './kineticMixture.js';
+import type { KineticSolverOptions } from './pacBatch.js';
+
+/**
+ * What the contact model needs of a PAC carbon (the project's carbon spec has this shape): its name
+ * for messages, its particle radius (m) and density (g/L), Ds and DL by compound id and the shared
+ * doc_Ds/doc_DL of the background competitors (m²/s).
+ */
+export interface PacCarbonKinetics {
+  name: string;
+  kinetics?: {
+    particleRadiusM?: number;
+    particleDensityGPerL?: number;
+    dsM2PerS: Record<string, number>;
+    dlM2PerS: Record<string, number>;
+    docDsM2PerS?: number;
+    docDlM2PerS?: number;
+  };
+}
 
 /** The contact model factory of a carbon, or undefined for equilibrium contact. */
-export function contactFactory(contact: ContactConditions | undefined, carbon: CarbonSpec, options: KineticSolverOptions = {}): RemovalModelFactory | undefined {
+export function contactFactory(contact: ContactConditions | undefined, carbon: PacCarbonKinetics, options: KineticSolverOptions = {}): RemovalModelFactory | undefined {
   if (!contact) return undefined;
   const { particle, target, competitor } = kineticParts(carbon);
   return (sets: readonly CompetitionSet[], docMgPerL: number, background?: readonly FreundlichComponent[]) => new ContactRemoval(
@@ -33,12 +49,12 @@ export function contactFactory(contact: ContactConditions | undefined, carbon: C
 }
 
 /** One competition set with the carbon's kinetic data: [target, ...competitors] and the particle. */
-export function kineticMixture(set: CompetitionSet, carbon: CarbonSpec): { components: KineticComponent[]; particle: CarbonParticle } {
+export function kineticMixture(set: CompetitionSet, carbon: PacCarbonKinetics): { components: KineticComponent[]; particle: CarbonParticle } {
   const { particle, target, competitor } = kineticParts(carbon);
   return { components: [target(set.target), ...set.competitors.map(competitor)], particle };
 }
 
-function kineticParts(carbon: CarbonSpec): { particle: CarbonParticle; target: (c: FreundlichComponent) => KineticComponent; competitor: (c: FreundlichComponent) => KineticComponent } {
+function kineticParts(carbon: PacCarbonKinetics): { particle: CarbonParticle; target: (c: FreundlichComponent) => KineticComponent; competitor: (c: FreundlichComponent) => KineticComponent } {
   const k = carbon.kinetics;
   const where = `carbon "${carbon.name}"`;
   if (!k || k.particleRadiusM === undefined || k.particleDensityGPerL === undefined) {

@@ -7,7 +7,7 @@
  * @throws InputError when the model has no fractionated background; ComputationError from the model
  */
 import { InputError } from '../core/errors.js';
-import type { RemovalModel } from '../design/removalModel.js';
+import type { RemovalModel } from './removalModel.js';
 import type { SurrogatePoint } from '../surrogates/surrogateCurve.js';
 
 export type BackgroundPointAt = (doseMgPerL: number) => Omit<SurrogatePoint, 'removal'>;

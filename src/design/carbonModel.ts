@@ -5,8 +5,8 @@
  * use the model never name it.
  */
 import type { FreundlichComponent } from '../equilibrium/preparedMixture.js';
-import { equilibriumRemoval } from '../design/equilibriumRemoval.js';
-import type { CompetitionSet, RemovalModel, RemovalModelFactory } from '../design/removalModel.js';
+import { equilibriumRemoval } from './equilibriumRemoval.js';
+import type { CompetitionSet, RemovalModel, RemovalModelFactory } from './removalModel.js';
 import type { CompoundSystem } from './competitionSystem.js';
 
 /** Each compound with its competitors at a DOC (mg/L). */

@@ -3,7 +3,7 @@
  * UV254) isotherm in the project (`carbons[i].background`) has it fractionated for itself
  * (adsorption analysis, src/fractionation, the same step as the project's background) and its
  * fictive components are used as fitted; every other carbon uses the project's background with
- * its K factor f on every background K (competitionSystem.ts: the reference carbon at f times the
+ * its K factor f on every background K (src/design/competitionSystem.ts: the reference carbon at f times the
  * dose). The competition systems, the DOC/UV254 surrogates and set-points, the doses, the Monte
  * Carlo and the GAC fixed bed of the carbon all take their background from here.
  *

@@ -77,7 +77,7 @@ export { fitColumn, type ColumnFitInput, type ColumnFitResult, type ColumnFitRow
 export { readBreakthroughData, BREAKTHROUGH_COLUMNS, MAX_DATA_C_OVER_C0, type BreakthroughData } from './calibration/breakthroughData.js';
 export { staggeredRun, type StaggeredRunInput, type StaggeredRun } from './kinetics/staggeredFiltersRun.js';
 
-// ── PAC contact kinetics (capabilities 16–17) — issue 9, branch pac
+// ── PAC contact kinetics (capabilities 16–17)
 export { integrateImplicit, TRBDF2_ERROR_CONSTANT, type StiffSystem, type NewtonSolve, type IntegratorOptions, type IntegratorStats, type IntegrationResult } from './kinetics/implicitIntegrator.js';
 export { denseLu, type DenseLu } from './kinetics/denseLu.js';
 export { sphereCollocation, type SphereCollocation } from './kinetics/sphereCollocation.js';

@@ -116,7 +116,7 @@ export function runRecord(r: PipelineResult, env: RunEnvironment): Record<string
         } : null,
         warnings: cr.warnings,
       })),
-      pilot_check: r.pilot ? { carbon: r.pilot.carbonName, file: r.pilot.file ?? null, band_percent: r.pilot.bandPercent, check: r.pilot.check } : null,
+      pilot_check: r.pilot ? { carbon: r.pilot.carbonName, file: r.pilot.file ?? null, band_percent: r.pilot.bandPercent, relation_model: r.pilot.relationModel, check: r.pilot.check } : null,
       monte_carlo_settings: r.uncertainty ?? null,
       warnings: r.warnings,
     },

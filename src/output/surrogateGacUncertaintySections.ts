@@ -103,7 +103,7 @@ export function pilotSection(r: PipelineResult): ReportSection | undefined {
   return {
     id: 'pilot', heading: 'Pilot check: measured against predicted removal',
     paragraphs: [
-      `${ch.overall.points} pilot pairs${p.file ? ` (${p.file.split(/[\\/]/).pop()})` : ''} on ${p.carbonName}, compared with the model's removal at the same UV254 reduction. Band ±${p.bandPercent} percentage points (common practice). ${ch.outlierCompounds.length ? `Outside the band: ${ch.outlierCompounds.join(', ')} — use the site curve for ${ch.outlierCompounds.length > 1 ? 'these compounds' : 'this compound'} or find the cause before dosing by the model.` : 'Every compound lies within the band.'}`,
+      `${ch.overall.points} pilot pairs${p.file ? ` (${p.file.split(/[\\/]/).pop()})` : ''} on ${p.carbonName}, compared with the model's removal at the same UV254 reduction (model: ${p.relationModel}). Band ±${p.bandPercent} percentage points (common practice). ${ch.outlierCompounds.length ? `Outside the band: ${ch.outlierCompounds.join(', ')} — use the site curve for ${ch.outlierCompounds.length > 1 ? 'these compounds' : 'this compound'} or find the cause before dosing by the model.` : 'Every compound lies within the band.'}`,
       `Site curve: ${ch.overall.siteCurve.form}; fitted to the pilot pairs (site k) and to the model's removals at the same UV254 reductions (model k), so the two can be compared.`,
     ],
     tables: [{ caption: 'Residuals per compound (measured − predicted, percentage points)', columns: ['compound', 'points', 'mean residual', 'RMSE', 'outside the band', 'site k', 'model k'], rows }],

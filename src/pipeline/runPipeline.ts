@@ -192,8 +192,10 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
     const cbg = cr?.background;
     if (!cr || !cbg?.background) throw new InputError('the pilot check needs a PAC carbon and a fractionated background ("isotherm" or "file")', { path: 'pilot' });
     const model = surrogateModel(cbg.background, doc, cbg.backgroundKFactor);
-    pilot = timed('pilot check', () => pilotStep(cr.carbon.name, pilotData, spec.bandPercent, model, cr.systems, doc));
-    if (project.site.pacContact) warnings.push('pilot check: the predictions are equilibrium ones (batch IAST), not under the plant\'s contact conditions; the pilot check does not use the contact model yet');
+    // under the plant's contact conditions the pilot is compared with the carbon's contact model (its fitted kinetics included)
+    const factory = project.site.pacContact && cr.carbon.type === 'PAC' ? contactFactory(project.site.pacContact, cr.carbon, options.kinetic) : undefined;
+    const contactModel = factory ? carbonModel(cr.systems, doc, model.background, factory) : undefined;
+    pilot = timed('pilot check', () => pilotStep(cr.carbon.name, pilotData, spec.bandPercent, model, cr.systems, doc, contactModel));
     for (const c of pilot.check.compounds) {
       if (c.outliers.length) warnings.push(`pilot check: ${c.compound} has ${c.outliers.length} of ${c.points} point(s) outside ±${spec.bandPercent} percentage points of the prediction (${c.outliers.map((o) => o.sample).join(', ')}); mean residual ${(c.meanResidual * 100).toFixed(1)} percentage points`);
     }

@@ -39,6 +39,68 @@ function toParsed(mixture: MixtureLike): ParsedMixture {
   return readMixture(mixture);
 }
 
+/**
+ * The parsed and prepared mixture of a mixture object, kept per object: repeated calls with the
+ * same object (a sweep, a search, a caller's own loop) skip the reading, the unit conversion and
+ * the preparation. Each call first checks that the object still holds exactly what it held
+ * (every own key and value, in order, compared with a snapshot taken when it was read), so a
+ * changed object is read again, with the same validation and messages as at first.
+ */
+interface PreparedEntry { snapshot: unknown[]; parsed: ParsedMixture; pm: PreparedMixture }
+const PREPARED = new WeakMap<object, PreparedEntry>();
+const OBJECT_MARK = Symbol('object');
+const ARRAY_MARK = Symbol('array');
+
+/** Appends the content of plain data `v` to `out`; false when `v` holds anything else (then nothing is kept). */
+function snapshot(v: unknown, out: unknown[]): boolean {
+  if (v === null || (typeof v !== 'object' && typeof v !== 'function' && typeof v !== 'symbol')) { out.push(v); return true; }
+  if (typeof v !== 'object') return false;
+  if (Array.isArray(v)) {
+    if (Object.getPrototypeOf(v) !== Array.prototype) return false;
+    out.push(ARRAY_MARK, v.length);
+    for (let i = 0; i < v.length; i++) if (!snapshot(v[i], out)) return false;
+    return true;
+  }
+  const proto = Object.getPrototypeOf(v);
+  if (proto !== Object.prototype && proto !== null) return false;
+  const keys = Object.keys(v);
+  out.push(OBJECT_MARK, keys.length);
+  for (const k of keys) { out.push(k); if (!snapshot((v as Record<string, unknown>)[k], out)) return false; }
+  return true;
+}
+
+/** The position after `v` in `snap` when `v` still holds what was recorded from `at` on, else -1. */
+function matches(v: unknown, snap: readonly unknown[], at: number): number {
+  if (v === null || typeof v !== 'object') return at < snap.length && Object.is(snap[at], v) ? at + 1 : -1;
+  let i = at;
+  if (Array.isArray(v)) {
+    if (snap[i] !== ARRAY_MARK || snap[i + 1] !== v.length) return -1;
+    i += 2;
+    for (let k = 0; k < v.length && i >= 0; k++) i = matches(v[k], snap, i);
+    return i;
+  }
+  const keys = Object.keys(v);
+  if (snap[i] !== OBJECT_MARK || snap[i + 1] !== keys.length) return -1;
+  i += 2;
+  for (let k = 0; k < keys.length && i >= 0; k++) {
+    if (snap[i] !== keys[k]) return -1;
+    i = matches((v as Record<string, unknown>)[keys[k]!], snap, i + 1);
+  }
+  return i;
+}
+
+/** The parsed mixture and its prepared form (kept per object while the object is unchanged). */
+function prepared(mixture: MixtureLike): { parsed: ParsedMixture; pm: PreparedMixture } {
+  const key = typeof mixture === 'object' && mixture !== null ? mixture : undefined;
+  const hit = key ? PREPARED.get(key) : undefined;
+  if (hit && matches(mixture, hit.snapshot, 0) === hit.snapshot.length) return hit;
+  const parsed = toParsed(mixture);
+  const pm = prepareMixture(parsed.components);
+  const snap: unknown[] = [];
+  if (key && snapshot(mixture, snap)) PREPARED.set(key, { snapshot: snap, parsed, pm });
+  return { parsed, pm };
+}
+
 function isParsed(m: unknown): m is ParsedMixture {
   return typeof m === 'object' && m !== null && Array.isArray((m as ParsedMixture).components) &&
     (m as ParsedMixture).components.every((c) => typeof (c as FreundlichComponent).c0MgPerL === 'number');
@@ -70,9 +132,8 @@ export function formatSolution(pm: PreparedMixture, s: BatchSolution): Equilibri
  * @param dose    "20 mg/L", a number in mg/L, or omitted to use the mixture's own dose; at dose 0 every loading is 0 and c = c0
  */
 export function equilibrium(mixture: MixtureLike, dose?: string | number): EquilibriumResult {
-  const parsed = toParsed(mixture);
+  const { parsed, pm } = prepared(mixture);
   const doseMgPerL = resolveDose(dose, parsed);
-  const pm = prepareMixture(parsed.components);
   if (doseMgPerL === 0) {
     // no carbon: nothing adsorbed, c = c0 (reported as zero loadings rather than the limiting q at c0)
     return { dose_mg_per_L: 0, components: pm.source.map((c) => ({ id: c.id, c0_mg_per_L: c.c0MgPerL, c_mg_per_L: c.c0MgPerL, q_mg_per_g: 0, removal_fraction: 0 })) };

@@ -77,12 +77,17 @@ export function carbonsCsv(r: PipelineResult): string {
   ], rows);
 }
 
+/** daily_doses.csv: one line per day and carbon, written line by line (a long series has 73,000 of them). */
 export function dailyDosesCsv(r: PipelineResult): string {
-  const rows: Cell[][] = [];
+  const lines = [['date', 'carbon', 'DOC (mg/L)', 'flow (m3/d)', 'dose (mg/L)', 'governed by', 'carbon (kg/d)', 'carbon cost per day', 'currency'].map(cell).join(',')];
+  const texts = new Map<string, string>(); // the few texts of every day (governing goal) made once
+  const text = (t: string): string => { let c = texts.get(t); if (c === undefined) { c = cell(t); texts.set(t, c); } return c; };
   for (const cr of r.carbons) {
-    for (const d of cr.daily?.rows ?? []) rows.push([d.date, cr.carbon.name, d.docMgPerL, d.flowM3PerD, d.doseMgPerL, d.governedBy, d.carbonKgPerD, d.cost, cr.carbon.currency]);
+    const name = cell(cr.carbon.name);
+    const currency = cell(cr.carbon.currency);
+    for (const d of cr.daily?.rows ?? []) lines.push(`${cell(d.date)},${name},${cell(d.docMgPerL)},${cell(d.flowM3PerD)},${cell(d.doseMgPerL)},${text(d.governedBy)},${cell(d.carbonKgPerD)},${cell(d.cost)},${currency}`);
   }
-  return toCsv(['date', 'carbon', 'DOC (mg/L)', 'flow (m3/d)', 'dose (mg/L)', 'governed by', 'carbon (kg/d)', 'carbon cost per day', 'currency'], rows);
+  return lines.join('\n') + '\n';
 }
 
 export function indicatorsCsv(r: PipelineResult): string {

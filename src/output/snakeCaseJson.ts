@@ -118,7 +118,63 @@ export function toSnakeCaseJson(value: unknown): unknown {
   return out;
 }
 
-/** The JSON text of a result (two-space indent), snake_case: every JSON writer prints through this. */
+/** Arrays longer than this are written one element per line, each element on its one line. */
+export const LONG_ARRAY = 50;
+
+/**
+ * JSON text with a two-space indent, as JSON.stringify(value, null, 2) writes it, except that an
+ * array of more than LONG_ARRAY elements has each element compact on its own line: per-day data
+ * (a 36,500-day series) stays readable line by line at a third of the indented size. The same
+ * JSON value either way (toJSON, undefined and non-finite numbers as JSON.stringify treats them).
+ */
+export function jsonText(value: unknown): string {
+  const out: string[] = [];
+  const text = write(value, '', '', out);
+  return text === undefined ? (undefined as unknown as string) : out.join('');
+}
+
+/** Appends the text of `value` to `out`; undefined (nothing appended) where JSON.stringify omits the value. */
+function write(value: unknown, key: string, indent: string, out: string[]): '' | undefined {
+  let v = value;
+  if (v !== null && typeof v === 'object' && typeof (v as { toJSON?: unknown }).toJSON === 'function') v = (v as { toJSON: (k: string) => unknown }).toJSON(key);
+  if (v === null || typeof v !== 'object') {
+    const t = JSON.stringify(v);
+    if (t === undefined) return undefined;
+    out.push(t);
+    return '';
+  }
+  const inner = indent + '  ';
+  if (Array.isArray(v)) {
+    if (v.length === 0) { out.push('[]'); return ''; }
+    out.push('[');
+    const long = v.length > LONG_ARRAY;
+    for (let i = 0; i < v.length; i++) {
+      out.push(i === 0 ? '\n' : ',\n', inner);
+      if (long) out.push(JSON.stringify(v[i]) ?? 'null');
+      else if (write(v[i], String(i), inner, out) === undefined) out.push('null');
+    }
+    out.push('\n', indent, ']');
+    return '';
+  }
+  const proto = Object.getPrototypeOf(v);
+  if (proto !== Object.prototype && proto !== null) {
+    // not plain data (a boxed primitive, a class instance): JSON.stringify's own text, re-indented
+    out.push(JSON.stringify(v, null, 2).replace(/\n/g, `\n${indent}`));
+    return '';
+  }
+  const obj = v as Record<string, unknown>;
+  let first = true;
+  for (const k of Object.keys(obj)) {
+    const mark = out.length;
+    out.push(first ? '{\n' : ',\n', inner, JSON.stringify(k), ': ');
+    if (write(obj[k], k, inner, out) === undefined) { out.length = mark; continue; }
+    first = false;
+  }
+  out.push(first ? '{}' : `\n${indent}}`);
+  return '';
+}
+
+/** The JSON text of a result (two-space indent, long arrays one element per line; see jsonText), snake_case: every JSON writer prints through this. */
 export function snakeCaseJsonText(value: unknown): string {
-  return JSON.stringify(toSnakeCaseJson(value), null, 2);
+  return jsonText(toSnakeCaseJson(value));
 }

@@ -22,11 +22,11 @@ export const OUTPUT_FILES = [
 /** Output files written only when the run has them (column_calibration.csv: a GAC carbon with column tests). */
 export type OptionalOutputFile = 'column_calibration.csv';
 
-export function pipelineOutputs(r: PipelineResult, env: RunEnvironment): Record<(typeof OUTPUT_FILES)[number], string> & Partial<Record<OptionalOutputFile, string>> {
-  const model = buildReportModel(r, env.toolVersion);
+/** The CSV tables of a run (the sheets of results.xlsx), keyed by file name in output order. */
+export type RunTables = Pick<Record<(typeof OUTPUT_FILES)[number], string>, 'compounds.csv' | 'removal_curves.csv' | 'carbons.csv' | 'daily_doses.csv' | 'indicators.csv' | 'surrogates.csv' | 'setpoints.csv' | 'pilot_check.csv' | 'gac.csv' | 'uncertainty.csv' | 'kinetic_calibration.csv'> & Partial<Record<OptionalOutputFile, string>>;
+
+export function pipelineTables(r: PipelineResult): RunTables {
   return {
-    'summary.md': renderMarkdownSummary(model),
-    'report.html': renderHtmlReport(model),
     'compounds.csv': compoundsCsv(r),
     'removal_curves.csv': removalCurvesCsv(r),
     'carbons.csv': carbonsCsv(r),
@@ -39,6 +39,19 @@ export function pipelineOutputs(r: PipelineResult, env: RunEnvironment): Record<
     'uncertainty.csv': uncertaintyCsv(r),
     'kinetic_calibration.csv': kineticCalibrationCsv(r),
     ...(hasColumnCalibration(r) ? { 'column_calibration.csv': columnCalibrationCsv(r) } : {}),
+  };
+}
+
+/**
+ * @param tables the run's CSV tables when the caller has made them already (pipelineTables), so
+ *   that it can start on results.xlsx before the report and run.json are made
+ */
+export function pipelineOutputs(r: PipelineResult, env: RunEnvironment, tables: RunTables = pipelineTables(r)): Record<(typeof OUTPUT_FILES)[number], string> & Partial<Record<OptionalOutputFile, string>> {
+  const model = buildReportModel(r, env.toolVersion);
+  return {
+    'summary.md': renderMarkdownSummary(model),
+    'report.html': renderHtmlReport(model),
+    ...tables,
     'run.json': snakeCaseJsonText(runRecord(r, env)) + '\n',
   };
 }

@@ -3,12 +3,13 @@
  * texts themselves so the workbook holds exactly the numbers of the CSV files. Header cells keep
  * their units ("dose (mg/L)"); a cell that reads as a number in the CSV is written as a number,
  * everything else as text; an empty cell stays empty; the header row is bold and stays in view.
- * The SpreadsheetML parts (Office Open XML, ECMA-376 Part 1: workbook, worksheets with inline
- * strings, one style sheet, core properties) are written as text straight from the CSV cells and
- * packed with zipArchive.ts: a 36,500-day series has 73,000 daily rows, and building cell objects
- * for them cost seconds. The caller writes the bytes.
+ * The SpreadsheetML parts (Office Open XML, ECMA-376 Part 1: workbook, worksheets, one
+ * shared-string table for the text cells, one style sheet, core properties) are written as text
+ * straight from the CSV cells and packed with zipArchive.ts, the parts compressed on the thread
+ * pool: a 36,500-day series has 73,000 daily rows, and building cell objects for them cost
+ * seconds. The caller writes the bytes.
  */
-import { zipArchive } from './zipArchive.js';
+import { zipArchiveAsync } from './zipArchive.js';
 
 /** RFC 4180 fields of CSV text (quotes doubled inside quoted fields; \n or \r\n line ends). */
 export function parseCsv(text: string): string[][] {
@@ -41,6 +42,18 @@ export function parseCsv(text: string): string[][] {
 
 const NUMBER = /^-?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i;
 
+/**
+ * Decimal text that is already JavaScript's own form of its number (String(Number(text)) === text):
+ * at most 15 significant digits (so the text is the shortest that reads back as the same double),
+ * no exponent, no leading or trailing zeros, and not below 1e-6 (written with an exponent).
+ */
+const CANONICAL = /^-?(?:0\.(?!0{6})\d*[1-9]|[1-9]\d*(?:\.\d*[1-9])?)$/;
+
+/** The number of a CSV number cell as the sheet writes it (JavaScript's shortest round-trip form). */
+export function numberText(text: string): string {
+  return text.length <= 16 && CANONICAL.test(text) ? text : String(Number(text));
+}
+
 /** A CSV cell as a workbook value: number when it reads as one, else text; '' stays empty. */
 export function cellValue(text: string): string | number | null {
   if (text === '') return null;
@@ -59,16 +72,48 @@ function columnName(c: number): string {
   return s;
 }
 
+const NS_MAIN = 'http://schemas.openxmlformats.org/spreadsheetml/2006/main';
+const NS_REL = 'http://schemas.openxmlformats.org/officeDocument/2006/relationships';
+const XML_HEAD = '<?xml version="1.0" encoding="UTF-8" standalone="yes"?>\n';
+
 // characters XML 1.0 does not allow in text, and the five that need escaping
 const XML_ILLEGAL = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\uFFFE\uFFFF]/g;
 const XML_SPECIAL = /[<>&"]/g;
 const XML_ENTITY: Record<string, string> = { '<': '&lt;', '>': '&gt;', '&': '&amp;', '"': '&quot;' };
+const XML_NEEDS_WORK = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\uFFFE\uFFFF<>&"]/;
 function xmlText(s: string): string {
-  return s.replace(XML_ILLEGAL, '').replace(XML_SPECIAL, (c) => XML_ENTITY[c]!);
+  return XML_NEEDS_WORK.test(s) ? s.replace(XML_ILLEGAL, '').replace(XML_SPECIAL, (c) => XML_ENTITY[c]!) : s;
 }
 
-/** One worksheet's XML: frozen header row (bold, style 1), column widths, numbers and inline strings. */
-function sheetXml(rows: string[][]): string {
+/**
+ * The shared-string table of a workbook: each distinct text once, cells refer to it by index.
+ * A long series repeats a few texts (carbon, governing goal, currency) on every row; by index they
+ * cost a few bytes instead of the text each time.
+ */
+class SharedStrings {
+  readonly index = new Map<string, number>();
+  readonly items: string[] = [];
+  count = 0;
+  /** The index of `text`, added at first use. */
+  of(text: string): number {
+    this.count++;
+    let k = this.index.get(text);
+    if (k === undefined) { k = this.items.length; this.index.set(text, k); this.items.push(text); }
+    return k;
+  }
+  xml(): string {
+    const out: string[] = [`${XML_HEAD}<sst xmlns="${NS_MAIN}" count="${this.count}" uniqueCount="${this.items.length}">`];
+    for (const t of this.items) out.push(`<si><t xml:space="preserve">${xmlText(t)}</t></si>`);
+    out.push('</sst>');
+    return out.join('');
+  }
+}
+
+/**
+ * One worksheet's XML: frozen header row (bold inline strings, style 1), column widths, numbers,
+ * and text as shared strings.
+ */
+function sheetXml(rows: string[][], strings: SharedStrings): string {
   const header = rows[0] ?? [];
   const out: string[] = [
     '<?xml version="1.0" encoding="UTF-8" standalone="yes"?>\n<worksheet xmlns="http://schemas.openxmlformats.org/spreadsheetml/2006/main" xmlns:r="http://schemas.openxmlformats.org/officeDocument/2006/relationships">',
@@ -77,17 +122,19 @@ function sheetXml(rows: string[][]): string {
   ];
   if (header.length) out.push(`<cols>${header.map((h, c) => `<col min="${c + 1}" max="${c + 1}" width="${Math.min(40, Math.max(10, h.length + 2))}" customWidth="1"/>`).join('')}</cols>`);
   out.push('<sheetData>');
-  const letters = Array.from({ length: rows.reduce((m, r) => Math.max(m, r.length), 0) }, (_, c) => columnName(c));
+  const letters = Array.from({ length: rows.reduce((m, r) => Math.max(m, r.length), 0) }, (_, c) => `<c r="${columnName(c)}`);
   for (let i = 0; i < rows.length; i++) {
     const r = rows[i]!;
-    let line = `<row r="${i + 1}">`;
-    for (let c = 0; c < r.length; c++) {
-      const text = r[c]!;
-      const ref = `${letters[c]}${i + 1}`;
-      if (i === 0) { line += `<c r="${ref}" s="1" t="inlineStr"><is><t xml:space="preserve">${xmlText(text)}</t></is></c>`; continue; }
-      const v = cellValue(text);
-      if (v === null) continue;
-      line += typeof v === 'number' ? `<c r="${ref}"><v>${v}</v></c>` : `<c r="${ref}" t="inlineStr"><is><t xml:space="preserve">${xmlText(v)}</t></is></c>`;
+    const n = i + 1;
+    let line = `<row r="${n}">`;
+    if (i === 0) {
+      for (let c = 0; c < r.length; c++) line += `${letters[c]}${n}" s="1" t="inlineStr"><is><t xml:space="preserve">${xmlText(r[c]!)}</t></is></c>`;
+    } else {
+      for (let c = 0; c < r.length; c++) {
+        const text = r[c]!;
+        if (text === '') continue;
+        line += NUMBER.test(text) ? `${letters[c]}${n}"><v>${numberText(text)}</v></c>` : `${letters[c]}${n}" t="s"><v>${strings.of(text)}</v></c>`;
+      }
     }
     out.push(line + '</row>');
   }
@@ -95,25 +142,24 @@ function sheetXml(rows: string[][]): string {
   return out.join('');
 }
 
-const NS_MAIN = 'http://schemas.openxmlformats.org/spreadsheetml/2006/main';
-const NS_REL = 'http://schemas.openxmlformats.org/officeDocument/2006/relationships';
-const XML_HEAD = '<?xml version="1.0" encoding="UTF-8" standalone="yes"?>\n';
 
 /**
  * @param csvFiles CSV texts keyed by file name, in the order the sheets should take
  * @returns the .xlsx file's bytes
  */
 export async function resultsWorkbook(csvFiles: Record<string, string>, meta: { creator?: string; created?: Date } = {}): Promise<Uint8Array> {
-  const sheets = Object.entries(csvFiles).map(([file, text], k) => ({ name: sheetName(file), xml: sheetXml(parseCsv(text)), part: `worksheets/sheet${k + 1}.xml` }));
+  const strings = new SharedStrings();
+  const sheets = Object.entries(csvFiles).map(([file, text], k) => ({ name: sheetName(file), xml: sheetXml(parseCsv(text), strings), part: `worksheets/sheet${k + 1}.xml` }));
   const created = (meta.created ?? new Date()).toISOString().replace(/\.\d{3}Z$/, 'Z');
   const files = [
-    { name: '[Content_Types].xml', data: `${XML_HEAD}<Types xmlns="http://schemas.openxmlformats.org/package/2006/content-types"><Default Extension="rels" ContentType="application/vnd.openxmlformats-package.relationships+xml"/><Default Extension="xml" ContentType="application/xml"/><Override PartName="/xl/workbook.xml" ContentType="application/vnd.openxmlformats-officedocument.spreadsheetml.sheet.main+xml"/><Override PartName="/xl/styles.xml" ContentType="application/vnd.openxmlformats-officedocument.spreadsheetml.styles+xml"/>${sheets.map((s) => `<Override PartName="/xl/${s.part}" ContentType="application/vnd.openxmlformats-officedocument.spreadsheetml.worksheet+xml"/>`).join('')}<Override PartName="/docProps/core.xml" ContentType="application/vnd.openxmlformats-package.core-properties+xml"/></Types>` },
+    { name: '[Content_Types].xml', data: `${XML_HEAD}<Types xmlns="http://schemas.openxmlformats.org/package/2006/content-types"><Default Extension="rels" ContentType="application/vnd.openxmlformats-package.relationships+xml"/><Default Extension="xml" ContentType="application/xml"/><Override PartName="/xl/workbook.xml" ContentType="application/vnd.openxmlformats-officedocument.spreadsheetml.sheet.main+xml"/><Override PartName="/xl/styles.xml" ContentType="application/vnd.openxmlformats-officedocument.spreadsheetml.styles+xml"/><Override PartName="/xl/sharedStrings.xml" ContentType="application/vnd.openxmlformats-officedocument.spreadsheetml.sharedStrings+xml"/>${sheets.map((s) => `<Override PartName="/xl/${s.part}" ContentType="application/vnd.openxmlformats-officedocument.spreadsheetml.worksheet+xml"/>`).join('')}<Override PartName="/docProps/core.xml" ContentType="application/vnd.openxmlformats-package.core-properties+xml"/></Types>` },
     { name: '_rels/.rels', data: `${XML_HEAD}<Relationships xmlns="http://schemas.openxmlformats.org/package/2006/relationships"><Relationship Id="rId1" Type="${NS_REL}/officeDocument" Target="xl/workbook.xml"/><Relationship Id="rId2" Type="http://schemas.openxmlformats.org/package/2006/relationships/metadata/core-properties" Target="docProps/core.xml"/></Relationships>` },
     { name: 'docProps/core.xml', data: `${XML_HEAD}<cp:coreProperties xmlns:cp="http://schemas.openxmlformats.org/package/2006/metadata/core-properties" xmlns:dc="http://purl.org/dc/elements/1.1/" xmlns:dcterms="http://purl.org/dc/terms/" xmlns:xsi="http://www.w3.org/2001/XMLSchema-instance"><dc:creator>${xmlText(meta.creator ?? 'sorbshare')}</dc:creator><dcterms:created xsi:type="dcterms:W3CDTF">${created}</dcterms:created><dcterms:modified xsi:type="dcterms:W3CDTF">${created}</dcterms:modified></cp:coreProperties>` },
     { name: 'xl/workbook.xml', data: `${XML_HEAD}<workbook xmlns="${NS_MAIN}" xmlns:r="${NS_REL}"><bookViews><workbookView/></bookViews><sheets>${sheets.map((s, k) => `<sheet name="${xmlText(s.name)}" sheetId="${k + 1}" r:id="rId${k + 1}"/>`).join('')}</sheets></workbook>` },
-    { name: 'xl/_rels/workbook.xml.rels', data: `${XML_HEAD}<Relationships xmlns="http://schemas.openxmlformats.org/package/2006/relationships">${sheets.map((s, k) => `<Relationship Id="rId${k + 1}" Type="${NS_REL}/worksheet" Target="${s.part}"/>`).join('')}<Relationship Id="rId${sheets.length + 1}" Type="${NS_REL}/styles" Target="styles.xml"/></Relationships>` },
+    { name: 'xl/_rels/workbook.xml.rels', data: `${XML_HEAD}<Relationships xmlns="http://schemas.openxmlformats.org/package/2006/relationships">${sheets.map((s, k) => `<Relationship Id="rId${k + 1}" Type="${NS_REL}/worksheet" Target="${s.part}"/>`).join('')}<Relationship Id="rId${sheets.length + 1}" Type="${NS_REL}/styles" Target="styles.xml"/><Relationship Id="rId${sheets.length + 2}" Type="${NS_REL}/sharedStrings" Target="sharedStrings.xml"/></Relationships>` },
     { name: 'xl/styles.xml', data: `${XML_HEAD}<styleSheet xmlns="${NS_MAIN}"><fonts count="2"><font><sz val="11"/><name val="Calibri"/></font><font><b/><sz val="11"/><name val="Calibri"/></font></fonts><fills count="2"><fill><patternFill patternType="none"/></fill><fill><patternFill patternType="gray125"/></fill></fills><borders count="1"><border><left/><right/><top/><bottom/><diagonal/></border></borders><cellStyleXfs count="1"><xf numFmtId="0" fontId="0" fillId="0" borderId="0"/></cellStyleXfs><cellXfs count="2"><xf numFmtId="0" fontId="0" fillId="0" borderId="0" xfId="0"/><xf numFmtId="0" fontId="1" fillId="0" borderId="0" xfId="0" applyFont="1"/></cellXfs><cellStyles count="1"><cellStyle name="Normal" xfId="0" builtinId="0"/></cellStyles></styleSheet>` },
     ...sheets.map((s) => ({ name: `xl/${s.part}`, data: s.xml })),
+    { name: 'xl/sharedStrings.xml', data: strings.xml() },
   ];
-  return zipArchive(files, meta.created);
+  return zipArchiveAsync(files, meta.created);
 }

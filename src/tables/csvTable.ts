@@ -143,21 +143,65 @@ export function readCsvTable(text: string, specs: CsvColumnSpecs, file?: string,
   const loc = (row?: number): Location => ({ ...(file !== undefined ? { file } : {}), ...(row !== undefined ? { row } : {}) });
   const body = text.replace(/^\uFEFF/, '');
   const { separator, detected: separatorDetected } = detectSeparator(body, format.separator);
-  let records: Array<{ record: string[]; info: { lines: number } }>;
-  try {
-    records = parse(body, { delimiter: separator, skip_empty_lines: true, trim: true, info: true, comment: '#', comment_no_infix: true, relax_quotes: false }) as unknown as Array<{ record: string[]; info: { lines: number } }>;
-  } catch (e) {
-    const err = e as Error & { lines?: number };
-    const hint = separator === ',' && /\d,\d/.test(body) ? ' (numbers with decimal commas in a comma-separated file split into two cells: separate the cells with ";" or quote the numbers)' : '';
-    throw new InputError(`malformed CSV (${err.message.replace(/^Invalid Record Length: /, '')})${hint}; expected ${separator === ';' ? 'semicolon' : 'comma'}-separated values with the same number of cells in every row`, loc(err.lines));
+  let rows = splitPlainCsv(body, separator);
+  if (!rows) {
+    let records: Array<{ record: string[]; info: { lines: number } }>;
+    try {
+      records = parse(body, { delimiter: separator, skip_empty_lines: true, trim: true, info: true, comment: '#', comment_no_infix: true, relax_quotes: false }) as unknown as Array<{ record: string[]; info: { lines: number } }>;
+    } catch (e) {
+      const err = e as Error & { lines?: number };
+      const hint = separator === ',' && /\d,\d/.test(body) ? ' (numbers with decimal commas in a comma-separated file split into two cells: separate the cells with ";" or quote the numbers)' : '';
+      throw new InputError(`malformed CSV (${err.message.replace(/^Invalid Record Length: /, '')})${hint}; expected ${separator === ';' ? 'semicolon' : 'comma'}-separated values with the same number of cells in every row`, loc(err.lines));
+    }
+    rows = records.map((r) => ({ cells: r.record, row: r.info.lines }));
   }
-  const rows: TableRecord[] = records.map((r) => ({ cells: r.record, row: r.info.lines }));
-  const { decimal, detected: decimalDetected } = detectDecimal(rows.slice(1).flatMap((r) => r.cells), format.decimal);
+  const { decimal, detected: decimalDetected } = detectDecimal(dataCells(rows), format.decimal);
   const table = readTableRecords(rows, specs, file, decimal);
   table.format = { separator, decimal, separatorDetected, decimalDetected };
   const notice = formatNotice(table.format, file);
   table.notes = notice ? [notice] : [];
   return table;
+}
+
+/** Text the plain splitter leaves to the full CSV parser: quotes, a lone CR, whitespace other than space and tab. */
+const NEEDS_FULL_PARSER = /["\u000B\u000C\u00A0\u1680\u2000-\u200A\u2028\u2029\u202F\u205F\u3000\uFEFF]|\r(?!\n)/;
+
+/**
+ * The records of a CSV text without quotes, split at line ends and separators: the same records,
+ * cells and line numbers as the full parser (csv-parse with the options above) gives them, for
+ * the common plain file; undefined where the text needs the full parser (quotes, unusual
+ * whitespace, a line of blanks, an indented comment, rows of unequal length: the parser then
+ * reads it, or reports the error with its line). Exported for its test against the parser.
+ */
+export function splitPlainCsv(body: string, separator: string): TableRecord[] | undefined {
+  if (NEEDS_FULL_PARSER.test(body)) return undefined;
+  const crlf = body.includes('\r');
+  if (crlf && /(?:^|[^\r])\n/.test(body)) return undefined; // \r\n and \n mixed
+  const lines = body.split(crlf ? '\r\n' : '\n');
+  const rows: TableRecord[] = [];
+  let width = -1;
+  for (let i = 0; i < lines.length; i++) {
+    const line = lines[i]!;
+    if (line === '' || line.charCodeAt(0) === 35 /* # */) continue;
+    const cells = line.split(separator);
+    for (let c = 0; c < cells.length; c++) {
+      const t = cells[c]!;
+      const f = t.charCodeAt(0);
+      const l = t.charCodeAt(t.length - 1);
+      if (f === 32 || f === 9 || l === 32 || l === 9) cells[c] = t.trim();
+    }
+    if (cells.length === 1 && cells[0] === '') return undefined; // a line of blanks
+    if (cells[0]!.charCodeAt(0) === 35) return undefined; // an indented comment
+    if (width === -1) width = cells.length;
+    else if (cells.length !== width) return undefined;
+    rows.push({ cells, row: i + 1 });
+  }
+  return rows;
+}
+
+/** Every cell below the header row. */
+function* dataCells(rows: readonly TableRecord[]): Iterable<string> {
+  for (let i = 1; i < rows.length; i++) yield* rows[i]!.cells;
 }
 
 /**

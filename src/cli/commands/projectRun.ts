@@ -6,7 +6,7 @@
 import type { CommandContext } from '../commandSpec.js';
 import { runPipelineWithUncertainty } from '../../pipeline/runWithUncertainty.js';
 import { createProgressBar, type ProgressBar } from '../progressBar.js';
-import { pipelineOutputs } from '../../outputFiles/pipelineOutputs.js';
+import { pipelineOutputs, pipelineTables } from '../../outputFiles/pipelineOutputs.js';
 import type { PipelineInput, PipelineResult, ProgressEvent } from '../../pipeline/pipelineTypes.js';
 import { writeOutputDir } from '../../io/writeOutputs.js';
 import { reportPdf } from '../../io/reportPdf.js';
@@ -103,11 +103,6 @@ export function monteCarloProgress(ctx: CommandContext, thresholdMs = 1000, now:
   };
 }
 
-/** The CSV tables among the output texts, in output order (the sheets of results.xlsx). */
-export function csvTables(texts: Record<string, string>): Record<string, string> {
-  return Object.fromEntries(Object.entries(texts).filter(([name]) => name.endsWith('.csv')));
-}
-
 /** Run, write and print. */
 export async function runAndWrite(input: PipelineInput, outDir: string, json: boolean, ctx: CommandContext, mc: { draws?: number; seed?: number } = {}, formats: { pdf?: boolean } = {}): Promise<void> {
   checkOutputFolder(outDir, input.provenance.files.map((f) => f.resolved));
@@ -117,9 +112,13 @@ export async function runAndWrite(input: PipelineInput, outDir: string, json: bo
   bar.finish();
   progress.done();
   assertFiniteResult(result, result.project.carbons.map((c) => c.name));
-  const texts = pipelineOutputs(result, { toolVersion: VERSION, nodeVersion: process.version, platform: `${process.platform}-${process.arch}` });
-  // every output is made before anything is written (whole or nothing)
-  const files: Record<string, string | Uint8Array> = { ...texts, 'results.xlsx': await resultsWorkbook(csvTables(texts), { created: new Date(result.generatedAt) }) };
+  // every output is made before anything is written (whole or nothing); results.xlsx is
+  // compressed on the thread pool while the report and run.json are made
+  const tables = pipelineTables(result);
+  const workbook = resultsWorkbook(tables, { created: new Date(result.generatedAt) });
+  workbook.catch(() => undefined); // awaited below; a failure of the texts first must not leave it unhandled
+  const texts = pipelineOutputs(result, { toolVersion: VERSION, nodeVersion: process.version, platform: `${process.platform}-${process.arch}` }, tables);
+  const files: Record<string, string | Uint8Array> = { ...texts, 'results.xlsx': await workbook };
   if (formats.pdf) files['report.pdf'] = await reportPdf(texts['report.html']);
   writeOutputDir(outDir, files);
   const names = Object.keys(files);

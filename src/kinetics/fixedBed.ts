@@ -26,7 +26,8 @@
  */
 import { InputError } from '../core/errors.js';
 import { firstCrossing, curveIntegral, type BreakthroughCurve } from './breakthroughCurve.js';
-import { checkBed, checkComponents, filmCoefficients, type ComponentFilm, type FixedBedInput } from './fixedBedInput.js';
+import { checkBed, checkComponents, filmCoefficients, type ComponentFilm, type FixedBedComponent, type FixedBedInput, type FixedBedSpec } from './fixedBedInput.js';
+import { solveBedBackground, type BedBackgroundHistory } from './fixedBedBackground.js';
 import { fixedBedModel, type BedComponentScales } from './fixedBedModel.js';
 import { integrateImplicit, type IntegratorStats } from './implicitIntegrator.js';
 
@@ -60,6 +61,8 @@ export interface FixedBedOptions {
    * last output point computed, and `toBedVolumes` is only the longest run).
    */
   stopWhen?: (bedVolumes: readonly number[], cOverC0ById: Readonly<Record<string, readonly number[]>>) => boolean;
+  /** Replay these integrator steps (the `stepTimes` of an earlier run; not with `stopWhen`): results smooth in the parameters. */
+  stepTimes?: readonly number[];
 }
 
 /** Default integrator tolerances of the fixed-bed model (ours; see FixedBedOptions.rtol). */
@@ -114,6 +117,8 @@ export interface FixedBedResult {
   films: ComponentFilm[];
   grid: { cells: number; interiorPoints: number };
   stats: IntegratorStats;
+  /** End time of every accepted step, bed volumes (for a replay; absent with `stopWhen`). */
+  stepTimes?: number[];
   warnings: string[];
 }
 
@@ -139,17 +144,8 @@ export function simulateFixedBed(input: FixedBedInput, options: FixedBedOptions)
   const isTrace = (c0: number) => c0 < traceFraction * totalAds;
   const ordered = [...adsorbable.filter((x) => !isTrace(x.c.c0MgPerL)), ...adsorbable.filter((x) => isTrace(x.c.c0MgPerL))];
   const nb = ordered.filter((x) => !isTrace(x.c.c0MgPerL)).length;
-  const R = bed.particleRadiusM, rhoP = bed.particleDensityKgPerM3, ebct = bed.ebctS;
-  const scales: BedComponentScales[] = ordered.map(({ c }) => {
-    const kf = kfOf.get(c.id)!;
-    const qRef = c.K * Math.pow(c.c0MgPerL, c.oneOverN);
-    return {
-      c0MgPerL: c.c0MgPerL, K: c.K, beta: c.oneOverN, qRefMgPerG: qRef,
-      stanton: ((1 - eps) * 3 * kf * ebct) / R, // St = (1 − ε)·3·kf·EBCT/R
-      diffusion: (c.dsM2PerS! * ebct) / (R * R), // Dτ = Ds·EBCT/R²
-      film: (3 * kf * ebct * c.c0MgPerL) / (R * rhoP * qRef), // Φ = 3·kf·EBCT·c0/(R·ρp·q_ref)
-    };
-  });
+  const rhoP = bed.particleDensityKgPerM3;
+  const scales = ordered.map(({ c }) => componentScales(c, kfOf.get(c.id)!, bed));
   const given = options.outputBedVolumes;
   if (given) given.forEach((b, k) => { if (!(b > 0) || !Number.isFinite(b) || (k > 0 && !(b > given[k - 1]!))) throw new InputError(`expected strictly increasing output bed volumes > 0; value ${b} at index ${k}`, { path: `outputBedVolumes[${k}]` }); });
   const bvs = given ? [0, ...given] : outputGrid(toBv, points);
@@ -159,6 +155,8 @@ export function simulateFixedBed(input: FixedBedInput, options: FixedBedOptions)
   let stats: IntegratorStats = { steps: 0, rejectedSteps: 0, newtonIterations: 0, newtonFailures: 0, factorizations: 0, rhsEvaluations: 0, maxAcceptedError: 0 };
   const grid = { cells: options.cells ?? DEFAULT_FIXED_BED_GRID.cells, interiorPoints: options.interiorPoints ?? DEFAULT_FIXED_BED_GRID.interiorPoints };
   let end = bvs.length; // output points computed (all unless stopWhen ends the run)
+  let stepTimes: number[] | undefined;
+  if (options.stepTimes && options.stopWhen) throw new InputError('a replay of steps cannot stop early', { path: 'stepTimes' });
   if (ordered.length > 0) {
     const model = fixedBedModel(scales, nb, eps, rhoP, grid);
     const record = (y: Float64Array, k: number) => {
@@ -174,8 +172,9 @@ export function simulateFixedBed(input: FixedBedInput, options: FixedBedOptions)
     const tol = { rtol: options.rtol ?? FIXED_BED_TOLERANCES.rtol, atol: options.atol ?? FIXED_BED_TOLERANCES.atol };
     const stop = options.stopWhen;
     if (!stop) {
-      const res = integrateImplicit(model, 0, new Float64Array(model.size), bvs, tol);
+      const res = integrateImplicit(model, 0, new Float64Array(model.size), bvs, options.stepTimes ? { ...tol, stepTimes: options.stepTimes } : tol);
       stats = res.stats;
+      stepTimes = res.stepTimes;
       res.states.forEach((y, k) => record(y, k));
     } else {
       // in segments of STOP_CHECK_POINTS output points, each continuing from the last state with
@@ -240,6 +239,7 @@ export function simulateFixedBed(input: FixedBedInput, options: FixedBedOptions)
     films,
     grid,
     stats,
+    ...(stepTimes ? { stepTimes } : {}),
     warnings: films.filter((f) => f.warning).map((f) => f.warning!),
   };
   const docIdx = comps.map((c, i) => (c.doc ? i : -1)).filter((i) => i >= 0);
@@ -253,6 +253,99 @@ export function simulateFixedBed(input: FixedBedInput, options: FixedBedOptions)
     result.uv254 = { uv0PerM: uv0, ratio: bvs.map((_, k) => uvIdx.reduce((s, i) => s + comps[i]!.uv254PerMgPerL! * comps[i]!.c0MgPerL * cOverC0[i]![k]!, 0) / uv0) };
   }
   return result;
+}
+
+/** The dimensionless scales of one adsorbable component with film coefficient kf (m/s) in `bed`. */
+function componentScales(c: FixedBedComponent, kf: number, bed: FixedBedSpec): BedComponentScales {
+  const eps = bed.porosity, R = bed.particleRadiusM, rhoP = bed.particleDensityKgPerM3, ebct = bed.ebctS;
+  const qRef = c.K * Math.pow(c.c0MgPerL, c.oneOverN);
+  return {
+    c0MgPerL: c.c0MgPerL, K: c.K, beta: c.oneOverN, qRefMgPerG: qRef,
+    stanton: ((1 - eps) * 3 * kf * ebct) / R, // St = (1 − ε)·3·kf·EBCT/R
+    diffusion: (c.dsM2PerS! * ebct) / (R * R), // Dτ = Ds·EBCT/R²
+    film: (3 * kf * ebct * c.c0MgPerL) / (R * rhoP * qRef), // Φ = 3·kf·EBCT·c0/(R·ρp·q_ref)
+  };
+}
+
+/** Options of a background solved once for trace targets. */
+export interface TraceBedOptions {
+  /** Output bed volumes (strictly increasing, > 0; the last one is the run length). */
+  outputBedVolumes: readonly number[];
+  /** Axial cells and interior grain points (default DEFAULT_FIXED_BED_GRID). */
+  cells?: number;
+  interiorPoints?: number;
+  /** Tolerances of the background's integration (default FIXED_BED_TOLERANCES). */
+  rtol?: number;
+  atol?: number;
+}
+
+/** The outlet of one trace target against a stored background. */
+export interface TraceOutlet {
+  /** c/c0 at 0 and at each output bed volume. */
+  cOverC0: number[];
+  /** max |fed − left − held|/fed of the target over the output times. */
+  massBalanceError: number;
+  stats: IntegratorStats;
+  /** End time of every accepted step (for a replay). */
+  stepTimes: number[];
+}
+
+/**
+ * A fixed bed whose background components are solved once (src/kinetics/fixedBedBackground.ts);
+ * `outlet` then integrates one trace target alone against the stored background, with its own
+ * step control. Equal to the coupled solve of simulateFixedBed within the integrators' tolerances
+ * (tests/kinetics/fixedBedTrace.test.ts), and far cheaper when many targets or many values of a
+ * target's parameters are asked (column fits, Monte Carlo draws).
+ */
+export interface TraceBed {
+  readonly bedVolumes: readonly number[];
+  readonly background: BedBackgroundHistory;
+  /**
+   * The target's outlet; it must be a trace against the background (feed below `traceFraction`, default
+   * 1e-3, of the adsorbable total) and have Ds and kf or DL. `rtol`/`atol` of its own integration
+   * (default FIXED_BED_TOLERANCES); `stepTimes` replays the steps of an earlier outlet (results smooth in the
+   * target's parameters, for difference quotients).
+   * @throws InputError for a target that is not a trace or lacks inputs; ComputationError when the integration fails
+   */
+  outlet(target: FixedBedComponent, options?: { rtol?: number; atol?: number; traceFraction?: number; stepTimes?: readonly number[] }): TraceOutlet;
+}
+
+/** Solve the background of `input` (its components, none of them the targets) once; see TraceBed. */
+export function traceBed(input: FixedBedInput, options: TraceBedOptions): TraceBed {
+  const { bed } = input;
+  checkBed(bed);
+  checkComponents(input.components);
+  const given = options.outputBedVolumes;
+  given.forEach((b, k) => { if (!(b > 0) || !Number.isFinite(b) || (k > 0 && !(b > given[k - 1]!))) throw new InputError(`expected strictly increasing output bed volumes > 0; value ${b} at index ${k}`, { path: `outputBedVolumes[${k}]` }); });
+  if (given.length === 0) throw new InputError('expected at least one output bed volume', { path: 'outputBedVolumes' });
+  const bvs = [0, ...given];
+  const ads = input.components.filter((c) => c.K > 0);
+  if (ads.length === 0) throw new InputError('a stored background needs at least one adsorbable background component', { path: 'components' });
+  ads.forEach((c) => { if (!(c.c0MgPerL > 0)) throw new InputError(`component "${c.id}": an adsorbable component needs a feed concentration c0 > 0`, { path: 'components' }); });
+  const totalAds = ads.reduce((s, c) => s + c.c0MgPerL, 0);
+  const films = filmCoefficients(ads, bed);
+  const grid = { cells: options.cells ?? DEFAULT_FIXED_BED_GRID.cells, interiorPoints: options.interiorPoints ?? DEFAULT_FIXED_BED_GRID.interiorPoints };
+  const tol = { rtol: options.rtol ?? FIXED_BED_TOLERANCES.rtol, atol: options.atol ?? FIXED_BED_TOLERANCES.atol };
+  const { history } = solveBedBackground(ads.map((c, i) => componentScales(c, films[i]!.kfMPerS, bed)), bed.porosity, bed.particleDensityKgPerM3, grid, bvs, tol);
+  return {
+    bedVolumes: bvs,
+    background: history,
+    outlet(target, opts = {}) {
+      checkComponents([target]);
+      if (!(target.K > 0) || !(target.c0MgPerL > 0)) throw new InputError(`target "${target.id}": expected an adsorbable target with c0 > 0`, { path: 'target' });
+      const fraction = opts.traceFraction ?? 1e-3;
+      if (!(target.c0MgPerL < fraction * (totalAds + target.c0MgPerL))) throw new InputError(`target "${target.id}" is not a trace against the background (c0 ${target.c0MgPerL} mg/L)`, { path: 'target.c0' });
+      const kf = filmCoefficients([target], bed)[0]!.kfMPerS;
+      const model = fixedBedModel([componentScales(target, kf, bed)], 0, bed.porosity, bed.particleDensityKgPerM3, grid, history);
+      const res = integrateImplicit(model, 0, new Float64Array(model.size), bvs, { rtol: opts.rtol ?? tol.rtol, atol: opts.atol ?? tol.atol, ...(opts.stepTimes ? { stepTimes: opts.stepTimes } : {}) });
+      let massErr = 0;
+      const cOverC0 = res.states.map((y, k) => {
+        if (k > 0) massErr = Math.max(massErr, Math.abs(bvs[k]! - y[model.outflowIndex(0)]! - model.held(y, 0)) / bvs[k]!);
+        return model.outlet(y, 0);
+      });
+      return { cOverC0, massBalanceError: massErr, stats: res.stats, stepTimes: res.stepTimes };
+    },
+  };
 }
 
 /** Evenly spaced bed volumes from 0 to `toBv`, with 30 log-spaced ones from 1 BV below the first step. */

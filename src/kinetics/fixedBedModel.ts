@@ -34,6 +34,7 @@
 import { ComputationError } from '../core/errors.js';
 import { denseLu, luFactorAt, luSolveAt } from './denseLu.js';
 import type { NewtonSolve, StiffSystem } from './implicitIntegrator.js';
+import type { BedBackgroundHistory } from './fixedBedBackground.js';
 import { reverseIast, traceSurfaceFactor, type ReverseIastState } from './reverseIast.js';
 import { sphereCollocation, type SphereCollocation } from './sphereCollocation.js';
 
@@ -83,12 +84,19 @@ export interface BedModel extends StiffSystem {
 /**
  * Build the model. `components` lists the background components first (`backgroundCount` ≥ 1),
  * then the traces. `particleDensityGPerL` = ρp (kg/m³ = g/L).
+ *
+ * With `background` (a background solved once, src/kinetics/fixedBedBackground.ts) the model holds
+ * only trace components (`backgroundCount` 0): their κ_T comes from the stored background surface
+ * state at the time asked, so each trace is a one-way-coupled system of its own (the same equations).
  * @throws ComputationError for a grid below 3 cells or 1 interior point
  */
-export function fixedBedModel(components: readonly BedComponentScales[], backgroundCount: number, porosity: number, particleDensityGPerL: number, grid: BedGrid): BedModel {
+export function fixedBedModel(components: readonly BedComponentScales[], backgroundCount: number, porosity: number, particleDensityGPerL: number, grid: BedGrid, background?: BedBackgroundHistory): BedModel {
   const Nz = grid.cells;
   if (!Number.isInteger(Nz) || Nz < 3) throw new ComputationError(`fixed bed: at least 3 axial cells are needed, got ${Nz}`);
-  if (!(backgroundCount >= 1 && backgroundCount <= components.length)) throw new ComputationError('fixed bed: at least one background component is needed');
+  if (background) {
+    if (backgroundCount !== 0 || components.length < 1) throw new ComputationError('fixed bed: with a stored background the model holds trace components only');
+    if (background.cells !== Nz) throw new ComputationError(`fixed bed: the stored background has ${background.cells} cells, the model ${Nz}`);
+  } else if (!(backgroundCount >= 1 && backgroundCount <= components.length)) throw new ComputationError('fixed bed: at least one background component is needed');
   const col = sphereCollocation(grid.interiorPoints);
   const N = col.interiorPoints;
   const P = N + 2; // u, w_0..w_N
@@ -103,7 +111,10 @@ export function fixedBedModel(components: readonly BedComponentScales[], backgro
   // Σ_{i<N} ω_i B_ik: the interior part of the mean, for the surface node's equation
   const interiorMeanB = new Float64Array(N + 1);
   for (let k = 0; k <= N; k++) { let s = 0; for (let i = 0; i < N; i++) s += wt[i]! * B[i * (N + 1) + k]!; interiorMeanB[k] = s; }
-  const bgIso = { K: Float64Array.from(components.slice(0, nb), (c) => c.K), beta: Float64Array.from(components.slice(0, nb), (c) => c.beta) };
+  const bgIso = background ? background.iso : { K: Float64Array.from(components.slice(0, nb), (c) => c.K), beta: Float64Array.from(components.slice(0, nb), (c) => c.beta) };
+  // with a stored background: its surface state per cell at time `tNow` (the time of the last rhs or factor call)
+  let tNow = 0;
+  const storedSt: ReverseIastState = { psi: 0, total: 0 };
   const qRef = Float64Array.from(components, (c) => c.qRefMgPerG);
   const c0 = Float64Array.from(components, (c) => c.c0MgPerL);
 
@@ -127,6 +138,16 @@ export function fixedBedModel(components: readonly BedComponentScales[], backgro
   /** Surface concentrations of all components in cell j (and background Jacobian when asked). */
   const surface = (y: Float64Array, j: number, withJac: boolean, kappas?: Float64Array, dKappas?: Float64Array): ReverseIastState => {
     const base = j * S;
+    if (background) {
+      background.surfaceAt(tNow, j, storedSt);
+      for (let m = 0; m < na; m++) {
+        const comp = components[m]!;
+        const kappa = traceSurfaceFactor(comp.K, comp.beta, storedSt, bgIso.beta);
+        if (kappas) kappas[m] = kappa;
+        cs[m] = kappa * qRef[m]! * y[base + m * P + 1 + N]!;
+      }
+      return storedSt;
+    }
     // for the Newton matrix the loadings are floored at JAC_FLOOR·q_ref: reverse IAST's Jacobian
     // overflows at loadings near the smallest doubles (c°/Σq), and any finite approximation will do
     if (withJac) for (let b = 0; b < nb; b++) qS[b] = qRef[b]! * Math.max(y[base + b * P + 1 + N]!, JAC_FLOOR);
@@ -193,8 +214,11 @@ export function fixedBedModel(components: readonly BedComponentScales[], backgro
     }
     return false;
   };
-  const rhs = (_t: number, y: Float64Array, dy: Float64Array): void => {
+  let lastT = 0;
+  const rhs = (t: number, y: Float64Array, dy: Float64Array): void => {
     lastState.set(y);
+    lastT = t;
+    tNow = t;
     rhsCalls++;
     for (let j = 0; j < Nz; j++) {
       surface(y, j, false);
@@ -242,7 +266,7 @@ export function fixedBedModel(components: readonly BedComponentScales[], backgro
   const bgPiv = new Int32Array(Nz * n2);
   const tr = new Float64Array(Nz * Math.max(1, nt) * 4);
   const coupling = new Float64Array(Nz * Math.max(1, nt) * 2 * nb);
-  const factor = (_t: number, y: Float64Array, gh: number): NewtonSolve => {
+  const factor = (t0: number, y: Float64Array, gh: number): NewtonSolve => {
     solvesSinceFactor = 0;
     for (let m = 0; m < na; m++) {
       const dTau = components[m]!.diffusion;
@@ -281,7 +305,7 @@ export function fixedBedModel(components: readonly BedComponentScales[], backgro
           bgMat[mo + rs * n2 + 2 * b + 1] = bgMat[mo + rs * n2 + 2 * b + 1]! - gh * (comp.film / wN) * dFilm;
         }
       }
-      luFactorAt(bgMat, j * n2 * n2, n2, bgPiv, j * n2, 'fixed bed (background block)');
+      if (nb > 0) luFactorAt(bgMat, j * n2 * n2, n2, bgPiv, j * n2, 'fixed bed (background block)');
       for (let m = nb; m < na; m++) {
         const comp = components[m]!;
         const t = j * nt + (m - nb);
@@ -302,19 +326,26 @@ export function fixedBedModel(components: readonly BedComponentScales[], backgro
       }
     }
     };
+    tNow = t0;
     blocks(y);
     builtState.set(y);
+    let builtT = t0;
     let builtAt = rhsCalls;
     return (x: Float64Array): void => {
       // a later Newton iteration whose iterate (the state of the last rhs call) has moved: refresh
       // the blocks there, so the reverse-IAST nonlinearity does not stall Newton into step cuts
-      if (rhsCalls !== builtAt && solvesSinceFactor++ > 0 && moved(lastState)) {
+      // (with a stored background at every new iterate: the trace blocks are cheap to rebuild, κ_T
+      // moves with time, and the limiter at tiny c/c0 otherwise slows Newton to a crawl)
+      if (rhsCalls !== builtAt && (background !== undefined || (solvesSinceFactor++ > 0 && moved(lastState)))) {
         builtAt = rhsCalls;
         try {
+          tNow = lastT;
           blocks(lastState);
           builtState.set(lastState);
+          builtT = lastT;
         } catch (err) {
           if (!(err instanceof ComputationError)) throw err;
+          tNow = builtT;
           blocks(builtState); // singular at a wild iterate: keep the last good matrix
         }
       }
@@ -339,7 +370,7 @@ export function fixedBedModel(components: readonly BedComponentScales[], backgro
           x[o + 1 + N] = x[o + 1 + N]! - (gh * components[m]!.diffusion * corr) / wN;
         }
         for (let m = 0; m < nb; m++) { rBg[2 * m] = x[base + m * P]!; rBg[2 * m + 1] = x[base + m * P + 1 + N]!; }
-        luSolveAt(bgMat, j * n2 * n2, n2, bgPiv, j * n2, rBg, 0);
+        if (nb > 0) luSolveAt(bgMat, j * n2 * n2, n2, bgPiv, j * n2, rBg, 0);
         for (let m = 0; m < nb; m++) { x[base + m * P] = rBg[2 * m]!; x[base + m * P + 1 + N] = rBg[2 * m + 1]!; }
         for (let m = nb; m < na; m++) {
           const o = base + m * P;

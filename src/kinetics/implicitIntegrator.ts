@@ -56,6 +56,11 @@ export interface IntegratorOptions {
    * model's parameters, for difference quotients. A Newton failure then throws.
    */
   stepTimes?: readonly number[];
+  /**
+   * Called at the start and after every accepted step with the time, the state and its derivative
+   * (views into the integrator's buffers: copy what you keep), e.g. to record a dense history.
+   */
+  onStep?: (t: number, y: Float64Array, dydt: Float64Array) => void;
 }
 
 export interface IntegratorStats {
@@ -161,6 +166,8 @@ export function integrateImplicit(
   if (outIdx >= outputTimes.length) return { times, states, stats, stepTimes };
 
   if (!rhs(t, y, f0)) throw new ComputationError(`${what}: the derivative is not finite at the start (t = ${t})`);
+  const onStep = options.onStep;
+  onStep?.(t, y, f0);
   let h = options.initialStep ?? 0;
   if (!(h > 0)) {
     setWeights(y, y);
@@ -265,6 +272,7 @@ export function integrateImplicit(
     t = hitsOutput ? target : t + hStep;
     y.set(y1);
     f0.set(f1);
+    onStep?.(t, y, f0);
     // keep the step the controller wants; a step shortened to hit an output does not shrink it
     h = hitsOutput ? Math.max(h, hStep) * (en === 0 ? 1 : Math.min(1, factor)) : hStep * factor;
     if (hitsOutput) {

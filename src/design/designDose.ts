@@ -17,7 +17,7 @@ import type { CompoundGoal } from './compoundGoal.js';
 import { compoundDoseSolved, type CompoundDose } from './compoundDose.js';
 import { powerLawRoot } from './indicatorDoseNewton.js';
 import { indicatorDose, type IndicatorDose, type IndicatorGoal } from './indicatorGoal.js';
-import type { DoseAtRemoval, RemovalModel } from './removalModel.js';
+import type { DoseAtRemoval, RemovalModel, WarmStart } from './removalModel.js';
 import { costPerM3 } from './carbonCost.js';
 
 export interface DesignProblem {
@@ -53,11 +53,31 @@ export interface Design {
   surrogate?: SurrogateSetPoint;
 }
 
+/**
+ * The solve states a design ended with (each compound's at its dose, the background's at the
+ * required dose), by model kind: warm starts for a design of the same kind near it (another DOC,
+ * a Monte Carlo draw). Only a speed-up; kept beside the design so that the result stays plain data.
+ */
+interface DesignWarm {
+  kind: string;
+  compounds: Array<WarmStart | undefined>;
+  background?: WarmStart;
+}
+const designWarm = new WeakMap<Design, DesignWarm>();
+
+/** The warm starts a design left for a model of the same kind, if any. */
+function warmOf(near: Design | undefined, model: RemovalModel): DesignWarm | undefined {
+  const w = near ? designWarm.get(near) : undefined;
+  return w && w.kind === model.kind ? w : undefined;
+}
+
 /** DOC and UV254 reduction of the model's fictive background at a dose (mg/L). */
-export function surrogatesAt(model: RemovalModel, doseMgPerL: number, uv254AbsorbancePerM?: readonly number[]): SurrogateSetPoint | undefined {
+export function surrogatesAt(model: RemovalModel, doseMgPerL: number, uv254AbsorbancePerM?: readonly number[], warm?: { background?: WarmStart }): SurrogateSetPoint | undefined {
   const c0 = model.backgroundC0MgPerL;
   if (!c0 || !model.backgroundRemaining) return undefined;
-  const c = model.backgroundRemaining(doseMgPerL / 1000).cMgPerL;
+  const at = model.backgroundRemaining(doseMgPerL / 1000, warm?.background);
+  if (warm) warm.background = at.warm;
+  const c = at.cMgPerL;
   let doc0 = 0, doc = 0, uv0 = 0, uv = 0;
   for (let i = 0; i < c0.length; i++) {
     doc0 += c0[i]!;
@@ -97,14 +117,17 @@ function indicatorHint(goal: IndicatorGoal, solved: ReadonlyArray<DoseAtRemoval 
 export function designDose(model: RemovalModel, problem: DesignProblem, near?: Design): Design {
   const docMgPerL = model.docMgPerL;
   const scale = near ? docMgPerL / near.docMgPerL : 1;
+  const prev = warmOf(near, model);
   const solved: Array<DoseAtRemoval | undefined> = [];
   const compounds = problem.goals.map((goal, i) => {
     const prior = near?.compounds[i];
     const hint = prior && prior.status === 'met' && prior.doseMgPerL ? prior.doseMgPerL * scale : undefined;
-    const r = compoundDoseSolved(model, i, goal, hint, problem.indicator !== undefined);
+    const r = compoundDoseSolved(model, i, goal, hint, problem.indicator !== undefined, prev?.compounds[i]);
     solved[i] = r.solved;
     return r.dose;
   });
+  const warm: DesignWarm = { kind: model.kind, compounds: solved.map((d) => d?.warm) };
+  if (prev?.background !== undefined) warm.background = prev.background;
   let governing: Design['governing'];
   for (const c of compounds) {
     if (c.doseMgPerL !== null && (!governing || c.doseMgPerL > governing.doseMgPerL)) governing = { compoundId: c.compoundId, doseMgPerL: c.doseMgPerL };
@@ -127,9 +150,10 @@ export function designDose(model: RemovalModel, problem: DesignProblem, near?: D
   if (out.doseMgPerL !== null) {
     out.costPerM3 = costPerM3(out.doseMgPerL, problem.pricePerKg);
     if (out.doseMgPerL > 0) {
-      const s = surrogatesAt(model, out.doseMgPerL, problem.uv254AbsorbancePerM);
+      const s = surrogatesAt(model, out.doseMgPerL, problem.uv254AbsorbancePerM, warm);
       if (s) out.surrogate = s;
     }
   }
+  designWarm.set(out, warm);
   return out;
 }

@@ -12,15 +12,22 @@
  */
 import { InputError } from '../core/errors.js';
 import { softplus } from '../core/logistic.js';
-import { prepareMixture, scaleMixture, type FreundlichComponent, type PreparedMixture } from '../equilibrium/preparedMixture.js';
-import { remainingAtState, remainingSlopeAtState, solveBatchPrepared, solveBatchState } from '../equilibrium/iastBatch.js';
+import { checkLead, prepareMixture, prependComponent, scaleMixture, type FreundlichComponent, type PreparedMixture } from '../equilibrium/preparedMixture.js';
+import { remainingAtState, remainingSlopeAtState, solveBatchPrepared, solveBatchState, type IastState } from '../equilibrium/iastBatch.js';
 import { iastDoseForRemoval } from '../equilibrium/iastDoseForRemoval.js';
 import type { BackgroundAtDose, CompetitionSet, DoseAtRemoval, RemainingAtDose, RemainingEstimates, RemovalModel, RemovalModelFactory, WarmStart } from './removalModel.js';
 
-type IastState = { u: number; theta: number };
 
 function scaled(components: readonly FreundlichComponent[], factor: number): FreundlichComponent[] {
   return components.map((c) => ({ ...c, c0MgPerL: c.c0MgPerL * factor }));
+}
+
+/** The competitors of every set when all sets share one non-empty list (the same array), else undefined. */
+function sharedCompetitors(sets: readonly CompetitionSet[]): readonly FreundlichComponent[] | undefined {
+  const first = sets[0]?.competitors;
+  if (!first || first.length === 0) return undefined;
+  for (const s of sets) if (s.competitors !== first) return undefined;
+  return first;
 }
 
 /** The model this one was moved from with atDoc, and the DOC factor (mixtures are scaled on first use). */
@@ -41,6 +48,8 @@ export class EquilibriumRemoval implements RemovalModel {
   private backgroundCache?: readonly FreundlichComponent[];
   private readonly moved?: Moved;
   private groupCache?: Int32Array;
+  /** The competitors every target shares, prepared once (absent when the sets differ). */
+  private shared?: PreparedMixture;
 
   /**
    * @param sets       each target with its competitors at `docMgPerL`
@@ -65,10 +74,24 @@ export class EquilibriumRemoval implements RemovalModel {
       if (!(s.target.c0MgPerL > 0) || !Number.isFinite(s.target.c0MgPerL)) throw new InputError(`expected a feed concentration > 0 mg/L for "${s.target.id}", got ${s.target.c0MgPerL}`, { path: `compounds[${i}].c0` });
       return s.target.c0MgPerL;
     });
-    this.mixtures = sets.map((s) => prepareMixture([s.target, ...s.competitors]));
+    const competitors = sharedCompetitors(sets);
+    let shared: PreparedMixture | undefined;
+    if (competitors) {
+      // every target beside the same competitors (the Monte Carlo's draws, the pipeline's fictive
+      // background): prepare them once, each target's mixture on first use; a check that fails
+      // is left to prepareMixture below, for its messages
+      try {
+        shared = prepareMixture(competitors);
+        for (const s of sets) checkLead(s.target, shared);
+      } catch { shared = undefined; }
+    }
+    if (shared) {
+      this.shared = shared;
+      this.mixtures = new Array<PreparedMixture | undefined>(sets.length);
+    } else this.mixtures = sets.map((s) => prepareMixture([s.target, ...s.competitors]));
     if (background && background.length) {
       this.backgroundCache = background;
-      this.bgMixture = prepareMixture(background);
+      this.bgMixture = shared && background === competitors ? shared : prepareMixture(background);
       this.backgroundC0MgPerL = Float64Array.from(background, (c) => c.c0MgPerL);
     }
   }
@@ -91,6 +114,11 @@ export class EquilibriumRemoval implements RemovalModel {
   private mixture(index: number): PreparedMixture {
     let pm = this.mixtures[index];
     if (pm) return pm;
+    if (this.shared && index >= 0 && index < this.mixtures.length) {
+      pm = prependComponent(this.setsCache![index]!.target, this.shared);
+      this.mixtures[index] = pm;
+      return pm;
+    }
     if (!this.moved || index < 0 || index >= this.mixtures.length) throw new InputError(`compound index ${index} is not in the model (${this.mixtures.length} compounds)`);
     // the prepared mixture scaled in place of preparing it again (the target, component 0, keeps its c0)
     pm = scaleMixture(this.moved.parent.mixture(index), this.moved.factor, 0);
@@ -163,6 +191,15 @@ export class EquilibriumRemoval implements RemovalModel {
     if (this.groupCache) return this.groupCache;
     const T = this.mixtures.length;
     const g = new Int32Array(T);
+    if (this.shared) {
+      // one list of competitors: every adsorbable target in the group of the first one
+      let first = -1;
+      for (let i = 0; i < T; i++) {
+        g[i] = i;
+        if (this.setsCache![i]!.target.K > 0) { if (first < 0) first = i; g[i] = first; }
+      }
+      return (this.groupCache = g);
+    }
     const same = (p: PreparedMixture, q: PreparedMixture): boolean => {
       if (p.active[0] !== 0 || q.active[0] !== 0 || p.c0.length !== q.c0.length) return false;
       for (let k = 1; k < p.c0.length; k++) if (p.c0[k] !== q.c0[k] || p.n[k] !== q.n[k] || p.a[k] !== q.a[k]) return false;
@@ -179,9 +216,8 @@ export class EquilibriumRemoval implements RemovalModel {
     const pm = this.mixture(index);
     if (pm.active[0] !== 0 || !(removalFraction > 0 && removalFraction < 1)) return undefined;
     const r = iastDoseForRemoval(pm, 0, removalFraction, (warm as IastState | undefined)?.u);
-    const out: DoseAtRemoval = { doseGPerL: r.doseGPerL, remainingFraction: remainingAtState(pm, 0, r.state), warm: r.state };
-    if (withSlope) out.slope = remainingSlopeAtState(pm, r.doseGPerL, 0, r.state);
-    return out;
+    // one object layout whether or not the slope is asked for (hot loops stay monomorphic)
+    return { doseGPerL: r.doseGPerL, remainingFraction: remainingAtState(pm, 0, r.state), slope: withSlope ? remainingSlopeAtState(pm, r.doseGPerL, 0, r.state) : undefined, warm: r.state };
   }
 
   backgroundRemaining(doseGPerL: number, warm?: WarmStart): BackgroundAtDose {

@@ -49,8 +49,8 @@ export interface DoseAtRemoval {
   doseGPerL: number;
   /** c/c0 at that dose (1 − goal, to the model's own tolerance). */
   remainingFraction: number;
-  /** d ln(c/c0)/d ln D there, when asked for (`withSlope`) and the model gives it. */
-  slope?: number;
+  /** d ln(c/c0)/d ln D there, when asked for (`withSlope`) and the model gives it (else absent or undefined). */
+  slope?: number | undefined;
   warm: WarmStart;
 }
 

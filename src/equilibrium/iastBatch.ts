@@ -28,6 +28,12 @@ import { softplus } from '../core/logistic.js';
 import type { PreparedMixture } from './preparedMixture.js';
 import { directIastPrepared } from './iastDirect.js';
 
+/** The solver's state: u = ln ψ and θ = logit(x/C) (see the file comment). */
+export interface IastState {
+  u: number;
+  theta: number;
+}
+
 export interface BatchSolution {
   /** Carbon dose, g/L. */
   doseGPerL: number;
@@ -49,8 +55,18 @@ interface Eval {
   f1: number; f2: number; j11: number; j12: number; j21: number; j22: number;
 }
 
+/** Where `scratch` was last evaluated (a repeated evaluation at the same point is skipped). */
+const last = { pm: undefined as PreparedMixture | undefined, lnD: NaN, u: NaN, theta: NaN };
+
+/** `evaluate` into `scratch`, unless scratch already holds that point. */
+function evaluateScratch(pm: PreparedMixture, lnD: number, u: number, theta: number): void {
+  if (last.pm === pm && last.lnD === lnD && last.u === u && last.theta === theta) return;
+  evaluate(pm, lnD, u, theta, scratch);
+}
+
 /** Residuals and Jacobian at (u, θ); non-finite values signal a bad iterate. */
 function evaluate(pm: PreparedMixture, lnD: number, u: number, theta: number, out: Eval): void {
+  if (out === scratch) { last.pm = pm; last.lnD = lnD; last.u = u; last.theta = theta; } else last.pm = undefined;
   const { c0, n, a } = pm;
   const m = c0.length;
   // σ(−θ) and softplus(−θ) from one exponential (the same values as the two-branch forms)
@@ -207,7 +223,8 @@ export function solveBatchPrepared(
     for (let j = 0; j < m; j++) q[pm.active[j]!] = d.qMgPerG[j]!;
     return { doseGPerL, cMgPerL: c, qMgPerG: q, psiMgPerG: d.psiMgPerG, state: { u: Math.log(d.psiMgPerG), theta: -Infinity }, iterations: d.iterations, method: 'trivial' };
   }
-  const { u, theta, iterations, method } = solveState(pm, doseGPerL, warm, options.forceBracketed === true);
+  const { u, theta } = solveState(pm, doseGPerL, warm, options.forceBracketed === true);
+  const { iterations, method } = lastSolve;
   const lnx = pm.lnCTotal - softplus(-theta);
   for (let j = 0; j < m; j++) {
     const t = pm.n[j]! * u + pm.a[j]! - lnx;
@@ -228,7 +245,7 @@ export function solveBatchPrepared(
  * Carlo draws) that need one component's fraction only (`remainingAtState`). Needs at least one
  * adsorbable component. @throws ComputationError if no converged root is found.
  */
-export function solveBatchState(pm: PreparedMixture, doseGPerL: number, warm?: { u: number; theta: number }): { u: number; theta: number; iterations: number } {
+export function solveBatchState(pm: PreparedMixture, doseGPerL: number, warm?: IastState): IastState {
   return solveState(pm, doseGPerL, warm, false);
 }
 
@@ -241,7 +258,10 @@ export function remainingAtState(pm: PreparedMixture, j: number, state: { u: num
   return e / (1 + e);
 }
 
-function solveState(pm: PreparedMixture, doseGPerL: number, warm: { u: number; theta: number } | undefined, forceBracketed: boolean): { u: number; theta: number; iterations: number; method: BatchSolution['method'] } {
+/** Iterations and method of the last `solveState` (kept aside so that every state is one plain {u, θ}). */
+const lastSolve: { iterations: number; method: BatchSolution['method'] } = { iterations: 0, method: 'newton' };
+
+function solveState(pm: PreparedMixture, doseGPerL: number, warm: IastState | undefined, forceBracketed: boolean): IastState {
   const options = { forceBracketed };
   const lnD = Math.log(doseGPerL);
   const start = warm && Number.isFinite(warm.u) && Number.isFinite(warm.theta) ? warm : lumpedStart(pm, doseGPerL);
@@ -255,11 +275,13 @@ function solveState(pm: PreparedMixture, doseGPerL: number, warm: { u: number; t
     if (polished) sol = { ...polished, iterations: polished.iterations + sol.iterations };
   }
   const { u, theta } = sol;
-  evaluate(pm, lnD, u, theta, scratch);
+  evaluateScratch(pm, lnD, u, theta);
   if (!(Math.abs(scratch.f1) < 1e-11 && Math.abs(scratch.f2) < 1e-11)) {
     throw new ComputationError(`batch IAST did not converge at dose ${doseGPerL * 1000} mg/L (residuals ${scratch.f1.toExponential(2)}, ${scratch.f2.toExponential(2)})`);
   }
-  return { u, theta, iterations: sol.iterations, method };
+  lastSolve.iterations = sol.iterations;
+  lastSolve.method = method;
+  return { u, theta };
 }
 
 function spread(s: { u: number; theta: number }): [number, number] {
@@ -274,7 +296,7 @@ function spread(s: { u: number; theta: number }): [number, number] {
  */
 export function remainingSlopeAtState(pm: PreparedMixture, doseGPerL: number, j: number, state: { u: number; theta: number }): number {
   const { u, theta } = state;
-  evaluate(pm, Math.log(doseGPerL), u, theta, scratch);
+  evaluateScratch(pm, Math.log(doseGPerL), u, theta); // usually where the solve ended: no new evaluation
   const det = scratch.j11 * scratch.j22 - scratch.j12 * scratch.j21;
   if (!(Number.isFinite(det) && det !== 0)) throw new ComputationError(`batch IAST: singular Jacobian at dose ${doseGPerL * 1000} mg/L`);
   const du = -scratch.j12 / det;

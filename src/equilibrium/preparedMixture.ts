@@ -64,17 +64,47 @@ export function prepareMixture(components: readonly FreundlichComponent[]): Prep
     a[j] = n[j]! * (Math.log(comp.oneOverN) - lnK[j]!);
     cTotal += comp.c0MgPerL;
   }
-  const ids = new Array<string>(components.length);
-  for (let i = 0; i < components.length; i++) ids[i] = components[i]!.id;
-  return {
-    ids,
-    size: components.length,
-    active: new Int32Array(active),
-    c0, n, beta, lnK, a,
-    cTotal,
-    lnCTotal: Math.log(cTotal),
-    source: components,
-  };
+  return new Mixture(components.length, new Int32Array(active), c0, n, beta, lnK, a, cTotal, components, undefined);
+}
+
+/**
+ * Every prepared mixture is one of these (prepared, scaled or with a lead component), so that the
+ * solvers' hot loops see one object layout. `ids` and `source` of a derived mixture are built
+ * from `derive` only when asked for (hot loops never read them).
+ */
+class Mixture implements PreparedMixture {
+  readonly lnCTotal: number;
+  private idsCache: readonly string[] | undefined;
+  private sourceCache: readonly FreundlichComponent[] | undefined;
+
+  constructor(
+    readonly size: number,
+    readonly active: Int32Array,
+    readonly c0: Float64Array,
+    readonly n: Float64Array,
+    readonly beta: Float64Array,
+    readonly lnK: Float64Array,
+    readonly a: Float64Array,
+    readonly cTotal: number,
+    source: readonly FreundlichComponent[] | undefined,
+    private readonly derive: (() => readonly FreundlichComponent[]) | undefined,
+  ) {
+    this.lnCTotal = Math.log(cTotal);
+    this.sourceCache = source;
+    this.idsCache = undefined;
+  }
+
+  get ids(): readonly string[] {
+    if (this.idsCache) return this.idsCache;
+    const src = this.source;
+    const ids = new Array<string>(src.length);
+    for (let i = 0; i < src.length; i++) ids[i] = src[i]!.id;
+    return (this.idsCache = ids);
+  }
+
+  get source(): readonly FreundlichComponent[] {
+    return (this.sourceCache ??= this.derive!());
+  }
 }
 
 /**
@@ -120,37 +150,48 @@ export function scaleMixture(pm: PreparedMixture, factor: number, fixedIndex = -
   }
   if (ok && !(factor >= 0 && Number.isFinite(factor))) ok = false;
   if (!ok) return prepareMixture(scaledSource(pm, factor, fixedIndex)); // leaves the active set, or its error message
-  return new ScaledMixture(pm, factor, fixedIndex, c0, cTotal);
+  return new Mixture(pm.size, pm.active, c0, pm.n, pm.beta, pm.lnK, pm.a, cTotal, undefined, () => scaledSource(pm, factor, fixedIndex));
 }
 
 function scaledSource(pm: PreparedMixture, factor: number, fixedIndex: number): FreundlichComponent[] {
   return pm.source.map((c, i) => (i === fixedIndex ? c : { ...c, c0MgPerL: c.c0MgPerL * factor }));
 }
 
-/** A prepared mixture scaled from another; its components are built only when asked for (hot loops never read them). */
-class ScaledMixture implements PreparedMixture {
-  readonly ids: readonly string[];
-  readonly size: number;
-  readonly active: Int32Array;
-  readonly n: Float64Array;
-  readonly beta: Float64Array;
-  readonly lnK: Float64Array;
-  readonly a: Float64Array;
-  readonly lnCTotal: number;
-  private sourceCache?: readonly FreundlichComponent[];
-
-  constructor(private readonly from: PreparedMixture, private readonly factor: number, private readonly fixedIndex: number, readonly c0: Float64Array, readonly cTotal: number) {
-    this.ids = from.ids;
-    this.size = from.size;
-    this.active = from.active;
-    this.n = from.n;
-    this.beta = from.beta;
-    this.lnK = from.lnK;
-    this.a = from.a;
-    this.lnCTotal = Math.log(cTotal);
+/**
+ * The mixture of `lead` followed by the components of an already prepared mixture `rest`: the
+ * same arrays and arithmetic as `prepareMixture([lead, ...rest.source])` (the same checks and
+ * error messages), validating only the lead and its id against the rest (already validated).
+ * Used where many targets share one set of competitors (each target beside the same background).
+ * @throws InputError on an invalid lead or a lead id that repeats one of the rest
+ */
+export function prependComponent(lead: FreundlichComponent, rest: PreparedMixture): PreparedMixture {
+  checkLead(lead, rest);
+  const r = rest.c0.length;
+  const first = lead.K > 0 && lead.c0MgPerL > 0 ? 1 : 0;
+  const m = r + first;
+  const active = new Int32Array(m), c0 = new Float64Array(m), n = new Float64Array(m), beta = new Float64Array(m), lnK = new Float64Array(m), a = new Float64Array(m);
+  if (first) {
+    c0[0] = lead.c0MgPerL;
+    beta[0] = lead.oneOverN;
+    n[0] = 1 / lead.oneOverN;
+    lnK[0] = Math.log(lead.K);
+    a[0] = n[0] * (Math.log(lead.oneOverN) - lnK[0]);
   }
-
-  get source(): readonly FreundlichComponent[] {
-    return (this.sourceCache ??= scaledSource(this.from, this.factor, this.fixedIndex));
+  c0.set(rest.c0, first); n.set(rest.n, first); beta.set(rest.beta, first); lnK.set(rest.lnK, first); a.set(rest.a, first);
+  let cTotal = 0;
+  for (let j = 0; j < m; j++) {
+    active[j] = j < first ? 0 : rest.active[j - first]! + 1;
+    cTotal += c0[j]!; // the order of prepareMixture's sum
   }
+  return new Mixture(rest.size + 1, active, c0, n, beta, lnK, a, cTotal, undefined, () => [lead, ...rest.source]);
 }
+
+/** The checks of `prependComponent` alone. @throws InputError as prependComponent */
+export function checkLead(lead: FreundlichComponent, rest: PreparedMixture): void {
+  if (!(lead.c0MgPerL >= 0) || !Number.isFinite(lead.c0MgPerL)) throw new InputError(`expected a non-negative finite concentration, got ${lead.c0MgPerL}`, { path: 'components[0].c0' });
+  if (!(lead.K >= 0) || !Number.isFinite(lead.K)) throw new InputError(`expected K ≥ 0 (0 = non-adsorbable), got ${lead.K}`, { path: 'components[0].K' });
+  if (lead.K > 0 && (!(lead.oneOverN > 0) || !Number.isFinite(lead.oneOverN))) throw new InputError(`expected an exponent one_over_n > 0, got ${lead.oneOverN}`, { path: 'components[0].one_over_n' });
+  const ids = rest.ids;
+  for (let k = 0; k < ids.length; k++) if (ids[k] === lead.id) throw new InputError(`duplicate id "${lead.id}"; every component needs its own id`, { path: `components[${k + 1}].id` });
+}
+

@@ -141,52 +141,73 @@ function pointNodes(problem: MonteCarloProblem, factory: RemovalModelFactory, de
  * through the same arithmetic). The normals consumed per draw are fixed by the problem.
  */
 export function sampleParameters(model: DrawModel, normal: NormalSampler | undefined): DrawnParameters {
-  const { problem: p, covIndex, sigma } = model;
+  const { problem: p, sigma } = model;
+  const at = covPositions(model);
   const delta = new Float64Array(model.L.length);
   if (normal && model.L.length > 0) multivariateNormalDeviation(model.L, normal, delta);
-  const z = () => (normal ? normal.next() : 0);
-  const cov = (name: string): number | undefined => {
-    const k = covIndex.get(name);
-    return k === undefined ? undefined : delta[k]!;
-  };
-  const fractions: number[] = [];
-  const Ks: number[] = [];
-  p.background.forEach((b, i) => {
-    const zK = z();
-    const zF = z();
-    const dK = cov(`lnK:${b.id}`);
-    Ks.push(b.K === 0 ? 0 : dK !== undefined ? b.K * Math.exp(dK) : lognormalFromZ(b.K, sigma.bgK[i]!, zK));
-    const dF = cov(`fraction:${b.id}`);
-    fractions.push(dF !== undefined ? Math.max(0, b.fraction + dF) : lognormalFromZ(b.fraction, sigma.bgF[i]!, zF));
-  });
-  const targets: FreundlichComponent[] = p.targets.map((t, i) => {
-    const zK = z();
-    const zN = z();
-    const dK = cov(`lnK:${t.id}`);
-    const dN = cov(`one_over_n:${t.id}`);
-    return {
+  const B = p.background.length;
+  const fractions = new Float64Array(B);
+  const Ks = new Float64Array(B);
+  for (let i = 0; i < B; i++) {
+    const b = p.background[i]!;
+    const zK = normal ? normal.next() : 0;
+    const zF = normal ? normal.next() : 0;
+    const kK = at.bgK[i]!, kF = at.bgF[i]!;
+    Ks[i] = b.K === 0 ? 0 : kK >= 0 ? b.K * Math.exp(delta[kK]!) : lognormalFromZ(b.K, sigma.bgK[i]!, zK);
+    fractions[i] = kF >= 0 ? Math.max(0, b.fraction + delta[kF]!) : lognormalFromZ(b.fraction, sigma.bgF[i]!, zF);
+  }
+  const T = p.targets.length;
+  const targets = new Array<FreundlichComponent>(T);
+  for (let i = 0; i < T; i++) {
+    const t = p.targets[i]!;
+    const zK = normal ? normal.next() : 0;
+    const zN = normal ? normal.next() : 0;
+    const kK = at.tK[i]!, kN = at.tN[i]!;
+    targets[i] = {
       id: t.id,
       c0MgPerL: t.c0MgPerL,
-      K: dK !== undefined ? t.K * Math.exp(dK) : lognormalFromZ(t.K, sigma.tK[i]!, zK),
-      oneOverN: dN !== undefined ? Math.max(0.01, t.oneOverN + dN) : lognormalFromZ(t.oneOverN, sigma.tN[i]!, zN),
+      K: kK >= 0 ? t.K * Math.exp(delta[kK]!) : lognormalFromZ(t.K, sigma.tK[i]!, zK),
+      oneOverN: kN >= 0 ? Math.max(0.01, t.oneOverN + delta[kN]!) : lognormalFromZ(t.oneOverN, sigma.tN[i]!, zN),
     };
-  });
-  const docMgPerL = lognormalFromZ(p.docMgPerL, sigma.doc, z());
+  }
+  const docMgPerL = lognormalFromZ(p.docMgPerL, sigma.doc, normal ? normal.next() : 0);
   let sum = 0;
-  for (const f of fractions) sum += f;
+  for (let i = 0; i < B; i++) sum += fractions[i]!;
   if (!(sum > 0)) throw new ComputationError('a Monte Carlo draw gave background fractions that sum to 0');
-  const background = p.background.map((b, i): FreundlichComponent => {
-    const dN = cov(`one_over_n:${b.id}`);
-    return {
+  const background = new Array<FreundlichComponent>(B);
+  for (let i = 0; i < B; i++) {
+    const b = p.background[i]!;
+    const kN = at.bgN[i]!;
+    background[i] = {
       id: b.id,
       K: Ks[i]!,
-      oneOverN: b.K === 0 ? b.oneOverN : dN !== undefined ? Math.max(0.01, b.oneOverN + dN) : b.oneOverN,
+      oneOverN: b.K === 0 ? b.oneOverN : kN >= 0 ? Math.max(0.01, b.oneOverN + delta[kN]!) : b.oneOverN,
       c0MgPerL: (fractions[i]! / sum) * docMgPerL,
     };
-  });
+  }
   const drawn: DrawnParameters = { background, targets, docMgPerL };
-  if (p.kinetics) drawn.kinetics = sampleKinetics(p.kinetics, z); // after every other normal: equilibrium streams unchanged
+  if (p.kinetics) drawn.kinetics = sampleKinetics(p.kinetics, () => (normal ? normal.next() : 0)); // after every other normal: equilibrium streams unchanged
   return drawn;
+}
+
+/** Positions in the covariance vector of each parameter (−1: not in the covariance), by component. */
+interface CovPositions { bgK: Int32Array; bgF: Int32Array; bgN: Int32Array; tK: Int32Array; tN: Int32Array }
+const covPositionsCache = new WeakMap<DrawModel, CovPositions>();
+
+function covPositions(model: DrawModel): CovPositions {
+  let at = covPositionsCache.get(model);
+  if (at) return at;
+  const p = model.problem;
+  const pos = (name: string) => model.covIndex.get(name) ?? -1;
+  at = {
+    bgK: Int32Array.from(p.background, (b) => pos(`lnK:${b.id}`)),
+    bgF: Int32Array.from(p.background, (b) => pos(`fraction:${b.id}`)),
+    bgN: Int32Array.from(p.background, (b) => pos(`one_over_n:${b.id}`)),
+    tK: Int32Array.from(p.targets, (t) => pos(`lnK:${t.id}`)),
+    tN: Int32Array.from(p.targets, (t) => pos(`one_over_n:${t.id}`)),
+  };
+  covPositionsCache.set(model, at);
+  return at;
 }
 
 /** The removal model of one draw at its DOC. */

@@ -1,11 +1,12 @@
 /**
- * `scaleMixture` (the background moved to another DOC without preparing the mixture again) gives
- * exactly what `prepareMixture` gives on the scaled components, and the removal model at another
+ * `scaleMixture` (the background moved to another DOC without preparing the mixture again) and
+ * `prependComponent` (a target before an already prepared background) give exactly what
+ * `prepareMixture` gives on the same components, and the removal model at another
  * DOC through it solves to the same figures bit for bit. Invented mixture (a non-adsorbable part,
  * three fictive DOC components, a trace target); identity checks, no outside values.
  */
 import { describe, expect, it } from 'vitest';
-import { prepareMixture, scaleMixture, type FreundlichComponent } from '../../src/equilibrium/preparedMixture.js';
+import { prepareMixture, prependComponent, scaleMixture, type FreundlichComponent } from '../../src/equilibrium/preparedMixture.js';
 import { EquilibriumRemoval } from '../../src/design/equilibriumRemoval.js';
 
 const target: FreundlichComponent = { id: 'T', c0MgPerL: 1e-4, K: 40, oneOverN: 0.3 };
@@ -37,6 +38,25 @@ describe('scaleMixture', () => {
     for (const dose of [0.001, 0.012, 0.05]) {
       expect(moved.remaining(0, dose).remainingFraction).toBe(built.remaining(0, dose).remainingFraction);
       expect(moved.backgroundRemaining(dose).cMgPerL).toEqual(built.backgroundRemaining(dose).cMgPerL);
+    }
+  });
+
+  it('prependComponent equals prepareMixture on [target, ...background], errors included', () => {
+    for (const t of [target, { ...target, K: 0 }, { ...target, c0MgPerL: 0 }]) {
+      const a = prependComponent(t, prepareMixture(bg));
+      const b = prepareMixture([t, ...bg]);
+      for (const k of ['c0', 'n', 'beta', 'lnK', 'a', 'active'] as const) expect(a[k]).toEqual(b[k]);
+      expect([a.size, a.cTotal, a.lnCTotal]).toEqual([b.size, b.cTotal, b.lnCTotal]);
+      expect(a.ids).toEqual(b.ids);
+      expect(a.source).toEqual(b.source);
+    }
+    for (const bad of [{ ...target, id: 'F2' }, { ...target, K: -1 }, { ...target, oneOverN: 0 }, { ...target, c0MgPerL: NaN }]) {
+      let expected: unknown, got: unknown;
+      try { prepareMixture([bad, ...bg]); } catch (e) { expected = e; }
+      try { prependComponent(bad, prepareMixture(bg)); } catch (e) { got = e; }
+      expect(got).toBeDefined();
+      expect(got).toEqual(expected);
+      expect((got as { location?: unknown }).location).toEqual((expected as { location?: unknown }).location);
     }
   });
 });

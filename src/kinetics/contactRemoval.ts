@@ -24,10 +24,12 @@ import { prepareMixture } from '../equilibrium/preparedMixture.js';
 import { doseForRemoval } from '../design/doseForRemoval.js';
 import { MAX_DOSE_G_PER_L, searchDose } from '../design/doseSearch.js';
 import { removalExcess } from '../design/removalExcess.js';
-import type { BackgroundAtDose, CompetitionSet, RemainingAtDose, RemovalModel, WarmStart } from '../design/removalModel.js';
+import type { BackgroundAtDose, CompetitionSet, DoseAtRemoval, RemainingAtDose, RemovalModel, WarmStart } from '../design/removalModel.js';
 import { prepareKinetics, type CarbonParticle, type KineticComponent, type PreparedKinetics } from './kineticMixture.js';
 import { checkTimes, DEFAULT_KINETIC_RTOL, pacBatch, type KineticSolverOptions } from './pacBatch.js';
 import { checkContactConditions, stirredReactor, stirredReactorFrom } from './stirredReactor.js';
+import { sharedBackground, sharedBackgroundKey, type SharedBackground } from './sharedBackground.js';
+import { traceDoseRoot } from './traceDoseRoot.js';
 
 export type ContactConditions =
   | { kind: 'plug-flow'; contactTimeS: number }
@@ -116,7 +118,14 @@ function pct(f: number): string {
   return `${(f * 100).toPrecision(4)} %`;
 }
 
-/** RemovalModel of the design layer under PAC contact conditions (see the file comment). */
+/**
+ * RemovalModel of the design layer under PAC contact conditions (see the file comment).
+ * Trace targets with the same competitors share one background (sharedBackground.ts): one solve
+ * per dose gives all of them, every dose solved is remembered, and `doseForRemoval` finds each
+ * target's dose on those shared solves (traceDoseRoot.ts), so a carbon's whole design solves the
+ * background at a few doses instead of once per target and dose. Other targets (not trace in
+ * their water, or with their own competitors) are solved on their own, as before.
+ */
 export class ContactRemoval implements RemovalModel {
   readonly kind: string;
   readonly compoundIds: readonly string[];
@@ -125,6 +134,10 @@ export class ContactRemoval implements RemovalModel {
   readonly removalTolerance: number;
   private readonly prepared: PreparedKinetics[];
   private readonly bgPrepared?: PreparedKinetics;
+  /** The shared background of each compound (undefined: solved on its own) and its component index there. */
+  private readonly shared: Array<{ group: SharedBackground; at: number } | undefined>;
+  /** The background components' indices in a shared background with the same components, if any. */
+  private readonly bgShared?: { group: SharedBackground; at: number[] };
 
   constructor(
     readonly sets: readonly CompetitionSet[],
@@ -133,6 +146,8 @@ export class ContactRemoval implements RemovalModel {
     readonly conditions: ContactConditions,
     readonly background?: readonly FreundlichComponent[],
     readonly options: KineticSolverOptions = {},
+    /** Share trace targets' backgrounds (default true; false solves every target on its own, for tests). */
+    readonly shareBackground = true,
   ) {
     checkConditions(conditions);
     this.kind = conditions.kind === 'plug-flow'
@@ -141,9 +156,20 @@ export class ContactRemoval implements RemovalModel {
     this.compoundIds = sets.map((s) => s.target.id);
     this.removalTolerance = Math.max(1e-9, (options.rtol ?? DEFAULT_KINETIC_RTOL) * 1e-2);
     this.prepared = sets.map((s) => prepareKinetics([s.target as KineticComponent, ...(s.competitors as KineticComponent[])], particle));
+    const byKey = new Map<string, number[]>();
+    this.prepared.forEach((pk, i) => {
+      const key = shareBackground ? sharedBackgroundKey(pk) : undefined;
+      if (key !== undefined) byKey.set(key, [...(byKey.get(key) ?? []), i]);
+    });
+    this.shared = this.prepared.map(() => undefined);
+    for (const members of byKey.values()) {
+      const group = sharedBackground(members.map((i) => this.prepared[i]!), particle, conditions, options);
+      members.forEach((i, k) => { this.shared[i] = { group, at: group.competitorCount + k }; });
+    }
     if (background && background.length) {
       this.bgPrepared = prepareKinetics(background as KineticComponent[], particle);
       this.backgroundC0MgPerL = Float64Array.from(background, (c) => c.c0MgPerL);
+      this.bgShared = backgroundInGroup(this.bgPrepared, this.shared);
     }
   }
 
@@ -151,12 +177,44 @@ export class ContactRemoval implements RemovalModel {
     const pk = this.prepared[index];
     if (!pk) throw new InputError(`compound index ${index} is not in the model (${this.prepared.length} compounds)`);
     if (doseGPerL === 0) return { remainingFraction: 1, warm };
+    const sh = this.shared[index];
+    if (sh) return { remainingFraction: sh.group.remainingAt(doseGPerL)[sh.at]!, warm };
     return { remainingFraction: remainingUnderContact(pk, doseGPerL, this.conditions, this.options)[0]!, warm };
+  }
+
+  /**
+   * The dose for a goal of a target that shares its background, found on the shared solves
+   * (traceDoseRoot) to a tenth of `removalTolerance`; undefined for the other targets, or
+   * when the goal is not met within the searched doses (the design layer's search then gives the
+   * status).
+   */
+  doseForRemoval(index: number, removalFraction: number, warm?: WarmStart, withSlope?: boolean): DoseAtRemoval | undefined {
+    const sh = this.shared[index];
+    if (!sh || !(removalFraction > 0 && removalFraction < 1)) return undefined;
+    const { group, at } = sh;
+    const known = [...group.solved].map(([d, f]) => [d, f[at]!] as const);
+    const root = traceDoseRoot((d) => group.remainingAt(d)[at]!, known, removalFraction, this.removalTolerance * 0.1, () => this.startDose(index, removalFraction));
+    if (!root) return undefined;
+    return { doseGPerL: root.doseGPerL, remainingFraction: root.remainingFraction, ...(withSlope && root.slope !== undefined ? { slope: root.slope } : {}), warm };
+  }
+
+  /** The first dose tried when nothing is solved yet: 1.5 × the equilibrium dose (contact removes less), or 20 mg/L. */
+  private startDose(index: number, removalFraction: number): number {
+    try {
+      return 1.5 * doseForRemoval(prepareMixture(this.prepared[index]!.components), 0, removalFraction).doseGPerL;
+    } catch (e) {
+      if (e instanceof InputError || e instanceof ComputationError) return 0.02;
+      throw e;
+    }
   }
 
   backgroundRemaining(doseGPerL: number, warm?: WarmStart): BackgroundAtDose {
     if (!this.bgPrepared) throw new InputError('this model has no fractionated background');
     if (doseGPerL === 0) return { cMgPerL: this.backgroundC0MgPerL!.slice(), warm };
+    if (this.bgShared) {
+      const f = this.bgShared.group.remainingAt(doseGPerL);
+      return { cMgPerL: Float64Array.from(this.bgShared.at, (j, i) => f[j]! * this.backgroundC0MgPerL![i]!), warm };
+    }
     const f = remainingUnderContact(this.bgPrepared, doseGPerL, this.conditions, this.options);
     return { cMgPerL: Float64Array.from(f, (x, i) => x * this.backgroundC0MgPerL![i]!), warm };
   }
@@ -164,6 +222,24 @@ export class ContactRemoval implements RemovalModel {
   atDoc(docMgPerL: number): ContactRemoval {
     const f = docMgPerL / this.docMgPerL;
     const scale = (cs: readonly FreundlichComponent[]) => cs.map((c) => ({ ...c, c0MgPerL: c.c0MgPerL * f }));
-    return new ContactRemoval(this.sets.map((s) => ({ target: s.target, competitors: scale(s.competitors) })), docMgPerL, this.particle, this.conditions, this.background ? scale(this.background) : undefined, this.options);
+    return new ContactRemoval(this.sets.map((s) => ({ target: s.target, competitors: scale(s.competitors) })), docMgPerL, this.particle, this.conditions, this.background ? scale(this.background) : undefined, this.options, this.shareBackground);
   }
+}
+
+/**
+ * A shared background whose competitors are exactly the fictive background's components (same
+ * values, same split), so that the surrogates read the same solves; undefined otherwise.
+ */
+function backgroundInGroup(bg: PreparedKinetics, shared: ReadonlyArray<{ group: SharedBackground } | undefined>): { group: SharedBackground; at: number[] } | undefined {
+  const same = (a: KineticComponent, b: KineticComponent) => a.id === b.id && a.c0MgPerL === b.c0MgPerL && a.K === b.K && a.oneOverN === b.oneOverN && a.dsM2PerS === b.dsM2PerS && a.dlM2PerS === b.dlM2PerS && a.kfMPerS === b.kfMPerS;
+  for (const sh of shared) {
+    if (!sh) continue;
+    const g = sh.group;
+    const comps = g.pk.components.slice(0, g.competitorCount);
+    if (comps.length !== bg.components.length || !comps.every((c, i) => same(c, bg.components[i]!))) continue;
+    const sameSplit = bg.coupled.length === g.pk.coupled.length && bg.coupled.every((i, k) => i === g.pk.coupled[k]);
+    if (!sameSplit) continue;
+    return { group: g, at: bg.components.map((_c, i) => i) };
+  }
+  return undefined;
 }

@@ -75,10 +75,11 @@ export function stirredReactor(pk: PreparedKinetics, doseGPerL: number, contactT
  * The stirred reactor started from a given outlet of the coupled components (`startRemaining`,
  * c_out/c0 in the order of pk.coupled, e.g. the result at a nearby dose of a dose search) and,
  * when given, the balance Jacobian of that result (`startJacobian`, StirredReactorResult.
- * balanceJacobian): the coarse-grid start is then skipped. The result does not depend on the
- * start beyond the balance tolerance.
+ * balanceJacobian): the coarse-grid start is then skipped. With the dose of that result
+ * (`startDoseGPerL`) the start is first carried to this dose (predictOutlet). The result does not
+ * depend on the start beyond the balance tolerance.
  */
-export function stirredReactorFrom(pk: PreparedKinetics, doseGPerL: number, contactTimeS: number, carbonAgeS: number = contactTimeS, options: KineticSolverOptions = {}, startRemaining?: Float64Array, startJacobian?: Float64Array): StirredReactorResult {
+export function stirredReactorFrom(pk: PreparedKinetics, doseGPerL: number, contactTimeS: number, carbonAgeS: number = contactTimeS, options: KineticSolverOptions = {}, startRemaining?: Float64Array, startJacobian?: Float64Array, startDoseGPerL?: number): StirredReactorResult {
   if (!(doseGPerL > 0) || !Number.isFinite(doseGPerL)) throw new InputError(`expected a positive carbon dose, got ${doseGPerL * 1000} mg/L`, { option: '--dose' });
   checkContactConditions(contactTimeS, carbonAgeS);
   const theta = Math.max(carbonAgeS, contactTimeS);
@@ -93,6 +94,7 @@ export function stirredReactorFrom(pk: PreparedKinetics, doseGPerL: number, cont
   const warm = !!startRemaining && startRemaining.length === nB && startRemaining.every((r) => r > 0 && r <= 1);
   let v = warm ? Float64Array.from(startRemaining!, (r) => Math.log(r)) : startGuess(pk, doseGPerL, theta);
   let J: Float64Array | undefined = warm && startJacobian && startJacobian.length === nB * nB && startJacobian.every(Number.isFinite) ? Float64Array.from(startJacobian) : undefined;
+  if (J && startDoseGPerL !== undefined && startDoseGPerL > 0 && startDoseGPerL !== doseGPerL) ({ v, J } = predictOutlet(v, J, startDoseGPerL, doseGPerL));
   // the steps of the requested grid are recorded with every component at its feed concentration
   // (v = 0), the same for every dose: error-controlled step sequences react to the smallest change
   // of their input through discrete decisions (rejected steps, order changes, a kept Newton
@@ -130,6 +132,9 @@ export function stirredReactorFrom(pk: PreparedKinetics, doseGPerL: number, cont
   });
   return { doseGPerL, contactTimeS, carbonAgeS: theta, cMgPerL: c, qMeanMgPerG: qMean, carbonHeldGPerL: (doseGPerL * theta) / contactTimeS, iterations: balance.iterations, integrations: balance.integrations, ...(fine ? { balanceJacobian: fine.J } : {}) };
 }
+
+/** Steps recorded at the feed (v = 0) per prepared mixture and `grid|age|rtol` (BalanceSolver.record). */
+const RECORDED = new WeakMap<PreparedKinetics, Map<string, { times: number[]; orders: number[] }>>();
 
 /** Dose that scales the particle's loadings in the reactor's runs, g/L (ours; 10 mg/L). */
 const SCALE_DOSE_G_PER_L = 0.01;
@@ -227,6 +232,24 @@ class BalanceSolver {
     return { G, I, blocks: p.blocks, qB };
   }
 
+  /**
+   * Records the steps at v (evaluate's 'record'). The steps recorded at v = 0 (every component at
+   * its feed) do not depend on the dose, so they are kept per mixture, grid, age and tolerance
+   * (RECORDED) and a later solve of the same mixture at another dose replays them unrecorded.
+   */
+  record(col: SphereCollocation, v: Float64Array): void {
+    const atFeed = v.every((x) => x === 0);
+    const key = `${col.interiorPoints}|${this.theta}|${this.rtol}`;
+    const kept = atFeed ? RECORDED.get(this.pk)?.get(key) : undefined;
+    if (kept) { this.steps = { times: kept.times, orders: kept.orders, col }; return; }
+    this.evaluate(col, v, 'record');
+    if (atFeed && this.steps) {
+      let byKey = RECORDED.get(this.pk);
+      if (!byKey) { byKey = new Map(); RECORDED.set(this.pk, byKey); }
+      byKey.set(key, { times: this.steps.times, orders: this.steps.orders });
+    }
+  }
+
   /** Forward differences of G over the replayed steps (smooth in v). */
   private differenceJacobian(col: SphereCollocation, v: Float64Array, G: Float64Array): Float64Array {
     const nB = G.length;
@@ -250,7 +273,7 @@ class BalanceSolver {
     let J: Float64Array | undefined = J0 ? Float64Array.from(J0) : undefined;
     // record the steps, then evaluate by replay, so that every residual of the solve (and the
     // difference Jacobian) comes from the same smooth function of v
-    this.evaluate(col, recordedAt, 'record');
+    this.record(col, recordedAt);
     let cur = this.evaluate(col, v, 'replay');
     let iterations = 0;
     for (let round = 0; round < 3; round++) {
@@ -307,6 +330,44 @@ class BalanceSolver {
     }
     return { v, J: Jend, I: cur.I };
   }
+}
+
+/**
+ * The outlet at dose D predicted from a solution (v0, its balance Jacobian J0) at dose D0 (ours).
+ * The age integral I(v) = ∫q̄E dt of a particle held at c_out does not depend on the dose, so the
+ * balance G(v) = 1 − e^v − D·I(v)/c0 at D follows from the one at D0: I(v0)/c0 = (1 − e^v0)/D0
+ * and ∂(I/c0)/∂v = −(J0 + diag(e^v0))/D0. Newton on G with I linear in v about v0 (no particle
+ * integration) gives the start and its Jacobian; the original start where that fails.
+ */
+export function predictOutlet(v0: Float64Array, J0: Float64Array, d0GPerL: number, dGPerL: number): { v: Float64Array; J: Float64Array } {
+  const n = v0.length;
+  const a = Float64Array.from(v0, (x) => -Math.expm1(x) / d0GPerL);
+  const B = Float64Array.from(J0, (x, pk) => -(x + (pk % (n + 1) === 0 ? Math.exp(v0[Math.floor(pk / n)]!) : 0)) / d0GPerL);
+  const jacobianAt = (v: Float64Array) => Float64Array.from(B, (b, pk) => -dGPerL * b - (pk % (n + 1) === 0 ? Math.exp(v[Math.floor(pk / n)]!) : 0));
+  const residual = (v: Float64Array) => Float64Array.from(v, (x, p) => {
+    let lin = a[p]!;
+    for (let k = 0; k < n; k++) lin += B[p * n + k]! * (v[k]! - v0[k]!);
+    return -Math.expm1(x) - dGPerL * lin;
+  });
+  const fallback = { v: Float64Array.from(v0), J: jacobianAt(v0) };
+  let v = Float64Array.from(v0);
+  try {
+    for (let it = 0; it < 30; it++) {
+      const G = residual(v);
+      const norm = G.reduce((s, g) => Math.max(s, Math.abs(g)), 0);
+      if (!Number.isFinite(norm)) return fallback;
+      if (norm < 1e-12) break;
+      const step = Float64Array.from(G, (g) => -g);
+      denseLu(jacobianAt(v), n, 'stirred reactor predictor').solve(step);
+      const longest = step.reduce((m, x) => Math.max(m, Math.abs(x)), 0);
+      const lambda = longest > 1 ? 1 / longest : 1;
+      v = Float64Array.from(v, (x, p) => Math.min(0, x + lambda * step[p]!));
+    }
+  } catch (e) {
+    if (e instanceof ComputationError) return fallback;
+    throw e;
+  }
+  return v.every(Number.isFinite) && v.every((x) => x > -50) ? { v, J: jacobianAt(v) } : fallback;
 }
 
 /**

@@ -1,0 +1,90 @@
+/**
+ * Trace targets that share one background under PAC contact conditions: one kinetic solve per
+ * dose for all of them (the trace argument of Knappe et al. 1998, Environ. Sci. Technol. 32:1694,
+ * carried to kinetics).
+ *
+ * A trace target does not disturb the background (kineticMixture: its loading is left out of ψ
+ * and Q at the particle surface), and in the particle system each trace block depends only on
+ * the background's surface state (hsdmParticleSystem: the Jacobian is block lower-triangular).
+ * So the targets whose competitors are the same components (same c0, K, 1/n, Ds, kf) can be put
+ * in one mixture, [competitors…, targets…], every target a trace block: one run per dose gives
+ * every target's c/c0, each equal to its own run with the same background to the integrator's
+ * accuracy (the steps are chosen for all blocks at once; tests/kinetics/sharedBackground.test.ts).
+ * In the stirred reactor the background's outlet is solved once (Newton–Broyden on the coupled
+ * components) and every target then follows from one linear run,
+ * c_out,T/c0_T = 1/(1 + D·Φ_T) (stirredReactor).
+ *
+ * Every dose solved is remembered (a dose asked again, by any target of the group, costs nothing),
+ * and each stirred solve starts from the outlet and balance Jacobian at the nearest dose already
+ * solved (the result does not depend on the start beyond the balance tolerance).
+ *
+ * Units: dose g/L, times s, concentrations mg/L.
+ * @throws ComputationError when a kinetic solve fails.
+ */
+import type { PreparedKinetics } from './kineticMixture.js';
+import { prepareKinetics, type CarbonParticle, type KineticComponent } from './kineticMixture.js';
+import { pacBatch, type KineticSolverOptions } from './pacBatch.js';
+import { stirredReactorFrom } from './stirredReactor.js';
+import type { ContactConditions } from './contactRemoval.js';
+
+/** Trace targets with one background, and the solves done so far. */
+export interface SharedBackground {
+  /** The combined mixture: the competitors (as in each target's own mixture), then the targets, all trace. */
+  readonly pk: PreparedKinetics;
+  /** Number of competitors (the targets follow them in pk.components). */
+  readonly competitorCount: number;
+  /** c/c0 of every component of pk at a dose (1 where c0 = 0), remembered per dose. */
+  remainingAt(doseGPerL: number): Float64Array;
+  /** Doses solved so far and their results (in the order solved). */
+  readonly solved: ReadonlyMap<number, Float64Array>;
+}
+
+/**
+ * Key of a target's own prepared mixture [target, ...competitors] when the target is a trace
+ * target there, else undefined: the competitors' values and which of them are coupled. Targets
+ * with equal keys share one background.
+ */
+export function sharedBackgroundKey(own: PreparedKinetics): string | undefined {
+  if (!own.trace.includes(0)) return undefined;
+  const comps = own.components.slice(1).map((c, k) => [c.id, c.c0MgPerL, c.K, c.oneOverN, c.dsM2PerS ?? null, own.kfMPerS[k + 1]]);
+  return JSON.stringify([comps, own.coupled, own.trace.filter((i) => i > 0)]);
+}
+
+/**
+ * The shared background of targets whose own mixtures (`own`, each [target, ...competitors], all
+ * with the same sharedBackgroundKey) are given.
+ */
+export function sharedBackground(own: readonly PreparedKinetics[], particle: CarbonParticle, cond: ContactConditions, options: KineticSolverOptions = {}): SharedBackground {
+  const first = own[0]!;
+  const competitors = first.components.slice(1) as KineticComponent[];
+  const nC = competitors.length;
+  const targets = own.map((p) => p.components[0]!);
+  const base = prepareKinetics([...competitors, ...targets], particle);
+  // the split of each target's own mixture: its competitors as there, every target a trace block
+  const pk: PreparedKinetics = {
+    ...base,
+    coupled: first.coupled.map((i) => i - 1),
+    trace: [...first.trace.filter((i) => i > 0).map((i) => i - 1), ...targets.map((_t, k) => nC + k)],
+  };
+  const solved = new Map<number, Float64Array>();
+  const outlets: Array<{ dose: number; coupled: Float64Array; jacobian?: Float64Array }> = [];
+  const fraction = (c: Float64Array) => Float64Array.from(pk.components, (comp, i) => (comp.c0MgPerL > 0 ? Math.min(1, Math.max(0, c[i]! / comp.c0MgPerL)) : 1));
+  const remainingAt = (d: number): Float64Array => {
+    const hit = solved.get(d);
+    if (hit) return hit;
+    let f: Float64Array;
+    if (cond.kind === 'plug-flow') f = fraction(pacBatch(pk, d, [cond.contactTimeS], options).cMgPerL[0]!);
+    else {
+      let near: (typeof outlets)[number] | undefined;
+      let best = Infinity;
+      for (const o of outlets) { const dist = Math.abs(Math.log(o.dose / d)); if (dist < best) { best = dist; near = o; } }
+      const res = stirredReactorFrom(pk, d, cond.contactTimeS, cond.carbonAgeS, options, near?.coupled, near?.jacobian, near?.dose);
+      const c = res.cMgPerL;
+      outlets.push({ dose: d, coupled: Float64Array.from(pk.coupled, (i) => c[i]! / pk.components[i]!.c0MgPerL), ...(res.balanceJacobian ? { jacobian: res.balanceJacobian } : {}) });
+      f = fraction(c);
+    }
+    solved.set(d, f);
+    return f;
+  };
+  return { pk, competitorCount: nC, remainingAt, solved };
+}

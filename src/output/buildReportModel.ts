@@ -167,11 +167,19 @@ function comparisonSection(r: PipelineResult): ReportSection {
  * the P10 and P90 of (governing dose of a draw)/(point estimate) at the design DOC — the relative
  * spread taken as the same on every day (an approximation, said so in the section).
  */
-function dailySeries(c: CarbonResult, dates: readonly string[], dayIndex: readonly number[], carbonIndex: number): PlotSeries {
-  const rows = c.daily!.rows.filter((d) => d.doseMgPerL !== null);
-  const position = new Map<string, number>();
-  dates.forEach((date, k) => { if (!position.has(date)) position.set(date, k); }); // one pass: no per-day search
-  const series: PlotSeries = { name: c.carbon.name, ...carbonLook(carbonIndex), points: rows.map((d, k) => [dayIndex[position.get(d.date) ?? -1] ?? k + 1, d.doseMgPerL!] as [number, number]) };
+function dailySeries(c: CarbonResult, dates: readonly string[], dayIndex: readonly number[], carbonIndex: number, position: () => ReadonlyMap<string, number>): PlotSeries {
+  const all = c.daily!.rows;
+  const rows: typeof all = [];
+  const points: Array<[number, number]> = [];
+  for (let k = 0; k < all.length; k++) {
+    const d = all[k]!;
+    if (d.doseMgPerL === null) continue;
+    // the rows follow the series day by day; the date map is only for rows that do not
+    const at = dates[k] === d.date ? k : position().get(d.date) ?? -1;
+    rows.push(d);
+    points.push([dayIndex[at] ?? rows.length, d.doseMgPerL]);
+  }
+  const series: PlotSeries = { name: c.carbon.name, ...carbonLook(carbonIndex), points };
   const ratio = c.uncertainty?.governingDoseRatio;
   if (ratio && Number.isFinite(ratio.p90)) series.band = { lower: rows.map((d) => d.doseMgPerL! * ratio.p10), upper: rows.map((d) => d.doseMgPerL! * ratio.p90), label: `${c.carbon.name} P10–P90` };
   return series;
@@ -182,14 +190,20 @@ function yearSection(r: PipelineResult): ReportSection | undefined {
   if (!s) return undefined;
   const withDaily = r.carbons.filter((c) => c.daily);
   const dayIndex = s.dates.map((d) => dayNumber(d));
+  let position: Map<string, number> | undefined;
+  const datePosition = (): ReadonlyMap<string, number> => {
+    if (!position) { const p = new Map<string, number>(); s.dates.forEach((date, k) => { if (!p.has(date)) p.set(date, k); }); position = p; }
+    return position;
+  };
+  const medianDoc = s.docMgPerL.slice().sort((x, y) => x - y)[Math.floor(s.docMgPerL.length / 2)]!;
   const plots: PlotSpec[] = [
-    { kind: 'xy', id: 'daily-dose', title: `Required dose over the DOC series${withDaily.some((c) => c.uncertainty?.governingDoseRatio) ? ' (band: Monte Carlo P10–P90)' : ''}`, xLabel: 'date', xTime: true, yLabel: 'dose (mg/L)', series: withDaily.map((c) => dailySeries(c, s.dates, dayIndex, r.carbons.indexOf(c))) },
+    { kind: 'xy', id: 'daily-dose', title: `Required dose over the DOC series${withDaily.some((c) => c.uncertainty?.governingDoseRatio) ? ' (band: Monte Carlo P10–P90)' : ''}`, xLabel: 'date', xTime: true, yLabel: 'dose (mg/L)', series: withDaily.map((c) => dailySeries(c, s.dates, dayIndex, r.carbons.indexOf(c), datePosition)) },
     { kind: 'xy', id: 'daily-doc', title: 'Effluent DOC over the series', xLabel: 'date', xTime: true, yLabel: 'DOC (mg/L)', series: [{ name: 'DOC', key: 'reference', points: s.docMgPerL.map((v, k) => [dayIndex[k]!, v] as [number, number]) }] },
   ];
   const annualised = isAnnualised(s.dates.length); // a whole year's totals are its yearly figures: no second column
   const rows = withDaily.map((c) => {
     const d = c.daily!;
-    return [c.carbon.name, d.rows.length, `${fn(d.dose!.median, 3)} (${fn(d.dose!.median / s.docMgPerL.slice().sort((x, y) => x - y)[Math.floor(s.docMgPerL.length / 2)]!, 3)})`, fn(d.dose!.p90, 3), fn(d.dose!.max, 3), fmtWhole(d.carbonKgPerD!.median), fmtWhole(d.carbonKgPerD!.p90), fmtWhole(d.totalCarbonKg), fmtMoney(d.totalCost, d.currency), ...(annualised ? [`${fmtWhole(d.yearlyCarbonKg)} kg, ${fmtMoney(d.yearlyCost, d.currency)} (${yearlyBasisText(c)})`] : [])];
+    return [c.carbon.name, d.rows.length, `${fn(d.dose!.median, 3)} (${fn(d.dose!.median / medianDoc, 3)})`, fn(d.dose!.p90, 3), fn(d.dose!.max, 3), fmtWhole(d.carbonKgPerD!.median), fmtWhole(d.carbonKgPerD!.p90), fmtWhole(d.totalCarbonKg), fmtMoney(d.totalCost, d.currency), ...(annualised ? [`${fmtWhole(d.yearlyCarbonKg)} kg, ${fmtMoney(d.yearlyCost, d.currency)} (${yearlyBasisText(c)})`] : [])];
   });
   return {
     id: 'year', heading: 'Carbon over the year',

@@ -7,10 +7,26 @@ import { neutraliseCsvCell } from '../tables/safeCsvCell.js';
 
 type Cell = string | number | null | undefined;
 
+/**
+ * A number to 8 significant digits in JavaScript's shortest form: String(Number(v.toPrecision(8)))
+ * without the slow round trip where toPrecision wrote fixed notation (its digits are then already
+ * the shortest decimal of that double once trailing zeros go: at most 8 significant digits).
+ */
+export function significant8(v: number): string {
+  const p = v.toPrecision(8);
+  if (p.includes('e')) return String(Number(p));
+  if (!p.includes('.')) return p;
+  let end = p.length;
+  while (p.charCodeAt(end - 1) === 48 /* 0 */) end--;
+  if (p.charCodeAt(end - 1) === 46 /* . */) end--;
+  const s = p.slice(0, end);
+  return s === '-0' ? '0' : s;
+}
+
 /** Numbers to 8 significant digits (ample for planning figures, free of binary noise); text neutralised against formulas. */
 function cell(v: Cell): string {
   if (v === null || v === undefined) return '';
-  if (typeof v === 'number') return Number.isFinite(v) ? String(Number(v.toPrecision(8))) : '';
+  if (typeof v === 'number') return Number.isFinite(v) ? significant8(v) : '';
   const t = neutraliseCsvCell(v);
   return /[",\n\r]/.test(t) ? `"${t.replace(/"/g, '""')}"` : t;
 }

@@ -64,7 +64,7 @@ export { parallelMonteCarlo, type ParallelOptions } from './uncertainty/parallel
 export type { MonteCarloProblem, UncertainTarget, UncertainBackgroundComponent, ParameterCovariance, YearlyCostInput } from './uncertainty/monteCarloProblem.js';
 
 // ── GAC fixed bed, staggered filters, column calibration and scale-up (capabilities 18, 19)
-export { simulateFixedBed, DEFAULT_BREAKTHROUGH_LEVELS, DEFAULT_FIXED_BED_GRID, type FixedBedOptions, type FixedBedResult, type FixedBedComponentResult, type BreakthroughPoint } from './kinetics/fixedBed.js';
+export { simulateFixedBed, traceBed, DEFAULT_BREAKTHROUGH_LEVELS, DEFAULT_FIXED_BED_GRID, type FixedBedOptions, type FixedBedResult, type FixedBedComponentResult, type BreakthroughPoint, type TraceBed, type TraceBedOptions, type TraceOutlet } from './kinetics/fixedBed.js';
 export { DEFAULT_BED_POROSITY, filmCoefficients, type FixedBedComponent, type FixedBedSpec, type FixedBedInput, type ComponentFilm } from './kinetics/fixedBedInput.js';
 export { column, type ColumnMixture, type ColumnOptions, type ColumnJson } from './api/fixedBedApi.js';
 export { wilsonGeankoplisKf, WILSON_GEANKOPLIS_RE_RANGE, type FilmInput, type FilmCoefficient } from './kinetics/filmCorrelation.js';

@@ -207,10 +207,16 @@ function fitLnDs(
   let evaluations = 0;
   const at = (x: number, stepTimes?: readonly number[]) => { evaluations++; return residuals([x], stepTimes); };
   const sumSq = (r: readonly number[]) => r.reduce((a, v) => a + v * v, 0);
-  const slope = (x: number, cur: { r: number[]; stepTimes?: number[] }): number[] => {
-    const up = at(x + LN_DS_STEP, cur.stepTimes).r;
-    return up.map((v, k) => (v - cur.r[k]!) / LN_DS_STEP);
+  /** Residuals at x + dx over the replayed steps of `cur` (at x); its own steps if the replay fails. */
+  const shifted = (x: number, dx: number, cur: { r: number[]; stepTimes?: number[] }): number[] => {
+    try {
+      return at(x + dx, cur.stepTimes).r;
+    } catch (e) {
+      if (!(e instanceof ComputationError) || !cur.stepTimes) throw e;
+      return at(x + dx).r;
+    }
   };
+  const slope = (x: number, cur: { r: number[]; stepTimes?: number[] }): number[] => shifted(x, LN_DS_STEP, cur).map((v, k) => (v - cur.r[k]!) / LN_DS_STEP);
   if (scan) { scan(); evaluations += 7; start = scanned(); }
   let x = start;
   let cur = at(x);
@@ -252,7 +258,7 @@ function fitLnDs(
   let jacobian: number[][];
   if (converged && g.length > 0 && stop.startsWith('Gauss')) jacobian = g.map((v) => [v]);
   else {
-    const up = at(x + LN_DS_STEP, cur.stepTimes).r, down = at(x - LN_DS_STEP, cur.stepTimes).r;
+    const up = shifted(x, LN_DS_STEP, cur), down = shifted(x, -LN_DS_STEP, cur);
     jacobian = up.map((v, k) => [(v - down[k]!) / (2 * LN_DS_STEP)]);
   }
   return { fit: { x: [x], residuals: Float64Array.from(cur.r), sse: S, converged, stop, evaluations }, jacobian };

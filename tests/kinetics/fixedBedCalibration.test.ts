@@ -24,6 +24,18 @@ describe('column calibration: Ds recovery from model-generated breakthrough data
     expect(r.fit.rmse).toBeLessThan(1e-4);
   });
 
+  it('noise-free data in the site water, Ds and a factor on kf: both recovered within 1e-2 relative', () => {
+    const grid = { cells: 12, interiorPoints: 3 }; // data and fit on the same grid: this checks the fitter (trace evaluations, two parameters)
+    const truthDs = 1.7e-14;
+    const target = { ...TARGET, K: 110, dsM2PerS: truthDs };
+    const bvs = Array.from({ length: 14 }, (_, k) => 8000 + 2500 * k);
+    const sim = simulateFixedBed({ components: [...background(4), { ...target, kfMPerS: 1.5 * TARGET.kfMPerS! }], bed: BED }, { toBedVolumes: bvs[bvs.length - 1]!, outputBedVolumes: bvs, ...grid });
+    const c = sim.components[3]!.cOverC0.slice(1);
+    const r = fitColumn({ data: data(bvs, c), target: { ...target, dsM2PerS: undefined }, background: background(4), bed: BED, grid, fitKfFactor: true, startDsM2PerS: 1e-14 });
+    expect(Math.abs(r.parameters.Ds_m2_per_s / truthDs - 1)).toBeLessThan(1e-2);
+    expect(Math.abs(r.parameters.kf_factor! / 1.5 - 1)).toBeLessThan(1e-2);
+  });
+
   it('3 % noise: the 95 % interval covers the true Ds in at least 9 of 12 seeded trials', () => {
     // Noise: c/c0 + N(0, 0.03²), i.e. 3 % of c0, independent. With a true coverage of 95 % the
     // number covered is Binomial(12, 0.95); P(X ≤ 8) = 0.0022 (computed from the binomial

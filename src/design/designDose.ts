@@ -55,20 +55,13 @@ export interface Design {
 
 /**
  * The solve states a design ended with (each compound's at its dose, the background's at the
- * required dose), by model kind: warm starts for a design of the same kind near it (another DOC,
- * a Monte Carlo draw). Only a speed-up; kept beside the design so that the result stays plain data.
+ * required dose) and the kind of model they belong to: warm starts for a design of the same kind
+ * near it (a Monte Carlo draw near the point design). Only a speed-up.
  */
-interface DesignWarm {
+export interface DesignWarmStarts {
   kind: string;
   compounds: Array<WarmStart | undefined>;
   background?: WarmStart;
-}
-const designWarm = new WeakMap<Design, DesignWarm>();
-
-/** The warm starts a design left for a model of the same kind, if any. */
-function warmOf(near: Design | undefined, model: RemovalModel): DesignWarm | undefined {
-  const w = near ? designWarm.get(near) : undefined;
-  return w && w.kind === model.kind ? w : undefined;
 }
 
 /** DOC and UV254 reduction of the model's fictive background at a dose (mg/L). */
@@ -114,10 +107,18 @@ function indicatorHint(goal: IndicatorGoal, solved: ReadonlyArray<DoseAtRemoval 
  * @param near  the design at another DOC, for starting guesses only (doses scaled by DOC:
  *              the dose per mg DOC is roughly constant, Zietzschmann et al. 2016)
  */
-export function designDose(model: RemovalModel, problem: DesignProblem, near?: Design): Design {
+export function designDose(model: RemovalModel, problem: DesignProblem, near?: Design, nearWarm?: DesignWarmStarts): Design {
+  return designDoseWarm(model, problem, near, nearWarm).design;
+}
+
+/**
+ * `designDose`, with the solve states it ended with.
+ * @param nearWarm the states of `near` (used only when they belong to a model of the same kind)
+ */
+export function designDoseWarm(model: RemovalModel, problem: DesignProblem, near?: Design, nearWarm?: DesignWarmStarts): { design: Design; warm: DesignWarmStarts } {
   const docMgPerL = model.docMgPerL;
   const scale = near ? docMgPerL / near.docMgPerL : 1;
-  const prev = warmOf(near, model);
+  const prev = nearWarm && nearWarm.kind === model.kind ? nearWarm : undefined;
   const solved: Array<DoseAtRemoval | undefined> = [];
   const compounds = problem.goals.map((goal, i) => {
     const prior = near?.compounds[i];
@@ -126,7 +127,7 @@ export function designDose(model: RemovalModel, problem: DesignProblem, near?: D
     solved[i] = r.solved;
     return r.dose;
   });
-  const warm: DesignWarm = { kind: model.kind, compounds: solved.map((d) => d?.warm) };
+  const warm: DesignWarmStarts = { kind: model.kind, compounds: solved.map((d) => d?.warm) };
   if (prev?.background !== undefined) warm.background = prev.background;
   let governing: Design['governing'];
   for (const c of compounds) {
@@ -154,6 +155,5 @@ export function designDose(model: RemovalModel, problem: DesignProblem, near?: D
       if (s) out.surrogate = s;
     }
   }
-  designWarm.set(out, warm);
-  return out;
+  return { design: out, warm };
 }

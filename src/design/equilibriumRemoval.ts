@@ -11,16 +11,21 @@
  * It is the limit of any contact-time model at long contact (the carbon reaches equilibrium).
  */
 import { InputError } from '../core/errors.js';
-import { softplus } from '../core/logistic.js';
+import { sigmoid, softplus } from '../core/logistic.js';
 import { checkLead, prepareMixture, prependComponent, scaleMixture, type FreundlichComponent, type PreparedMixture } from '../equilibrium/preparedMixture.js';
 import { remainingAtState, remainingSlopeAtState, solveBatchPrepared, solveBatchState, type IastState } from '../equilibrium/iastBatch.js';
 import { iastDoseForRemoval } from '../equilibrium/iastDoseForRemoval.js';
+import { backgroundResponse, traceTarget, type BackgroundResponse, type TraceTarget } from '../equilibrium/traceTargets.js';
+import { MAX_DOSE_G_PER_L, MIN_DOSE_G_PER_L } from './doseSearch.js';
 import type { BackgroundAtDose, CompetitionSet, DoseAtRemoval, RemainingAtDose, RemainingEstimates, RemovalModel, RemovalModelFactory, WarmStart } from './removalModel.js';
 
 
 function scaled(components: readonly FreundlichComponent[], factor: number): FreundlichComponent[] {
   return components.map((c) => ({ ...c, c0MgPerL: c.c0MgPerL * factor }));
 }
+
+const traceResponse: BackgroundResponse = { u: 0, lnX: 0, j11: 0, j12: 0, j21: 0, j22: 0, det: 0, du: 0, dLnX: 0 };
+const traceScratch: TraceTarget = { t: 0, dt: 0, u: 0, lnX: 0 };
 
 /** The competitors of every set when all sets share one non-empty list (the same array), else undefined. */
 function sharedCompetitors(sets: readonly CompetitionSet[]): readonly FreundlichComponent[] | undefined {
@@ -50,6 +55,8 @@ export class EquilibriumRemoval implements RemovalModel {
   private groupCache?: Int32Array;
   /** The competitors every target shares, prepared once (absent when the sets differ). */
   private shared?: PreparedMixture;
+  /** The last state of the shared competitors alone (approximateMeanDose's warm start). */
+  private traceWarm?: IastState;
 
   /**
    * @param sets       each target with its competitors at `docMgPerL`
@@ -114,7 +121,7 @@ export class EquilibriumRemoval implements RemovalModel {
   private mixture(index: number): PreparedMixture {
     let pm = this.mixtures[index];
     if (pm) return pm;
-    if (this.shared && index >= 0 && index < this.mixtures.length) {
+    if (this.shared && !this.moved && index >= 0 && index < this.mixtures.length) {
       pm = prependComponent(this.setsCache![index]!.target, this.shared);
       this.mixtures[index] = pm;
       return pm;
@@ -218,6 +225,64 @@ export class EquilibriumRemoval implements RemovalModel {
     const r = iastDoseForRemoval(pm, 0, removalFraction, (warm as IastState | undefined)?.u);
     // one object layout whether or not the slope is asked for (hot loops stay monomorphic)
     return { doseGPerL: r.doseGPerL, remainingFraction: remainingAtState(pm, 0, r.state), slope: withSlope ? remainingSlopeAtState(pm, r.doseGPerL, 0, r.state) : undefined, warm: r.state };
+  }
+
+  /** The shared competitors at this DOC (absent when the targets' competitors differ). */
+  private sharedMixture(): PreparedMixture | undefined {
+    if (this.shared || !this.moved) return this.shared;
+    const p = this.moved.parent.sharedMixture();
+    if (p) this.shared = scaleMixture(p, this.moved.factor);
+    return this.shared;
+  }
+
+  /**
+   * The trace estimate of the dose at which the mean removal of `set` reaches the goal: Newton's
+   * method on ln D over solves of the shared competitors alone, each member's c/c0 in closed form
+   * with the first-order correction for its own loading (src/equilibrium/traceTargets.ts); the
+   * member states it implies are the warm starts of the exact solves. Undefined without one
+   * shared background, for a member that does not adsorb, or when the iteration fails.
+   */
+  approximateMeanDose(set: readonly number[], goalPercent: number, hintGPerL: number): { doseGPerL: number; warm: WarmStart[] } | undefined {
+    const bg = this.sharedMixture();
+    const m = set.length;
+    if (!bg || bg.c0.length === 0 || m === 0 || !(hintGPerL > 0)) return undefined;
+    for (let k = 0; k < m; k++) if (this.mixture(set[k]!).active[0] !== 0) return undefined;
+    const lo = Math.log(MIN_DOSE_G_PER_L), hi = Math.log(MAX_DOSE_G_PER_L);
+    let x = Math.log(hintGPerL);
+    if (!(x > lo && x < hi)) return undefined;
+    const r = traceResponse, tt = traceScratch;
+    let state: IastState | undefined = this.traceWarm;
+    for (let it = 0; it < 30; it++) {
+      state = solveBatchState(bg, Math.exp(x), state);
+      backgroundResponse(bg, state, r);
+      if (!Number.isFinite(r.det) || r.det === 0) return undefined;
+      let mean = 0, slope = 0;
+      for (let k = 0; k < m; k++) {
+        const pm = this.mixture(set[k]!);
+        traceTarget(r, pm.n[0]!, pm.a[0]!, pm.c0[0]!, tt);
+        const f = sigmoid(tt.t);
+        mean += 1 - f;
+        slope -= f * (1 - f) * tt.dt;
+      }
+      const e = (100 * mean) / m - goalPercent, de = (100 * slope) / m;
+      if (!(de > 0) || !Number.isFinite(e)) return undefined;
+      let step = -e / de;
+      if (Math.abs(step) > 2) step = Math.sign(step) * 2;
+      if (Math.abs(step) <= 1e-10) {
+        this.traceWarm = state;
+        const warm: WarmStart[] = [];
+        for (let k = 0; k < m; k++) {
+          const i = set[k]!, pm = this.mixture(i);
+          traceTarget(r, pm.n[0]!, pm.a[0]!, pm.c0[0]!, tt);
+          const gap = pm.cTotal - Math.exp(tt.lnX); // liquid total; θ = ln x − ln(C − x)
+          if (gap > 0) warm[i] = { u: tt.u, theta: tt.lnX - Math.log(gap) };
+        }
+        return { doseGPerL: Math.exp(x + step), warm };
+      }
+      x += step;
+      if (!(x > lo && x < hi)) return undefined;
+    }
+    return undefined;
   }
 
   backgroundRemaining(doseGPerL: number, warm?: WarmStart): BackgroundAtDose {

@@ -15,7 +15,7 @@ import {
   type AdmissibleRange, type IndicatorCategory, type IndicatorEvaluation, type IndicatorValue,
 } from '../indicators/indicatorRule.js';
 import type { RemovalModel, WarmStart } from './removalModel.js';
-import { searchDose, MAX_DOSE_G_PER_L } from './doseSearch.js';
+import { searchDose, DEFAULT_DOSE_HINT_G_PER_L, MAX_DOSE_G_PER_L } from './doseSearch.js';
 import { indicatorDoseNewton } from './indicatorDoseNewton.js';
 
 export interface IndicatorMember {
@@ -134,7 +134,12 @@ export function indicatorDose(model: RemovalModel, goal: IndicatorGoal, hintMgPe
   // a fixed set (chosen, or all compounds when admissible): Newton's method on the mean first
   const fixed = fixedIndicatorSet(model, goal);
   if (fixed) {
-    const d = indicatorDoseNewton(model, fixed.set, goal.goalPercent, hintMgPerL !== undefined ? hintMgPerL / 1000 : undefined, warmStarts);
+    // the model's cheap estimate (trace targets) as the start when it has one: fewer exact steps
+    let hintGPerL = hintMgPerL !== undefined ? hintMgPerL / 1000 : undefined;
+    let warm = warmStarts;
+    const approx = model.approximateMeanDose?.(fixed.set, goal.goalPercent, hintGPerL ?? DEFAULT_DOSE_HINT_G_PER_L);
+    if (approx) { hintGPerL = approx.doseGPerL; warm = approx.warm; }
+    const d = indicatorDoseNewton(model, fixed.set, goal.goalPercent, hintGPerL, warm);
     if (d !== undefined) return { status: 'met', doseMgPerL: d * 1000, selection: fixed.selection };
   }
   const opts: Parameters<typeof searchDose>[1] = { what: 'indicator-mean dose search' };

@@ -98,6 +98,13 @@ export interface RemovalModel {
    * already decides; undefined when the model has no estimate.
    */
   remainingEstimates?(from: number, doseGPerL: number, warm: WarmStart): RemainingEstimates | undefined;
+  /**
+   * Optional: an approximate dose (g/L) at which the mean removal of the compounds `set` reaches
+   * `goalPercent`, with a warm start for each of them there (by compound index), from a cheaper
+   * model (e.g. trace targets beside one background solve). Only a start for the exact search;
+   * undefined when the model has none or it fails.
+   */
+  approximateMeanDose?(set: readonly number[], goalPercent: number, hintGPerL: number): { doseGPerL: number; warm: WarmStart[] } | undefined;
   /** The same model in water of another DOC (competitors scaled by DOC). */
   atDoc(docMgPerL: number): RemovalModel;
   /** Initial concentrations of the fictive DOC components, mg/L (absent without a fractionated background). */

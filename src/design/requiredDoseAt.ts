@@ -8,7 +8,7 @@
  */
 import { compoundDoseSolved } from './compoundDose.js';
 import { designDose, type Design, type DesignProblem } from './designDose.js';
-import { fixedIndicatorSet, indicatorDose, selectIndicatorSet } from './indicatorGoal.js';
+import { fixedIndicatorSet, indicatorDose, selectIndicatorSet, type IndicatorGoal } from './indicatorGoal.js';
 import type { IndicatorValue } from '../indicators/indicatorRule.js';
 import type { DoseAtRemoval, RemainingEstimates, RemovalModel, WarmStart } from './removalModel.js';
 
@@ -53,46 +53,69 @@ export function requiredDoseAt(model: RemovalModel, problem: DesignProblem, refe
   // every compound's removal at that dose, once (the indicator mean uses the same values); a
   // model's estimates with error bounds skip the solves whose outcome they already decide
   const D = dose / 1000;
-  const warm: WarmStart[] = near?.warm ? near.warm.slice() : [];
-  const removal: Array<number | undefined> = [];
-  const exact = (i: number): number => {
-    let v = removal[i];
-    if (v === undefined) {
-      const r = model.remaining(i, D, warm[i]);
-      warm[i] = r.warm;
-      removal[i] = v = 1 - r.remainingFraction;
-    }
-    return v;
-  };
+  const T = problem.goals.length;
+  const warm: WarmStart[] = near?.warm ? near.warm.slice() : new Array<WarmStart>(T);
+  const removal = new Float64Array(T).fill(NaN); // NaN: not solved yet
   const governing = base.governedBy === 'indicator mean' ? -1 : model.compoundIds.indexOf(base.governedBy.replace(/^compound /, ''));
   let est: RemainingEstimates | undefined;
   if (governing >= 0 && solved) { warm[governing] = solved.warm; removal[governing] = 1 - solved.remainingFraction; }
   if (governing >= 0 && model.remainingEstimates) {
-    exact(governing);
+    exactRemoval(model, governing, D, warm, removal);
     est = model.remainingEstimates(governing, D, warm[governing]);
   }
-  for (let i = 0; i < problem.goals.length; i++) {
+  for (let i = 0; i < T; i++) {
     const goal = problem.goals[i]!;
     if (goal.kind === 'none' || !(goal.removalFraction > 0)) continue;
     if (est && est.lnRemaining[i]! + est.lnBound[i]! <= Math.log1p(-goal.removalFraction)) continue; // met for certain
-    if (exact(i) < goal.removalFraction - 1e-9) return full();
+    if (exactRemoval(model, i, D, warm, removal) < goal.removalFraction - 1e-9) return full();
   }
   if (problem.indicator) {
     const ind = problem.indicator;
-    const fixed = fixedIndicatorSet(model, ind);
-    const check = (value: (i: number) => number): boolean => {
-      if (fixed) {
-        // a set that does not depend on the removals: its mean directly (what selectIndicatorSet gives)
-        let sum = 0;
-        for (const i of fixed.set) sum += 100 * value(i);
-        return sum / fixed.set.length >= ind.goalPercent - 1e-7;
-      }
-      const values: IndicatorValue[] = ind.members.map((m) => ({ id: model.compoundIds[m.index]!, category: m.category, removalPercent: 100 * value(m.index) }));
-      return selectIndicatorSet(ind, values, false).set.meanRemovalPercent >= ind.goalPercent - 1e-7;
-    };
+    const fixed = fixedSetOf(model, ind);
     // lower bounds of the removals first (the mean of any set rises with every removal)
-    const certain = est !== undefined && check((i) => (removal[i] !== undefined ? removal[i]! : 1 - Math.exp(est!.lnRemaining[i]! + est!.lnBound[i]!)));
-    if (!certain && !check(exact)) return full();
+    const certain = est !== undefined && indicatorMet(model, ind, fixed, D, warm, removal, est);
+    if (!certain && !indicatorMet(model, ind, fixed, D, warm, removal, undefined)) return full();
   }
   return { docMgPerL, doseMgPerL: dose, governedBy: base.governedBy, warm };
+}
+
+/** Removal of compound i at dose D (g/L), solved once and kept in `removal` (NaN: not yet). */
+function exactRemoval(model: RemovalModel, i: number, D: number, warm: WarmStart[], removal: Float64Array): number {
+  let v = removal[i]!;
+  if (v !== v) {
+    const r = model.remaining(i, D, warm[i]);
+    warm[i] = r.warm;
+    removal[i] = v = 1 - r.remainingFraction;
+  }
+  return v;
+}
+
+/**
+ * Whether the indicator mean reaches its goal at dose D: from lower bounds of the removals when
+ * `est` is given (the solved ones exact, the others the estimate's bound), else from exact removals.
+ */
+function indicatorMet(model: RemovalModel, ind: IndicatorGoal, fixed: number[] | undefined, D: number, warm: WarmStart[], removal: Float64Array, est: RemainingEstimates | undefined): boolean {
+  const value = (i: number): number => {
+    if (!est) return exactRemoval(model, i, D, warm, removal);
+    const v = removal[i]!;
+    return v === v ? v : 1 - Math.exp(est.lnRemaining[i]! + est.lnBound[i]!);
+  };
+  if (fixed) {
+    // a set that does not depend on the removals: its mean directly (what selectIndicatorSet gives)
+    let sum = 0;
+    for (let k = 0; k < fixed.length; k++) sum += 100 * value(fixed[k]!);
+    return sum / fixed.length >= ind.goalPercent - 1e-7;
+  }
+  const values: IndicatorValue[] = ind.members.map((m) => ({ id: model.compoundIds[m.index]!, category: m.category, removalPercent: 100 * value(m.index) }));
+  return selectIndicatorSet(ind, values, false).set.meanRemovalPercent >= ind.goalPercent - 1e-7;
+}
+
+/** fixedIndicatorSet's indices, kept per goal and compound list (the same at every node and draw). */
+const fixedSets = new WeakMap<IndicatorGoal, { ids: readonly string[]; set: number[] | undefined }>();
+function fixedSetOf(model: RemovalModel, ind: IndicatorGoal): number[] | undefined {
+  const c = fixedSets.get(ind);
+  if (c && c.ids === model.compoundIds) return c.set;
+  const set = fixedIndicatorSet(model, ind)?.set;
+  fixedSets.set(ind, { ids: model.compoundIds, set });
+  return set;
 }

@@ -18,7 +18,7 @@
  */
 import { ComputationError } from '../core/errors.js';
 import type { FreundlichComponent } from '../equilibrium/preparedMixture.js';
-import { designDose, type Design, type DesignProblem } from '../design/designDose.js';
+import { designDose, designDoseWarm, type Design, type DesignProblem, type DesignWarmStarts } from '../design/designDose.js';
 import { requiredDoseAt, type RequiredAtDoc } from '../design/requiredDoseAt.js';
 import { REPORT_ONLY_GOAL } from '../design/compoundGoal.js';
 import { seriesCarbon, seriesSegments, doseTable, type SeriesSegments } from '../design/doseTable.js';
@@ -54,6 +54,8 @@ export interface DrawModel {
   yearly?: { nodes: number[]; segments: SeriesSegments };
   /** The design at the point estimate: starting hints for every draw's searches (only a speed-up). */
   pointDesign?: Design;
+  /** The point design's solve states (warm starts of every draw's solves; only a speed-up). */
+  pointWarm?: DesignWarmStarts;
 }
 
 export interface DrawnParameters {
@@ -125,7 +127,9 @@ export function compileDrawModel(problem: MonteCarloProblem): DrawModel {
     factory,
   };
   if (yearly) out.yearly = yearly;
-  out.pointDesign = designDose(drawModel(out, sampleParameters(out, undefined)), design);
+  const point = designDoseWarm(drawModel(out, sampleParameters(out, undefined)), design);
+  out.pointDesign = point.design;
+  out.pointWarm = point.warm;
   return out;
 }
 
@@ -226,7 +230,7 @@ export function evaluateDraw(model: DrawModel, d: DrawnParameters, out: Float64A
   const p = model.problem;
   const T = p.targets.length;
   const removal = drawModel(model, d);
-  const design: Design = designDose(removal, model.design, model.pointDesign);
+  const design: Design = designDose(removal, model.design, model.pointDesign, model.pointWarm);
   const required = orInfinity(design.doseMgPerL);
   for (let t = 0; t < T; t++) {
     // a report-only compound: its removal at the required dose (none without a dose)

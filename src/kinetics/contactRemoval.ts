@@ -28,7 +28,7 @@ import type { BackgroundAtDose, CompetitionSet, DoseAtRemoval, RemainingAtDose, 
 import { prepareKinetics, type CarbonParticle, type KineticComponent, type PreparedKinetics } from './kineticMixture.js';
 import { checkTimes, DEFAULT_KINETIC_RTOL, pacBatch, type KineticSolverOptions } from './pacBatch.js';
 import { checkContactConditions, stirredReactor, stirredReactorFrom } from './stirredReactor.js';
-import { sharedBackground, sharedBackgroundKey, type SharedBackground } from './sharedBackground.js';
+import { sharedBackground, sharedBackgroundKey, type SharedBackground, type StirredOutlet } from './sharedBackground.js';
 import { traceDoseRoot } from './traceDoseRoot.js';
 
 export type ContactConditions =
@@ -148,6 +148,8 @@ export class ContactRemoval implements RemovalModel {
     readonly options: KineticSolverOptions = {},
     /** Share trace targets' backgrounds (default true; false solves every target on its own, for tests). */
     readonly shareBackground = true,
+    /** The same water at another DOC (atDoc), whose solves give starts: doses scaled by `factor` = this DOC / its DOC. */
+    private readonly nearDoc?: { shared: ReadonlyArray<{ group: SharedBackground; at: number } | undefined>; factor: number },
   ) {
     checkConditions(conditions);
     this.kind = conditions.kind === 'plug-flow'
@@ -163,7 +165,10 @@ export class ContactRemoval implements RemovalModel {
     });
     this.shared = this.prepared.map(() => undefined);
     for (const members of byKey.values()) {
-      const group = sharedBackground(members.map((i) => this.prepared[i]!), particle, conditions, options);
+      // starts from the same group at the nearby DOC: its outlets at doses scaled by DOC (the dose per mg DOC is roughly constant)
+      const nearGroup = nearDoc?.shared[members[0]!]?.group;
+      const starts: StirredOutlet[] = nearGroup ? nearGroup.outlets.map((o) => ({ ...o, dose: o.dose * nearDoc!.factor })) : [];
+      const group = sharedBackground(members.map((i) => this.prepared[i]!), particle, conditions, options, starts);
       members.forEach((i, k) => { this.shared[i] = { group, at: group.competitorCount + k }; });
     }
     if (background && background.length) {
@@ -198,8 +203,17 @@ export class ContactRemoval implements RemovalModel {
     return { doseGPerL: root.doseGPerL, remainingFraction: root.remainingFraction, ...(withSlope && root.slope !== undefined ? { slope: root.slope } : {}), warm };
   }
 
-  /** The first dose tried when nothing is solved yet: 1.5 × the equilibrium dose (contact removes less), or 20 mg/L. */
+  /**
+   * The first dose tried when nothing is solved yet: the dose of the nearby DOC's solve closest
+   * to the goal, scaled by DOC; else 1.5 × the equilibrium dose (contact removes less), or 20 mg/L.
+   */
   private startDose(index: number, removalFraction: number): number {
+    const near = this.nearDoc?.shared[index];
+    if (near) {
+      let best: number | undefined, gap = Infinity;
+      for (const [d, f] of near.group.solved) { const g = Math.abs(f[near.at]! - (1 - removalFraction)); if (g < gap) { gap = g; best = d; } }
+      if (best !== undefined) return best * this.nearDoc!.factor;
+    }
     try {
       return 1.5 * doseForRemoval(prepareMixture(this.prepared[index]!.components), 0, removalFraction).doseGPerL;
     } catch (e) {
@@ -222,7 +236,7 @@ export class ContactRemoval implements RemovalModel {
   atDoc(docMgPerL: number): ContactRemoval {
     const f = docMgPerL / this.docMgPerL;
     const scale = (cs: readonly FreundlichComponent[]) => cs.map((c) => ({ ...c, c0MgPerL: c.c0MgPerL * f }));
-    return new ContactRemoval(this.sets.map((s) => ({ target: s.target, competitors: scale(s.competitors) })), docMgPerL, this.particle, this.conditions, this.background ? scale(this.background) : undefined, this.options, this.shareBackground);
+    return new ContactRemoval(this.sets.map((s) => ({ target: s.target, competitors: scale(s.competitors) })), docMgPerL, this.particle, this.conditions, this.background ? scale(this.background) : undefined, this.options, this.shareBackground, { shared: this.shared, factor: f });
   }
 }
 

@@ -6,9 +6,10 @@
  * mean carbon age θ ≥ τ; stirredReactor). The remaining fraction c/c0 of every component falls
  * as the dose rises, so the dose for a goal is the root of
  *   e(D) = ln(1 − R) − ln(c(D)/c0)   (removalExcess)
- * found by the design layer's one dose search (src/design/doseSearch.ts: bracketing on ln D,
- * then Brent 1973), warm-started from one evaluation at 1.5 × the equilibrium dose (a lower bound:
- * contact gives less removal; see remainingAtDoses and doseUnderContact).
+ * found by secant steps on the log-odds of removal from 1.5 × the equilibrium dose (a lower
+ * bound: contact gives less removal; traceDoseRoot.ts), and where they give up by the design
+ * layer's one dose search (src/design/doseSearch.ts: bracketing on ln D, then Brent 1973; see
+ * remainingAtDoses and doseUnderContact).
  *
  * `ContactRemoval` is the RemovalModel of the design layer (src/design/removalModel.ts) for these
  * conditions: every target with its competitors (fictive DOC components with their Ds and DL or
@@ -28,7 +29,7 @@ import type { BackgroundAtDose, CompetitionSet, DoseAtRemoval, RemainingAtDose, 
 import { prepareKinetics, type CarbonParticle, type KineticComponent, type PreparedKinetics } from './kineticMixture.js';
 import { checkTimes, DEFAULT_KINETIC_RTOL, pacBatch, type KineticSolverOptions } from './pacBatch.js';
 import { checkContactConditions, stirredReactor, stirredReactorFrom } from './stirredReactor.js';
-import { sharedBackground, sharedBackgroundKey, type SharedBackground } from './sharedBackground.js';
+import { sharedBackground, sharedBackgroundKey, type SharedBackground, type StirredOutlet } from './sharedBackground.js';
 import { traceDoseRoot } from './traceDoseRoot.js';
 
 export type ContactConditions =
@@ -71,10 +72,14 @@ export function doseUnderContact(pk: PreparedKinetics, targetIndex: number, remo
   if (!comp) throw new InputError(`target index ${targetIndex} is not in the mixture`);
   const eq = doseForRemoval(prepareMixture(pk.components), targetIndex, removalFraction);
   const at = remainingAtDoses(pk, cond, options);
+  const d1 = eq.doseGPerL * 1.5;
+  // the secant on the log-odds of removal (traceDoseRoot) first, to a thousandth of the
+  // integrator's rtol in c/c0; the design layer's dose search where it gives up (statuses)
+  const root = traceDoseRoot((d) => at(d)[targetIndex]!, [], removalFraction, (options.rtol ?? DEFAULT_KINETIC_RTOL) * 1e-3, () => d1);
+  if (root) return { doseGPerL: root.doseGPerL, removalFraction: 1 - root.remainingFraction, equilibriumDoseGPerL: eq.doseGPerL, evaluations: at.evaluations() };
   // warm start (ours): one evaluation at 1.5 × the equilibrium dose, then the hint from ln(c/c0)
   // proportional to the dose (first-order uptake by the carbon's outer surface), clamped to
   // [1, 20] × that dose; the search then brackets with small steps
-  const d1 = eq.doseGPerL * 1.5;
   const r1 = at(d1)[targetIndex]!;
   const hint = r1 > 0 && r1 < 1 ? d1 * Math.min(20, Math.max(1, Math.log(1 - removalFraction) / Math.log(r1))) : d1;
   const r = searchDose((d) => removalExcess(at(d)[targetIndex]!, removalFraction), { hintGPerL: hint, firstStep: 0.1, what: `contact dose search for "${comp.id}"` });
@@ -103,7 +108,7 @@ function remainingAtDoses(pk: PreparedKinetics, cond: ContactConditions, options
       let near: (typeof outlets)[number] | undefined;
       let best = Infinity;
       for (const o of outlets) { const dist = Math.abs(Math.log(o.dose / d)); if (dist < best) { best = dist; near = o; } }
-      const res = stirredReactorFrom(pk, d, cond.contactTimeS, cond.carbonAgeS, options, near?.coupled, near?.jacobian);
+      const res = stirredReactorFrom(pk, d, cond.contactTimeS, cond.carbonAgeS, options, near?.coupled, near?.jacobian, near?.dose);
       const c = res.cMgPerL;
       outlets.push({ dose: d, coupled: Float64Array.from(pk.coupled, (i) => c[i]! / pk.components[i]!.c0MgPerL), ...(res.balanceJacobian ? { jacobian: res.balanceJacobian } : {}) });
       f = remainingFraction(pk, c);
@@ -148,6 +153,8 @@ export class ContactRemoval implements RemovalModel {
     readonly options: KineticSolverOptions = {},
     /** Share trace targets' backgrounds (default true; false solves every target on its own, for tests). */
     readonly shareBackground = true,
+    /** The same water at another DOC (atDoc), whose solves give starts: doses scaled by `factor` = this DOC / its DOC. */
+    private readonly nearDoc?: { shared: ReadonlyArray<{ group: SharedBackground; at: number } | undefined>; factor: number },
   ) {
     checkConditions(conditions);
     this.kind = conditions.kind === 'plug-flow'
@@ -163,7 +170,10 @@ export class ContactRemoval implements RemovalModel {
     });
     this.shared = this.prepared.map(() => undefined);
     for (const members of byKey.values()) {
-      const group = sharedBackground(members.map((i) => this.prepared[i]!), particle, conditions, options);
+      // starts from the same group at the nearby DOC: its outlets at doses scaled by DOC (the dose per mg DOC is roughly constant)
+      const nearGroup = nearDoc?.shared[members[0]!]?.group;
+      const starts: StirredOutlet[] = nearGroup ? nearGroup.outlets.map((o) => ({ ...o, dose: o.dose * nearDoc!.factor })) : [];
+      const group = sharedBackground(members.map((i) => this.prepared[i]!), particle, conditions, options, starts);
       members.forEach((i, k) => { this.shared[i] = { group, at: group.competitorCount + k }; });
     }
     if (background && background.length) {
@@ -198,8 +208,17 @@ export class ContactRemoval implements RemovalModel {
     return { doseGPerL: root.doseGPerL, remainingFraction: root.remainingFraction, ...(withSlope && root.slope !== undefined ? { slope: root.slope } : {}), warm };
   }
 
-  /** The first dose tried when nothing is solved yet: 1.5 × the equilibrium dose (contact removes less), or 20 mg/L. */
+  /**
+   * The first dose tried when nothing is solved yet: the dose of the nearby DOC's solve closest
+   * to the goal, scaled by DOC; else 1.5 × the equilibrium dose (contact removes less), or 20 mg/L.
+   */
   private startDose(index: number, removalFraction: number): number {
+    const near = this.nearDoc?.shared[index];
+    if (near) {
+      let best: number | undefined, gap = Infinity;
+      for (const [d, f] of near.group.solved) { const g = Math.abs(f[near.at]! - (1 - removalFraction)); if (g < gap) { gap = g; best = d; } }
+      if (best !== undefined) return best * this.nearDoc!.factor;
+    }
     try {
       return 1.5 * doseForRemoval(prepareMixture(this.prepared[index]!.components), 0, removalFraction).doseGPerL;
     } catch (e) {
@@ -222,7 +241,7 @@ export class ContactRemoval implements RemovalModel {
   atDoc(docMgPerL: number): ContactRemoval {
     const f = docMgPerL / this.docMgPerL;
     const scale = (cs: readonly FreundlichComponent[]) => cs.map((c) => ({ ...c, c0MgPerL: c.c0MgPerL * f }));
-    return new ContactRemoval(this.sets.map((s) => ({ target: s.target, competitors: scale(s.competitors) })), docMgPerL, this.particle, this.conditions, this.background ? scale(this.background) : undefined, this.options, this.shareBackground);
+    return new ContactRemoval(this.sets.map((s) => ({ target: s.target, competitors: scale(s.competitors) })), docMgPerL, this.particle, this.conditions, this.background ? scale(this.background) : undefined, this.options, this.shareBackground, { shared: this.shared, factor: f });
   }
 }
 

@@ -16,7 +16,8 @@
  *
  * Every dose solved is remembered (a dose asked again, by any target of the group, costs nothing),
  * and each stirred solve starts from the outlet and balance Jacobian at the nearest dose already
- * solved (the result does not depend on the start beyond the balance tolerance).
+ * solved, or, before the first, at the nearest of `starts` (e.g. the same water at another DOC,
+ * doses scaled by DOC); the result does not depend on the start beyond the balance tolerance.
  *
  * Units: dose g/L, times s, concentrations mg/L.
  * @throws ComputationError when a kinetic solve fails.
@@ -37,7 +38,12 @@ export interface SharedBackground {
   remainingAt(doseGPerL: number): Float64Array;
   /** Doses solved so far and their results (in the order solved). */
   readonly solved: ReadonlyMap<number, Float64Array>;
+  /** Stirred-reactor outlets solved so far (warm starts), c_out/c0 of the coupled components. */
+  readonly outlets: ReadonlyArray<StirredOutlet>;
 }
+
+/** A solved stirred-reactor outlet: the dose, c_out/c0 of the coupled components and the balance Jacobian there. */
+export interface StirredOutlet { dose: number; coupled: Float64Array; jacobian?: Float64Array }
 
 /**
  * Key of a target's own prepared mixture [target, ...competitors] when the target is a trace
@@ -54,7 +60,7 @@ export function sharedBackgroundKey(own: PreparedKinetics): string | undefined {
  * The shared background of targets whose own mixtures (`own`, each [target, ...competitors], all
  * with the same sharedBackgroundKey) are given.
  */
-export function sharedBackground(own: readonly PreparedKinetics[], particle: CarbonParticle, cond: ContactConditions, options: KineticSolverOptions = {}): SharedBackground {
+export function sharedBackground(own: readonly PreparedKinetics[], particle: CarbonParticle, cond: ContactConditions, options: KineticSolverOptions = {}, starts: readonly StirredOutlet[] = []): SharedBackground {
   const first = own[0]!;
   const competitors = first.components.slice(1) as KineticComponent[];
   const nC = competitors.length;
@@ -67,7 +73,7 @@ export function sharedBackground(own: readonly PreparedKinetics[], particle: Car
     trace: [...first.trace.filter((i) => i > 0).map((i) => i - 1), ...targets.map((_t, k) => nC + k)],
   };
   const solved = new Map<number, Float64Array>();
-  const outlets: Array<{ dose: number; coupled: Float64Array; jacobian?: Float64Array }> = [];
+  const outlets: StirredOutlet[] = [];
   const fraction = (c: Float64Array) => Float64Array.from(pk.components, (comp, i) => (comp.c0MgPerL > 0 ? Math.min(1, Math.max(0, c[i]! / comp.c0MgPerL)) : 1));
   const remainingAt = (d: number): Float64Array => {
     const hit = solved.get(d);
@@ -77,7 +83,7 @@ export function sharedBackground(own: readonly PreparedKinetics[], particle: Car
     else {
       let near: (typeof outlets)[number] | undefined;
       let best = Infinity;
-      for (const o of outlets) { const dist = Math.abs(Math.log(o.dose / d)); if (dist < best) { best = dist; near = o; } }
+      for (const o of outlets.length ? outlets : starts) { const dist = Math.abs(Math.log(o.dose / d)); if (dist < best) { best = dist; near = o; } }
       const res = stirredReactorFrom(pk, d, cond.contactTimeS, cond.carbonAgeS, options, near?.coupled, near?.jacobian, near?.dose);
       const c = res.cMgPerL;
       outlets.push({ dose: d, coupled: Float64Array.from(pk.coupled, (i) => c[i]! / pk.components[i]!.c0MgPerL), ...(res.balanceJacobian ? { jacobian: res.balanceJacobian } : {}) });
@@ -86,5 +92,5 @@ export function sharedBackground(own: readonly PreparedKinetics[], particle: Car
     solved.set(d, f);
     return f;
   };
-  return { pk, competitorCount: nC, remainingAt, solved };
+  return { pk, competitorCount: nC, remainingAt, solved, outlets };
 }

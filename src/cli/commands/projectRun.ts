@@ -10,7 +10,7 @@ import { pipelineOutputs, pipelineTables } from '../../outputFiles/pipelineOutpu
 import type { PipelineInput, PipelineResult, ProgressEvent } from '../../pipeline/pipelineTypes.js';
 import { writeOutputDir } from '../../io/writeOutputs.js';
 import { reportPdf } from '../../io/reportPdf.js';
-import { resultsWorkbook } from '../../report/resultsWorkbook.js';
+import { resultsWorkbookThreaded } from '../workbookThread.js';
 import { checkOutputFolder } from '../../io/outputChecks.js';
 import { assertFiniteResult } from '../../scenario/finiteResult.js';
 import { VERSION } from '../../version.js';
@@ -112,10 +112,11 @@ export async function runAndWrite(input: PipelineInput, outDir: string, json: bo
   bar.finish();
   progress.done();
   assertFiniteResult(result, result.project.carbons.map((c) => c.name));
-  // every output is made before anything is written (whole or nothing); results.xlsx is
-  // compressed on the thread pool while the report and run.json are made
+  // every output is made before anything is written (whole or nothing); results.xlsx is made
+  // (a large one on a worker thread, its parts compressed on the thread pool) while the report
+  // and run.json are made
   const tables = pipelineTables(result);
-  const workbook = resultsWorkbook(tables, { created: new Date(result.generatedAt) });
+  const workbook = resultsWorkbookThreaded(tables, new Date(result.generatedAt));
   workbook.catch(() => undefined); // awaited below; a failure of the texts first must not leave it unhandled
   const texts = pipelineOutputs(result, { toolVersion: VERSION, nodeVersion: process.version, platform: `${process.platform}-${process.arch}` }, tables);
   const files: Record<string, string | Uint8Array> = { ...texts, 'results.xlsx': await workbook };

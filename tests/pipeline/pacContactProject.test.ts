@@ -70,6 +70,7 @@ describe('the demo variant with contact conditions (fixtures/demo/project-contac
       return q;
     };
     expect(strip(variant)).toEqual(strip(demo));
+    expect(variant.carbons[2].kinetics).toEqual(demo.carbons[2].kinetics); // GAC C: the same fixed-bed inputs and pilot-column test
   });
 });
 

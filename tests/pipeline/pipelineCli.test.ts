@@ -12,7 +12,7 @@ const DEMO = join(process.cwd(), 'fixtures/demo');
 const run = runBin; // fails with a clear message when dist is missing or older than src
 const tmp = () => mkdtempSync(join(tmpdir(), 'sorbshare-cli-'));
 const FILES = ['summary.md', 'report.html', 'compounds.csv', 'removal_curves.csv', 'carbons.csv', 'daily_doses.csv', 'indicators.csv',
-  'surrogates.csv', 'setpoints.csv', 'pilot_check.csv', 'gac.csv', 'uncertainty.csv', 'kinetic_calibration.csv', 'run.json', 'results.xlsx'];
+  'surrogates.csv', 'setpoints.csv', 'pilot_check.csv', 'gac.csv', 'uncertainty.csv', 'kinetic_calibration.csv', 'column_calibration.csv', 'run.json', 'results.xlsx'];
 /** stderr without Monte Carlo progress lines (they appear only when the draws take over a second). */
 const quiet = (err: string) => err.replace(/^\r?sorbshare: Monte Carlo.*$\n?/gm, '');
 

@@ -125,12 +125,13 @@ export function summarise(model: DrawModel, chunks: ChunkResult[], options: Mont
 }
 
 /**
- * Monte Carlo over the problem's uncertain parameters, in this thread.
+ * Monte Carlo over the problem's uncertain parameters, in this thread (`compiled`: the problem's
+ * compiled model when the caller has it).
  * @throws InputError for an invalid problem or options; ComputationError if a solve fails.
  */
-export function monteCarlo(problem: MonteCarloProblem, options: MonteCarloOptions): MonteCarloResult {
+export function monteCarlo(problem: MonteCarloProblem, options: MonteCarloOptions, compiled?: DrawModel): MonteCarloResult {
   checkOptions(options);
-  const model = compileDrawModel(problem);
+  const model = compiled && compiled.problem === problem ? compiled : compileDrawModel(problem); // the caller's compiled model saves compiling twice
   const chunks: ChunkResult[] = [];
   let done = 0;
   for (const { chunk, count } of planChunks(options.draws)) {

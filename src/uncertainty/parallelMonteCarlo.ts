@@ -103,7 +103,7 @@ export async function parallelMonteCarlo(problem: MonteCarloProblem, options: Pa
   const plan = planChunks(options.draws);
   const nWorkers = Math.min(requested, plan.length);
   const inThread = (note: string): MonteCarloResult => {
-    const r = monteCarlo(problem, options);
+    const r = monteCarlo(problem, options, model);
     r.execution.note = note;
     return r;
   };

@@ -73,9 +73,9 @@ export function doseUnderContact(pk: PreparedKinetics, targetIndex: number, remo
   const eq = doseForRemoval(prepareMixture(pk.components), targetIndex, removalFraction);
   const at = remainingAtDoses(pk, cond, options);
   const d1 = eq.doseGPerL * 1.5;
-  // the secant on the log-odds of removal (traceDoseRoot) first, to a thousandth of the
-  // integrator's rtol in c/c0; the design layer's dose search where it gives up (statuses)
-  const root = traceDoseRoot((d) => at(d)[targetIndex]!, [], removalFraction, (options.rtol ?? DEFAULT_KINETIC_RTOL) * 1e-3, () => d1);
+  // the secant on the log-odds of removal (traceDoseRoot) first, meeting the goal within half
+  // the model's accuracy in c/c0 (rtol/200); the design layer's dose search where it gives up
+  const root = traceDoseRoot((d) => at(d)[targetIndex]!, [], removalFraction, (options.rtol ?? DEFAULT_KINETIC_RTOL) * 5e-3, () => d1);
   if (root) return { doseGPerL: root.doseGPerL, removalFraction: 1 - root.remainingFraction, equilibriumDoseGPerL: eq.doseGPerL, evaluations: at.evaluations() };
   // warm start (ours): one evaluation at 1.5 × the equilibrium dose, then the hint from ln(c/c0)
   // proportional to the dose (first-order uptake by the carbon's outer surface), clamped to
@@ -194,7 +194,7 @@ export class ContactRemoval implements RemovalModel {
 
   /**
    * The dose for a goal of a target that shares its background, found on the shared solves
-   * (traceDoseRoot) to a tenth of `removalTolerance`; undefined for the other targets, or
+   * (traceDoseRoot), meeting the goal by at most half of `removalTolerance` more; undefined for the other targets, or
    * when the goal is not met within the searched doses (the design layer's search then gives the
    * status).
    */
@@ -203,7 +203,7 @@ export class ContactRemoval implements RemovalModel {
     if (!sh || !(removalFraction > 0 && removalFraction < 1)) return undefined;
     const { group, at } = sh;
     const known = [...group.solved].map(([d, f]) => [d, f[at]!] as const);
-    const root = traceDoseRoot((d) => group.remainingAt(d)[at]!, known, removalFraction, this.removalTolerance * 0.1, () => this.startDose(index, removalFraction));
+    const root = traceDoseRoot((d) => group.remainingAt(d)[at]!, known, removalFraction, this.removalTolerance * 0.5, () => this.startDose(index, removalFraction));
     if (!root) return undefined;
     return { doseGPerL: root.doseGPerL, remainingFraction: root.remainingFraction, ...(withSlope && root.slope !== undefined ? { slope: root.slope } : {}), warm };
   }

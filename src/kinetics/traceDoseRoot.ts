@@ -45,7 +45,12 @@ interface Point { x: number; r: number; y: number }
 export function traceDoseRoot(remainingAt: (doseGPerL: number) => number, known: Iterable<readonly [number, number]>, removalFraction: number, tolerance: number, start: () => number): TraceDoseRoot | undefined {
   if (!(removalFraction > 0 && removalFraction < 1)) return undefined;
   const rGoal = 1 - removalFraction;
-  const yGoal = Math.log(removalFraction / rGoal);
+  // aim half the tolerance past the goal and accept only doses that meet it (c/c0 ≤ 1 − R): a
+  // caller checking the goal at the dose found (the design layer's dose table) finds it met
+  const tol = Math.min(tolerance, 0.5 * rGoal);
+  const rAim = rGoal - 0.5 * tol;
+  const yGoal = Math.log((1 - rAim) / rAim);
+  const accepted = (r: number) => r <= rGoal && r >= rGoal - tol;
   const xMin = Math.log(MIN_DOSE_G_PER_L);
   const xMax = Math.log(MAX_DOSE_G_PER_L);
   const logOdds = (r: number) => Math.log((1 - r) / r); // ±Infinity at r = 0 or 1
@@ -56,8 +61,8 @@ export function traceDoseRoot(remainingAt: (doseGPerL: number) => number, known:
   let olderResidual = Infinity;
   for (;;) {
     let best: Point | undefined;
-    for (const p of pts) if (!best || Math.abs(p.r - rGoal) < Math.abs(best.r - rGoal)) best = p;
-    if (best && Math.abs(best.r - rGoal) <= tolerance) return { doseGPerL: Math.exp(best.x), remainingFraction: best.r, ...slopeAt(best, pts, yGoal), solves };
+    for (const p of pts) if (accepted(p.r) && (!best || Math.abs(p.r - rAim) < Math.abs(best.r - rAim))) best = p;
+    if (best) return { doseGPerL: Math.exp(best.x), remainingFraction: best.r, ...slopeAt(best, pts, yGoal), solves };
     if (solves >= MAX_SOLVES) return undefined;
     let lo: Point | undefined, hi: Point | undefined;
     for (const p of pts) {

@@ -66,13 +66,15 @@ describe('shared background of trace targets equals the per-compound full solve'
         const found = shared.doseForRemoval(i, R);
         expect(found, `T${i + 1}`).toBeDefined();
         const d = found!.doseGPerL;
-        expect(Math.abs(found!.remainingFraction - (1 - R))).toBeLessThanOrEqual(0.1 * shared.removalTolerance);
+        expect(Math.abs(found!.remainingFraction - (1 - R))).toBeLessThanOrEqual(0.5 * shared.removalTolerance);
+        expect(found!.remainingFraction).toBeLessThanOrEqual(1 - R); // the goal met at the dose found
         // the shared dose meets the goal on the per-compound solve within both paths' accuracy
         expect(Math.abs(solo.remaining(i, d).remainingFraction - (1 - R)), `T${i + 1} on its own solve`).toBeLessThanOrEqual(tol);
         // and is the design layer's search on the per-compound solve (Brent to 1e-12 in ln D), up
-        // to the difference of the two solves at that dose: Δ ln D = Δ(c/c0)/((c/c0)·|slope|)
+        // to the difference of the two solves at that dose and the per-compound solve's own
+        // accuracy (the root of a function known to removalTolerance): Δ ln D = Δ(c/c0)/((c/c0)·|slope|)
         const searched = compoundDose(solo, i, { kind: 'removal', removalFraction: R, text: '' });
-        const gap = Math.abs(solo.remaining(i, d).remainingFraction - found!.remainingFraction) + 1e-9;
+        const gap = Math.abs(solo.remaining(i, d).remainingFraction - (1 - R)) + shared.removalTolerance;
         expect(Math.abs(Math.log((d * 1000) / searched.doseMgPerL!))).toBeLessThanOrEqual((1.5 * gap) / ((1 - R) * Math.abs(found!.slope ?? -(1 - R))));
       }
     }, 120_000);

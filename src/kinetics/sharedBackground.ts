@@ -16,8 +16,9 @@
  *
  * Every dose solved is remembered (a dose asked again, by any target of the group, costs nothing),
  * and each stirred solve starts from the outlet and balance Jacobian at the nearest dose already
- * solved, or, before the first, at the nearest of `starts` (e.g. the same water at another DOC,
- * doses scaled by DOC); the result does not depend on the start beyond the balance tolerance.
+ * solved for this background by any model (keptOutlets), or, before the first, at the nearest of
+ * `starts` (e.g. the same water at another DOC, doses scaled by DOC); the result does not depend
+ * on the start beyond the balance tolerance.
  *
  * Units: dose g/L, times s, concentrations mg/L.
  * @throws ComputationError when a kinetic solve fails.
@@ -38,7 +39,7 @@ export interface SharedBackground {
   remainingAt(doseGPerL: number): Float64Array;
   /** Doses solved so far and their results (in the order solved). */
   readonly solved: ReadonlyMap<number, Float64Array>;
-  /** Stirred-reactor outlets solved so far (warm starts), c_out/c0 of the coupled components. */
+  /** Stirred-reactor outlets solved so far for this background (warm starts), c_out/c0 of the coupled components. */
   readonly outlets: ReadonlyArray<StirredOutlet>;
 }
 
@@ -54,6 +55,26 @@ export function sharedBackgroundKey(own: PreparedKinetics): string | undefined {
   if (!own.trace.includes(0)) return undefined;
   const comps = own.components.slice(1).map((c, k) => [c.id, c.c0MgPerL, c.K, c.oneOverN, c.dsM2PerS ?? null, own.kfMPerS[k + 1]]);
   return JSON.stringify([comps, own.coupled, own.trace.filter((i) => i > 0)]);
+}
+
+/** Stirred outlets kept per background (competitors and their split, particle, conditions, options), at most this many backgrounds and outlets each (ours). */
+const MAX_KEPT_BACKGROUNDS = 64;
+const MAX_KEPT_OUTLETS = 256;
+const KEPT = new Map<string, StirredOutlet[]>();
+
+/**
+ * The outlets solved so far for one background, by any model: the background's outlet does not
+ * depend on the trace targets, so a model with other targets in the same background (a
+ * sensitivity case on one target's isotherm, the same DOC node of another dose table) starts
+ * each solve from them; only a start, like any other.
+ */
+function keptOutlets(key: string): StirredOutlet[] {
+  let list = KEPT.get(key);
+  if (list) { KEPT.delete(key); KEPT.set(key, list); return list; } // most recently used last
+  list = [];
+  KEPT.set(key, list);
+  if (KEPT.size > MAX_KEPT_BACKGROUNDS) KEPT.delete(KEPT.keys().next().value!);
+  return list;
 }
 
 /**
@@ -73,7 +94,7 @@ export function sharedBackground(own: readonly PreparedKinetics[], particle: Car
     trace: [...first.trace.filter((i) => i > 0).map((i) => i - 1), ...targets.map((_t, k) => nC + k)],
   };
   const solved = new Map<number, Float64Array>();
-  const outlets: StirredOutlet[] = [];
+  const outlets = keptOutlets(JSON.stringify([sharedBackgroundKey(first), particle, cond, options]));
   const fraction = (c: Float64Array) => Float64Array.from(pk.components, (comp, i) => (comp.c0MgPerL > 0 ? Math.min(1, Math.max(0, c[i]! / comp.c0MgPerL)) : 1));
   const remainingAt = (d: number): Float64Array => {
     const hit = solved.get(d);
@@ -86,6 +107,7 @@ export function sharedBackground(own: readonly PreparedKinetics[], particle: Car
       for (const o of outlets.length ? outlets : starts) { const dist = Math.abs(Math.log(o.dose / d)); if (dist < best) { best = dist; near = o; } }
       const res = stirredReactorFrom(pk, d, cond.contactTimeS, cond.carbonAgeS, options, near?.coupled, near?.jacobian, near?.dose);
       const c = res.cMgPerL;
+      if (outlets.length >= MAX_KEPT_OUTLETS) outlets.shift();
       outlets.push({ dose: d, coupled: Float64Array.from(pk.coupled, (i) => c[i]! / pk.components[i]!.c0MgPerL), ...(res.balanceJacobian ? { jacobian: res.balanceJacobian } : {}) });
       f = fraction(c);
     }

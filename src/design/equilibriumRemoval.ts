@@ -13,7 +13,7 @@
 import { InputError } from '../core/errors.js';
 import { sigmoid, softplus } from '../core/logistic.js';
 import { checkLead, prepareMixture, prependComponent, scaleMixture, type FreundlichComponent, type PreparedMixture } from '../equilibrium/preparedMixture.js';
-import { iastState, remainingAtState, remainingSlopeAtState, solveBatchPrepared, solveBatchState, type IastState } from '../equilibrium/iastBatch.js';
+import { remainingAtState, remainingSlopeAtState, solveBatchPrepared, solveBatchState, type IastState } from '../equilibrium/iastBatch.js';
 import { iastDoseForRemoval } from '../equilibrium/iastDoseForRemoval.js';
 import { backgroundResponse, traceTarget, type BackgroundResponse, type TraceTarget } from '../equilibrium/traceTargets.js';
 import { MAX_DOSE_G_PER_L, MIN_DOSE_G_PER_L } from './doseSearch.js';
@@ -275,7 +275,7 @@ export class EquilibriumRemoval implements RemovalModel {
           const i = set[k]!, pm = this.mixture(i);
           traceTarget(r, pm.n[0]!, pm.a[0]!, pm.c0[0]!, tt);
           const gap = pm.cTotal - Math.exp(tt.lnX); // liquid total; θ = ln x − ln(C − x)
-          if (gap > 0) warm[i] = iastState(tt.u, tt.lnX - Math.log(gap));
+          if (gap > 0) warm[i] = { u: tt.u, theta: tt.lnX - Math.log(gap), lnD: undefined, du: undefined, dTheta: undefined } satisfies IastState;
         }
         return { doseGPerL: Math.exp(x + step), warm };
       }

@@ -36,18 +36,9 @@ import { directIastPrepared } from './iastDirect.js';
 export interface IastState {
   u: number;
   theta: number;
-  /** ln D of the solve (NaN when unknown: then no prediction). */
-  lnD: number;
-  du: number;
-  dTheta: number;
-}
-
-/** A warm start: a state, with or without its tangent. */
-export type IastStart = { u: number; theta: number; lnD?: number; du?: number; dTheta?: number };
-
-/** A state without a tangent (a start from elsewhere): the same object layout as a solve's. */
-export function iastState(u: number, theta: number): IastState {
-  return { u, theta, lnD: NaN, du: NaN, dTheta: NaN };
+  lnD?: number;
+  du?: number;
+  dTheta?: number;
 }
 
 export interface BatchSolution {
@@ -124,7 +115,7 @@ function evaluate(pm: PreparedMixture, lnD: number, u: number, theta: number, ou
 }
 
 /** Starting point from one lumped Freundlich solute (c0-weighted exponent and ln K). */
-function lumpedStart(pm: PreparedMixture, doseGPerL: number): IastState {
+function lumpedStart(pm: PreparedMixture, doseGPerL: number): { u: number; theta: number } {
   const { c0, beta, lnK } = pm;
   let b = 0, lk = 0;
   for (let i = 0; i < c0.length; i++) { b += c0[i]! * beta[i]!; lk += c0[i]! * lnK[i]!; }
@@ -146,7 +137,7 @@ function lumpedStart(pm: PreparedMixture, doseGPerL: number): IastState {
   if (g > -1e-300) g = Math.min(g, -1e-12);
   const theta = Math.log(-Math.expm1(g)) - g; // logit(1 − f)
   const u = lk - Math.log(b) + b * (g + pm.lnCTotal); // ψ = K c^b / b
-  return iastState(u, Number.isFinite(theta) ? theta : 0);
+  return { u, theta: Number.isFinite(theta) ? theta : 0 };
 }
 
 const scratch: Eval = { f1: 0, f2: 0, j11: 0, j12: 0, j21: 0, j22: 0 };
@@ -224,7 +215,7 @@ function bracketed(pm: PreparedMixture, lnD: number, start: { u: number; theta: 
 export function solveBatchPrepared(
   pm: PreparedMixture,
   doseGPerL: number,
-  warm?: IastStart,
+  warm?: IastState,
   options: { forceBracketed?: boolean } = {},
 ): BatchSolution {
   if (!(doseGPerL >= 0) || !Number.isFinite(doseGPerL)) throw new InputError(`expected a non-negative finite carbon dose, got ${doseGPerL}`, { path: 'dose' });
@@ -233,11 +224,11 @@ export function solveBatchPrepared(
   const q = new Float64Array(size);
   for (let i = 0; i < size; i++) c[i] = (pm.source[i] as { c0MgPerL: number }).c0MgPerL;
   const m = pm.c0.length;
-  if (m === 0) return { doseGPerL, cMgPerL: c, qMgPerG: q, psiMgPerG: NaN, state: iastState(0, 0), iterations: 0, method: 'trivial' };
+  if (m === 0) return { doseGPerL, cMgPerL: c, qMgPerG: q, psiMgPerG: NaN, state: { u: 0, theta: 0 }, iterations: 0, method: 'trivial' };
   if (doseGPerL === 0) {
     const d = directIastPrepared(pm, pm.c0);
     for (let j = 0; j < m; j++) q[pm.active[j]!] = d.qMgPerG[j]!;
-    return { doseGPerL, cMgPerL: c, qMgPerG: q, psiMgPerG: d.psiMgPerG, state: iastState(Math.log(d.psiMgPerG), -Infinity), iterations: d.iterations, method: 'trivial' };
+    return { doseGPerL, cMgPerL: c, qMgPerG: q, psiMgPerG: d.psiMgPerG, state: { u: Math.log(d.psiMgPerG), theta: -Infinity }, iterations: d.iterations, method: 'trivial' };
   }
   const state = solveState(pm, doseGPerL, warm, options.forceBracketed === true);
   const { u, theta } = state;
@@ -262,7 +253,7 @@ export function solveBatchPrepared(
  * Carlo draws) that need one component's fraction only (`remainingAtState`). Needs at least one
  * adsorbable component. @throws ComputationError if no converged root is found.
  */
-export function solveBatchState(pm: PreparedMixture, doseGPerL: number, warm?: IastStart): IastState {
+export function solveBatchState(pm: PreparedMixture, doseGPerL: number, warm?: IastState): IastState {
   return solveState(pm, doseGPerL, warm, false);
 }
 
@@ -278,15 +269,15 @@ export function remainingAtState(pm: PreparedMixture, j: number, state: { u: num
 /** Iterations and method of the last `solveState` (kept aside so that every state is one plain {u, θ}). */
 const lastSolve: { iterations: number; method: BatchSolution['method'] } = { iterations: 0, method: 'newton' };
 
-function solveState(pm: PreparedMixture, doseGPerL: number, warm: IastStart | undefined, forceBracketed: boolean): IastState {
+function solveState(pm: PreparedMixture, doseGPerL: number, warm: IastState | undefined, forceBracketed: boolean): IastState {
   const options = { forceBracketed };
   const lnD = Math.log(doseGPerL);
   let start = warm && Number.isFinite(warm.u) && Number.isFinite(warm.theta) ? warm : lumpedStart(pm, doseGPerL);
   if (start === warm && warm.lnD !== undefined && warm.du !== undefined && warm.dTheta !== undefined) {
-    // a solve's state at another dose: start from its tangent (the same root; fewer Newton steps; NaN: none)
+    // a solve's state at another dose: start from its tangent (the same root; fewer Newton steps)
     const h = lnD - warm.lnD;
     const u0 = warm.u + warm.du * h, th0 = warm.theta + warm.dTheta * h;
-    if (h !== 0 && Math.abs(h) < 2 && Number.isFinite(u0) && Number.isFinite(th0)) start = iastState(u0, th0);
+    if (h !== 0 && Math.abs(h) < 2 && Number.isFinite(u0) && Number.isFinite(th0)) start = { u: u0, theta: th0 };
   }
   let sol = options.forceBracketed ? undefined : newton(pm, lnD, start.u, start.theta);
   let method: BatchSolution['method'] = 'newton';

@@ -275,7 +275,7 @@ export class EquilibriumRemoval implements RemovalModel {
           const i = set[k]!, pm = this.mixture(i);
           traceTarget(r, pm.n[0]!, pm.a[0]!, pm.c0[0]!, tt);
           const gap = pm.cTotal - Math.exp(tt.lnX); // liquid total; θ = ln x − ln(C − x)
-          if (gap > 0) warm[i] = { u: tt.u, theta: tt.lnX - Math.log(gap), lnD: undefined, du: undefined, dTheta: undefined } satisfies IastState;
+          if (gap > 0) warm[i] = { u: tt.u, theta: tt.lnX - Math.log(gap) };
         }
         return { doseGPerL: Math.exp(x + step), warm };
       }

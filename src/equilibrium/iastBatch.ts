@@ -28,17 +28,10 @@ import { softplus } from '../core/logistic.js';
 import type { PreparedMixture } from './preparedMixture.js';
 import { directIastPrepared } from './iastDirect.js';
 
-/**
- * The solver's state: u = ln ψ and θ = logit(x/C) (see the file comment). A state from a solve
- * also carries its ln D and the tangent (du, dθ)/d ln D there, so that a warm start at another
- * dose begins from the first-order prediction u + du·Δ, θ + dθ·Δ (Δ = change of ln D).
- */
+/** The solver's state: u = ln ψ and θ = logit(x/C) (see the file comment). */
 export interface IastState {
   u: number;
   theta: number;
-  lnD?: number;
-  du?: number;
-  dTheta?: number;
 }
 
 export interface BatchSolution {
@@ -51,7 +44,7 @@ export interface BatchSolution {
   /** Reduced spreading pressure ψ, mg/g (NaN when nothing adsorbable). */
   psiMgPerG: number;
   /** Internal state, for warm starts of nearby solves. */
-  state: IastState;
+  state: { u: number; theta: number };
   iterations: number;
   method: 'newton' | 'bracketed' | 'trivial';
 }
@@ -215,7 +208,7 @@ function bracketed(pm: PreparedMixture, lnD: number, start: { u: number; theta: 
 export function solveBatchPrepared(
   pm: PreparedMixture,
   doseGPerL: number,
-  warm?: IastState,
+  warm?: { u: number; theta: number },
   options: { forceBracketed?: boolean } = {},
 ): BatchSolution {
   if (!(doseGPerL >= 0) || !Number.isFinite(doseGPerL)) throw new InputError(`expected a non-negative finite carbon dose, got ${doseGPerL}`, { path: 'dose' });
@@ -230,8 +223,7 @@ export function solveBatchPrepared(
     for (let j = 0; j < m; j++) q[pm.active[j]!] = d.qMgPerG[j]!;
     return { doseGPerL, cMgPerL: c, qMgPerG: q, psiMgPerG: d.psiMgPerG, state: { u: Math.log(d.psiMgPerG), theta: -Infinity }, iterations: d.iterations, method: 'trivial' };
   }
-  const state = solveState(pm, doseGPerL, warm, options.forceBracketed === true);
-  const { u, theta } = state;
+  const { u, theta } = solveState(pm, doseGPerL, warm, options.forceBracketed === true);
   const { iterations, method } = lastSolve;
   const lnx = pm.lnCTotal - softplus(-theta);
   for (let j = 0; j < m; j++) {
@@ -244,7 +236,7 @@ export function solveBatchPrepared(
     c[idx] = pm.c0[j]! * sp;
     q[idx] = (pm.c0[j]! * sm) / doseGPerL;
   }
-  return { doseGPerL, cMgPerL: c, qMgPerG: q, psiMgPerG: Math.exp(u), state, iterations, method };
+  return { doseGPerL, cMgPerL: c, qMgPerG: q, psiMgPerG: Math.exp(u), state: { u, theta }, iterations, method };
 }
 
 /**
@@ -272,13 +264,7 @@ const lastSolve: { iterations: number; method: BatchSolution['method'] } = { ite
 function solveState(pm: PreparedMixture, doseGPerL: number, warm: IastState | undefined, forceBracketed: boolean): IastState {
   const options = { forceBracketed };
   const lnD = Math.log(doseGPerL);
-  let start = warm && Number.isFinite(warm.u) && Number.isFinite(warm.theta) ? warm : lumpedStart(pm, doseGPerL);
-  if (start === warm && warm.lnD !== undefined && warm.du !== undefined && warm.dTheta !== undefined) {
-    // a solve's state at another dose: start from its tangent (the same root; fewer Newton steps)
-    const h = lnD - warm.lnD;
-    const u0 = warm.u + warm.du * h, th0 = warm.theta + warm.dTheta * h;
-    if (h !== 0 && Math.abs(h) < 2 && Number.isFinite(u0) && Number.isFinite(th0)) start = { u: u0, theta: th0 };
-  }
+  const start = warm && Number.isFinite(warm.u) && Number.isFinite(warm.theta) ? warm : lumpedStart(pm, doseGPerL);
   let sol = options.forceBracketed ? undefined : newton(pm, lnD, start.u, start.theta);
   let method: BatchSolution['method'] = 'newton';
   if (!sol && warm && !options.forceBracketed) sol = newton(pm, lnD, ...spread(lumpedStart(pm, doseGPerL)));
@@ -295,9 +281,7 @@ function solveState(pm: PreparedMixture, doseGPerL: number, warm: IastState | un
   }
   lastSolve.iterations = sol.iterations;
   lastSolve.method = method;
-  // the tangent (du, dθ)/d ln D = J⁻¹·(0, 1) at the root (scratch holds its Jacobian), for warm starts
-  const det = scratch.j11 * scratch.j22 - scratch.j12 * scratch.j21;
-  return { u, theta, lnD, du: -scratch.j12 / det, dTheta: scratch.j11 / det };
+  return { u, theta };
 }
 
 function spread(s: { u: number; theta: number }): [number, number] {

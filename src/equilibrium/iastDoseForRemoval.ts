@@ -20,13 +20,12 @@
  */
 import { ComputationError } from '../core/errors.js';
 import type { PreparedMixture } from './preparedMixture.js';
-import type { IastState } from './iastBatch.js';
 
 export interface DoseAtRemoval {
   /** Dose at which component T is removed by R, g/L. */
   doseGPerL: number;
-  /** The solver state (u, θ) of iastBatch.ts at that dose (a warm start for nearby solves; no tangent). */
-  state: IastState;
+  /** The solver state (u, θ) of iastBatch.ts at that dose (a warm start for nearby solves). */
+  state: { u: number; theta: number };
   iterations: number;
 }
 
@@ -91,5 +90,5 @@ export function iastDoseForRemoval(pm: PreparedMixture, j: number, removalFracti
   G = Math.log(S) - lnx;
   if (!(Math.abs(G) < 1e-12)) throw new ComputationError(`dose for ${(R * 100).toPrecision(6)} % removal: the IAST mass balance did not converge (residual ${G.toExponential(2)} after ${iterations} iterations)`);
   const doseGPerL = N / Math.exp(u); // F2: ψ·D = Σ n_i·D·q_i
-  return { doseGPerL, state: { u, theta: lnx - Math.log(L), lnD: Math.log(doseGPerL), du: undefined, dTheta: undefined }, iterations };
+  return { doseGPerL, state: { u, theta: lnx - Math.log(L) }, iterations };
 }

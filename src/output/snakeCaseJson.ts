@@ -128,50 +128,23 @@ export const LONG_ARRAY = 50;
  * JSON value either way (toJSON, undefined and non-finite numbers as JSON.stringify treats them).
  */
 export function jsonText(value: unknown): string {
-  const out: string[] = [];
-  const text = write(value, '', '', out);
-  return text === undefined ? (undefined as unknown as string) : out.join('');
-}
-
-/** Appends the text of `value` to `out`; undefined (nothing appended) where JSON.stringify omits the value. */
-function write(value: unknown, key: string, indent: string, out: string[]): '' | undefined {
-  let v = value;
-  if (v !== null && typeof v === 'object' && typeof (v as { toJSON?: unknown }).toJSON === 'function') v = (v as { toJSON: (k: string) => unknown }).toJSON(key);
-  if (v === null || typeof v !== 'object') {
-    const t = JSON.stringify(v);
-    if (t === undefined) return undefined;
-    out.push(t);
-    return '';
-  }
-  const inner = indent + '  ';
-  if (Array.isArray(v)) {
-    if (v.length === 0) { out.push('[]'); return ''; }
-    out.push('[');
-    const long = v.length > LONG_ARRAY;
-    for (let i = 0; i < v.length; i++) {
-      out.push(i === 0 ? '\n' : ',\n', inner);
-      if (long) out.push(JSON.stringify(v[i]) ?? 'null');
-      else if (write(v[i], String(i), inner, out) === undefined) out.push('null');
-    }
-    out.push('\n', indent, ']');
-    return '';
-  }
-  const proto = Object.getPrototypeOf(v);
-  if (proto !== Object.prototype && proto !== null) {
-    // not plain data (a boxed primitive, a class instance): JSON.stringify's own text, re-indented
-    out.push(JSON.stringify(v, null, 2).replace(/\n/g, `\n${indent}`));
-    return '';
-  }
-  const obj = v as Record<string, unknown>;
-  let first = true;
-  for (const k of Object.keys(obj)) {
-    const mark = out.length;
-    out.push(first ? '{\n' : ',\n', inner, JSON.stringify(k), ': ');
-    if (write(obj[k], k, inner, out) === undefined) { out.length = mark; continue; }
-    first = false;
-  }
-  out.push(first ? '{}' : `\n${indent}}`);
-  return '';
+  // JSON.stringify writes the text (natively, fast); each long array stands in it as a
+  // placeholder string with a per-call random tag, replaced afterwards by its lines
+  const longs: unknown[][] = [];
+  const tag = `\u0000long-array-${Math.random().toString(36).slice(2)}-`;
+  const text = JSON.stringify(value, (_key, v: unknown) => (Array.isArray(v) && v.length > LONG_ARRAY ? tag + (longs.push(v) - 1) : v), 2) as string | undefined;
+  if (text === undefined || longs.length === 0) return text as string;
+  const quoted = JSON.stringify(tag).slice(0, -1).replace(/[\\^$.*+?()[\]{}|]/g, '\\$&');
+  return text.replace(new RegExp(`${quoted}(\\d+)"`, 'g'), (_m, k: string, offset: number) => {
+    const lineStart = text.lastIndexOf('\n', offset) + 1;
+    let indent = '';
+    while (text.charCodeAt(lineStart + indent.length) === 32) indent += ' ';
+    const items = longs[Number(k)]!;
+    const inner = `${indent}  `;
+    const lines = new Array<string>(items.length);
+    for (let i = 0; i < items.length; i++) lines[i] = JSON.stringify(items[i]) ?? 'null';
+    return `[\n${inner}${lines.join(`,\n${inner}`)}\n${indent}]`;
+  });
 }
 
 /** The JSON text of a result (two-space indent, long arrays one element per line; see jsonText), snake_case: every JSON writer prints through this. */

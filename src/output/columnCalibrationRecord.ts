@@ -35,10 +35,13 @@ export function columnCalibrationCsv(r: PipelineResult): string {
   return toCsv(['carbon', 'compound', 'Ds of the carbon\'s grains (m2/s)', 'Ds 95 % lower (m2/s)', 'Ds 95 % upper (m2/s)', 'Ds fitted on the test grains (m2/s)', 'test Ds 95 % lower (m2/s)', 'test Ds 95 % upper (m2/s)', 'scale-up', 'given Ds replaced (m2/s)', 'RMSE of c/c0', 'points', 'file', 'warnings'], rows);
 }
 
+/** A diffusivity in units of 10⁻¹⁵ m²/s, 4 significant digits (client tables and titles carry no exponent). */
+const e15 = (dsM2PerS: number) => fn(dsM2PerS / 1e-15, 4);
+
 function rowsOf(r: PipelineResult): string[][] {
   return r.carbons.flatMap((cr) => (cr.columnCalibration?.fits ?? []).map((f) => {
     const ci = f.ci95M2PerS;
-    return [cr.carbon.name, f.compoundId, f.dsM2PerS.toExponential(3), ci ? `${ci[0].toExponential(3)}–${ci[1].toExponential(3)}` : '—', f.test.scaleUp ?? 'same grains', f.givenM2PerS !== undefined ? f.givenM2PerS.toExponential(3) : '—', fn(f.result.fit.rmse, 3), String(f.result.fit.points)];
+    return [cr.carbon.name, f.compoundId, e15(f.dsM2PerS), ci ? `${e15(ci[0])}–${e15(ci[1])}` : '—', f.test.scaleUp ?? 'same grains', f.givenM2PerS !== undefined ? e15(f.givenM2PerS) : '—', fn(f.result.fit.rmse, 3), String(f.result.fit.points)];
   }));
 }
 
@@ -47,7 +50,7 @@ export function columnCalibrationPlot(carbonName: string, f: ColumnFit, id: stri
   const ci = f.ci95M2PerS;
   return {
     kind: 'xy', id,
-    title: `Column test of ${f.compoundId} for ${carbonName}, measured and fitted c/c0 (Ds on the test grains ${f.result.parameters.Ds_m2_per_s.toExponential(3)} m2/s; on the carbon's grains ${f.dsM2PerS.toExponential(3)} m2/s${ci ? ` (95 % interval ${ci[0].toExponential(3)}–${ci[1].toExponential(3)})` : ''}; RMSE ${fn(f.result.fit.rmse, 3)} over ${f.result.fit.points} points)`,
+    title: `Column test of ${f.compoundId} for ${carbonName}, measured and fitted c/c0 (Ds on the test grains ${e15(f.result.parameters.Ds_m2_per_s)}, on the carbon's grains ${e15(f.dsM2PerS)}${ci ? ` (95 % interval ${e15(ci[0])}–${e15(ci[1])})` : ''} × 10⁻¹⁵ m²/s; RMSE ${fn(f.result.fit.rmse, 3)} over ${f.result.fit.points} points)`,
     xLabel: 'bed volumes of the tested column', yLabel: 'c/c0',
     series: [
       { name: `${f.compoundId} fitted`, key: f.compoundId, points: f.result.table.map((x) => [x.bed_volumes, x.c_over_c0_predicted] as [number, number]) },
@@ -66,8 +69,8 @@ export function withColumnCalibration(section: ReportSection | undefined, r: Pip
   return {
     ...sec,
     heading: section ? `${sec.heading} and column tests` : sec.heading,
-    paragraphs: [...(sec.paragraphs ?? []), 'Surface diffusivities of GAC targets fitted to pilot or small-column breakthrough tests with the fixed-bed model: film transfer (Wilson & Geankoplis 1966 unless kf is given), homogeneous surface diffusion in the grains and IAST at the grain surface with the fictive DOC components (Crittenden & Weber 1978; Radke & Prausnitz 1972), least squares on c/c0 with a 95 % interval from the Jacobian. A test on smaller grains is scaled to the carbon\'s grains with constant or proportional diffusivity (Crittenden, Berrigan & Hand 1986, from memory). The fitted values replace the ones given for the carbon in its kinetic run length; confirm with a pilot column.'],
-    tables: [...(sec.tables ?? []), { caption: 'Surface diffusivities fitted to column tests (m2/s, on the carbon\'s grains)', columns: ['carbon', 'compound', 'Ds (m2/s)', '95 % interval', 'scale-up', 'given value replaced', 'RMSE of c/c0', 'points'], rows }],
+    paragraphs: [...(sec.paragraphs ?? []), 'Surface diffusivities of GAC targets fitted to pilot or small-column breakthrough tests with the fixed-bed model: film transfer (Wilson & Geankoplis 1966 unless kf is given), homogeneous surface diffusion in the grains and IAST at the grain surface with the fictive DOC components (Crittenden & Weber 1978; Radke & Prausnitz 1972), least squares on c/c0 with a 95 % interval from the Jacobian. A test on smaller grains is scaled to the carbon\'s grains with constant or proportional diffusivity (Crittenden, Berrigan & Hand 1986). The fitted values replace the ones given for the carbon in its kinetic run length; confirm with a pilot column.'],
+    tables: [...(sec.tables ?? []), { caption: 'Surface diffusivities fitted to column tests (10⁻¹⁵ m²/s, on the carbon\'s grains)', columns: ['carbon', 'compound', 'Ds (10⁻¹⁵ m²/s)', '95 % interval (10⁻¹⁵ m²/s)', 'scale-up', 'given value replaced (10⁻¹⁵ m²/s)', 'RMSE of c/c0', 'points'], rows }],
     plots: [...(sec.plots ?? []), ...plots],
     warnings: [...(sec.warnings ?? []), ...r.carbons.flatMap((cr) => (cr.columnCalibration?.fits ?? []).flatMap((f) => f.warnings.map((w) => `${cr.carbon.name}, Ds of ${f.compoundId}: ${w}`)))],
   };

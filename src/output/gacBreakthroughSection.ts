@@ -10,6 +10,7 @@
  */
 import { blendOverCycle } from '../kinetics/staggeredFilters.js';
 import type { CarbonResult, PipelineResult } from '../pipeline/pipelineTypes.js';
+import { GAC_NOT_SAMPLED } from '../pipeline/gacUncertainty.js';
 import { fmtNumber as fn, fmtWhole } from './formatting.js';
 import type { PlotSeries, ReportSection, ReportTable, XYPlotSpec } from './reportModel.js';
 
@@ -65,11 +66,32 @@ function runTable(cr: CarbonResult): ReportTable {
   return { caption: `${cr.carbon.name}: run length of ${k.filters} staggered filter(s) for each goal (bed volumes of one filter)`, columns: ['goal', 'allowed blended c/c0', 'run length (BV)', 'role'], rows };
 }
 
+/** P10 / P50 / P90 of the GAC Monte Carlo beside the run's figures. */
+function monteCarloTable(cr: CarbonResult): ReportTable | undefined {
+  const u = cr.gacUncertainty;
+  if (!u) return undefined;
+  const cell = (key: string, x: number) => {
+    if (!Number.isFinite(x)) return 'no run';
+    if (key === 'run_bed_volumes' || key === 'yearly_carbon_kg' || key === 'yearly_cost') return fmtWhole(x);
+    return fn(x, 3);
+  };
+  const notes = [u.atCurveEndDraws ? `${u.atCurveEndDraws} draw(s) at the end of the simulated curves: their run length is a lower bound` : '', u.noRunDraws ? `${u.noRunDraws} draw(s) with no run meeting every goal` : ''].filter((x) => x);
+  return {
+    caption: `${cr.carbon.name}: run length and carbon use, point (the run) and P10 / P50 / P90 of ${u.draws} draws${notes.length ? ` (${notes.join('; ')})` : ''}`,
+    columns: ['quantity', 'unit', 'point', 'P10', 'P50', 'P90'],
+    rows: u.quantities.map((q) => [q.label, q.unit.replace(/m3$/, 'm³'), cell(q.key, q.pointEstimate), cell(q.key, q.p10), cell(q.key, q.p50), cell(q.key, q.p90)]),
+  };
+}
+
 /** The section, or undefined when no GAC carbon has fixed-bed inputs. */
 export function gacBreakthroughSection(r: PipelineResult): ReportSection | undefined {
   const withK = r.carbons.map((cr, ci) => ({ cr, ci })).filter((x) => x.cr.gacKinetic);
   if (withK.length === 0) return undefined;
-  const paragraphs = ['Fixed-bed model of each GAC filter: plug flow, film transfer (Wilson & Geankoplis 1966 unless given), surface diffusion in the grains and IAST at their surface for every fictive DOC component and every compound, so that the weakly adsorbing DOC loads the carbon ahead of the trace compounds. The staggered filters are replaced in turn; the run length is the longest one that keeps the blended effluent within every goal (and the indicator-mean rule) at every moment of the cycle. The GAC run length has no Monte Carlo band in this version (0 draws).'];
+  const paragraphs = ['Fixed-bed model of each GAC filter: plug flow, film transfer (Wilson & Geankoplis 1966 unless given), surface diffusion in the grains and IAST at their surface for every fictive DOC component and every compound, so that the weakly adsorbing DOC loads the carbon ahead of the trace compounds. The staggered filters are replaced in turn; the run length is the longest one that keeps the blended effluent within every goal (and the indicator-mean rule) at every moment of the cycle.'];
+  const mc = withK.filter((x) => x.cr.gacUncertainty);
+  paragraphs.push(mc.length === 0
+    ? 'The GAC run length has no Monte Carlo band in this run (no draws: the Monte Carlo is off or uncertainty.gac_draws is 0).'
+    : `Monte Carlo of the run length: ${mc[0]!.cr.gacUncertainty!.draws} draws per GAC carbon (uncertainty.gac_draws), seed ${mc[0]!.cr.gacUncertainty!.seed}; sampled, lognormal around the run's values: each compound's K and 1/n and each compound's Ds (a Ds fitted to a column test with its 95 % interval, a given Ds with uncertainty.Ds_rel_sd). Not sampled: ${GAC_NOT_SAMPLED}. Each draw integrates every compound against the stored background and takes the run length of the staggered filters like the run; the point figures are the run's.`);
   const plots: XYPlotSpec[] = [];
   const tables: ReportTable[] = [];
   for (const { cr, ci } of withK) {
@@ -82,6 +104,8 @@ export function gacBreakthroughSection(r: PipelineResult): ReportSection | undef
     const bp = blendPlot(cr, ci);
     if (bp) plots.push(bp);
     tables.push(runTable(cr));
+    const mt = monteCarloTable(cr);
+    if (mt) tables.push(mt);
   }
   return { id: 'gac-breakthrough', heading: 'GAC breakthrough and run length (fixed-bed model)', paragraphs, tables, plots, warnings: ['Model estimate from isotherms and invented or assumed diffusivities: confirm the run length with rapid small-scale column tests or pilot columns before design.'] };
 }

@@ -18,5 +18,11 @@ export function gacHeadline(cr: CarbonResult): KeyFigure | undefined {
   const days = k.use?.filterLifeDays;
   const value = bv === null ? 'no run meets the goals' : `${k.run.atCurveEnd ? '≥ ' : ''}${days !== undefined ? `${fn(days, 3)} d` : `${fmtWhole(bv)} BV`}`;
   const use = k.use ? `; carbon use ${fn(k.use.carbonUsageGPerM3, 3)} g/m³` : '';
-  return { label: `${cr.carbon.name}: run length`, value, note: `${bv === null ? '' : `${fmtWhole(bv)} bed volumes per filter, `}${k.filters} staggered filter(s), governed by ${k.run.governedBy} (fixed-bed model with DOC preloading)${use}; ${eq}` };
+  return { label: `${cr.carbon.name}: run length`, value, note: `${bv === null ? '' : `${fmtWhole(bv)} bed volumes per filter, `}${k.filters} staggered filter(s), governed by ${k.run.governedBy} (fixed-bed model with DOC preloading)${use}; ${eq}${band(cr)}` };
+}
+
+/** "; P10–P90 … bed volumes (N draws)" of the GAC Monte Carlo, or nothing. */
+function band(cr: CarbonResult): string {
+  const q = cr.gacUncertainty?.quantities.find((x) => x.key === 'run_bed_volumes');
+  return q ? `; P10–P90 ${fmtWhole(q.p10)}–${fmtWhole(q.p90)} bed volumes (${cr.gacUncertainty!.draws} draws, Monte Carlo)` : '';
 }

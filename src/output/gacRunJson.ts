@@ -7,6 +7,7 @@
  * Presentation only: every number comes from gacStep and gacKineticStep.
  */
 import type { CarbonResult } from '../pipeline/pipelineTypes.js';
+import { GAC_NOT_SAMPLED } from '../pipeline/gacUncertainty.js';
 
 export type GacSummaryJson =
   | { governing_compound: string; bed_volumes: number; life_days: number | null; carbon_usage_g_per_m3: number; upper_bound: true }
@@ -14,8 +15,10 @@ export type GacSummaryJson =
     run_bed_volumes: number | null; run_days: number | null; carbon_usage_g_per_m3: number | null; governed_by: string;
     filters: number; at_curve_end: boolean; simulated_bed_volumes: number;
     equilibrium_bed_volumes: number; equilibrium_governing_compound: string; upper_bound: false;
-    /** Monte Carlo draws of the GAC run length (none: the GAC run length has no Monte Carlo yet). */
-    monte_carlo_draws: 0;
+    /** Monte Carlo draws of the GAC run length (0 when the Monte Carlo is off or uncertainty.gac_draws is 0). */
+    monte_carlo_draws: number;
+    /** P10 and P90 of the run length over the draws (null without draws). */
+    run_bed_volumes_p10: number | null; run_bed_volumes_p90: number | null;
   };
 
 /** The `gac` object of `run --json` (null for PAC carbons). */
@@ -23,11 +26,13 @@ export function gacSummaryJson(c: CarbonResult): GacSummaryJson | null {
   if (!c.gac) return null;
   const g = c.gac.governing;
   const k = c.gacKinetic;
+  const runQ = c.gacUncertainty?.quantities.find((q) => q.key === 'run_bed_volumes');
   if (!k) return { governing_compound: g.id, bed_volumes: g.bedVolumes, life_days: g.lifeDays ?? null, carbon_usage_g_per_m3: g.carbonUsageGPerM3, upper_bound: true };
   return {
     run_bed_volumes: k.run.runBedVolumes, run_days: k.use?.filterLifeDays ?? null, carbon_usage_g_per_m3: k.use?.carbonUsageGPerM3 ?? null, governed_by: k.run.governedBy,
     filters: k.filters, at_curve_end: k.run.atCurveEnd, simulated_bed_volumes: k.toBedVolumes,
-    equilibrium_bed_volumes: k.equilibriumBedVolumes, equilibrium_governing_compound: g.id, upper_bound: false, monte_carlo_draws: 0,
+    equilibrium_bed_volumes: k.equilibriumBedVolumes, equilibrium_governing_compound: g.id, upper_bound: false, monte_carlo_draws: c.gacUncertainty?.draws ?? 0,
+    run_bed_volumes_p10: runQ?.p10 ?? null, run_bed_volumes_p90: runQ?.p90 ?? null,
   };
 }
 
@@ -48,8 +53,13 @@ export function gacKineticRecord(c: CarbonResult): Record<string, unknown> | nul
     grid: { cells: s.grid.cells, interior_points: s.grid.interiorPoints },
     films: s.films.map((f) => ({ id: f.id, kf_m_per_s: f.kfMPerS, source: f.source, reynolds: f.reynolds ?? null })),
     integrator: s.stats,
-    monte_carlo_draws: 0,
-    monte_carlo_note: 'the GAC run length has no Monte Carlo band in this version (0 draws); the PAC carbons keep theirs',
+    monte_carlo_draws: c.gacUncertainty?.draws ?? 0,
+    monte_carlo: c.gacUncertainty ? {
+      draws: c.gacUncertainty.draws, seed: c.gacUncertainty.seed, parameters: c.gacUncertainty.parameters, not_sampled: c.gacUncertainty.notSampled,
+      quantities: c.gacUncertainty.quantities.map((q) => ({ key: q.key, label: q.label, unit: q.unit, point_estimate: q.pointEstimate, p10: q.p10, p50: q.p50, p90: q.p90 })),
+      at_curve_end_draws: c.gacUncertainty.atCurveEndDraws, no_run_draws: c.gacUncertainty.noRunDraws,
+    } : null,
+    monte_carlo_note: c.gacUncertainty ? `run length and carbon use sampled over ${c.gacUncertainty.draws} draws; ${GAC_NOT_SAMPLED}` : 'no Monte Carlo of the GAC run length in this run (the Monte Carlo is off or uncertainty.gac_draws is 0)',
   };
 }
 
@@ -61,5 +71,5 @@ function sig3(x: number): string {
 export function gacSummaryLine(carbon: string, g: GacSummaryJson): string {
   if (g.upper_bound) return `${carbon}: GAC ${sig3(g.bed_volumes)} bed volumes${g.life_days !== null ? ` (${sig3(g.life_days)} days)` : ''} for ${g.governing_compound} — equilibrium estimate (a reference, not a bound)`;
   const run = g.run_bed_volumes === null ? 'no run meets every goal' : `run ${g.at_curve_end ? '≥ ' : ''}${sig3(g.run_bed_volumes)} bed volumes${g.run_days !== null ? ` (${sig3(g.run_days)} days)` : ''}`;
-  return `${carbon}: GAC ${run} with ${g.filters} staggered filter(s), governed by ${g.governed_by} (fixed-bed model); equilibrium reference ${sig3(g.equilibrium_bed_volumes)} bed volumes for ${g.equilibrium_governing_compound}`;
+  return `${carbon}: GAC ${run} with ${g.filters} staggered filter(s), governed by ${g.governed_by} (fixed-bed model)${g.run_bed_volumes_p10 !== null && g.run_bed_volumes_p90 !== null ? `, P10–P90 ${sig3(g.run_bed_volumes_p10)}–${sig3(g.run_bed_volumes_p90)} bed volumes (${g.monte_carlo_draws} draws)` : ''}; equilibrium reference ${sig3(g.equilibrium_bed_volumes)} bed volumes for ${g.equilibrium_governing_compound}`;
 }

@@ -42,7 +42,7 @@ function resolvedInputs(p: ProjectSpec): Record<string, unknown> {
     uncertainty: p.uncertainty ? {
       draws: p.uncertainty.draws, seed: p.uncertainty.seed, K_rel_sd: p.uncertainty.KRelSd, one_over_n_rel_sd: p.uncertainty.oneOverNRelSd,
       doc_rel_sd: p.uncertainty.docRelSd, fraction_rel_sd: p.uncertainty.fractionRelSd, background_K_rel_sd: p.uncertainty.backgroundKRelSd,
-      ...(p.uncertainty.dsRelSd !== undefined ? { Ds_rel_sd: p.uncertainty.dsRelSd } : {}), ...(p.uncertainty.contactDraws !== undefined ? { contact_draws: p.uncertainty.contactDraws } : {}),
+      ...(p.uncertainty.dsRelSd !== undefined ? { Ds_rel_sd: p.uncertainty.dsRelSd } : {}), ...(p.uncertainty.contactDraws !== undefined ? { contact_draws: p.uncertainty.contactDraws } : {}), ...(p.uncertainty.gacDraws !== undefined ? { gac_draws: p.uncertainty.gacDraws } : {}),
     } : null,
     compounds: p.compounds.map((c) => ({
       id: c.id, name: c.name, K_mg_per_g_per_mg_per_L_pow_1_over_n: c.K, one_over_n: c.oneOverN, c0_mg_per_L: c.c0MgPerL,

@@ -58,7 +58,7 @@ export const SNAKE_CASE_KEYS: Readonly<Record<string, string>> = {
   // PAC contact kinetics in the Monte Carlo problem and settings (src/uncertainty/kineticUncertainty.ts, src/project)
   radiusM: 'radius_m', densityGPerL: 'density_g_per_L', contactTimeS: 'contact_time_s', carbonAgeS: 'carbon_age_s',
   dsM2PerS: 'Ds_m2_per_s', dlM2PerS: 'DL_m2_per_s', dsLnSd: 'ln_Ds_sd', interiorPoints: 'interior_points',
-  dsRelSd: 'Ds_rel_sd', contactDraws: 'contact_draws',
+  dsRelSd: 'Ds_rel_sd', contactDraws: 'contact_draws', gacDraws: 'gac_draws',
   // calibration and fractionation fits (src/calibration, src/fractionation)
   fractionCi: 'fraction_ci', rmseRelative: 'rmse_relative', residualScale: 'residual_scale',
   maxRelativeError: 'max_relative_error', modelSelection: 'model_selection',

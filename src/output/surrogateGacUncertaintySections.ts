@@ -139,6 +139,7 @@ export function uncertaintySection(r: PipelineResult): ReportSection | undefined
     `Monte Carlo: ${first.result.draws} draws per carbon, seed ${first.result.seed} (${s.source}); the same draws for every carbon. Sampling: ${first.result.sampling}. Percentiles: ${first.result.percentileMethod}. ${CI_TO_SD_NOTE[0]!.toUpperCase()}${CI_TO_SD_NOTE.slice(1)}. In each draw the required dose is the largest of the compound doses and, where the project sets one, the indicator-mean dose, as in the run.`,
     ...withU.flatMap((cr) => monteCarloNote(cr)),
     ...contactMonteCarloNote(r),
+    ...r.carbons.filter((c) => c.gacUncertainty).map((c) => `${c.carbon.name} (GAC): ${c.gacUncertainty!.draws} draws of the run length and carbon use, with the background at its point value — see the GAC breakthrough section.`),
   ];
   const tables: ReportTable[] = [{
     caption: 'Uncertain parameters',

@@ -104,7 +104,7 @@ export function columnCalibrationStep(carbon: CarbonSpec, carbonIndex: number, s
     const scale = (ds: number) => (test.scaleUp === undefined ? ds : largeGrainDs({ smallGrainSize: radius, largeGrainSize: k.particleRadiusM, scaling: test.scaleUp }, ds));
     const ci = result.ci95.Ds_m2_per_s;
     const warnings = [`the column test is taken to be at the site's design DOC of ${docMgPerL} mg/L (the background scaled to it)`, ...result.warnings];
-    if (test.scaleUp !== undefined) warnings.push(`Ds fitted on grains of radius ${radius} m, scaled to the carbon's ${k.particleRadiusM} m with ${test.scaleUp} diffusivity (Crittenden et al. 1986, from memory); confirm with a pilot column`);
+    if (test.scaleUp !== undefined) warnings.push(`Ds fitted on grains of radius ${radius} m, scaled to the carbon's ${k.particleRadiusM} m with ${test.scaleUp} diffusivity (Crittenden, Berrigan & Hand 1986); confirm with a pilot column`);
     const ds = scale(result.parameters.Ds_m2_per_s);
     fits.push({ compoundId: id, test, ...(given !== undefined ? { givenM2PerS: given } : {}), result, dsM2PerS: ds, ci95M2PerS: ci ? [scale(ci[0]), scale(ci[1])] : null, warnings });
     compounds[id] = { ...k.compounds[id]!, dsM2PerS: ds };

@@ -29,7 +29,7 @@ import { simulateFixedBed, type FixedBedResult } from '../kinetics/fixedBed.js';
 import type { FixedBedComponent } from '../kinetics/fixedBedInput.js';
 import { allowedCOverC0 } from '../kinetics/staggeredFilters.js';
 import { gacCarbonUse, type CarbonUse } from '../kinetics/staggeredFiltersCarbon.js';
-import { staggeredRun, type StaggeredRun } from '../kinetics/staggeredFiltersRun.js';
+import { staggeredRun, type StaggeredRun, type StaggeredRunInput } from '../kinetics/staggeredFiltersRun.js';
 import type { CarbonSpec, ProjectSpec } from '../project/projectTypes.js';
 import type { ComponentKinetics } from '../project/readGacKinetics.js';
 import type { CompoundSystem } from '../design/competitionSystem.js';
@@ -90,6 +90,32 @@ export function gacDocComponents(bg: BackgroundFile, docMgPerL: number, kFactor:
   });
 }
 
+/** The indicator-mean rule of the staggered run (undefined when the project sets no indicator goal or has no member). */
+export type GacIndicatorRule = StaggeredRunInput['indicator'];
+
+/** Allowed blended c/c0 per compound whose goal needs carbon (1 − removal, or limit/c0). */
+export function gacAllowedCOverC0(project: ProjectSpec, goals: Readonly<Record<string, CompoundGoal>>): Record<string, number> {
+  const allowed: Record<string, number> = {};
+  for (const c of project.compounds) {
+    const g = goals[c.id]!;
+    if (!(g.removalFraction > 0)) continue; // met without carbon
+    allowed[c.id] = g.kind === 'limit' ? allowedCOverC0({ limitMgPerL: g.limitMgPerL!, c0MgPerL: c.c0MgPerL }) : allowedCOverC0({ removalFraction: g.removalFraction });
+  }
+  return allowed;
+}
+
+/** The project's indicator-mean rule for the staggered run. */
+export function gacIndicatorRule(project: ProjectSpec): GacIndicatorRule {
+  const indicatorGoal = project.goals.indicator;
+  const members = project.compounds.filter((c) => c.indicatorCategory !== undefined && (!indicatorGoal?.compounds || indicatorGoal.compounds.includes(c.id)));
+  return indicatorGoal && members.length > 0 ? { substances: members.map((c) => ({ id: c.id, category: c.indicatorCategory! })), goalPercent: indicatorGoal.meanRemovalPercent } : undefined;
+}
+
+/** The staggered run of outlet curves on one bed-volume grid (the run length's rule; also the GAC Monte Carlo's). */
+export function gacStaggeredRun(bedVolumes: readonly number[], byId: Readonly<Record<string, readonly number[]>>, allowed: Readonly<Record<string, number>>, filters: number, indicator: GacIndicatorRule): StaggeredRun {
+  return staggeredRun({ curves: Object.fromEntries(Object.entries(byId).map(([id, c]) => [id, { bedVolumes, cOverC0: c }])), goals: allowed, filters, ...(indicator ? { indicator } : {}) });
+}
+
 /** Kinetic run length of a GAC carbon with `carbon.bedKinetics`; see the file comment. */
 export function gacKineticStep(project: ProjectSpec, carbonIndex: number, carbon: CarbonSpec, systems: readonly CompoundSystem[], background: BackgroundFile | undefined, goals: Readonly<Record<string, CompoundGoal>>, equilibrium: GacStepResult): GacKineticResult {
   const k = carbon.bedKinetics!;
@@ -97,19 +123,11 @@ export function gacKineticStep(project: ProjectSpec, carbonIndex: number, carbon
   const doc = project.site.docMgPerL;
   const docComponents = gacDocComponents(bg, doc, carbon.kFactor, k.doc);
   const targets: FixedBedComponent[] = systems.map((s) => ({ id: s.compoundId, c0MgPerL: s.c0MgPerL, K: s.inMixture.K, oneOverN: s.inMixture.oneOverN, ...k.compounds[s.compoundId]! }));
-  const allowed: Record<string, number> = {};
-  for (const c of project.compounds) {
-    const g = goals[c.id]!;
-    if (!(g.removalFraction > 0)) continue; // met without carbon
-    allowed[c.id] = g.kind === 'limit' ? allowedCOverC0({ limitMgPerL: g.limitMgPerL!, c0MgPerL: c.c0MgPerL }) : allowedCOverC0({ removalFraction: g.removalFraction });
-  }
+  const allowed = gacAllowedCOverC0(project, goals);
   const largestBound = Math.max(...equilibrium.estimate.targets.map((t) => t.bedVolumes));
   const longest = Math.min(GAC_MAX_BED_VOLUMES, Math.ceil(1.5 * largestBound));
-  const indicatorGoal = project.goals.indicator;
-  const members = project.compounds.filter((c) => c.indicatorCategory !== undefined && (!indicatorGoal?.compounds || indicatorGoal.compounds.includes(c.id)));
-  const indicator = indicatorGoal && members.length > 0 ? { substances: members.map((c) => ({ id: c.id, category: c.indicatorCategory! })), goalPercent: indicatorGoal.meanRemovalPercent } : undefined;
-  const runOf = (bedVolumes: readonly number[], byId: Readonly<Record<string, readonly number[]>>) =>
-    staggeredRun({ curves: Object.fromEntries(Object.entries(byId).map(([id, c]) => [id, { bedVolumes, cOverC0: c }])), goals: allowed, filters: k.filters, ...(indicator ? { indicator } : {}) });
+  const indicator = gacIndicatorRule(project);
+  const runOf = (bedVolumes: readonly number[], byId: Readonly<Record<string, readonly number[]>>) => gacStaggeredRun(bedVolumes, byId, allowed, k.filters, indicator);
   const simulation = simulateFixedBed(
     { components: [...docComponents, ...targets], bed: { ebctS: carbon.ebctMin! * 60, bedDepthM: k.bedDepthM, porosity: k.porosity, particleRadiusM: k.particleRadiusM, particleDensityKgPerM3: k.particleDensityKgPerM3, temperatureC: k.temperatureC } },
     { toBedVolumes: longest, points: GAC_CURVE_POINTS, goals: allowed, stopWhen: (bv, byId) => runEnded(bv, byId, allowed, indicator, runOf) },

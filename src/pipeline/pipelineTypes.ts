@@ -22,6 +22,7 @@ import type { SurrogateResult } from './surrogateStep.js';
 import type { PilotStepResult } from './pilotStep.js';
 import type { GacStepResult } from './gacStep.js';
 import type { GacKineticResult } from './gacKineticStep.js';
+import type { GacUncertainty } from './gacUncertainty.js';
 import type { DoseAgainstDoc } from './doseAgainstDocStep.js';
 import type { Sensitivity } from './sensitivityStep.js';
 import type { CarbonUncertainty, UncertaintySettings } from './uncertaintyTypes.js';
@@ -119,6 +120,8 @@ export interface CarbonResult {
   gacKinetic?: GacKineticResult;
   /** Monte Carlo percentiles (PAC; runPipelineWithUncertainty only). */
   uncertainty?: CarbonUncertainty;
+  /** Monte Carlo of the GAC kinetic run length (GAC carbons with a run length; runPipelineWithUncertainty only). */
+  gacUncertainty?: GacUncertainty;
   /** Required dose against DOC beside the constant-specific-dose rule (PAC with a reachable dose). */
   doseAgainstDoc?: DoseAgainstDoc;
   /** Dose and yearly cost for each main input ±20 % (PAC with a reachable dose). */

@@ -3,12 +3,14 @@
  * the Monte Carlo over isotherm and background parameters (capability 13, asynchronous because it
  * may run on worker threads). The Monte Carlo settings come from the project's `uncertainty`
  * section, with `draws` / `seed` overriding it (the CLI's --draws, --seed); draws 0 switches it
- * off and the result is then exactly `runPipeline`'s.
+ * off and the result is then exactly `runPipeline`'s. GAC carbons with a kinetic run length then get
+ * draws of it (src/pipeline/gacUncertainty.ts, `uncertainty.gac_draws`).
  *
  * @throws InputError on inconsistent inputs; ComputationError if a solver fails.
  */
 import { runPipeline } from './runPipeline.js';
 import { resolveUncertaintySettings, uncertaintyStep, withUncertainty } from './uncertaintyStep.js';
+import { withGacUncertainty } from './gacUncertainty.js';
 import type { PipelineInput, PipelineResult, UncertaintyRunOptions } from './pipelineTypes.js';
 
 /** The whole job with the Monte Carlo step (see the file's opening comment); draws 0 gives exactly `runPipeline`'s result. */
@@ -23,5 +25,5 @@ export async function runPipelineWithUncertainty(input: PipelineInput, options: 
   if (options.onMonteCarloProgress) o.onMonteCarloProgress = options.onMonteCarloProgress;
   if (options.workers !== undefined) o.workers = options.workers;
   if (options.kinetic !== undefined) o.kinetic = options.kinetic;
-  return withUncertainty(result, await uncertaintyStep(result, input, settings, o));
+  return withGacUncertainty(withUncertainty(result, await uncertaintyStep(result, input, settings, o)), settings);
 }

@@ -147,6 +147,8 @@ export interface UncertaintySpec {
   dsRelSd?: number;
   /** Draws of a PAC carbon under contact conditions (at most `draws`; default: src/pipeline/contactUncertainty.ts). */
   contactDraws?: number;
+  /** Draws of a GAC carbon's kinetic run length (at most `draws`; default: src/pipeline/gacUncertainty.ts). */
+  gacDraws?: number;
 }
 
 /** Cover block of the report (all optional project-file keys). */

@@ -30,14 +30,15 @@ export function readUncertainty(raw: unknown): UncertaintySpec {
   const p = 'uncertainty';
   const o = expectObject(raw, p, 'the Monte Carlo settings { draws, seed, K_rel_sd, one_over_n_rel_sd, doc_rel_sd, … }');
   if (o.doc_levels !== undefined) throw new InputError(RETIRED_DOC_LEVELS, { path: `${p}.doc_levels` });
-  onlyKeys(o, ['draws', 'seed', ...REL_SD_KEYS.map((k) => k[0]), 'Ds_rel_sd', 'contact_draws', 'note'], p);
+  onlyKeys(o, ['draws', 'seed', ...REL_SD_KEYS.map((k) => k[0]), 'Ds_rel_sd', 'contact_draws', 'gac_draws', 'note'], p);
   const spec: UncertaintySpec = { ...DEFAULT_UNCERTAINTY };
   if (o.draws !== undefined) spec.draws = expectNumber(o.draws, `${p}.draws`, `a whole number of draws from 0 (off) to ${MAX_PROJECT_DRAWS}`, (x) => Number.isInteger(x) && x >= 0 && x <= MAX_PROJECT_DRAWS);
   if (o.seed !== undefined) spec.seed = expectNumber(o.seed, `${p}.seed`, 'a whole-number seed from 0 to 4294967295', (x) => Number.isInteger(x) && x >= 0 && x <= 0xffffffff);
   for (const [key, field, what] of REL_SD_KEYS) {
     if (o[key] !== undefined) (spec[field] as number) = expectNumber(o[key], `${p}.${key}`, `a relative standard deviation of ${what} as a fraction from 0 to 2 (0.2 = 20 %)`, (x) => x >= 0 && x <= 2);
   }
-  if (o.Ds_rel_sd !== undefined) spec.dsRelSd = expectNumber(o.Ds_rel_sd, `${p}.Ds_rel_sd`, 'a relative standard deviation of the given surface diffusivities under PAC contact as a fraction from 0 to 2 (0.3 = 30 %)', (x) => x >= 0 && x <= 2);
+  if (o.Ds_rel_sd !== undefined) spec.dsRelSd = expectNumber(o.Ds_rel_sd, `${p}.Ds_rel_sd`, 'a relative standard deviation of the given surface diffusivities (PAC contact, GAC fixed bed) as a fraction from 0 to 2 (0.3 = 30 %)', (x) => x >= 0 && x <= 2);
   if (o.contact_draws !== undefined) spec.contactDraws = expectNumber(o.contact_draws, `${p}.contact_draws`, `a whole number of draws under PAC contact conditions from 0 (off) to ${MAX_PROJECT_DRAWS}`, (x) => Number.isInteger(x) && x >= 0 && x <= MAX_PROJECT_DRAWS);
+  if (o.gac_draws !== undefined) spec.gacDraws = expectNumber(o.gac_draws, `${p}.gac_draws`, `a whole number of draws of a GAC carbon's run length from 0 (off) to ${MAX_PROJECT_DRAWS}`, (x) => Number.isInteger(x) && x >= 0 && x <= MAX_PROJECT_DRAWS);
   return spec;
 }

@@ -33,6 +33,8 @@ describe('sorbshare demo', () => {
       expect(s.carbons[2].gac.run_bed_volumes).toBeGreaterThan(0);
       expect(s.carbons[2].gac.equilibrium_bed_volumes).toBeGreaterThan(0);
       expect(s.carbons[2].cost_per_m3).toBeGreaterThan(0);
+      expect(s.carbons[2].gac.monte_carlo_draws).toBe(10); // the demo's uncertainty.gac_draws
+      expect(s.carbons[2].gac.run_bed_volumes_p10).toBeLessThan(s.carbons[2].gac.run_bed_volumes_p90);
       expect(s.carbons[0].monte_carlo.draws).toBeGreaterThan(0);
       expect(s.pilot_outliers).toEqual(['DCF']); // the demo's pilot data put diclofenac deliberately off (fixtures/demo/README.md)
       expect(readdirSync(out).sort()).toEqual([...FILES].sort());
@@ -64,7 +66,7 @@ describe('sorbshare demo', () => {
   it('prints a text table by default', () => {
     const dir = tmp();
     try {
-      const r = run('demo', '--out', join(dir, 'o'));
+      const r = run('demo', '--out', join(dir, 'o'), '--draws', '0'); // the text table; the draws are the first test's
       expect(r.code).toBe(0);
       expect(r.out).toMatch(/Carbon A \(coal-based\)/);
       expect(r.out).toMatch(/UV254-reduction set-point/);

@@ -27,6 +27,7 @@ describe('the demo report in headless Chromium', () => {
     input.project.carbons[0]!.name = `Carbon ${EVIL}`;
     if (input.project.pilot?.carbon === oldName) input.project.pilot.carbon = input.project.carbons[0]!.name;
     input.project.compounds[0]!.name = `compound ${EVIL}`;
+    input.project.uncertainty = { ...input.project.uncertainty!, gacDraws: 2 }; // the GAC run-length table with 2 draws (each integrates every compound again)
     const result = await runPipelineWithUncertainty(input, { draws: 60, seed: 1 });
     const model = buildReportModel(result, 'test');
     const ids = reportPlotIds(model);

@@ -91,7 +91,7 @@ export function gacBreakthroughSection(r: PipelineResult): ReportSection | undef
   const mc = withK.filter((x) => x.cr.gacUncertainty);
   paragraphs.push(mc.length === 0
     ? 'The GAC run length has no Monte Carlo band in this run (no draws: the Monte Carlo is off or uncertainty.gac_draws is 0).'
-    : `Monte Carlo of the run length: ${mc[0]!.cr.gacUncertainty!.draws} draws per GAC carbon (uncertainty.gac_draws), seed ${mc[0]!.cr.gacUncertainty!.seed}; sampled, lognormal around the run's values: each compound's K and 1/n and each compound's Ds (a Ds fitted to a column test with its 95 % interval, a given Ds with uncertainty.Ds_rel_sd). Not sampled: ${GAC_NOT_SAMPLED}. Each draw integrates every compound against the stored background and takes the run length of the staggered filters like the run; the point figures are the run's.`);
+    : `Monte Carlo of the run length: ${mc[0]!.cr.gacUncertainty!.draws} draws per GAC carbon (uncertainty.gac_draws), seed ${mc[0]!.cr.gacUncertainty!.seed}; sampled, lognormal around the run's values: each compound's K and 1/n and each compound's Ds (a Ds fitted to a column test with its 95 % interval, a given Ds with uncertainty.Ds_rel_sd). Not sampled: ${GAC_NOT_SAMPLED}. Each draw integrates every compound against the stored background and takes the run length of the staggered filters like the run; the point figures are the run's.${mc[0]!.cr.gacUncertainty!.draws < 100 ? ` With ${mc[0]!.cr.gacUncertainty!.draws} draws the percentiles are indicative only (each draw is a fixed-bed solve of every compound); raise uncertainty.gac_draws (100 or more) before relying on the band.` : ''}`);
   const plots: XYPlotSpec[] = [];
   const tables: ReportTable[] = [];
   for (const { cr, ci } of withK) {

@@ -39,7 +39,7 @@ describe('GAC fixed-bed inputs in a project', () => {
   const BAD: Array<[string, (k: any) => void, string, RegExp, boolean]> = [
     ['missing bed depth', (k) => { delete k.bed_depth; }, 'carbons[2].kinetics.bed_depth', /missing "bed_depth"/, true],
     ['missing grain radius', (k) => { delete k.particle_radius; }, 'carbons[2].kinetics.particle_radius', /missing "particle_radius"/, true],
-    ['missing Ds of one compound', (k) => { delete k.Ds.HCT; }, 'carbons[2].kinetics.Ds.HCT', /surface diffusivity of "HCT"/, false],
+    ['missing Ds of one compound', (k) => { delete k.Ds.CBZ; }, 'carbons[2].kinetics.Ds.CBZ', /surface diffusivity of "CBZ"/, false],
     ['missing DL of one compound', (k) => { delete k.DL.CBZ; }, 'carbons[2].kinetics.DL.CBZ', /liquid diffusivity of "CBZ"/, false],
     ['missing DOC Ds', (k) => { delete k.doc_Ds; }, 'carbons[2].kinetics.doc_Ds', /missing "doc_Ds"/, true],
     ['missing DOC DL and kf', (k) => { delete k.doc_DL; }, 'carbons[2].kinetics.doc_DL', /liquid diffusivity of the DOC components/, true],

@@ -25,7 +25,7 @@ describe('loadProject', () => {
     expect(Object.keys(input.jarTests)).toEqual(['CBZ']);
     expect(input.series?.dates.length).toBe(365);
     expect(input.series?.flowFromDesign).toBe(false);
-    expect(input.provenance.files.map((f) => f.role)).toEqual(['project', 'DOC isotherm', 'jar tests CBZ', 'site DOC series', 'pilot pairs']);
+    expect(input.provenance.files.map((f) => f.role)).toEqual(['project', 'DOC isotherm', 'jar tests CBZ', 'column test HCT (GAC C (coal-based))', 'site DOC series', 'pilot pairs']);
     for (const f of input.provenance.files) expect(f.sha256).toMatch(/^[0-9a-f]{64}$/);
   });
 

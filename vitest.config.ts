@@ -8,7 +8,7 @@ export default defineConfig({
     pool: 'forks',
     // test files share their worker's module graph instead of re-importing the sources per file
     // (about a fifth of the suite's CPU went to transforms and imports); no test changes the
-    // working directory, the environment or module mocks, and the core keeps no state across calls
+    // working directory, the environment or module mocks, and the core's caches never change a result
     isolate: false,
     // two workers on the 2-core machines this project runs on (the default leaves one core idle);
     // many suites wait on spawned CLI processes or Chromium, so both cores stay busy

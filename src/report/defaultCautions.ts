@@ -3,7 +3,7 @@
  * carries none, so a report never goes out without them.
  */
 export const DEFAULT_CAUTIONS: readonly string[] = [
-  'Results are planning estimates from equilibrium models.',
+  'Results are planning estimates from adsorption models (equilibrium and, where the project gives them, contact and fixed-bed kinetics).',
   'Contact time, carbon age, preloading, mixing and temperature reduce real removal; confirm with jar and pilot tests.',
   'Leave design decisions to a licensed engineer under the local discharge permit and codes.',
   'Carbon dust is combustible and needs the usual handling precautions.',

@@ -49,7 +49,7 @@ let plain: PipelineResult;
 let mean: PipelineResult;
 beforeAll(() => {
   dir = mkdtempSync(join(tmpdir(), 'sorbshare-transfer-'));
-  for (const f of ['doc_isotherm.csv', 'jar_tests_cbz.csv']) copyFileSync(join(demoDir, f), join(dir, f));
+  for (const f of ['doc_isotherm.csv', 'jar_tests_cbz.csv', 'column_test_hct.csv']) copyFileSync(join(demoDir, f), join(dir, f));
   plain = runPipeline(loadProject(demoProject(() => undefined)), now);
   writeFileSync(join(dir, 'jar_tests_met.csv'), metJarTests(plain, 0.6));
   mean = runPipeline(loadProject(demoProject((p) => {

@@ -39,7 +39,7 @@ let ro: PipelineResult;
 let hard: PipelineResult;
 beforeAll(() => {
   dir = mkdtempSync(join(tmpdir(), 'sorbshare-report-only-'));
-  for (const f of ['doc_isotherm.csv', 'jar_tests_cbz.csv']) copyFileSync(join(demoDir, f), join(dir, f));
+  for (const f of ['doc_isotherm.csv', 'jar_tests_cbz.csv', 'column_test_hct.csv']) copyFileSync(join(demoDir, f), join(dir, f));
   // without the indicator goal, so that a compound governs
   plain = runPipeline(loadProject(project((p) => { delete p.goals.indicator; })), now);
   governing = pac(plain)[0]!.required!.governing!.compoundId;

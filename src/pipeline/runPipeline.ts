@@ -87,6 +87,11 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
   const calMap = new Map(calibrations.map((c) => [c.compoundId, c] as const));
   const transfer = calibrationTransfer(project.calibrationTransfer, calibrations, project.compounds.map((c) => c.id));
   if (transfer) warnings.push(transferNote(transfer));
+  if (transfer?.ebcC0PerDoc !== undefined && project.background.kind === 'ebc') {
+    const bgEbc = project.background.ebc;
+    const overridden = transfer.toIds.filter((id) => bgEbc[id] !== undefined);
+    if (overridden.length) warnings.push(`calibration ${transfer.label}: the transferred EBC replaces the project's own EBC of ${overridden.join(', ')} (background.ebc); set calibration_transfer to "none" to keep those`);
+  }
 
   const goals: Record<string, CompoundGoal> = {};
   for (const c of project.compounds) goals[c.id] = compoundGoal(c, project.goals.removalPercent, fmtConcentration);

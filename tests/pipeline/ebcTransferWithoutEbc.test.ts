@@ -100,3 +100,19 @@ describe('the run: untested compounds take the transferred EBC, flagged "transfe
     expect(readFileSync(join(out, 'summary.md'), 'utf8')).toContain('transferred from CBZ');
   }, 120_000);
 });
+
+describe('a transferred EBC over a compound\'s own EBC', () => {
+  it('the run warns, naming the compounds whose project EBC the transfer replaces; without own EBCs it does not', () => {
+    const p = JSON.parse(readFileSync(join(src, 'project.json'), 'utf8'));
+    delete p.$schema;
+    p.calibration_transfer = 'CBZ';
+    const r = runPipeline(loadProject(scratch.write('project-own-ebcs.json', p)), now);
+    const w = r.warnings.filter((x) => /replaces the project's own EBC/.test(x));
+    expect(w).toHaveLength(1);
+    expect(w[0]).toContain(`transferred from CBZ: the transferred EBC replaces the project's own EBC of ${UNTESTED.join(', ')} (background.ebc)`);
+    // the transfer does win: DCF's competitor is the transferred EBC, not the project's
+    const dcf = r.carbons[0]!.systems.find((s) => s.compoundId === 'DCF')!;
+    expect(dcf.calibration).toBe('transferred from CBZ');
+    for (const t of ['mean', 'CBZ']) expect(results[t]!.warnings.some((x) => /replaces the project's own EBC/.test(x))).toBe(false);
+  });
+});

@@ -29,7 +29,7 @@ import type { BackgroundAtDose, CompetitionSet, DoseAtRemoval, RemainingAtDose, 
 import { prepareKinetics, type CarbonParticle, type KineticComponent, type PreparedKinetics } from './kineticMixture.js';
 import { checkTimes, DEFAULT_KINETIC_RTOL, pacBatch, type KineticSolverOptions } from './pacBatch.js';
 import { checkContactConditions, stirredReactor, stirredReactorFrom } from './stirredReactor.js';
-import { sharedBackground, sharedBackgroundKey, type SharedBackground, type StirredOutlet } from './sharedBackground.js';
+import { nearestOutlets, sharedBackground, sharedBackgroundKey, type SharedBackground, type StirredOutlet } from './sharedBackground.js';
 import { traceDoseRoot } from './traceDoseRoot.js';
 
 export type ContactConditions =
@@ -98,17 +98,15 @@ export function doseUnderContact(pk: PreparedKinetics, targetIndex: number, remo
  */
 function remainingAtDoses(pk: PreparedKinetics, cond: ContactConditions, options: KineticSolverOptions) {
   const done = new Map<number, Float64Array>();
-  const outlets: Array<{ dose: number; coupled: Float64Array; jacobian?: Float64Array }> = [];
+  const outlets: StirredOutlet[] = [];
   const at = (d: number): Float64Array => {
     const hit = done.get(d);
     if (hit) return hit;
     let f: Float64Array;
     if (cond.kind === 'plug-flow') f = remainingUnderContact(pk, d, cond, options);
     else {
-      let near: (typeof outlets)[number] | undefined;
-      let best = Infinity;
-      for (const o of outlets) { const dist = Math.abs(Math.log(o.dose / d)); if (dist < best) { best = dist; near = o; } }
-      const res = stirredReactorFrom(pk, d, cond.contactTimeS, cond.carbonAgeS, options, near?.coupled, near?.jacobian, near?.dose);
+      const [near, second] = nearestOutlets(outlets, d);
+      const res = stirredReactorFrom(pk, d, cond.contactTimeS, cond.carbonAgeS, options, near?.coupled, near?.jacobian, near?.dose, second && { dose: second.dose, remaining: second.coupled });
       const c = res.cMgPerL;
       outlets.push({ dose: d, coupled: Float64Array.from(pk.coupled, (i) => c[i]! / pk.components[i]!.c0MgPerL), ...(res.balanceJacobian ? { jacobian: res.balanceJacobian } : {}) });
       f = remainingFraction(pk, c);

@@ -81,10 +81,8 @@ export function sharedBackground(own: readonly PreparedKinetics[], particle: Car
     let f: Float64Array;
     if (cond.kind === 'plug-flow') f = fraction(pacBatch(pk, d, [cond.contactTimeS], options).cMgPerL[0]!);
     else {
-      let near: (typeof outlets)[number] | undefined;
-      let best = Infinity;
-      for (const o of outlets.length ? outlets : starts) { const dist = Math.abs(Math.log(o.dose / d)); if (dist < best) { best = dist; near = o; } }
-      const res = stirredReactorFrom(pk, d, cond.contactTimeS, cond.carbonAgeS, options, near?.coupled, near?.jacobian, near?.dose);
+      const [near, second] = nearestOutlets(outlets.length ? outlets : starts, d);
+      const res = stirredReactorFrom(pk, d, cond.contactTimeS, cond.carbonAgeS, options, near?.coupled, near?.jacobian, near?.dose, second && { dose: second.dose, remaining: second.coupled });
       const c = res.cMgPerL;
       outlets.push({ dose: d, coupled: Float64Array.from(pk.coupled, (i) => c[i]! / pk.components[i]!.c0MgPerL), ...(res.balanceJacobian ? { jacobian: res.balanceJacobian } : {}) });
       f = fraction(c);
@@ -93,4 +91,15 @@ export function sharedBackground(own: readonly PreparedKinetics[], particle: Car
     return f;
   };
   return { pk, competitorCount: nC, remainingAt, solved, outlets };
+}
+
+/** The two outlets nearest a dose in ln D (the start of a stirred solve and a second point for its predictor). */
+export function nearestOutlets(outlets: readonly StirredOutlet[], doseGPerL: number): [StirredOutlet | undefined, StirredOutlet | undefined] {
+  let near: StirredOutlet | undefined, second: StirredOutlet | undefined;
+  let best = Infinity, next = Infinity;
+  for (const o of outlets) {
+    const dist = Math.abs(Math.log(o.dose / doseGPerL));
+    if (dist < best) { second = near; next = best; near = o; best = dist; } else if (dist < next && o.dose !== near?.dose) { second = o; next = dist; }
+  }
+  return [near, second];
 }

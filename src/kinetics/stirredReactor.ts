@@ -20,7 +20,10 @@
  * concentration (the same steps for every dose, so the outlet is smooth in the dose), so the
  * residual is smooth in v; one Newton step past the tolerance makes the answer independent of
  * the path of the iterations. Trace targets are linear given the background:
- * c_out,T = c0_T/(1 + D·Φ_T), Φ_T = ∫q̄_T·E dt per unit c_out,T, one run at the solution.
+ * c_out,T = c0_T/(1 + D·Φ_T), Φ_T = ∫q̄_T·E dt per unit c_out,T, one run at the solution: the
+ * run of that last Newton step, which integrates every block (the trace targets too) on the
+ * same steps. A warm start from a solved dose is carried to this dose by predictOutlet, with a
+ * second solved dose correcting the slope along the curve of solutions.
  * Carbon held in the reactor: D·θ/τ.
  *
  * Units: τ, θ s; D g/L; c mg/L; q mg/g.
@@ -79,7 +82,7 @@ export function stirredReactor(pk: PreparedKinetics, doseGPerL: number, contactT
  * (`startDoseGPerL`) the start is first carried to this dose (predictOutlet). The result does not
  * depend on the start beyond the balance tolerance.
  */
-export function stirredReactorFrom(pk: PreparedKinetics, doseGPerL: number, contactTimeS: number, carbonAgeS: number = contactTimeS, options: KineticSolverOptions = {}, startRemaining?: Float64Array, startJacobian?: Float64Array, startDoseGPerL?: number): StirredReactorResult {
+export function stirredReactorFrom(pk: PreparedKinetics, doseGPerL: number, contactTimeS: number, carbonAgeS: number = contactTimeS, options: KineticSolverOptions = {}, startRemaining?: Float64Array, startJacobian?: Float64Array, startDoseGPerL?: number, secondStart?: SolvedOutlet): StirredReactorResult {
   if (!(doseGPerL > 0) || !Number.isFinite(doseGPerL)) throw new InputError(`expected a positive carbon dose, got ${doseGPerL * 1000} mg/L`, { option: '--dose' });
   checkContactConditions(contactTimeS, carbonAgeS);
   const theta = Math.max(carbonAgeS, contactTimeS);
@@ -94,7 +97,11 @@ export function stirredReactorFrom(pk: PreparedKinetics, doseGPerL: number, cont
   const warm = !!startRemaining && startRemaining.length === nB && startRemaining.every((r) => r > 0 && r <= 1);
   let v = warm ? Float64Array.from(startRemaining!, (r) => Math.log(r)) : startGuess(pk, doseGPerL, theta);
   let J: Float64Array | undefined = warm && startJacobian && startJacobian.length === nB * nB && startJacobian.every(Number.isFinite) ? Float64Array.from(startJacobian) : undefined;
-  if (J && startDoseGPerL !== undefined && startDoseGPerL > 0 && startDoseGPerL !== doseGPerL) ({ v, J } = predictOutlet(v, J, startDoseGPerL, doseGPerL));
+  if (J && startDoseGPerL !== undefined && startDoseGPerL > 0 && startDoseGPerL !== doseGPerL) {
+    const second = secondStart && secondStart.dose > 0 && secondStart.dose !== startDoseGPerL && secondStart.remaining.length === nB && secondStart.remaining.every((r) => r > 0 && r <= 1)
+      ? { v: Float64Array.from(secondStart.remaining, (r) => Math.log(r)), dose: secondStart.dose } : undefined;
+    ({ v, J } = predictOutlet(v, J, startDoseGPerL, doseGPerL, second));
+  }
   // the steps of the requested grid are recorded with every component at its feed concentration
   // (v = 0), the same for every dose: error-controlled step sequences react to the smallest change
   // of their input through discrete decisions (rejected steps, order changes, a kept Newton
@@ -113,17 +120,18 @@ export function stirredReactorFrom(pk: PreparedKinetics, doseGPerL: number, cont
       if (!(e instanceof ComputationError)) throw e; // only a start: solve on the requested grid alone
     }
   }
+  // the polishing step runs every block (the trace targets too), so that it is also the final run
   const fine = nB > 0 ? balance.solve(sphereCollocation(interior), v, J, BALANCE_TOL, false, recordAt, true) : undefined;
   if (fine) v = fine.v;
   // the trace targets (linear given the background): one run of everything at the solution
-  const fin = balance.evaluate(sphereCollocation(interior), v, fine ? 'replay-all' : 'record');
+  const fin = fine?.all ?? balance.evaluate(sphereCollocation(interior), v, fine ? 'replay-all' : 'record');
   const c = Float64Array.from(comps, (comp) => comp.c0MgPerL);
   const qMean = new Float64Array(m);
   fin.blocks.forEach((i, b) => {
     const c0 = comps[i]!.c0MgPerL;
     if (b < nB) {
       c[i] = c0 * Math.exp(v[b]!);
-      qMean[i] = (fine ? fine.I : fin.I)[b]!;
+      qMean[i] = fin.I[b]!;
     } else {
       const phiT = fin.I[b]! / c0; // integrated at c_out,T = c0_T: Φ_T = I/c0
       c[i] = c0 / (1 + doseGPerL * phiT);
@@ -265,7 +273,7 @@ class BalanceSolver {
   }
 
   /** Newton–Broyden on v from `v0` (with the Jacobian `J0`, else differences) until the balance closes. */
-  solve(col: SphereCollocation, v0: Float64Array, J0: Float64Array | undefined, tol = BALANCE_TOL, reRecord = true, recordAt: Float64Array = v0, polish = false): { v: Float64Array; J: Float64Array; I: Float64Array } {
+  solve(col: SphereCollocation, v0: Float64Array, J0: Float64Array | undefined, tol = BALANCE_TOL, reRecord = true, recordAt: Float64Array = v0, polish = false): { v: Float64Array; J: Float64Array; I: Float64Array; all?: Evaluation } {
     const nB = v0.length;
     const normOf = (G: Float64Array) => G.reduce((s, g) => Math.max(s, Math.abs(g)), 0);
     let v = Float64Array.from(v0);
@@ -321,16 +329,20 @@ class BalanceSolver {
     const Jend = J ?? this.differenceJacobian(col, v, cur.G);
     if (polish && nB > 0) {
       // one more Newton step past the tolerance (quadratic: the residual falls far below it), so
-      // that the answer does not depend on the path the iterations took
+      // that the answer does not depend on the path the iterations took; it runs every block
+      // (replay-all, the same steps), so that it gives the trace targets too
       const step = Float64Array.from(cur.G, (g) => -g);
       denseLu(Float64Array.from(Jend), nB, 'stirred reactor Newton step').solve(step);
       const vn = Float64Array.from(v, (x, p) => Math.min(0, x + step[p]!));
-      const next = this.evaluate(col, vn, 'replay');
-      if (normOf(next.G) <= normOf(cur.G)) { v = vn; cur = next; }
+      const next = this.evaluate(col, vn, 'replay-all');
+      if (normOf(next.G) <= Math.max(normOf(cur.G), 1e-2 * tol)) return { v: vn, J: Jend, I: next.I, all: next };
     }
     return { v, J: Jend, I: cur.I };
   }
 }
+
+/** A solved outlet of the same mixture and conditions: the dose, g/L, and c_out/c0 of the coupled components. */
+export interface SolvedOutlet { dose: number; remaining: Float64Array }
 
 /**
  * The outlet at dose D predicted from a solution (v0, its balance Jacobian J0) at dose D0 (ours).
@@ -338,11 +350,27 @@ class BalanceSolver {
  * balance G(v) = 1 − e^v − D·I(v)/c0 at D follows from the one at D0: I(v0)/c0 = (1 − e^v0)/D0
  * and ∂(I/c0)/∂v = −(J0 + diag(e^v0))/D0. Newton on G with I linear in v about v0 (no particle
  * integration) gives the start and its Jacobian; the original start where that fails.
+ * With a second solution (v1 at D1, `second`), where I(v1)/c0 = (1 − e^v1)/D1 is known too, the
+ * slope of I is first corrected by Broyden's rank-one update (Broyden 1965) so that the linear
+ * model passes through both solutions: the solutions of a dose search lie on one curve v(D), and
+ * the secant along it is what the prediction needs most.
  */
-export function predictOutlet(v0: Float64Array, J0: Float64Array, d0GPerL: number, dGPerL: number): { v: Float64Array; J: Float64Array } {
+export function predictOutlet(v0: Float64Array, J0: Float64Array, d0GPerL: number, dGPerL: number, second?: { v: Float64Array; dose: number }): { v: Float64Array; J: Float64Array } {
   const n = v0.length;
   const a = Float64Array.from(v0, (x) => -Math.expm1(x) / d0GPerL);
   const B = Float64Array.from(J0, (x, pk) => -(x + (pk % (n + 1) === 0 ? Math.exp(v0[Math.floor(pk / n)]!) : 0)) / d0GPerL);
+  if (second && second.v.length === n && second.v.every(Number.isFinite)) {
+    const s = Float64Array.from(second.v, (x, p) => x - v0[p]!);
+    const ss = s.reduce((t, x) => t + x * x, 0);
+    if (ss > 0) {
+      for (let p = 0; p < n; p++) {
+        let bs = 0;
+        for (let q = 0; q < n; q++) bs += B[p * n + q]! * s[q]!;
+        const r = -Math.expm1(second.v[p]!) / second.dose - a[p]! - bs;
+        for (let q = 0; q < n; q++) B[p * n + q] = B[p * n + q]! + (r * s[q]!) / ss;
+      }
+    }
+  }
   const jacobianAt = (v: Float64Array) => Float64Array.from(B, (b, pk) => -dGPerL * b - (pk % (n + 1) === 0 ? Math.exp(v[Math.floor(pk / n)]!) : 0));
   const residual = (v: Float64Array) => Float64Array.from(v, (x, p) => {
     let lin = a[p]!;

@@ -108,4 +108,20 @@ describe('predictOutlet carries a balance solution to another dose (closed form 
     expect(Math.abs(G)).toBeLessThanOrEqual(1e-12);
     expect(J[0]).toBeCloseTo(-Math.exp(v[0]!) - d * b, 12);
   });
+  it('with a second solution on the same linear I(v), a wrong slope is corrected (one component: the secant is the slope)', () => {
+    const d0 = 0.01, v0 = Math.log(0.4), b = 20;
+    const a = (1 - Math.exp(v0)) / d0;
+    const Iof = (x: number) => a + b * (x - v0);
+    // the second solution at d1: the root of 1 − e^v − d1·I(v) (bisection, closed form algebra)
+    const d1 = 0.014;
+    let lo = -10, hi = 0;
+    for (let k = 0; k < 200; k++) { const mid = 0.5 * (lo + hi); if (1 - Math.exp(mid) - d1 * Iof(mid) > 0) lo = mid; else hi = mid; }
+    const v1 = 0.5 * (lo + hi);
+    const J0 = Float64Array.of(-Math.exp(v0) - d0 * 3 * b); // the slope three times too steep
+    const d = 0.02;
+    const { v } = predictOutlet(Float64Array.of(v0), J0, d0, d, { v: Float64Array.of(v1), dose: d1 });
+    expect(Math.abs(1 - Math.exp(v[0]!) - d * Iof(v[0]!))).toBeLessThanOrEqual(1e-12);
+    const without = predictOutlet(Float64Array.of(v0), J0, d0, d).v;
+    expect(Math.abs(1 - Math.exp(without[0]!) - d * Iof(without[0]!))).toBeGreaterThan(1e-3);
+  });
 });

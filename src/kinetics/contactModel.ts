@@ -14,6 +14,7 @@ import { InputError } from '../core/errors.js';
 import type { FreundlichComponent } from '../equilibrium/preparedMixture.js';
 import type { CompetitionSet, RemovalModelFactory } from '../design/removalModel.js';
 import { ContactRemoval, type ContactConditions } from './contactRemoval.js';
+import { ContactSolveStore } from './sharedBackground.js';
 import type { CarbonParticle, KineticComponent } from './kineticMixture.js';
 import type { KineticSolverOptions } from './pacBatch.js';
 
@@ -38,6 +39,9 @@ export interface PacCarbonKinetics {
 export function contactFactory(contact: ContactConditions | undefined, carbon: PacCarbonKinetics, options: KineticSolverOptions = {}): RemovalModelFactory | undefined {
   if (!contact) return undefined;
   const { particle, target, competitor } = kineticParts(carbon);
+  // the factory's models share their solves as starts (ContactSolveStore: the same background in
+  // the design, the daily doses and the sensitivity cases that change a target)
+  const store = new ContactSolveStore();
   return (sets: readonly CompetitionSet[], docMgPerL: number, background?: readonly FreundlichComponent[]) => new ContactRemoval(
     sets.map((s) => ({ target: target(s.target), competitors: s.competitors.map(competitor) })),
     docMgPerL,
@@ -45,6 +49,9 @@ export function contactFactory(contact: ContactConditions | undefined, carbon: P
     contact,
     background?.map(competitor),
     options,
+    true,
+    undefined,
+    store,
   );
 }
 

@@ -29,7 +29,7 @@ import type { BackgroundAtDose, CompetitionSet, DoseAtRemoval, RemainingAtDose, 
 import { prepareKinetics, type CarbonParticle, type KineticComponent, type PreparedKinetics } from './kineticMixture.js';
 import { checkTimes, DEFAULT_KINETIC_RTOL, pacBatch, type KineticSolverOptions } from './pacBatch.js';
 import { checkContactConditions, stirredReactor, stirredReactorFrom } from './stirredReactor.js';
-import { nearestOutlets, sharedBackground, sharedBackgroundKey, type SharedBackground, type StirredOutlet } from './sharedBackground.js';
+import { ContactSolveStore, nearestOutlets, sharedBackground, sharedBackgroundKey, type SharedBackground, type StirredOutlet } from './sharedBackground.js';
 import { traceDoseRoot } from './traceDoseRoot.js';
 
 export type ContactConditions =
@@ -153,6 +153,8 @@ export class ContactRemoval implements RemovalModel {
     readonly shareBackground = true,
     /** The same water at another DOC (atDoc), whose solves give starts: doses scaled by `factor` = this DOC / its DOC. */
     private readonly nearDoc?: { shared: ReadonlyArray<{ group: SharedBackground; at: number } | undefined>; factor: number },
+    /** Solves kept across the models of one factory (contactFactory): starts for groups with the same background or target. */
+    private readonly store?: ContactSolveStore,
   ) {
     checkConditions(conditions);
     this.kind = conditions.kind === 'plug-flow'
@@ -171,7 +173,7 @@ export class ContactRemoval implements RemovalModel {
       // starts from the same group at the nearby DOC: its outlets at doses scaled by DOC (the dose per mg DOC is roughly constant)
       const nearGroup = nearDoc?.shared[members[0]!]?.group;
       const starts: StirredOutlet[] = nearGroup ? nearGroup.outlets.map((o) => ({ ...o, dose: o.dose * nearDoc!.factor })) : [];
-      const group = sharedBackground(members.map((i) => this.prepared[i]!), particle, conditions, options, starts);
+      const group = sharedBackground(members.map((i) => this.prepared[i]!), particle, conditions, options, starts, store);
       members.forEach((i, k) => { this.shared[i] = { group, at: group.competitorCount + k }; });
     }
     if (background && background.length) {
@@ -207,10 +209,18 @@ export class ContactRemoval implements RemovalModel {
   }
 
   /**
-   * The first dose tried when nothing is solved yet: the dose of the nearby DOC's solve closest
-   * to the goal, scaled by DOC; else 1.5 × the equilibrium dose (contact removes less), or 20 mg/L.
+   * The first dose tried when nothing is solved yet: the dose closest to the goal among the same
+   * target's solves kept in the factory's store (another model with the same background and
+   * target); else the dose of the nearby DOC's solve closest to the goal, scaled by DOC; else
+   * 1.5 × the equilibrium dose (contact removes less), or 20 mg/L.
    */
   private startDose(index: number, removalFraction: number): number {
+    const own = this.shared[index];
+    if (own) {
+      let best: number | undefined, gap = Infinity;
+      for (const [d, r] of own.group.storedPoints(own.at - own.group.competitorCount)) { const g = Math.abs(r - (1 - removalFraction)); if (g < gap) { gap = g; best = d; } }
+      if (best !== undefined) return best;
+    }
     const near = this.nearDoc?.shared[index];
     if (near) {
       let best: number | undefined, gap = Infinity;
@@ -239,7 +249,7 @@ export class ContactRemoval implements RemovalModel {
   atDoc(docMgPerL: number): ContactRemoval {
     const f = docMgPerL / this.docMgPerL;
     const scale = (cs: readonly FreundlichComponent[]) => cs.map((c) => ({ ...c, c0MgPerL: c.c0MgPerL * f }));
-    return new ContactRemoval(this.sets.map((s) => ({ target: s.target, competitors: scale(s.competitors) })), docMgPerL, this.particle, this.conditions, this.background ? scale(this.background) : undefined, this.options, this.shareBackground, { shared: this.shared, factor: f });
+    return new ContactRemoval(this.sets.map((s) => ({ target: s.target, competitors: scale(s.competitors) })), docMgPerL, this.particle, this.conditions, this.background ? scale(this.background) : undefined, this.options, this.shareBackground, { shared: this.shared, factor: f }, this.store);
   }
 }
 

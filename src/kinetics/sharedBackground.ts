@@ -18,6 +18,10 @@
  * and each stirred solve starts from the outlet and balance Jacobian at the nearest dose already
  * solved, or, before the first, at the nearest of `starts` (e.g. the same water at another DOC,
  * doses scaled by DOC); the result does not depend on the start beyond the balance tolerance.
+ * With a ContactSolveStore (one per model factory: contactFactory) the outlets already solved by
+ * any group of that factory with the same background, conditions and solver options are starts
+ * too (the background's balance does not depend on the targets), and every target's c/c0 at the
+ * doses solved is kept there for a later group holding the same target (its first dose tried).
  *
  * Units: dose g/L, times s, concentrations mg/L.
  * @throws ComputationError when a kinetic solve fails.
@@ -40,10 +44,36 @@ export interface SharedBackground {
   readonly solved: ReadonlyMap<number, Float64Array>;
   /** Stirred-reactor outlets solved so far (warm starts), c_out/c0 of the coupled components. */
   readonly outlets: ReadonlyArray<StirredOutlet>;
+  /** (dose g/L, c/c0) of target k (0-based among the targets) solved by any group of the same store, when there is one. */
+  storedPoints(k: number): ReadonlyArray<readonly [number, number]>;
 }
 
 /** A solved stirred-reactor outlet: the dose, c_out/c0 of the coupled components and the balance Jacobian there. */
 export interface StirredOutlet { dose: number; coupled: Float64Array; jacobian?: Float64Array }
+
+/**
+ * Solves kept across the contact models made by one model factory (contactFactory; never
+ * module-wide, so that nothing depends on what else ran in the process): the stirred outlets of
+ * each background, and each target's c/c0 at the doses solved, keyed by the values that decide
+ * them. Only starts are taken from it: a result does not depend on them beyond the balance
+ * tolerance and the dose root's tolerance.
+ */
+export class ContactSolveStore {
+  private readonly outlets = new Map<string, StirredOutlet[]>();
+  private readonly points = new Map<string, Array<readonly [number, number]>>();
+  /** The outlets of a background key (a live list: append to it). */
+  outletsOf(key: string): StirredOutlet[] {
+    let l = this.outlets.get(key);
+    if (!l) { l = []; this.outlets.set(key, l); }
+    return l;
+  }
+  /** The (dose g/L, c/c0) points of a target key (a live list: append to it). */
+  pointsOf(key: string): Array<readonly [number, number]> {
+    let l = this.points.get(key);
+    if (!l) { l = []; this.points.set(key, l); }
+    return l;
+  }
+}
 
 /**
  * Key of a target's own prepared mixture [target, ...competitors] when the target is a trace
@@ -60,7 +90,7 @@ export function sharedBackgroundKey(own: PreparedKinetics): string | undefined {
  * The shared background of targets whose own mixtures (`own`, each [target, ...competitors], all
  * with the same sharedBackgroundKey) are given.
  */
-export function sharedBackground(own: readonly PreparedKinetics[], particle: CarbonParticle, cond: ContactConditions, options: KineticSolverOptions = {}, starts: readonly StirredOutlet[] = []): SharedBackground {
+export function sharedBackground(own: readonly PreparedKinetics[], particle: CarbonParticle, cond: ContactConditions, options: KineticSolverOptions = {}, starts: readonly StirredOutlet[] = [], store?: ContactSolveStore): SharedBackground {
   const first = own[0]!;
   const competitors = first.components.slice(1) as KineticComponent[];
   const nC = competitors.length;
@@ -74,6 +104,12 @@ export function sharedBackground(own: readonly PreparedKinetics[], particle: Car
   };
   const solved = new Map<number, Float64Array>();
   const outlets: StirredOutlet[] = [];
+  // the store's keys: the background (competitors and split) with the particle, the conditions and
+  // the solver options; each target with its own values and film coefficient beside it
+  const bgKey = store ? JSON.stringify([sharedBackgroundKey(first), particle, cond, options]) : '';
+  const stored = store?.outletsOf(bgKey);
+  const emptyPoints: Array<readonly [number, number]> = [];
+  const points = own.map((p) => (store ? store.pointsOf(JSON.stringify([bgKey, p.components[0], p.kfMPerS[0]])) : emptyPoints));
   const fraction = (c: Float64Array) => Float64Array.from(pk.components, (comp, i) => (comp.c0MgPerL > 0 ? Math.min(1, Math.max(0, c[i]! / comp.c0MgPerL)) : 1));
   const remainingAt = (d: number): Float64Array => {
     const hit = solved.get(d);
@@ -81,16 +117,20 @@ export function sharedBackground(own: readonly PreparedKinetics[], particle: Car
     let f: Float64Array;
     if (cond.kind === 'plug-flow') f = fraction(pacBatch(pk, d, [cond.contactTimeS], options).cMgPerL[0]!);
     else {
-      const [near, second] = nearestOutlets(outlets.length ? outlets : starts, d);
+      const known = stored ?? outlets; // the store holds this group's outlets too
+      const [near, second] = nearestOutlets(known.length ? known : starts, d);
       const res = stirredReactorFrom(pk, d, cond.contactTimeS, cond.carbonAgeS, options, near?.coupled, near?.jacobian, near?.dose, second && { dose: second.dose, remaining: second.coupled });
       const c = res.cMgPerL;
-      outlets.push({ dose: d, coupled: Float64Array.from(pk.coupled, (i) => c[i]! / pk.components[i]!.c0MgPerL), ...(res.balanceJacobian ? { jacobian: res.balanceJacobian } : {}) });
+      const outlet = { dose: d, coupled: Float64Array.from(pk.coupled, (i) => c[i]! / pk.components[i]!.c0MgPerL), ...(res.balanceJacobian ? { jacobian: res.balanceJacobian } : {}) };
+      outlets.push(outlet);
+      stored?.push(outlet);
       f = fraction(c);
     }
     solved.set(d, f);
+    if (store) points.forEach((list, k) => list.push([d, f[nC + k]!]));
     return f;
   };
-  return { pk, competitorCount: nC, remainingAt, solved, outlets };
+  return { pk, competitorCount: nC, remainingAt, solved, outlets, storedPoints: (k) => points[k] ?? emptyPoints };
 }
 
 /** The two outlets nearest a dose in ln D (the start of a stirred solve and a second point for its predictor). */
@@ -99,7 +139,17 @@ export function nearestOutlets(outlets: readonly StirredOutlet[], doseGPerL: num
   let best = Infinity, next = Infinity;
   for (const o of outlets) {
     const dist = Math.abs(Math.log(o.dose / doseGPerL));
-    if (dist < best) { second = near; next = best; near = o; best = dist; } else if (dist < next && o.dose !== near?.dose) { second = o; next = dist; }
+    if (dist < best) { second = near; next = best; near = o; best = dist; } else if (dist < next) { second = o; next = dist; }
+  }
+  // a second point too close to the first gives a secant of rounding noise (and of the small
+  // differences between solves started apart): only 1 % or more away in dose (ours)
+  if (near && second && Math.abs(Math.log(second.dose / near.dose)) < 0.01) {
+    second = undefined;
+    let gap = Infinity;
+    for (const o of outlets) {
+      const dist = Math.abs(Math.log(o.dose / doseGPerL));
+      if (Math.abs(Math.log(o.dose / near.dose)) >= 0.01 && dist < gap) { gap = dist; second = o; }
+    }
   }
   return [near, second];
 }

@@ -13,6 +13,7 @@ import { ContactRemoval, type ContactConditions } from '../../src/kinetics/conta
 import type { CompetitionSet } from '../../src/design/removalModel.js';
 import { compoundDose } from '../../src/design/compoundDose.js';
 import { predictOutlet } from '../../src/kinetics/stirredReactor.js';
+import { ContactSolveStore } from '../../src/kinetics/sharedBackground.js';
 
 /** Park–Miller minimal standard generator (Park & Miller 1988, CACM 31:1192): a fixed, portable sequence. */
 function random(seed: number): () => number {
@@ -94,6 +95,27 @@ describe('shared background of trace targets equals the per-compound full solve'
     const m = new ContactRemoval(sets, 5, particle, { kind: 'plug-flow', contactTimeS: 1 });
     expect(m.doseForRemoval(0, 0.999999)).toBeUndefined();
   });
+});
+
+describe('a solve store shared by the models of one factory (ContactSolveStore) gives starts only', () => {
+  it('stirred, water 14: a model with one target changed, started from the first model\'s solves, finds doses that meet the goals on a fresh model within 3 × removalTolerance', () => {
+    const cond: ContactConditions = { kind: 'stirred', contactTimeS: 1800, carbonAgeS: 3 * 86400 };
+    const { sets } = water(14, 2);
+    const changed = sets.map((s, k) => (k === 0 ? { ...s, target: { ...s.target, K: s.target.K * 1.2 } } : s));
+    const store = new ContactSolveStore();
+    const R = 0.8;
+    const first = new ContactRemoval(sets, 5, particle, cond, undefined, {}, true, undefined, store);
+    sets.forEach((_s, i) => expect(first.doseForRemoval(i, R)).toBeDefined());
+    const second = new ContactRemoval(changed, 5, particle, cond, undefined, {}, true, undefined, store);
+    const fresh = new ContactRemoval(changed, 5, particle, cond);
+    const tol = 3 * fresh.removalTolerance; // both sit near removalTolerance of the exact value (see above)
+    changed.forEach((_s, i) => {
+      const found = second.doseForRemoval(i, R);
+      expect(found, `T${i + 1}`).toBeDefined();
+      expect(found!.remainingFraction).toBeLessThanOrEqual(1 - R);
+      expect(Math.abs(fresh.remaining(i, found!.doseGPerL).remainingFraction - (1 - R)), `T${i + 1} on a fresh model`).toBeLessThanOrEqual(tol);
+    });
+  }, 60_000);
 });
 
 describe('predictOutlet carries a balance solution to another dose (closed form for a linear age integral)', () => {

@@ -5,11 +5,11 @@
  */
 import { describe, expect, it } from 'vitest';
 import { prepareKinetics, type KineticComponent } from '../../src/kinetics/kineticMixture.js';
-import { pacBatch } from '../../src/kinetics/pacBatch.js';
+import { DEFAULT_INTERIOR_POINTS, pacBatch } from '../../src/kinetics/pacBatch.js';
 import { hsdmParticleSystem } from '../../src/kinetics/hsdmParticleSystem.js';
 import { sphereCollocation } from '../../src/kinetics/sphereCollocation.js';
 import { integrateImplicit } from '../../src/kinetics/implicitIntegrator.js';
-import { stirredReactor } from '../../src/kinetics/stirredReactor.js';
+import { LONG_AGE_NUMBER, stirredGridPoints, stirredReactor } from '../../src/kinetics/stirredReactor.js';
 import { prepareMixture } from '../../src/equilibrium/preparedMixture.js';
 import { solveBatchPrepared } from '../../src/equilibrium/iastBatch.js';
 import { brentRoot } from '../../src/numerics/brent.js';
@@ -174,6 +174,17 @@ describe('stirred contact reactor at steady state', () => {
       expect(r.carbonHeldGPerL).toBeCloseTo((0.015 * ages[k]!) / tau, 12);
       small.forEach((comp, i) => expect(Math.abs(comp.c0MgPerL - r.cMgPerL[i]! - 0.015 * r.qMeanMgPerG[i]!)).toBeLessThan(1e-6 * comp.c0MgPerL));
     });
+  });
+
+  it('default grid (8 points from Ds·θ/R² = 0.1 on, stirredGridPoints): doubling it changes c/c0 by < 1e-4 at the switch (the issue\'s grid criterion)', () => {
+    const theta = (LONG_AGE_NUMBER * R * R) / 5e-17; // the smallest Ds of `small`
+    expect(stirredGridPoints(pk, theta)).toBe(8);
+    expect(stirredGridPoints(pk, 0.99 * theta)).toBe(DEFAULT_INTERIOR_POINTS);
+    for (const dose of [0.015, 0.05]) {
+      const coarse = stirredReactor(pk, dose, tau, theta);
+      const doubled = stirredReactor(pk, dose, tau, theta, { interiorPoints: 16 });
+      small.forEach((comp, i) => { if (comp.K > 0) expect(Math.abs(coarse.cMgPerL[i]! - doubled.cMgPerL[i]!) / comp.c0MgPerL, `${comp.id} at ${dose * 1000} mg/L`).toBeLessThan(1e-4); });
+    }
   });
 
   it('rejects a carbon age below the contact time naming --carbon-age', () => {

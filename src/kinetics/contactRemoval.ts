@@ -29,7 +29,7 @@ import type { BackgroundAtDose, CompetitionSet, DoseAtRemoval, RemainingAtDose, 
 import { prepareKinetics, type CarbonParticle, type KineticComponent, type PreparedKinetics } from './kineticMixture.js';
 import { checkTimes, DEFAULT_KINETIC_RTOL, pacBatch, type KineticSolverOptions } from './pacBatch.js';
 import { checkContactConditions, stirredReactor, stirredReactorFrom } from './stirredReactor.js';
-import { ContactSolveStore, nearestOutlets, sharedBackground, sharedBackgroundKey, type SharedBackground, type StirredOutlet } from './sharedBackground.js';
+import { ContactSolveStore, nearestOutlets, sharedBackground, sharedBackgroundKey, type SharedBackground, type SharedSlot, type StirredOutlet } from './sharedBackground.js';
 import { traceDoseRoot } from './traceDoseRoot.js';
 
 export type ContactConditions =
@@ -138,7 +138,7 @@ export class ContactRemoval implements RemovalModel {
   private readonly prepared: PreparedKinetics[];
   private readonly bgPrepared?: PreparedKinetics;
   /** The shared background of each compound (undefined: solved on its own) and its component index there. */
-  private readonly shared: Array<{ group: SharedBackground; at: number } | undefined>;
+  private readonly shared: Array<SharedSlot | undefined>;
   /** The background components' indices in a shared background with the same components, if any. */
   private readonly bgShared?: { group: SharedBackground; at: number[] };
 
@@ -152,8 +152,12 @@ export class ContactRemoval implements RemovalModel {
     /** Share trace targets' backgrounds (default true; false solves every target on its own, for tests). */
     readonly shareBackground = true,
     /** The same water at another DOC (atDoc), whose solves give starts: doses scaled by `factor` = this DOC / its DOC. */
-    private readonly nearDoc?: { shared: ReadonlyArray<{ group: SharedBackground; at: number } | undefined>; factor: number },
-    /** Solves kept across the models of one factory (contactFactory): starts for groups with the same background or target. */
+    private nearDoc?: { shared: ReadonlyArray<SharedSlot | undefined>; factor: number },
+    /**
+     * Solves kept across the models of one factory (contactFactory): starts for groups with the
+     * same background or target, and, in place of `nearDoc`, the model of the same water at the
+     * nearest DOC already solved (the family key: the competitors' c0 per mg DOC).
+     */
     private readonly store?: ContactSolveStore,
   ) {
     checkConditions(conditions);
@@ -169,6 +173,10 @@ export class ContactRemoval implements RemovalModel {
       if (key !== undefined) byKey.set(key, [...(byKey.get(key) ?? []), i]);
     });
     this.shared = this.prepared.map(() => undefined);
+    const perDoc = (cs: readonly FreundlichComponent[]) => cs.map((c) => ({ ...c, c0MgPerL: Number((c.c0MgPerL / docMgPerL).toPrecision(12)) }));
+    const family = store ? JSON.stringify([sets.map((s) => [s.target, perDoc(s.competitors)]), background ? perDoc(background) : null, particle, conditions, options, shareBackground]) : '';
+    if (store) nearDoc = store.nearestModel(family, docMgPerL) ?? nearDoc;
+    this.nearDoc = nearDoc;
     for (const members of byKey.values()) {
       // starts from the same group at the nearby DOC: its outlets at doses scaled by DOC (the dose per mg DOC is roughly constant)
       const nearGroup = nearDoc?.shared[members[0]!]?.group;
@@ -181,6 +189,7 @@ export class ContactRemoval implements RemovalModel {
       this.backgroundC0MgPerL = Float64Array.from(background, (c) => c.c0MgPerL);
       this.bgShared = backgroundInGroup(this.bgPrepared, this.shared);
     }
+    store?.registerModel(family, docMgPerL, this.shared);
   }
 
   remaining(index: number, doseGPerL: number, warm?: WarmStart): RemainingAtDose {

@@ -21,7 +21,9 @@
  * With a ContactSolveStore (one per model factory: contactFactory) the outlets already solved by
  * any group of that factory with the same background, conditions and solver options are starts
  * too (the background's balance does not depend on the targets), and every target's c/c0 at the
- * doses solved is kept there for a later group holding the same target (its first dose tried).
+ * doses solved is kept there for a later group holding the same target (its first dose tried);
+ * and the models of one water at other DOCs are kept there too, so that a model at a new DOC
+ * starts from the one at the nearest DOC already solved (ContactRemoval).
  *
  * Units: dose g/L, times s, concentrations mg/L.
  * @throws ComputationError when a kinetic solve fails.
@@ -51,6 +53,9 @@ export interface SharedBackground {
 /** A solved stirred-reactor outlet: the dose, c_out/c0 of the coupled components and the balance Jacobian there. */
 export interface StirredOutlet { dose: number; coupled: Float64Array; jacobian?: Float64Array }
 
+/** A compound's shared background in a model and its component index there. */
+export interface SharedSlot { group: SharedBackground; at: number }
+
 /**
  * Solves kept across the contact models made by one model factory (contactFactory; never
  * module-wide, so that nothing depends on what else ran in the process): the stirred outlets of
@@ -61,6 +66,22 @@ export interface StirredOutlet { dose: number; coupled: Float64Array; jacobian?:
 export class ContactSolveStore {
   private readonly outlets = new Map<string, StirredOutlet[]>();
   private readonly points = new Map<string, Array<readonly [number, number]>>();
+  private readonly models = new Map<string, Array<{ doc: number; shared: ReadonlyArray<SharedSlot | undefined> }>>();
+  /** Registers the shared backgrounds of a model of a family (the same water scaled by DOC: ContactRemoval's family key) at a DOC. */
+  registerModel(family: string, docMgPerL: number, shared: ReadonlyArray<SharedSlot | undefined>): void {
+    let l = this.models.get(family);
+    if (!l) { l = []; this.models.set(family, l); }
+    l.push({ doc: docMgPerL, shared });
+  }
+  /** The model of the family at the DOC nearest `docMgPerL` (in ln DOC) that has solved a dose, and the factor this DOC / its DOC. */
+  nearestModel(family: string, docMgPerL: number): { shared: ReadonlyArray<SharedSlot | undefined>; factor: number } | undefined {
+    let best: { doc: number; shared: ReadonlyArray<SharedSlot | undefined> } | undefined, gap = Infinity;
+    for (const m of this.models.get(family) ?? []) {
+      const g = Math.abs(Math.log(m.doc / docMgPerL));
+      if (g < gap && m.shared.some((sh) => sh && sh.group.solved.size > 0)) { gap = g; best = m; }
+    }
+    return best ? { shared: best.shared, factor: docMgPerL / best.doc } : undefined;
+  }
   /** The outlets of a background key (a live list: append to it). */
   outletsOf(key: string): StirredOutlet[] {
     let l = this.outlets.get(key);

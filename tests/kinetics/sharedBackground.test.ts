@@ -116,6 +116,24 @@ describe('a solve store shared by the models of one factory (ContactSolveStore) 
       expect(Math.abs(fresh.remaining(i, found!.doseGPerL).remainingFraction - (1 - R)), `T${i + 1} on a fresh model`).toBeLessThanOrEqual(tol);
     });
   }, 60_000);
+  it('stirred, water 14: the same water at another DOC, built by the same factory, starts from the nearest DOC solved and meets the goals on a fresh model within 3 × removalTolerance', () => {
+    const cond: ContactConditions = { kind: 'stirred', contactTimeS: 1800, carbonAgeS: 3 * 86400 };
+    const { sets } = water(14, 2);
+    const atDoc = (f: number) => sets.map((s) => ({ ...s, competitors: s.competitors.map((c) => ({ ...c, c0MgPerL: c.c0MgPerL * f })) }));
+    const store = new ContactSolveStore();
+    const R = 0.8;
+    const first = new ContactRemoval(sets, 5, particle, cond, undefined, {}, true, undefined, store);
+    sets.forEach((_s, i) => expect(first.doseForRemoval(i, R)).toBeDefined());
+    const second = new ContactRemoval(atDoc(1.1), 5.5, particle, cond, undefined, {}, true, undefined, store);
+    const fresh = new ContactRemoval(atDoc(1.1), 5.5, particle, cond);
+    const tol = 3 * fresh.removalTolerance;
+    sets.forEach((_s, i) => {
+      const found = second.doseForRemoval(i, R);
+      expect(found, `T${i + 1}`).toBeDefined();
+      expect(found!.remainingFraction).toBeLessThanOrEqual(1 - R);
+      expect(Math.abs(fresh.remaining(i, found!.doseGPerL).remainingFraction - (1 - R)), `T${i + 1} on a fresh model`).toBeLessThanOrEqual(tol);
+    });
+  }, 60_000);
 });
 
 describe('predictOutlet carries a balance solution to another dose (closed form for a linear age integral)', () => {

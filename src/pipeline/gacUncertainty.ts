@@ -89,7 +89,8 @@ export function gacUncertainty(project: ProjectSpec, cr: CarbonResult, carbonInd
   const bg = gacDocComponents(fractionatedBackground(cr.background?.background, carbonIndex), project.site.docMgPerL, cr.background?.backgroundKFactor ?? cr.carbon.kFactor, bk.doc);
   const bed = { ebctS: cr.carbon.ebctMin! * 60, bedDepthM: bk.bedDepthM, porosity: bk.porosity, particleRadiusM: bk.particleRadiusM, particleDensityKgPerM3: bk.particleDensityKgPerM3, temperatureC: bk.temperatureC };
   const grid = k.simulation.bedVolumes;
-  const tb = traceBed({ components: bg, bed }, { outputBedVolumes: grid.slice(1) });
+  // the run's background, solved once there (the same components, bed and grid), else solved here
+  const tb = k.simulation.storedBackground ?? traceBed({ components: bg, bed }, { outputBedVolumes: grid.slice(1) });
   const sigK = lognormalSigma(s.KRelSd), sigN = lognormalSigma(s.oneOverNRelSd);
   const relDs = s.dsRelSd ?? DEFAULT_DS_REL_SD;
   const relBasis = s.dsRelSd === undefined ? `default ${DEFAULT_DS_REL_SD * 100} % (ours, no source; set uncertainty.Ds_rel_sd)` : 'project uncertainty.Ds_rel_sd';

@@ -27,7 +27,7 @@
 import { InputError } from '../core/errors.js';
 import { firstCrossing, curveIntegral, type BreakthroughCurve } from './breakthroughCurve.js';
 import { checkBed, checkComponents, filmCoefficients, type ComponentFilm, type FixedBedComponent, type FixedBedInput, type FixedBedSpec } from './fixedBedInput.js';
-import { recordingBedBackground, solveBedBackground, type BedBackgroundHistory, type RecordingBedBackground } from './fixedBedBackground.js';
+import { bedBackgroundHistory, recordingBedBackground, solveBedBackground, type BedBackgroundHistory, type BedBackgroundHistoryData, type RecordingBedBackground } from './fixedBedBackground.js';
 import { fixedBedModel, type BedComponentScales, type BedModel } from './fixedBedModel.js';
 import { integrateImplicit, type IntegratorStats } from './implicitIntegrator.js';
 
@@ -341,6 +341,25 @@ export interface TraceBed {
    * @throws InputError for a target that is not a trace or lacks inputs; ComputationError when the integration fails
    */
   outlet(target: FixedBedComponent, options?: { rtol?: number; atol?: number; traceFraction?: number; stepTimes?: readonly number[] }): TraceOutlet;
+  /** Everything `outlet` needs, as plain data (e.g. for a worker thread): traceBedFromData rebuilds it. */
+  data(): TraceBedData;
+}
+
+/** A TraceBed as plain data (structured-cloneable). */
+export interface TraceBedData {
+  bed: FixedBedSpec;
+  grid: { cells: number; interiorPoints: number };
+  /** Output bed volumes, 0 first. */
+  bedVolumes: number[];
+  history: BedBackgroundHistoryData;
+  /** Adsorbable feed total of the background, mg/L (for the trace check). */
+  backgroundTotalMgPerL: number;
+  tolerances: { rtol: number; atol: number };
+}
+
+/** The TraceBed of `data` (outlets equal to those of the TraceBed that gave it). */
+export function traceBedFromData(data: TraceBedData): TraceBed {
+  return storedTraceBed(data.bed, data.grid, data.bedVolumes, bedBackgroundHistory(data.history), data.backgroundTotalMgPerL, data.tolerances);
 }
 
 /** Solve the background of `input` (its components, none of them the targets) once; see TraceBed. */
@@ -383,6 +402,7 @@ function storedTraceBed(bed: FixedBedSpec, grid: { cells: number; interiorPoints
       });
       return { cOverC0, massBalanceError: massErr, stats: res.stats, stepTimes: res.stepTimes };
     },
+    data: () => ({ bed: { ...bed }, grid: { ...grid }, bedVolumes: [...bvs], history: history.data(), backgroundTotalMgPerL, tolerances: { ...tol } }),
   };
 }
 

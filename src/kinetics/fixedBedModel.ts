@@ -350,12 +350,12 @@ export function fixedBedModel(components: readonly BedComponentScales[], backgro
     builtState.set(y);
     let builtT = t0;
     let builtAt = rhsCalls;
-    return (x: Float64Array): void => {
+    return (x: Float64Array, filter?: boolean): void => {
       // a later Newton iteration whose iterate (the state of the last rhs call) has moved: refresh
       // the blocks there, so the reverse-IAST nonlinearity does not stall Newton into step cuts
       // (with a stored background at every new iterate: the trace blocks are cheap to rebuild, κ_T
       // moves with time, and the limiter at tiny c/c0 otherwise slows Newton to a crawl)
-      if (rhsCalls !== builtAt && (background !== undefined || (solvesSinceFactor++ > 0 && moved(lastState)))) {
+      if (!filter && rhsCalls !== builtAt && (background !== undefined || (solvesSinceFactor++ > 0 && moved(lastState)))) {
         builtAt = rhsCalls;
         try {
           tNow = lastT;

@@ -4,7 +4,7 @@
  * from one counter in shared memory (Atomics), so the worker can begin while this thread does
  * other work (the PAC draws) and the two split what is left. Each outlet is a pure function of
  * its target, so the results, put back in target order, are identical to computing them all in
- * this thread. Without a worker (one core, workers 0, fewer than 2 targets, or no worker file:
+ * this thread. Without a worker (one core, workers 0, fewer than SHARED_MIN_TARGETS targets, or no worker file:
  * src/uncertainty/workerEntry.ts) everything runs in this thread; a worker that fails to start
  * leaves its unfinished targets to this thread.
  * @throws InputError / ComputationError from an outlet (from either thread, rethrown as such)
@@ -16,6 +16,13 @@ import type { TraceBed } from '../kinetics/fixedBed.js';
 import type { FixedBedComponent } from '../kinetics/fixedBedInput.js';
 import type { TraceOutletWorkerInput, TraceOutletWorkerMessage } from './traceOutletWorker.js';
 import { workerEntry } from './workerEntry.js';
+
+/**
+ * Fewest targets for which a worker is started (ours: an outlet of the demo's compounds costs
+ * 20–50 ms of CPU, while a worker's start and JIT warm-up cost about 0.2–0.3 s of CPU; on a
+ * loaded machine with no idle core the worker only adds that).
+ */
+export const SHARED_MIN_TARGETS = 8;
 
 export interface SharedTraceOutlets {
   /** Worker threads started (0 or 1). */
@@ -34,7 +41,7 @@ export function sharedTraceOutlets(tb: TraceBed, targets: readonly FixedBedCompo
   const next = new Int32Array(new SharedArrayBuffer(4));
   const results: Array<number[] | undefined> = new Array(n);
   const wanted = Math.min(1, options.workers ?? 1);
-  const entry = wanted > 0 && n >= 2 && availableParallelism() >= 2 ? workerEntry('traceOutletWorker') : undefined;
+  const entry = wanted > 0 && (n >= SHARED_MIN_TARGETS || (options.workerOnly && n >= 1)) && availableParallelism() >= 2 ? workerEntry('traceOutletWorker') : undefined;
   let worker: Worker | undefined;
   let byWorker = 0;
   let settled: Promise<Error | undefined> = Promise.resolve(undefined);

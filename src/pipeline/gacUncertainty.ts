@@ -10,10 +10,12 @@
  * ln Ds), a given Ds takes `uncertainty.Ds_rel_sd` (default DEFAULT_DS_REL_SD, ours, no source).
  * NOT sampled: the background (the fictive DOC components, their fractions, K, Ds, DL, and the
  * DOC stay at the point value), DL or kf, the bed and the grains. The compounds are traces against
- * the background, so their parameters do not change it: the background is solved once
- * (`traceBed`, src/kinetics/fixedBed.ts) and each draw integrates every compound alone against it
- * on the run's bed-volume grid; the draw's run length is the staggered run of those curves
- * (gacStaggeredRun, the run's rule) and its carbon use that of gacCarbonUse.
+ * the background, so their parameters do not change it: the run's stored background
+ * (`simulation.storedBackground`; solved here with `traceBed` when absent) serves every draw, which
+ * integrates every compound alone against it on the run's bed-volume grid; the draw's run length is
+ * the staggered run of those curves (gacStaggeredRun, the run's rule) and its carbon use that of
+ * gacCarbonUse. The draws are taken first, in one stream; their outlets may then be shared with a
+ * worker thread (startGacUncertainty, src/uncertainty/sharedTraceOutlets.ts) with the same figures.
  *
  * A draw whose run reaches the end of the simulated curves has a run length of at least that end
  * (counted, the percentiles then a lower bound there); a draw in which no run meets the goals
@@ -36,7 +38,7 @@ import { fractionatedBackground, gacDocComponents, gacIndicatorRule, gacStaggere
 import type { CarbonResult, PipelineResult } from './pipelineTypes.js';
 import type { UncertainParameter, UncertaintySettings } from './uncertaintyTypes.js';
 
-/** Draws of a GAC carbon when `uncertainty.gac_draws` is not given (ours: each draw integrates every compound again, about 0.4–0.6 s of CPU on the demo's nine compounds). */
+/** Draws of a GAC carbon when `uncertainty.gac_draws` is not given (ours: each draw integrates every compound again, about 0.2–0.3 s of CPU on the demo's nine compounds). */
 export const DEFAULT_GAC_DRAWS = 20;
 /** Random stream of the GAC draws (a chunk index of chunkRng apart from the PAC carbons' chunks). */
 const GAC_STREAM = 0x6ac0;

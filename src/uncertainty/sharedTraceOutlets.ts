@@ -18,9 +18,12 @@ import type { TraceOutletWorkerInput, TraceOutletWorkerMessage } from './traceOu
 import { workerEntry } from './workerEntry.js';
 
 /**
- * Fewest targets for which a worker is started (ours: an outlet of the demo's compounds costs
- * 20–50 ms of CPU, while a worker's start and JIT warm-up cost about 0.2–0.3 s of CPU; on a
- * loaded machine with no idle core the worker only adds that).
+ * Fewest targets for which a worker is started (ours). An outlet of the demo's compounds costs
+ * 20–50 ms of CPU in a warm thread, but the worker starts cold: measured on the 2-core machine
+ * under a load of about 9, the demo's 45 drawn outlets took 1.7–1.9 s of CPU in this thread
+ * (warm from the run) and 3.5–3.7 s on a worker alone (JIT warm-up in a fresh isolate). So the
+ * worker shortens the wall time only where a core is idle (beside the PAC draws, or sharing the
+ * rest), and adds CPU time on a machine with no idle core.
  */
 export const SHARED_MIN_TARGETS = 8;
 

@@ -5,7 +5,8 @@
  *
  *   residual_k = c/c0_model(BV_k; Ds, f_kf) − c/c0_measured,k        (absolute, in c/c0)
  *   parameters fitted as ln Ds and ln f_kf; a coarse scan of ln Ds over 1e-17 … 1e-11 m²/s picks
- *   the start unless one is given.
+ *   the start unless one is given (on the fast path below with the target integrated at rtol 1e-3:
+ *   the scan only picks a decade).
  * A trace target against an adsorbable background (the usual case): the background is solved once
  *   (src/kinetics/fixedBed.ts, traceBed) and each evaluation integrates only the target against it
  *   (otherwise each evaluation is the coupled model). Ds alone: a one-dimensional
@@ -84,17 +85,17 @@ export function fitColumn(input: ColumnFitInput): ColumnFitResult {
   const isTrace = bgAdsorbed > 0 && target.c0MgPerL < TRACE_FRACTION * (bgAdsorbed + target.c0MgPerL);
   // a trace target: the background solved once (its own tolerances), the target alone per evaluation
   const traced = isTrace ? traceBed({ components: input.background, bed }, { outputBedVolumes: data.bedVolumes, ...(input.grid ?? {}) }) : undefined;
-  const predict = (x: readonly number[], stepTimes?: readonly number[]): { c: number[]; stepTimes?: number[] } => {
+  const predict = (x: readonly number[], stepTimes?: readonly number[], loose = false): { c: number[]; stepTimes?: number[] } => {
     if (traced) {
-      const o = traced.outlet(component(x), { ...TARGET_TOLERANCES, traceFraction: TRACE_FRACTION, ...(stepTimes ? { stepTimes } : {}) });
+      const o = traced.outlet(component(x), { ...(loose ? SCAN_TOLERANCES : TARGET_TOLERANCES), traceFraction: TRACE_FRACTION, ...(stepTimes ? { stepTimes } : {}) });
       return { c: o.cOverC0.slice(1), stepTimes: o.stepTimes };
     }
     // the coupled model keeps the tighter tolerances 1e-4/1e-7 (ours): fitLeastSquares' difference-quotient Jacobian needs smooth predictions
     const r = simulateFixedBed({ components: [...input.background, component(x)], bed }, { toBedVolumes: toBv, outputBedVolumes: data.bedVolumes, rtol: 1e-4, atol: 1e-7, ...(input.grid ?? {}), ...(stepTimes ? { stepTimes } : {}) });
     return { c: r.components[r.components.length - 1]!.cOverC0.slice(1), ...(r.stepTimes ? { stepTimes: r.stepTimes } : {}) };
   };
-  const residuals = (x: readonly number[], stepTimes?: readonly number[]) => {
-    const pred = predict(x, stepTimes);
+  const residuals = (x: readonly number[], stepTimes?: readonly number[], loose = false) => {
+    const pred = predict(x, stepTimes, loose);
     return { r: pred.c.map((v, k) => v - data.cOverC0[k]!), stepTimes: pred.stepTimes };
   };
   const sumSq = (r: readonly number[]) => r.reduce((a, v) => a + v * v, 0);
@@ -105,7 +106,7 @@ export function fitColumn(input: ColumnFitInput): ColumnFitResult {
     for (let e = -17; e <= -11; e += fitKf ? 0.5 : 1) {
       const x = [e * Math.LN10, ...(fitKf ? [0] : [])];
       try {
-        const s = sumSq(residuals(x).r);
+        const s = sumSq(residuals(x, undefined, true).r);
         if (s < bestS) { bestS = s; bestX = x; }
       } catch (err) {
         if (!(err instanceof ComputationError)) throw err;
@@ -180,6 +181,11 @@ export function fitColumn(input: ColumnFitInput): ColumnFitResult {
 const TRACE_FRACTION = 1e-3;
 /** Tolerances of the target's own integration on the fast path (those the coupled fit used; smoothness comes from the replayed steps). */
 const TARGET_TOLERANCES = { rtol: 1e-4, atol: 1e-7 } as const;
+/**
+ * Tolerances of the target's integration in the decade scan on the fast path (ours: the scan only
+ * picks the start decade, whose sums of squares differ by far more than this tolerance moves them).
+ */
+const SCAN_TOLERANCES = { rtol: 1e-3, atol: 1e-6 } as const;
 /** Step in ln Ds of the difference quotients over replayed steps (ours). */
 const LN_DS_STEP = 1e-3;
 /** Trial steps in ln Ds below which the integrator's steps are replayed (ours). */

@@ -27,8 +27,8 @@
 import { InputError } from '../core/errors.js';
 import { firstCrossing, curveIntegral, type BreakthroughCurve } from './breakthroughCurve.js';
 import { checkBed, checkComponents, filmCoefficients, type ComponentFilm, type FixedBedComponent, type FixedBedInput, type FixedBedSpec } from './fixedBedInput.js';
-import { solveBedBackground, type BedBackgroundHistory } from './fixedBedBackground.js';
-import { fixedBedModel, type BedComponentScales } from './fixedBedModel.js';
+import { bedBackgroundHistory, recordingBedBackground, solveBedBackground, type BedBackgroundHistory, type BedBackgroundHistoryData, type RecordingBedBackground } from './fixedBedBackground.js';
+import { fixedBedModel, type BedComponentScales, type BedModel } from './fixedBedModel.js';
 import { integrateImplicit, type IntegratorStats } from './implicitIntegrator.js';
 
 export interface FixedBedOptions {
@@ -63,6 +63,14 @@ export interface FixedBedOptions {
   stopWhen?: (bedVolumes: readonly number[], cOverC0ById: Readonly<Record<string, readonly number[]>>) => boolean;
   /** Replay these integrator steps (the `stepTimes` of an earlier run; not with `stopWhen`): results smooth in the parameters. */
   stepTimes?: readonly number[];
+  /**
+   * Solve the background components first, alone, with their surface history stored, then each
+   * trace alone against it (the trace shortcut of traceBed; equal to the coupled solve within the
+   * integrators' tolerances, tests/kinetics/fixedBedTrace.test.ts), and return the stored
+   * background as `storedBackground` for more targets on the same bed-volume grid. Used when
+   * there are both background components and traces; not with `stepTimes`. Default false (coupled).
+   */
+  storedBackground?: boolean;
 }
 
 /** Default integrator tolerances of the fixed-bed model (ours; see FixedBedOptions.rtol). */
@@ -117,8 +125,10 @@ export interface FixedBedResult {
   films: ComponentFilm[];
   grid: { cells: number; interiorPoints: number };
   stats: IntegratorStats;
-  /** End time of every accepted step, bed volumes (for a replay; absent with `stopWhen`). */
+  /** End time of every accepted step, bed volumes (for a replay; absent with `stopWhen` and with a stored background). */
   stepTimes?: number[];
+  /** With `storedBackground`: the background solved once, for more trace targets on `bedVolumes` (not data: a handle). */
+  storedBackground?: TraceBed;
   warnings: string[];
 }
 
@@ -157,10 +167,28 @@ export function simulateFixedBed(input: FixedBedInput, options: FixedBedOptions)
   let end = bvs.length; // output points computed (all unless stopWhen ends the run)
   let stepTimes: number[] | undefined;
   if (options.stepTimes && options.stopWhen) throw new InputError('a replay of steps cannot stop early', { path: 'stepTimes' });
+  const split = options.storedBackground === true && nb >= 1 && nb < ordered.length;
+  if (options.storedBackground && options.stepTimes) throw new InputError('a replay of steps needs the coupled solve (not storedBackground)', { path: 'stepTimes' });
+  let recorded: RecordingBedBackground | undefined;
   if (ordered.length > 0) {
-    const model = fixedBedModel(scales, nb, eps, rhoP, grid);
-    const record = (y: Float64Array, k: number) => {
-      ordered.forEach(({ i }, m) => {
+    // the systems integrated: the coupled model of every component, or (split) the background
+    // alone with its history recorded, then each trace alone against that history
+    interface Part { model: BedModel; members: number[]; y: Float64Array; h?: number; onStep?: RecordingBedBackground['onStep'] }
+    const parts: Part[] = [];
+    if (split) {
+      recorded = recordingBedBackground(scales.slice(0, nb), eps, rhoP, grid);
+      parts.push({ model: recorded.model, members: ordered.slice(0, nb).map((x) => x.i), y: new Float64Array(recorded.model.size), onStep: recorded.onStep });
+      for (let m = nb; m < ordered.length; m++) {
+        const model = fixedBedModel([scales[m]!], 0, eps, rhoP, grid, recorded.history);
+        parts.push({ model, members: [ordered[m]!.i], y: new Float64Array(model.size) });
+      }
+    } else {
+      const model = fixedBedModel(scales, nb, eps, rhoP, grid);
+      parts.push({ model, members: ordered.map((x) => x.i), y: new Float64Array(model.size) });
+    }
+    const record = (part: Part, y: Float64Array, k: number) => {
+      const model = part.model;
+      part.members.forEach((i, m) => {
         cOverC0[i]![k] = model.outlet(y, m);
         if (k > 0) {
           const fed = bvs[k]!;
@@ -170,28 +198,32 @@ export function simulateFixedBed(input: FixedBedInput, options: FixedBedOptions)
       });
     };
     const tol = { rtol: options.rtol ?? FIXED_BED_TOLERANCES.rtol, atol: options.atol ?? FIXED_BED_TOLERANCES.atol };
+    const sum = stats as unknown as Record<string, number>;
+    const add = (st: IntegratorStats) => { for (const [key, v] of Object.entries(st)) sum[key] = key === 'maxAcceptedError' ? Math.max(sum[key]!, v) : sum[key]! + v; };
     const stop = options.stopWhen;
     if (!stop) {
-      const res = integrateImplicit(model, 0, new Float64Array(model.size), bvs, options.stepTimes ? { ...tol, stepTimes: options.stepTimes } : tol);
-      stats = res.stats;
-      stepTimes = res.stepTimes;
-      res.states.forEach((y, k) => record(y, k));
+      for (const part of parts) {
+        const res = integrateImplicit(part.model, 0, part.y, bvs, { ...tol, ...(options.stepTimes ? { stepTimes: options.stepTimes } : {}), ...(part.onStep ? { onStep: part.onStep } : {}) });
+        add(res.stats);
+        if (!split) stepTimes = res.stepTimes;
+        res.states.forEach((y, k) => record(part, y, k));
+      }
     } else {
       // in segments of STOP_CHECK_POINTS output points, each continuing from the last state with
-      // the last step size, asking stopWhen in between
-      let y: Float64Array = new Float64Array(model.size);
-      let from = 0, h: number | undefined;
-      const sum = stats as unknown as Record<string, number>;
-      record(y, 0);
+      // the last step size, asking stopWhen in between (split: the background's segment first)
+      let from = 0;
+      for (const part of parts) record(part, part.y, 0);
       end = 1;
       while (end < bvs.length) {
         const seg = bvs.slice(end, Math.min(bvs.length, end + STOP_CHECK_POINTS));
-        const res = integrateImplicit(model, bvs[from]!, y, seg, h === undefined ? tol : { ...tol, initialStep: h });
-        for (const [key, v] of Object.entries(res.stats)) sum[key] = key === 'maxAcceptedError' ? Math.max(sum[key]!, v) : sum[key]! + v;
-        res.states.forEach((st, k) => record(st, end + k));
-        const st = res.stepTimes;
-        if (st.length >= 2) h = st[st.length - 1]! - st[st.length - 2]!;
-        y = res.states[res.states.length - 1]!;
+        for (const part of parts) {
+          const res = integrateImplicit(part.model, bvs[from]!, part.y, seg, { ...tol, ...(part.h === undefined ? {} : { initialStep: part.h }), ...(part.onStep ? { onStep: part.onStep } : {}) });
+          add(res.stats);
+          res.states.forEach((st, k) => record(part, st, end + k));
+          const st = res.stepTimes;
+          if (st.length >= 2) part.h = st[st.length - 1]! - st[st.length - 2]!;
+          part.y = res.states[res.states.length - 1]!;
+        }
         from = end + seg.length - 1;
         end += seg.length;
         if (end < bvs.length) {
@@ -240,6 +272,7 @@ export function simulateFixedBed(input: FixedBedInput, options: FixedBedOptions)
     grid,
     stats,
     ...(stepTimes ? { stepTimes } : {}),
+    ...(recorded ? { storedBackground: storedTraceBed(bed, grid, bvs, recorded.history, ordered.slice(0, nb).reduce((s, x) => s + x.c.c0MgPerL, 0), { rtol: options.rtol ?? FIXED_BED_TOLERANCES.rtol, atol: options.atol ?? FIXED_BED_TOLERANCES.atol }) } : {}),
     warnings: films.filter((f) => f.warning).map((f) => f.warning!),
   };
   const docIdx = comps.map((c, i) => (c.doc ? i : -1)).filter((i) => i >= 0);
@@ -308,6 +341,25 @@ export interface TraceBed {
    * @throws InputError for a target that is not a trace or lacks inputs; ComputationError when the integration fails
    */
   outlet(target: FixedBedComponent, options?: { rtol?: number; atol?: number; traceFraction?: number; stepTimes?: readonly number[] }): TraceOutlet;
+  /** Everything `outlet` needs, as plain data (e.g. for a worker thread): traceBedFromData rebuilds it. */
+  data(): TraceBedData;
+}
+
+/** A TraceBed as plain data (structured-cloneable). */
+export interface TraceBedData {
+  bed: FixedBedSpec;
+  grid: { cells: number; interiorPoints: number };
+  /** Output bed volumes, 0 first. */
+  bedVolumes: number[];
+  history: BedBackgroundHistoryData;
+  /** Adsorbable feed total of the background, mg/L (for the trace check). */
+  backgroundTotalMgPerL: number;
+  tolerances: { rtol: number; atol: number };
+}
+
+/** The TraceBed of `data` (outlets equal to those of the TraceBed that gave it). */
+export function traceBedFromData(data: TraceBedData): TraceBed {
+  return storedTraceBed(data.bed, data.grid, data.bedVolumes, bedBackgroundHistory(data.history), data.backgroundTotalMgPerL, data.tolerances);
 }
 
 /** Solve the background of `input` (its components, none of them the targets) once; see TraceBed. */
@@ -327,6 +379,11 @@ export function traceBed(input: FixedBedInput, options: TraceBedOptions): TraceB
   const grid = { cells: options.cells ?? DEFAULT_FIXED_BED_GRID.cells, interiorPoints: options.interiorPoints ?? DEFAULT_FIXED_BED_GRID.interiorPoints };
   const tol = { rtol: options.rtol ?? FIXED_BED_TOLERANCES.rtol, atol: options.atol ?? FIXED_BED_TOLERANCES.atol };
   const { history } = solveBedBackground(ads.map((c, i) => componentScales(c, films[i]!.kfMPerS, bed)), bed.porosity, bed.particleDensityKgPerM3, grid, bvs, tol);
+  return storedTraceBed(bed, grid, bvs, history, totalAds, tol);
+}
+
+/** The TraceBed of a stored background `history` (adsorbable feed total `backgroundTotalMgPerL`) on the output grid `bvs` (0 first). */
+function storedTraceBed(bed: FixedBedSpec, grid: { cells: number; interiorPoints: number }, bvs: readonly number[], history: BedBackgroundHistory, backgroundTotalMgPerL: number, tol: { rtol: number; atol: number }): TraceBed {
   return {
     bedVolumes: bvs,
     background: history,
@@ -334,7 +391,7 @@ export function traceBed(input: FixedBedInput, options: TraceBedOptions): TraceB
       checkComponents([target]);
       if (!(target.K > 0) || !(target.c0MgPerL > 0)) throw new InputError(`target "${target.id}": expected an adsorbable target with c0 > 0`, { path: 'target' });
       const fraction = opts.traceFraction ?? 1e-3;
-      if (!(target.c0MgPerL < fraction * (totalAds + target.c0MgPerL))) throw new InputError(`target "${target.id}" is not a trace against the background (c0 ${target.c0MgPerL} mg/L)`, { path: 'target.c0' });
+      if (!(target.c0MgPerL < fraction * (backgroundTotalMgPerL + target.c0MgPerL))) throw new InputError(`target "${target.id}" is not a trace against the background (c0 ${target.c0MgPerL} mg/L)`, { path: 'target.c0' });
       const kf = filmCoefficients([target], bed)[0]!.kfMPerS;
       const model = fixedBedModel([componentScales(target, kf, bed)], 0, bed.porosity, bed.particleDensityKgPerM3, grid, history);
       const res = integrateImplicit(model, 0, new Float64Array(model.size), bvs, { rtol: opts.rtol ?? tol.rtol, atol: opts.atol ?? tol.atol, ...(opts.stepTimes ? { stepTimes: opts.stepTimes } : {}) });
@@ -345,6 +402,7 @@ export function traceBed(input: FixedBedInput, options: TraceBedOptions): TraceB
       });
       return { cOverC0, massBalanceError: massErr, stats: res.stats, stepTimes: res.stepTimes };
     },
+    data: () => ({ bed: { ...bed }, grid: { ...grid }, bedVolumes: [...bvs], history: history.data(), backgroundTotalMgPerL, tolerances: { ...tol } }),
   };
 }
 

@@ -35,7 +35,7 @@ import { ComputationError } from '../core/errors.js';
 import { denseLu, luFactorAt, luSolveAt } from './denseLu.js';
 import type { NewtonSolve, StiffSystem } from './implicitIntegrator.js';
 import type { BedBackgroundHistory } from './fixedBedBackground.js';
-import { reverseIast, traceSurfaceFactor, type ReverseIastState } from './reverseIast.js';
+import { reverseIast, traceKappa, traceSurfaceFactor, type ReverseIastState } from './reverseIast.js';
 import { sphereCollocation, type SphereCollocation } from './sphereCollocation.js';
 
 /** One adsorbable component in the dimensionless model. */
@@ -115,6 +115,7 @@ export function fixedBedModel(components: readonly BedComponentScales[], backgro
   // with a stored background: its surface state per cell at time `tNow` (the time of the last rhs or factor call)
   let tNow = 0;
   const storedSt: ReverseIastState = { psi: 0, total: 0 };
+  const surfaceSt: ReverseIastState = { psi: 0, total: 0 };
   const qRef = Float64Array.from(components, (c) => c.qRefMgPerG);
   const c0 = Float64Array.from(components, (c) => c.c0MgPerL);
 
@@ -135,32 +136,50 @@ export function fixedBedModel(components: readonly BedComponentScales[], backgro
   const dKappa = new Float64Array(nb);
   const Bw = new Float64Array(N + 1);
 
+  // ln(β/K) per component, so that κ_T shares ln ψ_B over the traces of a cell (traceKappa)
+  const lnBetaOverK = Float64Array.from(components, (c) => Math.log(c.beta / c.K));
+  // with a stored background κ_T depends on the time and the cell only: kept for the last time
+  // asked (the Newton iterations of a stage and its matrix refreshes share one time)
+  const storedKappa = background ? new Float64Array(Nz * na) : undefined;
+  let storedKappaTime = NaN;
+  const fillStoredKappa = (): void => {
+    if (tNow === storedKappaTime) return;
+    for (let j = 0; j < Nz; j++) {
+      background!.surfaceAt(tNow, j, storedSt);
+      const ok = storedSt.total > 0 && storedSt.psi > 0;
+      const lnPsi = ok ? Math.log(storedSt.psi) : 0;
+      for (let m = 0; m < na; m++) storedKappa![j * na + m] = ok ? traceKappa(lnBetaOverK[m]!, components[m]!.beta, lnPsi, storedSt.total) : 0;
+    }
+    storedKappaTime = tNow;
+  };
+
   /** Surface concentrations of all components in cell j (and background Jacobian when asked). */
-  const surface = (y: Float64Array, j: number, withJac: boolean, kappas?: Float64Array, dKappas?: Float64Array): ReverseIastState => {
+  const surface = (y: Float64Array, j: number, withJac: boolean, kappas?: Float64Array, dKappas?: Float64Array): void => {
     const base = j * S;
     if (background) {
-      background.surfaceAt(tNow, j, storedSt);
+      fillStoredKappa();
       for (let m = 0; m < na; m++) {
-        const comp = components[m]!;
-        const kappa = traceSurfaceFactor(comp.K, comp.beta, storedSt, bgIso.beta);
+        const kappa = storedKappa![j * na + m]!;
         if (kappas) kappas[m] = kappa;
         cs[m] = kappa * qRef[m]! * y[base + m * P + 1 + N]!;
       }
-      return storedSt;
+      return;
     }
     // for the Newton matrix the loadings are floored at JAC_FLOOR·q_ref: reverse IAST's Jacobian
     // overflows at loadings near the smallest doubles (c°/Σq), and any finite approximation will do
     if (withJac) for (let b = 0; b < nb; b++) qS[b] = qRef[b]! * Math.max(y[base + b * P + 1 + N]!, JAC_FLOOR);
     else for (let b = 0; b < nb; b++) qS[b] = qRef[b]! * y[base + b * P + 1 + N]!;
-    const st = reverseIast(bgIso, qS, cs, withJac ? jacBg : undefined);
+    const st = reverseIast(bgIso, qS, cs, withJac ? jacBg : undefined, surfaceSt);
+    const ok = st.total > 0 && st.psi > 0;
+    const lnPsi = ok && !dKappas ? Math.log(st.psi) : 0;
     for (let m = nb; m < na; m++) {
       const comp = components[m]!;
-      const kappa = traceSurfaceFactor(comp.K, comp.beta, st, bgIso.beta, dKappas ? dKappa : undefined);
+      // c_s,T = κ_T·q_T (trace form); with its derivatives for the Newton matrix
+      const kappa = dKappas ? traceSurfaceFactor(comp.K, comp.beta, st, bgIso.beta, dKappa) : ok ? traceKappa(lnBetaOverK[m]!, comp.beta, lnPsi, st.total) : 0;
       if (kappas) kappas[m] = kappa;
       if (dKappas) for (let b = 0; b < nb; b++) dKappas[(m - nb) * nb + b] = dKappa[b]!;
-      cs[m] = kappa * qRef[m]! * y[base + m * P + 1 + N]!; // c_s,T = κ_T·q_T (trace form)
+      cs[m] = kappa * qRef[m]! * y[base + m * P + 1 + N]!;
     }
-    return st;
   };
 
   /** F_{j+1/2} of component m (j = −1: the feed). */
@@ -331,12 +350,12 @@ export function fixedBedModel(components: readonly BedComponentScales[], backgro
     builtState.set(y);
     let builtT = t0;
     let builtAt = rhsCalls;
-    return (x: Float64Array): void => {
+    return (x: Float64Array, filter?: boolean): void => {
       // a later Newton iteration whose iterate (the state of the last rhs call) has moved: refresh
       // the blocks there, so the reverse-IAST nonlinearity does not stall Newton into step cuts
       // (with a stored background at every new iterate: the trace blocks are cheap to rebuild, κ_T
       // moves with time, and the limiter at tiny c/c0 otherwise slows Newton to a crawl)
-      if (rhsCalls !== builtAt && (background !== undefined || (solvesSinceFactor++ > 0 && moved(lastState)))) {
+      if (!filter && rhsCalls !== builtAt && (background !== undefined || (solvesSinceFactor++ > 0 && moved(lastState)))) {
         builtAt = rhsCalls;
         try {
           tNow = lastT;

@@ -25,8 +25,12 @@
  */
 import { ComputationError } from '../core/errors.js';
 
-/** Solve (I − gammaH·J)·x = b in place: on return `b` holds x. */
-export type NewtonSolve = (b: Float64Array) => void;
+/**
+ * Solve (I − gammaH·J)·x = b in place: on return `b` holds x. `filter` is true for the error
+ * estimate's filtering (any nonsingular approximation of the matrix will do there: a model that
+ * refreshes its matrix between Newton iterations need not refresh it for that solve).
+ */
+export type NewtonSolve = (b: Float64Array, filter?: boolean) => void;
 
 export interface StiffSystem {
   /** Number of state variables. */
@@ -251,7 +255,7 @@ export function integrateImplicit(
       continue;
     }
     for (let i = 0; i < n; i++) err[i] = hStep * (E0 * f0[i]! + EG * fg[i]! + E1 * f1[i]!);
-    solve(err);
+    solve(err, true);
     setWeights(y, y1);
     const en = norm(err);
     if (!Number.isFinite(en)) {

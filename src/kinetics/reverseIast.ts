@@ -79,9 +79,18 @@ export function traceSurfaceFactor(K: number, beta: number, background: ReverseI
     if (dKappa) dKappa.fill(0);
     return 0;
   }
-  const kappa = Math.exp((Math.log(beta / K) + Math.log(psi)) / beta) / total;
+  const kappa = traceKappa(Math.log(beta / K), beta, Math.log(psi), total);
   if (dKappa) {
     for (let j = 0; j < backgroundBeta.length; j++) dKappa[j] = kappa * (1 / (beta * backgroundBeta[j]! * psi) - 1 / total);
   }
   return kappa;
+}
+
+/**
+ * κ_T = c°_T(ψ_B)/Q_B = exp((ln(β_T/K_T) + ln ψ_B)/β_T)/Q_B from its logarithms, for loops that
+ * share ln ψ_B over many targets and keep ln(β_T/K_T) per target (the same arithmetic as
+ * traceSurfaceFactor, which calls it). Needs ψ_B > 0 and Q_B > 0.
+ */
+export function traceKappa(lnBetaOverK: number, beta: number, lnPsi: number, total: number): number {
+  return Math.exp((lnBetaOverK + lnPsi) / beta) / total;
 }

@@ -40,9 +40,10 @@ export function filterAges(filters: number, runBedVolumes: number, phase: number
 
 /** Blended c/c0 of N staggered filters at phase φ (mean of the single filter's outlet at the N ages). */
 export function blendedOutlet(curve: BreakthroughCurve, filters: number, runBedVolumes: number, phase: number): number {
-  const ages = filterAges(filters, runBedVolumes, phase);
+  checkFilters(filters);
+  if (!(runBedVolumes > 0)) throw new InputError(`expected a run length > 0 bed volumes, got ${runBedVolumes}`, { path: 'runBedVolumes' });
   let s = 0;
-  for (const a of ages) s += curveAt(curve, a);
+  for (let k = 0; k < filters; k++) s += curveAt(curve, ((phase + k) * runBedVolumes) / filters); // the ages of filterAges, without the array
   return s / filters;
 }
 

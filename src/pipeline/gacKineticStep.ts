@@ -130,7 +130,7 @@ export function gacKineticStep(project: ProjectSpec, carbonIndex: number, carbon
   const runOf = (bedVolumes: readonly number[], byId: Readonly<Record<string, readonly number[]>>) => gacStaggeredRun(bedVolumes, byId, allowed, k.filters, indicator);
   const simulation = simulateFixedBed(
     { components: [...docComponents, ...targets], bed: { ebctS: carbon.ebctMin! * 60, bedDepthM: k.bedDepthM, porosity: k.porosity, particleRadiusM: k.particleRadiusM, particleDensityKgPerM3: k.particleDensityKgPerM3, temperatureC: k.temperatureC } },
-    { toBedVolumes: longest, points: GAC_CURVE_POINTS, goals: allowed, stopWhen: (bv, byId) => runEnded(bv, byId, allowed, indicator, runOf) },
+    { toBedVolumes: longest, points: GAC_CURVE_POINTS, goals: allowed, storedBackground: true, stopWhen: (bv, byId) => runEnded(bv, byId, allowed, indicator, runOf) },
   );
   const toBedVolumes = simulation.bedVolumes[simulation.bedVolumes.length - 1]!;
   const run = runOf(simulation.bedVolumes, Object.fromEntries(simulation.components.map((c) => [c.id, c.cOverC0])));

@@ -86,7 +86,7 @@ export interface UncertaintyRunOptions extends PipelineOptions {
   seed?: number;
   /** Monte Carlo progress: draws done and total over all carbons. */
   onMonteCarloProgress?: (done: number, total: number) => void;
-  /** Worker threads for the Monte Carlo (default: parallelMonteCarlo decides). */
+  /** Worker threads for the Monte Carlo (default: parallelMonteCarlo decides; the GAC draws take one worker beside the PAC draws); 0 keeps both in this thread. */
   workers?: number;
 }
 

@@ -9,16 +9,14 @@
  * `monteCarloWorker.ts`, loaded by a bootstrap that registers tsx's ESM loader when tsx resolves;
  * otherwise the run falls back to this thread (the result is the same, `execution` says so).
  */
-import { existsSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
-import { createRequire } from 'node:module';
-import { fileURLToPath, pathToFileURL } from 'node:url';
 import { Worker } from 'node:worker_threads';
 import { ComputationError, InputError } from '../core/errors.js';
 import { compileDrawModel, type ChunkResult } from './monteCarloDraw.js';
 import { checkOptions, monteCarlo, planChunks, summarise, type MonteCarloOptions, type MonteCarloResult } from './monteCarlo.js';
 import type { MonteCarloProblem } from './monteCarloProblem.js';
 import type { WorkerInput, WorkerMessage } from './monteCarloWorker.js';
+import { workerEntry, type WorkerEntry } from './workerEntry.js';
 
 /**
  * Below this many dose searches (draws × targets × (1 + DOC levels when a yearly cost is asked))
@@ -39,29 +37,9 @@ export interface ParallelOptions extends MonteCarloOptions {
   force?: boolean;
 }
 
-/** A worker file to start directly, or a bootstrap script (eval) that registers tsx first. */
-type WorkerEntry = { kind: 'file'; url: URL } | { kind: 'eval'; code: string };
-
-/** Locate the worker file for the way this module is running; undefined when none can run. */
+/** Locate the Monte Carlo worker file for the way this module is running; undefined when none can run. */
 export function resolveWorkerEntry(): WorkerEntry | undefined {
-  const self = import.meta.url;
-  if (self.endsWith('.js')) {
-    const url = new URL('./monteCarloWorker.js', self);
-    return existsSync(fileURLToPath(url)) ? { kind: 'file', url } : undefined;
-  }
-  const url = new URL('./monteCarloWorker.ts', self);
-  if (!existsSync(fileURLToPath(url))) return undefined;
-  try {
-    // tsx's ESM API (`tsx/esm/api` → dist/esm/api/index.mjs) registers its loader in the worker.
-    const pkg = createRequire(self).resolve('tsx/package.json');
-    const api = pathToFileURL(pkg.replace(/package\.json$/, 'dist/esm/api/index.mjs'));
-    if (!existsSync(fileURLToPath(api))) return undefined;
-    const code = `import(${JSON.stringify(api.href)}).then((m) => { m.register(); return import(${JSON.stringify(url.href)}); })` +
-      `.catch((e) => { require('node:worker_threads').parentPort.postMessage({ type: 'error', kind: 'other', message: String(e && e.stack || e) }); });`;
-    return { kind: 'eval', code };
-  } catch {
-    return undefined;
-  }
+  return workerEntry('monteCarloWorker');
 }
 
 function rebuildError(m: Extract<WorkerMessage, { type: 'error' }>): Error {

@@ -36,6 +36,25 @@ describe('fixed bed: trace targets against a stored background', () => {
     }
   });
 
+  it('simulateFixedBed with storedBackground (background first, each trace alone) equals the coupled solve, also when stopped early, and hands its background on', () => {
+    const inputs = { components: [...background(4), ...targets], bed: BED };
+    const split = simulateFixedBed(inputs, { toBedVolumes: bvs[bvs.length - 1]!, outputBedVolumes: bvs, ...grid, storedBackground: true });
+    expect(split.components.map((c) => c.id)).toEqual(coupled.components.map((c) => c.id));
+    split.components.forEach((c, i) => c.cOverC0.forEach((v, k) => expect(Math.abs(v - coupled.components[i]!.cOverC0[k]!), `${c.id} at ${bvs[k - 1]} BV`).toBeLessThan(1e-3)));
+    expect(split.massBalanceError).toBeLessThan(1e-5);
+    expect(split.stepTimes).toBeUndefined();
+    // the stored background is the one traceBed solves (the same model, tolerances and grid)
+    const again = split.storedBackground!.outlet(TARGET);
+    traced.outlet(TARGET).cOverC0.forEach((v, k) => expect(again.cOverC0[k]).toBe(v));
+    // stopped early (segments of the background, then of each trace): the curves agree with the whole split run
+    const stopped = simulateFixedBed(inputs, { toBedVolumes: bvs[bvs.length - 1]!, outputBedVolumes: bvs, ...grid, storedBackground: true, stopWhen: (bv) => bv[bv.length - 1]! >= 30000 });
+    const n = stopped.bedVolumes.length;
+    expect(n).toBeLessThan(split.bedVolumes.length);
+    stopped.components.forEach((c, i) => c.cOverC0.forEach((v, k) => expect(Math.abs(v - split.components[i]!.cOverC0[k]!)).toBeLessThan(1e-3)));
+    expect(stopped.storedBackground!.bedVolumes.length).toBe(n);
+    expect(stopped.massBalanceError).toBeLessThan(1e-5);
+  });
+
   it('a replay of the steps gives the same outlet, and a target that is not a trace is refused', () => {
     const first = traced.outlet(TARGET);
     const again = traced.outlet(TARGET, { stepTimes: first.stepTimes });

@@ -14,7 +14,7 @@ import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { loadProject } from '../../src/io/loadProject.js';
 import { runPipeline } from '../../src/pipeline/runPipeline.js';
-import { gacDrawCount, gacUncertainty, withGacUncertainty, DEFAULT_GAC_DRAWS } from '../../src/pipeline/gacUncertainty.js';
+import { gacDrawCount, gacUncertainty, startGacUncertainty, withGacUncertainty, DEFAULT_GAC_DRAWS } from '../../src/pipeline/gacUncertainty.js';
 import { runRecord } from '../../src/output/runRecord.js';
 import { gacBreakthroughSection } from '../../src/output/gacBreakthroughSection.js';
 import { validateProject } from '../../src/project/validateProject.js';
@@ -80,6 +80,16 @@ describe('GAC Monte Carlo of the run length', () => {
     expect(sec.paragraphs!.join(' ')).toMatch(/6 draws per GAC carbon/);
     expect(sec.tables!.some((t) => t.caption.includes('P10 / P50 / P90 of 6 draws'))).toBe(true);
   });
+
+  it('begun beside other work (startGacUncertainty, a worker thread sharing the outlets) it gives withGacUncertainty\'s figures', async () => {
+    const settings = { ...BASE, KRelSd: 0.2, dsRelSd: 0.3, gacDraws: 2 };
+    const strip = (x: typeof r) => ({ ...x.carbons[0]!.gacUncertainty!, timingMs: 0 });
+    const one = withGacUncertainty(r, settings);
+    const started = startGacUncertainty(r, settings);
+    const shared = await started.finish(r);
+    expect(strip(shared)).toEqual(strip(one));
+    expect(shared.carbons[0]!.warnings).toEqual(one.carbons[0]!.warnings);
+  }, 60_000);
 
   it('a Ds fitted to a column test takes its 95 % interval: SD of ln Ds = ln(hi/lo)/(2·1.96)', () => {
     const fitted = runPipeline(loaded, NOW);

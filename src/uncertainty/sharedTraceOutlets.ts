@@ -1,0 +1,102 @@
+/**
+ * The outlets of many trace targets against one stored fixed-bed background (TraceBed), shared
+ * between this thread and one worker thread (node:worker_threads): both claim the next target
+ * from one counter in shared memory (Atomics), so the worker can begin while this thread does
+ * other work (the PAC draws) and the two split what is left. Each outlet is a pure function of
+ * its target, so the results, put back in target order, are identical to computing them all in
+ * this thread. Without a worker (one core, workers 0, fewer than SHARED_MIN_TARGETS targets, or no worker file:
+ * src/uncertainty/workerEntry.ts) everything runs in this thread; a worker that fails to start
+ * leaves its unfinished targets to this thread.
+ * @throws InputError / ComputationError from an outlet (from either thread, rethrown as such)
+ */
+import { availableParallelism } from 'node:os';
+import { Worker } from 'node:worker_threads';
+import { ComputationError, InputError } from '../core/errors.js';
+import type { TraceBed } from '../kinetics/fixedBed.js';
+import type { FixedBedComponent } from '../kinetics/fixedBedInput.js';
+import type { TraceOutletWorkerInput, TraceOutletWorkerMessage } from './traceOutletWorker.js';
+import { workerEntry } from './workerEntry.js';
+
+/**
+ * Fewest targets for which a worker is started (ours). An outlet of the demo's compounds costs
+ * 20–50 ms of CPU in a warm thread, but the worker starts cold: measured on the 2-core machine
+ * under a load of about 9, the demo's 45 drawn outlets took 1.7–1.9 s of CPU in this thread
+ * (warm from the run) and 3.5–3.7 s on a worker alone (JIT warm-up in a fresh isolate). So the
+ * worker shortens the wall time only where a core is idle (beside the PAC draws, or sharing the
+ * rest), and adds CPU time on a machine with no idle core.
+ */
+export const SHARED_MIN_TARGETS = 8;
+
+export interface SharedTraceOutlets {
+  /** Worker threads started (0 or 1). */
+  readonly workers: number;
+  /** Outlets the worker computed (known after finish). */
+  readonly byWorker: number;
+  /** Compute the unclaimed targets in this thread, wait for the worker, and return every outlet c/c0 (0 first) in target order. */
+  finish(): Promise<number[][]>;
+  /** Stop: no more targets are claimed and the worker is ended (after a failure elsewhere). */
+  cancel(): Promise<void>;
+}
+
+/** Start the outlets of `targets` against `tb` (see the file comment); `workers` 0 keeps them in this thread. */
+export function sharedTraceOutlets(tb: TraceBed, targets: readonly FixedBedComponent[], options: { workers?: number; /** Leave every target to the worker (tests; default false). */ workerOnly?: boolean } = {}): SharedTraceOutlets {
+  const n = targets.length;
+  const next = new Int32Array(new SharedArrayBuffer(4));
+  const results: Array<number[] | undefined> = new Array(n);
+  const wanted = Math.min(1, options.workers ?? 1);
+  const entry = wanted > 0 && (n >= SHARED_MIN_TARGETS || (options.workerOnly && n >= 1)) && availableParallelism() >= 2 ? workerEntry('traceOutletWorker') : undefined;
+  let worker: Worker | undefined;
+  let byWorker = 0;
+  let settled: Promise<Error | undefined> = Promise.resolve(undefined);
+  if (entry) {
+    const input: TraceOutletWorkerInput = { bed: tb.data(), targets: targets.map((t) => ({ ...t })), next: next.buffer as SharedArrayBuffer };
+    const execArgv = process.execArgv.filter((a) => !a.startsWith('--input-type'));
+    const w = entry.kind === 'file' ? new Worker(entry.url, { workerData: input, execArgv }) : new Worker(entry.code, { eval: true, workerData: input, execArgv });
+    worker = w;
+    // resolves with the worker's input or computation error (to rethrow), undefined otherwise
+    // (done, or failed in another way: its unfinished targets are then computed here)
+    settled = new Promise((resolve) => {
+      let finished = false;
+      w.on('message', (m: TraceOutletWorkerMessage) => {
+        if (m.type === 'outlet') { results[m.index] = Array.from(m.cOverC0); byWorker++; }
+        else if (m.type === 'done') { finished = true; resolve(undefined); }
+        else {
+          finished = true;
+          resolve(m.kind === 'input' ? new InputError(m.expected ?? m.message, m.location ?? {}) : m.kind === 'computation' ? new ComputationError(m.message) : undefined);
+        }
+      });
+      w.on('error', () => { finished = true; resolve(undefined); });
+      w.on('exit', () => { if (!finished) resolve(undefined); });
+    });
+  }
+  const allDone = () => { for (let i = 0; i < n; i++) if (results[i] === undefined) return false; return true; };
+  const stop = async () => {
+    Atomics.store(next, 0, n);
+    if (worker) await worker.terminate();
+  };
+  return {
+    workers: worker ? 1 : 0,
+    get byWorker() { return byWorker; },
+    async finish() {
+      try {
+        for (;;) {
+          if (worker && options.workerOnly) break;
+          const i = Atomics.add(next, 0, 1);
+          if (i >= n) break;
+          results[i] = tb.outlet(targets[i]!).cOverC0;
+        }
+      } catch (e) {
+        await stop();
+        throw e;
+      }
+      // every target done here (the worker still starting, or it claimed none): no need to wait for it
+      const err = allDone() ? undefined : await settled;
+      if (worker) await worker.terminate();
+      if (err) throw err;
+      // a worker that stopped early leaves targets it had claimed
+      for (let i = 0; i < n; i++) if (!results[i]) results[i] = tb.outlet(targets[i]!).cOverC0;
+      return results as number[][];
+    },
+    cancel: stop,
+  };
+}

@@ -1,0 +1,44 @@
+/**
+ * Worker-thread entry of `sharedTraceOutlets`: rebuilds the stored background (TraceBed data),
+ * then claims target indices from the shared counter (Atomics) and posts each outlet c/c0 back,
+ * until every index is claimed. Errors are posted as plain data so the main thread can rethrow
+ * the same error type.
+ */
+import { parentPort, workerData } from 'node:worker_threads';
+import { ComputationError, InputError } from '../core/errors.js';
+import { traceBedFromData, type TraceBedData } from '../kinetics/fixedBed.js';
+import type { FixedBedComponent } from '../kinetics/fixedBedInput.js';
+
+export interface TraceOutletWorkerInput {
+  bed: TraceBedData;
+  targets: FixedBedComponent[];
+  /** Int32Array[1] over a SharedArrayBuffer: the next unclaimed target index. */
+  next: SharedArrayBuffer;
+}
+
+export type TraceOutletWorkerMessage =
+  | { type: 'outlet'; index: number; cOverC0: Float64Array }
+  | { type: 'done' }
+  | { type: 'error'; kind: 'input' | 'computation' | 'other'; message: string; expected?: string; location?: InputError['location'] };
+
+const port = parentPort;
+if (port) {
+  const input = workerData as TraceOutletWorkerInput;
+  const next = new Int32Array(input.next);
+  try {
+    const tb = traceBedFromData(input.bed);
+    for (;;) {
+      const i = Atomics.add(next, 0, 1);
+      if (i >= input.targets.length) break;
+      const c = Float64Array.from(tb.outlet(input.targets[i]!).cOverC0);
+      port.postMessage({ type: 'outlet', index: i, cOverC0: c } satisfies TraceOutletWorkerMessage, [c.buffer as ArrayBuffer]);
+    }
+    port.postMessage({ type: 'done' } satisfies TraceOutletWorkerMessage);
+  } catch (e) {
+    let msg: TraceOutletWorkerMessage;
+    if (e instanceof InputError) msg = { type: 'error', kind: 'input', message: e.message, expected: e.expected, location: e.location };
+    else if (e instanceof ComputationError) msg = { type: 'error', kind: 'computation', message: e.reason };
+    else msg = { type: 'error', kind: 'other', message: (e as Error).stack ?? String(e) };
+    port.postMessage(msg);
+  }
+}

@@ -5,7 +5,8 @@
  * `runBin`); later calls in the same worker get the same result. Tests must not change the shared
  * folder (a test that needs to change an output folder makes its own run): each later call checks
  * that the folder still holds the same files with the same sizes and times, and fails naming the
- * change otherwise. The folder is removed when the worker exits.
+ * change otherwise. The folder is removed when the worker process exits normally (a worker the
+ * runner kills leaves it in the system temp folder, like the other tests' scratch folders).
  */
 import { mkdtempSync, readdirSync, rmSync, statSync } from 'node:fs';
 import { tmpdir } from 'node:os';

@@ -36,7 +36,7 @@ describe('the client report in headless Chromium', () => {
   it.skipIf(!HAVE_CHROMIUM)('every figure has data; one look per compound; month ticks; references; A4 screenshot', async () => {
     const ids = reportPlotIds(model);
     for (const want of ['calibration-1', 'dose-against-doc-1', 'sensitivity-dose-1', 'sensitivity-cost-1', 'pac-gac-mass', 'pac-gac-cost-m3', 'pac-gac-cost-year', 'daily-dose', 'daily-doc', 'background-fractions']) expect(ids).toContain(want);
-    const { browser, page, errors, requests } = await openReport(renderHtmlReport(model), A4_PX);
+    const { page, close, errors, requests } = await openReport(renderHtmlReport(model), A4_PX);
     try {
       // 1. every figure present, sized, with something drawn
       for (const p of await inspectPlots(page, ids.map((id) => ({ id })))) {
@@ -104,7 +104,7 @@ describe('the client report in headless Chromium', () => {
       expect(png.readUInt32BE(16)).toBe(A4_PX.width);
       expect(png.readUInt32BE(20)).toBe(A4_PX.height);
     } finally {
-      await browser.close();
+      await close();
     }
   }, 120_000);
 });

@@ -10,11 +10,11 @@ import { fileURLToPath } from 'node:url';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { HAVE_CHROMIUM, inspectPlots, openReport, saveScreenshot, type PageDocument, type PageNode } from './browserHarness.js';
 import { loadProject } from '../../src/io/loadProject.js';
-import { runPipelineWithUncertainty } from '../../src/pipeline/runWithUncertainty.js';
 import { buildReportModel } from '../../src/output/buildReportModel.js';
 import { renderHtmlReport } from '../../src/report/htmlReport.js';
 import { reportPlotIds } from '../../src/report/reportPlotIds.js';
 import type { ReportModel } from '../../src/output/reportModel.js';
+import { sharedDemoPipelineWithDraws } from '../helpers/sharedDemoPipeline.js';
 
 declare const document: PageDocument;
 
@@ -27,8 +27,8 @@ let compoundIds: string[];
 beforeAll(async () => {
   if (!HAVE_CHROMIUM) return;
   const input = loadProject(fileURLToPath(new URL('../../fixtures/demo/project.json', import.meta.url)), { demo: true });
-  const result = await runPipelineWithUncertainty(input, { draws: 40, seed: 3 });
-  model = buildReportModel(result, 'test');
+  // the worker's shared demo run with 40 Monte Carlo draws (seed 3), read only
+  model = buildReportModel(await sharedDemoPipelineWithDraws(), 'test');
   compoundIds = input.project.compounds.map((c) => c.id);
 }, 120_000);
 

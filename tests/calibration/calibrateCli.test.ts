@@ -1,15 +1,19 @@
 /**
  * End-to-end: `sorbshare calibrate` through the built binary (npm run build first).
+ * Results and the first of each kind of bad input come from the spawned binary; the other bad
+ * inputs and secondary runs go through the same `runCli` in this process (`runInProcess`: same
+ * exit code, streams and files, without a Node start-up each).
  */
 import { beforeAll, describe, expect, it } from 'vitest';
 import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { runBin, requireBuild, scratchDir } from '../helpers/cliHarness.js';
+import { runBin, runInProcess, requireBuild, scratchDir } from '../helpers/cliHarness.js';
 
 const FIX = join(process.cwd(), 'fixtures');
 const JAR = join(FIX, 'calibration/site-jartests.csv');
 const COMPOUND = join(FIX, 'calibration/target-compound.json');
 const run = runBin;
+const cli = runInProcess;
 let dir: string;
 let write: (name: string, content: unknown) => string;
 
@@ -35,13 +39,13 @@ describe('sorbshare calibrate', () => {
     expect(JSON.parse(readFileSync(out, 'utf8'))).toEqual(j);
   });
 
-  it('sebc and fictive-k (with a background from fractionate) run; text output has the table', () => {
+  it('sebc and fictive-k (with a background from fractionate) run; text output has the table', async () => {
     const s = run('calibrate', JAR, '--model', 'sebc', '--compound', COMPOUND, '--json');
     expect(s.code).toBe(0);
     expect(Object.keys(JSON.parse(s.out).parameters)).toEqual(['c0_EBC_mg_per_L']);
     const bg = join(dir, 'bg.json');
-    expect(run('fractionate', join(FIX, 'fractionation/site-effluent-isotherm.csv'), '--out', bg).code).toBe(0);
-    const f = run('calibrate', JAR, '--model', 'fictive-k', '--compound', COMPOUND, '--background', bg, '--json');
+    expect((await cli('fractionate', join(FIX, 'fractionation/site-effluent-isotherm.csv'), '--out', bg)).code).toBe(0);
+    const f = await cli('calibrate', JAR, '--model', 'fictive-k', '--compound', COMPOUND, '--background', bg, '--json');
     expect(f.code).toBe(0);
     expect(Object.keys(JSON.parse(f.out).parameters)).toEqual(['K_factor']);
     const t = run('calibrate', JAR, '--model', 'ebc', '--compound', COMPOUND);
@@ -58,38 +62,39 @@ describe('sorbshare calibrate', () => {
     ['fewer points than parameters', `${header}500,10,200\n500,20,100\n`, /row 3, column "c \(ng\/L\)": only 2 jar tests with a carbon dose > 0 for 3 fitted parameters/],
     ['a dose-0 row that disagrees with C0', `${header}500,0,200\n500,10,150\n500,20,100\n500,40,50\n`, /row 2, column "c \(ng\/L\)": at dose 0, c .* disagrees with C0/],
   ];
-  for (const [what, csv, message] of bad) {
-    it(`${what}: exit 2, file/row/column named, nothing on stdout, --out not written`, () => {
+  bad.forEach(([what, csv, message], i) => {
+    it(`${what}: exit 2, file/row/column named, nothing on stdout, --out not written`, async () => {
       const f = write(`bad-${what.replace(/\W+/g, '-')}.csv`, csv);
       const out = join(dir, `never-${what.replace(/\W+/g, '-')}.json`);
-      const r = run('calibrate', f, '--model', 'ebc', '--compound', COMPOUND, '--out', out);
+      const args = ['calibrate', f, '--model', 'ebc', '--compound', COMPOUND, '--out', out];
+      const r = i === 0 ? run(...args) : await cli(...args); // the first through the binary
       expect(r.code).toBe(2);
       expect(r.out).toBe('');
       expect(r.err).toContain(f);
       expect(r.err).toMatch(message);
       expect(existsSync(out)).toBe(false);
     });
-  }
+  });
 
-  it('option and compound-file errors exit 2 and name the option or JSON field', () => {
+  it('option and compound-file errors exit 2 and name the option or JSON field', async () => {
     const m = run('calibrate', JAR, '--compound', COMPOUND);
     expect(m.code).toBe(2);
     expect(m.err).toMatch(/option --model/);
-    const u = run('calibrate', JAR, '--model', 'langmuir', '--compound', COMPOUND);
+    const u = await cli('calibrate', JAR, '--model', 'langmuir', '--compound', COMPOUND);
     expect(u.code).toBe(2);
     expect(u.err).toMatch(/unknown model "langmuir"/);
     const c = write('compound.json', JSON.stringify({ id: 'X', K: 10 }));
-    const cr = run('calibrate', JAR, '--model', 'sebc', '--compound', c);
+    const cr = await cli('calibrate', JAR, '--model', 'sebc', '--compound', c);
     expect(cr.code).toBe(2);
     expect(cr.err).toMatch(/compound\.json, field one_over_n/);
-    const fk = run('calibrate', JAR, '--model', 'fictive-k', '--compound', COMPOUND);
+    const fk = await cli('calibrate', JAR, '--model', 'fictive-k', '--compound', COMPOUND);
     expect(fk.code).toBe(2);
     expect(fk.err).toMatch(/--background/);
-    const d = run('calibrate', JAR, '--model', 'sebc', '--compound', COMPOUND, '--doc', 'lots');
+    const d = await cli('calibrate', JAR, '--model', 'sebc', '--compound', COMPOUND, '--doc', 'lots');
     expect(d.code).toBe(2);
     expect(d.err).toMatch(/option --doc/);
     const bgBad = write('bg.json', JSON.stringify({ doc0_mg_per_L: 8, components: [{ id: 'F0', K: 0, fraction: 0.5 }], fit: {} }));
-    const b = run('calibrate', JAR, '--model', 'fictive-k', '--compound', COMPOUND, '--background', bgBad);
+    const b = await cli('calibrate', JAR, '--model', 'fictive-k', '--compound', COMPOUND, '--background', bgBad);
     expect(b.code).toBe(2);
     expect(b.err).toMatch(/bg\.json, field components: the fractions sum to 0\.5/);
   });

@@ -1,13 +1,15 @@
 /**
  * Every `--json` output goes through the one snake_case converter (src/output/snakeCaseJson.ts):
- * spawning the real binary on the shipped fixtures (invented data), no key has a lower-case letter
- * or digit followed by a capital, except user ids (none of these fixtures has a camelCase id).
+ * running the CLI on the shipped fixtures (invented data), no key has a lower-case letter or digit
+ * followed by a capital, except user ids (none of these fixtures has a camelCase id). The commands
+ * run through `runCli` in this process (`runInProcess`: the binary's stdout without a Node start-up
+ * each); the demo is the worker's shared spawned run (`sharedDemoRun`).
  */
 import { beforeAll, describe, expect, it } from 'vitest';
-import { readFileSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { requireBuild, runBin } from '../helpers/cliHarness.js';
+import { requireBuild, runInProcess } from '../helpers/cliHarness.js';
+import { sharedDemoRun } from '../helpers/sharedDemo.js';
 
 beforeAll(() => requireBuild());
 
@@ -31,22 +33,19 @@ const commands: string[][] = [
 
 describe('--json outputs are snake_case', () => {
   for (const args of commands) {
-    it(args.join(' '), () => {
-      const r = runBin(...args);
+    it(args.join(' '), async () => {
+      const r = await runInProcess(...args);
       expect(r.code, r.err).toBe(0);
       expect(camelKeys(JSON.parse(r.out))).toEqual([]);
     });
   }
 
   it('demo --json (the run summary) and its run.json', () => {
-    const out = join(tmpdir(), `sorbshare-snake-${process.pid}`);
-    try {
-      const r = runBin('demo', '--out', out, '--draws', '20', '--json');
-      expect(r.code, r.err).toBe(0);
-      expect(camelKeys(JSON.parse(r.out))).toEqual([]);
-      const rec = JSON.parse(readFileSync(join(out, 'run.json'), 'utf8'));
-      expect(camelKeys(rec)).toEqual([]);
-      expect(rec.results.carbons[0].required_dose).toHaveProperty('dose_mg_per_L');
-    } finally { rmSync(out, { recursive: true, force: true }); }
+    const r = sharedDemoRun(); // sorbshare demo --out DIR --json, with the demo's draws
+    expect(r.code, r.err).toBe(0);
+    expect(camelKeys(JSON.parse(r.out))).toEqual([]);
+    const rec = JSON.parse(readFileSync(join(r.outDir, 'run.json'), 'utf8'));
+    expect(camelKeys(rec)).toEqual([]);
+    expect(rec.results.carbons[0].required_dose).toHaveProperty('dose_mg_per_L');
   });
 });

@@ -40,6 +40,8 @@ beforeAll(async () => {
   // the GAC carbon's fixed-bed inputs need the added compounds too: they take compounds[2]'s (invented)
   for (const c of p.carbons) if (c.bedKinetics) for (const id of USER_IDS) c.bedKinetics.compounds[id] = { ...c.bedKinetics.compounds[p.compounds[2]!.id]! };
   compoundIds = new Set(p.compounds.map((c) => c.id));
+  // two GAC run-length draws (the demo has 5; each integrates every compound again) give the same keys
+  p.uncertainty = { ...p.uncertainty!, gacDraws: 2 };
   const r = await runPipelineWithUncertainty(input, { now: new Date('2026-01-01T00:00:00Z'), draws: 8, seed: 5, workers: 0 });
   record = JSON.parse(JSON.stringify(runRecord(r, { toolVersion: '0.0.0', nodeVersion: 'v0' }))) as Record<string, unknown>;
 }, 120_000);

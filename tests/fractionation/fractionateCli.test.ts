@@ -1,13 +1,17 @@
 /**
  * End-to-end: `sorbshare fractionate` through the built binary (npm run build first).
+ * Results and the first of each kind of bad input come from the spawned binary; the other bad
+ * inputs and secondary runs go through the same `runCli` in this process (`runInProcess`: same
+ * exit code, streams and files, without a Node start-up each).
  */
 import { beforeAll, describe, expect, it } from 'vitest';
 import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { runBin, requireBuild, scratchDir } from '../helpers/cliHarness.js';
+import { runBin, runInProcess, requireBuild, scratchDir } from '../helpers/cliHarness.js';
 
 const ISO = join(process.cwd(), 'fixtures/fractionation/site-effluent-isotherm.csv');
 const run = runBin;
+const cli = runInProcess;
 let dir: string;
 let write: (name: string, content: unknown) => string;
 
@@ -31,17 +35,17 @@ describe('sorbshare fractionate', () => {
     expect(JSON.parse(readFileSync(out, 'utf8'))).toEqual(j);
   });
 
-  it('text output with --components auto shows the AICc table; --fit-k, --k-grid and --exponent are honoured', () => {
+  it('text output with --components auto shows the AICc table; --fit-k, --k-grid and --exponent are honoured', async () => {
     const auto = run('fractionate', ISO, '--components', 'auto');
     expect(auto.code).toBe(0);
     expect(auto.out).toMatch(/Number of components by AICc/);
     expect(auto.out).toMatch(/chosen/);
-    const grid = run('fractionate', ISO, '--k-grid', '5,50', '--exponent', '0.25', '--json');
+    const grid = await cli('fractionate', ISO, '--k-grid', '5,50', '--exponent', '0.25', '--json');
     expect(grid.code).toBe(0);
     const g = JSON.parse(grid.out);
     expect(g.components.map((c: { K: number }) => c.K)).toEqual([0, 5, 50]);
     expect(g.one_over_n).toBe(0.25);
-    const fk = JSON.parse(run('fractionate', ISO, '--fit-k', '--components', '2', '--json').out);
+    const fk = JSON.parse((await cli('fractionate', ISO, '--fit-k', '--components', '2', '--json')).out);
     expect(fk.fit.k_mode).toBe('fitted');
   });
 
@@ -53,30 +57,31 @@ describe('sorbshare fractionate', () => {
     ['a dose-0 row that disagrees with DOC0', 'dose (mg/L),DOC0 (mg/L),DOC (mg/L)\n0,8,6.5\n10,8,6\n20,8,5\n40,8,4.5\n', /row 2, column "DOC \(mg\/L\)": at dose 0 the DOC \(6\.5 mg\/L\) disagrees with DOC0/],
     ['a gap (n/a) in an isotherm row', 'dose (mg/L),DOC0 (mg/L),DOC (mg/L)\n0,8,8\n10,8,n/a\n', /row 3, column "DOC \(mg\/L\)": "n\/a" marks a gap; expected a number in mg\/L \(this table needs a value in every row: leave the row out instead\)/],
   ];
-  for (const [what, csv, message, extra] of bad) {
-    it(`${what}: exit 2, file/row/column named, nothing on stdout, --out not written`, () => {
+  bad.forEach(([what, csv, message, extra], i) => {
+    it(`${what}: exit 2, file/row/column named, nothing on stdout, --out not written`, async () => {
       const f = write(`bad-${what.replace(/\W+/g, '-')}.csv`, csv);
       const out = join(dir, `never-${what.replace(/\W+/g, '-')}.json`);
-      const r = run('fractionate', f, '--out', out, ...(extra ?? []));
+      const args = ['fractionate', f, '--out', out, ...(extra ?? [])];
+      const r = i === 0 ? run(...args) : await cli(...args); // the first through the binary
       expect(r.code).toBe(2);
       expect(r.out).toBe('');
       expect(r.err).toContain(f);
       expect(r.err).toMatch(message);
       expect(existsSync(out)).toBe(false);
     });
-  }
+  });
 
-  it('bad options exit 2 naming the option', () => {
+  it('bad options exit 2 naming the option', async () => {
     const r = run('fractionate', ISO, '--components', 'many');
     expect(r.code).toBe(2);
     expect(r.err).toMatch(/option --components/);
-    const g = run('fractionate', ISO, '--k-grid', '5,-1');
+    const g = await cli('fractionate', ISO, '--k-grid', '5,-1');
     expect(g.code).toBe(2);
     expect(g.err).toMatch(/--k-grid/);
-    const e = run('fractionate', ISO, '--exponent', '3');
+    const e = await cli('fractionate', ISO, '--exponent', '3');
     expect(e.code).toBe(2);
     expect(e.err).toMatch(/--exponent/);
-    const m = run('fractionate', join(dir, 'missing.csv'));
+    const m = await cli('fractionate', join(dir, 'missing.csv'));
     expect(m.code).toBe(2);
     expect(m.err).toMatch(/missing\.csv: isotherm file not found/);
   });

@@ -15,7 +15,8 @@ describe('browser test mode', () => {
     for (const v of [undefined, '', '0', 'false', 'False']) expect(isCi(v), String(v)).toBe(false);
   });
   it('end to end: with CI=true and no Chromium every browser test file fails', () => {
-    const r = spawnSync(process.execPath, ['node_modules/vitest/vitest.mjs', 'run', 'tests/report/browser.test.ts', 'tests/report/demoReportBrowser.test.ts'], {
+    // one worker: the two files share its module graph (isolate: false) instead of importing it twice
+    const r = spawnSync(process.execPath, ['node_modules/vitest/vitest.mjs', 'run', '--maxWorkers=1', 'tests/report/browser.test.ts', 'tests/report/demoReportBrowser.test.ts'], {
       encoding: 'utf8', env: { ...process.env, CI: 'true', SORBSHARE_CHROMIUM: '/nonexistent/chromium' },
     });
     expect(r.status).not.toBe(0);

@@ -2,6 +2,12 @@
  * Spawning the built CLI (`dist/cli/bin.js`, built by `npm test` first) in end-to-end tests.
  * `runBin` first checks, once per test process, that every source file has a compiled file in
  * `dist` at least as new: a CLI test never runs yesterday's build by accident.
+ *
+ * `runInProcess` runs the same command line through `runCli` (src/cli/main.ts, which bin.js only
+ * wraps) in the test's own process: the same exit code, stdout and stderr, without the half-second
+ * Node start-up and module loading of a spawned run. It is for the many bad-input cases of a
+ * command; each command keeps spawned runs (`runBin`), since the real binary's exit code and
+ * streams are part of the behaviour.
  */
 import { spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readdirSync, statSync, writeFileSync } from 'node:fs';
@@ -21,6 +27,18 @@ export function runBin(...args: string[]): CliRun {
   requireBuild();
   const r = spawnSync(process.execPath, [BIN, ...args], { encoding: 'utf8' });
   return { code: r.status, out: r.stdout, err: r.stderr };
+}
+
+/**
+ * Run `sorbshare ARGS…` in this process (`runCli` from the sources, no build needed) and collect
+ * exit code, stdout and stderr as `runBin` does. Not for runs that change `process` state.
+ */
+export async function runInProcess(...args: string[]): Promise<CliRun> {
+  const { runCli } = await import('../../src/cli/main.js');
+  let out = '';
+  let err = '';
+  const code = await runCli(args, { stdout: (s) => { out += s; }, stderr: (s) => { err += s; }, isTTY: false });
+  return { code, out, err };
 }
 
 function sourceFiles(dir: string): string[] {

@@ -12,6 +12,8 @@ import ExcelJS from 'exceljs';
 import { loadProject } from '../../src/io/loadProject.js';
 import { runPipeline } from '../../src/pipeline/runPipeline.js';
 import { pipelineOutputs } from '../../src/outputFiles/pipelineOutputs.js';
+import type { PipelineResult } from '../../src/pipeline/pipelineTypes.js';
+import { DEMO_NOW, sharedDemoPipeline } from '../helpers/sharedDemoPipeline.js';
 
 const DEMO = join(process.cwd(), 'fixtures/demo');
 const TABLES = { isotherm: 'doc_isotherm.csv', series: 'site_series.csv', jar: 'jar_tests_cbz.csv', pilot: 'pilot_pairs.csv' } as const;
@@ -29,17 +31,18 @@ function toEuropean(text: string): string {
   }).join('\n');
 }
 
-function tables(projectFile: string): Record<string, string> {
-  const files = pipelineOutputs(runPipeline(loadProject(projectFile), { now: new Date('2026-01-01T00:00:00Z') }), { toolVersion: 'test', nodeVersion: 'test' });
+function csvTables(result: PipelineResult): Record<string, string> {
+  const files = pipelineOutputs(result, { toolVersion: 'test', nodeVersion: 'test' });
   return Object.fromEntries(Object.entries(files).filter(([n]) => n.endsWith('.csv')));
 }
+const tables = (projectFile: string) => csvTables(runPipeline(loadProject(projectFile), { now: DEMO_NOW }));
 
 let dir: string;
 let original: Record<string, string>;
 
 beforeAll(() => {
   dir = mkdtempSync(join(tmpdir(), 'sorbshare-formats-'));
-  original = tables(join(DEMO, 'project.json'));
+  original = csvTables(sharedDemoPipeline()); // the worker's shared plain run of the original demo (read only)
 }, 120_000);
 afterAll(() => { if (dir) rmSync(dir, { recursive: true, force: true }); });
 

@@ -1,6 +1,6 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { join } from 'node:path';
-import { requireBuild, runBin, scratchDir } from '../helpers/cliHarness.js';
+import { requireBuild, runBin, runInProcess, scratchDir } from '../helpers/cliHarness.js';
 
 const DATA = join(process.cwd(), 'fixtures/column/small-column.csv');
 const COMPOUND = join(process.cwd(), 'fixtures/column/target-compound.json');
@@ -26,39 +26,40 @@ describe('sorbshare calibrate --model column (end to end)', () => {
     expect(j.table).toHaveLength(14);
   });
 
-  it('bad inputs exit 2 naming the file, row, column or option, and print nothing', () => {
+  it('bad inputs exit 2 naming the file, row, column or option, and print nothing', async () => {
+    // the first through the binary, the others through the same runCli in this process (runInProcess)
     let r = runBin('calibrate', DATA, '--model', 'column', '--compound', COMPOUND, '--ebct', '1 min', '--bed-depth', '0.1 m', '--grain-density', '800 kg/m3');
     expect(r.code).toBe(2);
     expect(r.err).toMatch(/--grain-radius/);
     expect(r.out).toBe('');
-    r = runBin('calibrate', DATA, '--model', 'column', '--compound', COMPOUND, '--ebct', '0 min', '--bed-depth', '0.1 m', '--grain-radius', '0.1 mm', '--grain-density', '800 kg/m3');
+    r = await runInProcess('calibrate', DATA, '--model', 'column', '--compound', COMPOUND, '--ebct', '0 min', '--bed-depth', '0.1 m', '--grain-radius', '0.1 mm', '--grain-density', '800 kg/m3');
     expect(r.code).toBe(2);
     expect(r.err).toMatch(/--ebct/);
     const down = write('down.csv', 'bed volumes (-),c/c0 (-)\n1000,0.1\n3000,0.3\n2000,0.4\n');
-    r = runBin('calibrate', down, '--model', 'column', '--compound', COMPOUND, ...BED);
+    r = await runInProcess('calibrate', down, '--model', 'column', '--compound', COMPOUND, ...BED);
     expect(r.code).toBe(2);
     expect(r.err).toMatch(/down\.csv, row 4, column "bed volumes \(-\)": bed volumes not increasing/);
     const high = write('high.csv', 'bed volumes (-),c/c0 (%)\n1000,10\n2000,130\n');
-    r = runBin('calibrate', high, '--model', 'column', '--compound', COMPOUND, ...BED);
+    r = await runInProcess('calibrate', high, '--model', 'column', '--compound', COMPOUND, ...BED);
     expect(r.code).toBe(2);
     expect(r.err).toMatch(/high\.csv, row 3, column "c\/c0 \(%\)": c\/c0 = 1\.3 is outside 0–1\.2/);
     const neg = write('neg.csv', 'bed volumes (-),c/c0 (-)\n1000,-0.1\n2000,0.2\n');
-    r = runBin('calibrate', neg, '--model', 'column', '--compound', COMPOUND, ...BED);
+    r = await runInProcess('calibrate', neg, '--model', 'column', '--compound', COMPOUND, ...BED);
     expect(r.code).toBe(2);
     expect(r.err).toMatch(/neg\.csv, row 2/);
     const noFilm = write('nofilm.json', { id: 'TGT', K: 110, one_over_n: 0.3 });
-    r = runBin('calibrate', DATA, '--model', 'column', '--compound', noFilm, ...BED);
+    r = await runInProcess('calibrate', DATA, '--model', 'column', '--compound', noFilm, ...BED);
     expect(r.code).toBe(2);
     expect(r.err).toMatch(/nofilm\.json.*DL/);
-    r = runBin('calibrate', DATA, '--model', 'column', '--compound', COMPOUND, '--background', BACKGROUND, ...BED);
+    r = await runInProcess('calibrate', DATA, '--model', 'column', '--compound', COMPOUND, '--background', BACKGROUND, ...BED);
     expect(r.code).toBe(2);
     expect(r.err).toMatch(/--doc-ds/);
     // one liquid-diffusivity option for every kinetic model: --dl (components without their own DL or kf)
-    r = runBin('calibrate', DATA, '--model', 'column', '--compound', COMPOUND, '--background', BACKGROUND, '--doc-ds', '2e-15 m2/s', ...BED);
+    r = await runInProcess('calibrate', DATA, '--model', 'column', '--compound', COMPOUND, '--background', BACKGROUND, '--doc-ds', '2e-15 m2/s', ...BED);
     expect(r.code).toBe(2);
     expect(r.err).toMatch(/--dl/);
     expect(r.out).toBe('');
-    r = runBin('calibrate', DATA, '--model', 'column', '--compound', COMPOUND, '--background', BACKGROUND, '--doc-ds', '2e-15 m2/s', '--doc-dl', '4e-10 m2/s', ...BED);
+    r = await runInProcess('calibrate', DATA, '--model', 'column', '--compound', COMPOUND, '--background', BACKGROUND, '--doc-ds', '2e-15 m2/s', '--doc-dl', '4e-10 m2/s', ...BED);
     expect(r.code).toBe(2);
     expect(r.err).toMatch(/--doc-dl/);
   });

@@ -1,7 +1,7 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { requireBuild, runBin, scratchDir } from '../helpers/cliHarness.js';
+import { requireBuild, runBin, runInProcess, scratchDir } from '../helpers/cliHarness.js';
 
 const WATER = join(process.cwd(), 'fixtures/column/demo-water.json');
 
@@ -44,30 +44,31 @@ describe('sorbshare column (end to end)', () => {
     expect(r.out).toMatch(/confirm with pilot/);
   });
 
-  it('bad inputs exit 2 naming the field or option, and print nothing', () => {
+  it('bad inputs exit 2 naming the field or option, and print nothing', async () => {
+    // the first through the binary, the others through the same runCli in this process (runInProcess)
     const noGrain = write('nograin.json', { ...small, carbon: { particle_density: '800 kg/m3' } });
     let r = runBin('column', noGrain, '--ebct', '10 min', '--bed-depth', '1 m');
     expect(r.code).toBe(2);
     expect(r.err).toMatch(/nograin\.json.*carbon\.particle_radius/);
     expect(r.out).toBe('');
     const noCarbon = write('nocarbon.json', { components: small.components });
-    r = runBin('column', noCarbon, '--ebct', '10 min', '--bed-depth', '1 m');
+    r = await runInProcess('column', noCarbon, '--ebct', '10 min', '--bed-depth', '1 m');
     expect(r.code).toBe(2);
     expect(r.err).toMatch(/carbon/);
     const noDs = write('nods.json', { ...small, components: [small.components[0], small.components[1], { ...small.components[2], Ds: undefined }] });
-    r = runBin('column', noDs, '--ebct', '10 min', '--bed-depth', '1 m');
+    r = await runInProcess('column', noDs, '--ebct', '10 min', '--bed-depth', '1 m');
     expect(r.code).toBe(2);
     expect(r.err).toMatch(/components\[2\]\.Ds/);
     expect(r.err).toMatch(/"T"/);
-    r = runBin('column', WATER, '--ebct', '0 min', '--bed-depth', '1 m');
+    r = await runInProcess('column', WATER, '--ebct', '0 min', '--bed-depth', '1 m');
     expect(r.code).toBe(2);
     expect(r.err).toMatch(/--ebct/);
-    r = runBin('column', WATER, '--ebct', '-5 min', '--bed-depth', '1 m');
+    r = await runInProcess('column', WATER, '--ebct', '-5 min', '--bed-depth', '1 m');
     expect(r.code).toBe(2);
-    r = runBin('column', WATER, '--ebct', '20 min', '--bed-depth', '2 m', '--porosity', '1.2');
+    r = await runInProcess('column', WATER, '--ebct', '20 min', '--bed-depth', '2 m', '--porosity', '1.2');
     expect(r.code).toBe(2);
     expect(r.err).toMatch(/--porosity/);
-    r = runBin('column', WATER, '--bed-depth', '2 m');
+    r = await runInProcess('column', WATER, '--bed-depth', '2 m');
     expect(r.code).toBe(2);
     expect(r.err).toMatch(/--ebct/);
     expect(JSON.parse(readFileSync(WATER, 'utf8')).components).toHaveLength(14);

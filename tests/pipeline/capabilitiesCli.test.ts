@@ -3,12 +3,14 @@
  * one shifted compound of a synthetic pilot data set; the Monte Carlo is reproducible from the
  * command line; bad pilot files, uncertainty fields and --draws / --seed values exit 2, name
  * where the problem is, and write nothing. Fixture: fixtures/project/surrogates-gac-mc (invented).
+ * The second seeded run and the bad inputs after the first go through the same `runCli` in this
+ * process (`runInProcess`: same exit code, streams and files, without a Node start-up each).
  */
 import { describe, expect, it } from 'vitest';
 import { cpSync, existsSync, mkdtempSync, readFileSync, readdirSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { runBin } from '../helpers/cliHarness.js';
+import { runBin, runInProcess } from '../helpers/cliHarness.js';
 import { FIXTURE, syntheticPilotCsv } from './syntheticPilot.js';
 
 const run = runBin; // fails with a clear message when dist is missing or older than src
@@ -49,14 +51,14 @@ describe('pilot check through `sorbshare run`', () => {
 });
 
 describe('Monte Carlo from the command line', () => {
-  it('--draws and --seed override the project; the same seed writes the same uncertainty.csv', () => {
+  it('--draws and --seed override the project; the same seed writes the same uncertainty.csv', async () => {
     const { dir, project } = copy();
     try {
       const raw = JSON.parse(readFileSync(project, 'utf8'));
       raw.uncertainty.K_rel_sd = 0.2;
       writeFileSync(project, JSON.stringify(raw));
       const a = run('run', project, '--out', join(dir, 'a'), '--draws', '30', '--seed', '4');
-      const b = run('run', project, '--out', join(dir, 'b'), '--draws', '30', '--seed', '4');
+      const b = await runInProcess('run', project, '--out', join(dir, 'b'), '--draws', '30', '--seed', '4');
       expect(a.code).toBe(0);
       expect(b.code).toBe(0);
       const ua = readFileSync(join(dir, 'a/uncertainty.csv'), 'utf8');
@@ -88,11 +90,11 @@ describe('bad input for the new files and options: exit 2, named, nothing writte
   ];
   function edit(p: string, f: (j: any) => void): void { const j = JSON.parse(readFileSync(p, 'utf8')); f(j); writeFileSync(p, JSON.stringify(j)); }
   function pilot(dir: string, f: (t: string) => string): void { const p = join(dir, 'p/pilot.csv'); writeFileSync(p, f(readFileSync(p, 'utf8'))); }
-  for (const [what, args, words] of cases) {
-    it(what, () => {
+  cases.forEach(([what, args, words], i) => {
+    it(what, async () => {
       const { dir, project } = copy();
       try {
-        const r = run(...args(project, dir));
+        const r = i === 0 ? run(...args(project, dir)) : await runInProcess(...args(project, dir)); // the first through the binary
         expect(r.code).toBe(2);
         expect(r.out).toBe('');
         for (const w of words) expect(r.err).toMatch(w);
@@ -100,5 +102,5 @@ describe('bad input for the new files and options: exit 2, named, nothing writte
         expect(readdirSync(dir)).toEqual(['p']);
       } finally { rmSync(dir, { recursive: true, force: true }); }
     });
-  }
+  });
 });

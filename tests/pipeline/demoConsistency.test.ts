@@ -16,12 +16,13 @@ import { solveBatchPrepared } from '../../src/equilibrium/iastBatch.js';
 import { backgroundComponents } from '../../src/fractionation/backgroundPrediction.js';
 import { carbonsCsv, dailyDosesCsv } from '../../src/output/outputTables.js';
 import type { PipelineResult } from '../../src/pipeline/pipelineTypes.js';
+import { sharedDemoPipeline } from '../helpers/sharedDemoPipeline.js';
 
 let r: PipelineResult;
 /** The PAC carbons of the demo (the GAC candidate has no batch dose). */
 const pac = () => r.carbons.filter((c) => c.carbon.type === 'PAC');
 beforeAll(() => {
-  r = runPipeline(loadProject(join(__dirname, '../../fixtures/demo/project.json'), { demo: true }), { now: new Date('2026-01-01T00:00:00Z') });
+  r = sharedDemoPipeline(); // the worker's shared plain demo run (the demo project, { demo: true }, now 2026-01-01)
 });
 
 /** Dose and governing goal of a dose-table node (for a node that is not one of the days). */

@@ -1,12 +1,15 @@
 /**
  * End-to-end tests of `sorbshare demo`, `sorbshare run` and `sorbshare check`: the real binary
- * is spawned (build first: `npm run build`). Outputs go to temporary folders.
+ * is spawned (build first: `npm run build`). Outputs go to temporary folders. The demo with its
+ * draws is the worker's shared run (`sharedDemoRun`, read only); a bad input after the first goes
+ * through the same `runCli` in this process (`runInProcess`).
  */
 import { describe, expect, it } from 'vitest';
 import { cpSync, existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { runBin } from '../helpers/cliHarness.js';
+import { runBin, runInProcess } from '../helpers/cliHarness.js';
+import { sharedDemoRun } from '../helpers/sharedDemo.js';
 
 const DEMO = join(process.cwd(), 'fixtures/demo');
 const run = runBin; // fails with a clear message when dist is missing or older than src
@@ -18,49 +21,45 @@ const quiet = (err: string) => err.replace(/^\r?sorbshare: Monte Carlo.*$\n?/gm,
 
 describe('sorbshare demo', () => {
   it('writes every output, with the cautions, run.json provenance and --json summary', () => {
-    const dir = tmp();
-    try {
-      const out = join(dir, 'demo-out');
-      const r = run('demo', '--out', out, '--json');
-      expect(quiet(r.err)).toBe('');
-      expect(r.code).toBe(0);
-      const s = JSON.parse(r.out);
-      expect(s.carbons).toHaveLength(3);
-      expect(s.carbons[0].governing_compound).toBe('HCT');
-      expect(s.carbons[2].type).toBe('GAC');
-      // the demo's GAC carbon has fixed-bed inputs: the kinetic run length, the equilibrium bed volumes beside it
-      expect(s.carbons[2].gac.upper_bound).toBe(false);
-      expect(s.carbons[2].gac.run_bed_volumes).toBeGreaterThan(0);
-      expect(s.carbons[2].gac.equilibrium_bed_volumes).toBeGreaterThan(0);
-      expect(s.carbons[2].cost_per_m3).toBeGreaterThan(0);
-      expect(s.carbons[2].gac.monte_carlo_draws).toBe(5); // the demo's uncertainty.gac_draws
-      expect(s.carbons[2].gac.run_bed_volumes_p10).toBeLessThan(s.carbons[2].gac.run_bed_volumes_p90);
-      expect(s.carbons[0].monte_carlo.draws).toBeGreaterThan(0);
-      expect(s.pilot_outliers).toEqual(['DCF']); // the demo's pilot data put diclofenac deliberately off (fixtures/demo/README.md)
-      expect(readdirSync(out).sort()).toEqual([...FILES].sort());
-      const summary = readFileSync(join(out, 'summary.md'), 'utf8');
-      const html = readFileSync(join(out, 'report.html'), 'utf8');
-      for (const text of [summary, html]) {
-        expect(text).toContain('Contact time, carbon age, preloading');
-        expect(text).toContain('licensed engineer');
-        expect(text).toContain('Carbon dust is combustible');
-        expect(text).toMatch(/invented/i);
-        // the client's copy never shows the author's folders (the full paths stay in run.json)
-        expect(text).not.toContain(process.cwd());
-      }
-      expect(html).toContain('<svg');
-      const rec = JSON.parse(readFileSync(join(out, 'run.json'), 'utf8'));
-      expect(rec.tool.version).toMatch(/^\d+\.\d+\.\d+/);
-      expect(rec.node).toBe(process.version);
-      expect(Date.parse(rec.date)).not.toBeNaN();
-      expect(rec.demo).toBe(true);
-      expect(rec.inputs.site.flow_m3_per_d).toBe(15000);
-      expect(rec.input_files.map((f: { role: string }) => f.role)).toContain('site DOC series');
-      expect(rec.results.carbons[0].daily).toHaveLength(365);
-      const daily = readFileSync(join(out, 'daily_doses.csv'), 'utf8').trim().split('\n');
-      expect(daily[0]).toBe('date,carbon,DOC (mg/L),flow (m3/d),dose (mg/L),governed by,carbon (kg/d),carbon cost per day,currency');
-      expect(daily.length).toBe(1 + 2 * 365);
-    } finally { rmSync(dir, { recursive: true, force: true }); }
+    const { outDir: out, ...r } = sharedDemoRun(); // sorbshare demo --out DIR --json
+    expect(quiet(r.err)).toBe('');
+    expect(r.code).toBe(0);
+    const s = JSON.parse(r.out);
+    expect(s.carbons).toHaveLength(3);
+    expect(s.carbons[0].governing_compound).toBe('HCT');
+    expect(s.carbons[2].type).toBe('GAC');
+    // the demo's GAC carbon has fixed-bed inputs: the kinetic run length, the equilibrium bed volumes beside it
+    expect(s.carbons[2].gac.upper_bound).toBe(false);
+    expect(s.carbons[2].gac.run_bed_volumes).toBeGreaterThan(0);
+    expect(s.carbons[2].gac.equilibrium_bed_volumes).toBeGreaterThan(0);
+    expect(s.carbons[2].cost_per_m3).toBeGreaterThan(0);
+    expect(s.carbons[2].gac.monte_carlo_draws).toBe(5); // the demo's uncertainty.gac_draws
+    expect(s.carbons[2].gac.run_bed_volumes_p10).toBeLessThan(s.carbons[2].gac.run_bed_volumes_p90);
+    expect(s.carbons[0].monte_carlo.draws).toBeGreaterThan(0);
+    expect(s.pilot_outliers).toEqual(['DCF']); // the demo's pilot data put diclofenac deliberately off (fixtures/demo/README.md)
+    expect(readdirSync(out).sort()).toEqual([...FILES].sort());
+    const summary = readFileSync(join(out, 'summary.md'), 'utf8');
+    const html = readFileSync(join(out, 'report.html'), 'utf8');
+    for (const text of [summary, html]) {
+      expect(text).toContain('Contact time, carbon age, preloading');
+      expect(text).toContain('licensed engineer');
+      expect(text).toContain('Carbon dust is combustible');
+      expect(text).toMatch(/invented/i);
+      // the client's copy never shows the author's folders (the full paths stay in run.json)
+      expect(text).not.toContain(process.cwd());
+    }
+    expect(html).toContain('<svg');
+    const rec = JSON.parse(readFileSync(join(out, 'run.json'), 'utf8'));
+    expect(rec.tool.version).toMatch(/^\d+\.\d+\.\d+/);
+    expect(rec.node).toBe(process.version);
+    expect(Date.parse(rec.date)).not.toBeNaN();
+    expect(rec.demo).toBe(true);
+    expect(rec.inputs.site.flow_m3_per_d).toBe(15000);
+    expect(rec.input_files.map((f: { role: string }) => f.role)).toContain('site DOC series');
+    expect(rec.results.carbons[0].daily).toHaveLength(365);
+    const daily = readFileSync(join(out, 'daily_doses.csv'), 'utf8').trim().split('\n');
+    expect(daily[0]).toBe('date,carbon,DOC (mg/L),flow (m3/d),dose (mg/L),governed by,carbon (kg/d),carbon cost per day,currency');
+    expect(daily.length).toBe(1 + 2 * 365);
   });
 
   it('prints a text table by default', () => {
@@ -100,13 +99,13 @@ describe('sorbshare run: bad input writes nothing', () => {
     } finally { rmSync(dir, { recursive: true, force: true }); }
   });
 
-  it('a missing referenced CSV: exit 2, names the path; an existing --out keeps its old content', () => {
+  it('a missing referenced CSV: exit 2, names the path; an existing --out keeps its old content', async () => {
     const dir = demoCopy();
     try {
       rmSync(join(dir, 'p/doc_isotherm.csv'));
       const out = join(dir, 'out');
       cpSync(join(dir, 'p/jar_tests_cbz.csv'), join(out, 'keep.txt'));
-      const r = run('run', join(dir, 'p/project.json'), '--out', out);
+      const r = await runInProcess('run', join(dir, 'p/project.json'), '--out', out);
       expect(r.code).toBe(2);
       expect(r.err).toContain('doc_isotherm.csv');
       expect(r.err).toContain('field background.isotherm');

@@ -33,7 +33,7 @@ function nonEmptySeries(p: PlotSpec): number[] {
 describe('HTML report in headless Chromium', () => {
   itWithChromium('renders cleanly, draws every plot and series, escapes injected script', async () => {
     const model = syntheticModel();
-    const { browser, page, errors, requests } = await openReport(renderHtmlReport(model));
+    const { page, close, errors, requests } = await openReport(renderHtmlReport(model));
     try {
       const plots = model.sections.flatMap((s) => s.plots ?? []);
       expect(plots.map((p) => p.id)).toEqual(reportPlotIds(model));
@@ -61,7 +61,7 @@ describe('HTML report in headless Chromium', () => {
 
       expect(existsSync(await saveScreenshot(page, 'report.png'))).toBe(true);
     } finally {
-      await browser.close();
+      await close();
     }
   });
 });

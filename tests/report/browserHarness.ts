@@ -2,7 +2,9 @@
  * Opening a rendered report in headless Chromium (the system's /usr/bin/chromium through
  * playwright-core; never a downloaded browser), collecting console and page errors and any
  * request that would leave the file. Browser tests are declared with `itWithChromium`: without
- * Chromium they fail in CI (CI=true) and are skipped with a warning elsewhere.
+ * Chromium they fail in CI (CI=true) and are skipped with a warning elsewhere. Chromium is
+ * launched once per test worker (its start-up costs seconds on a loaded machine); each report
+ * opens in a fresh browser context (its own page, storage and viewport), closed by the test.
  */
 import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -41,24 +43,33 @@ export function itWithChromium(name: string, fn: () => Promise<void>, timeout?: 
 }
 
 export interface OpenedReport {
-  browser: Browser;
   page: Page;
+  /** Close the report's browser context (the worker's Chromium stays up for the next report). */
+  close: () => Promise<void>;
   /** Console errors, page errors and dialogs seen while loading. */
   errors: string[];
   /** Requests to anything but the report file itself (all aborted). */
   requests: string[];
 }
 
-/** Write `html` to a temp file and open it; the caller closes `browser`. */
-export async function openReport(html: string, viewport = { width: 1100, height: 900 }): Promise<OpenedReport> {
-  const { chromium } = await import('playwright-core');
-  const file = join(mkdtempSync(join(tmpdir(), 'sorbshare-report-')), 'report.html');
-  writeFileSync(file, html);
-  const browser = await chromium.launch({
+let launched: Promise<Browser> | undefined;
+/** The worker's Chromium, launched on first use (playwright kills it when the worker exits). */
+function workerBrowser(): Promise<Browser> {
+  launched ??= import('playwright-core').then(({ chromium }) => chromium.launch({
     executablePath: CHROMIUM,
     args: ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
-  });
-  const page = await browser.newPage({ viewport });
+  }));
+  const browser = launched;
+  browser.catch(() => { if (launched === browser) launched = undefined; }); // a failed launch is retried by the next test
+  return browser;
+}
+
+/** Write `html` to a temp file and open it in a fresh browser context; the caller calls `close`. */
+export async function openReport(html: string, viewport = { width: 1100, height: 900 }): Promise<OpenedReport> {
+  const file = join(mkdtempSync(join(tmpdir(), 'sorbshare-report-')), 'report.html');
+  writeFileSync(file, html);
+  const context = await (await workerBrowser()).newContext({ viewport });
+  const page = await context.newPage();
   const errors: string[] = [];
   const requests: string[] = [];
   page.on('console', (m) => {
@@ -76,7 +87,7 @@ export async function openReport(html: string, viewport = { width: 1100, height:
     return route.abort();
   });
   await page.goto(pathToFileURL(file).href, { waitUntil: 'load' });
-  return { browser, page, errors, requests };
+  return { page, close: () => context.close(), errors, requests };
 }
 
 /** Minimal DOM shapes for code that runs inside the page (the project's lib has no DOM types). */

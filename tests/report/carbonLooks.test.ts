@@ -5,12 +5,12 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { join } from 'node:path';
 import { loadProject } from '../../src/io/loadProject.js';
-import { runPipeline } from '../../src/pipeline/runPipeline.js';
 import { buildReportModel } from '../../src/output/buildReportModel.js';
 import { compoundStyles } from '../../src/output/compoundStyles.js';
 import { CARBON_LOOKS } from '../../src/output/carbonLooks.js';
 import { SERIES_COLOURS } from '../../src/output/palette.js';
 import type { ReportModel, XYPlotSpec } from '../../src/output/reportModel.js';
+import { sharedDemoPipeline } from '../helpers/sharedDemoPipeline.js';
 
 let model: ReportModel;
 let compoundIds: string[];
@@ -18,7 +18,7 @@ let compoundIds: string[];
 beforeAll(() => {
   const input = loadProject(join(__dirname, '../../fixtures/demo/project.json'), { demo: true });
   compoundIds = input.project.compounds.map((c) => c.id);
-  model = buildReportModel(runPipeline(input, { now: new Date('2026-01-01T00:00:00Z') }), 'test');
+  model = buildReportModel(sharedDemoPipeline(), 'test'); // the worker's shared plain demo run (same input and date)
 }, 60_000);
 
 describe('carbon looks', () => {

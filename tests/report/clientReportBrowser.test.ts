@@ -10,11 +10,11 @@ import { fileURLToPath } from 'node:url';
 import { beforeAll, describe, expect, it } from 'vitest';
 import { HAVE_CHROMIUM, inspectPlots, openReport, saveScreenshot, type PageDocument, type PageNode } from './browserHarness.js';
 import { loadProject } from '../../src/io/loadProject.js';
-import { runPipelineWithUncertainty } from '../../src/pipeline/runWithUncertainty.js';
 import { buildReportModel } from '../../src/output/buildReportModel.js';
 import { renderHtmlReport } from '../../src/report/htmlReport.js';
 import { reportPlotIds } from '../../src/report/reportPlotIds.js';
 import type { ReportModel } from '../../src/output/reportModel.js';
+import { sharedDemoPipelineWithDraws } from '../helpers/sharedDemoPipeline.js';
 
 declare const document: PageDocument;
 
@@ -27,8 +27,8 @@ let compoundIds: string[];
 beforeAll(async () => {
   if (!HAVE_CHROMIUM) return;
   const input = loadProject(fileURLToPath(new URL('../../fixtures/demo/project.json', import.meta.url)), { demo: true });
-  const result = await runPipelineWithUncertainty(input, { draws: 40, seed: 3 });
-  model = buildReportModel(result, 'test');
+  // the worker's shared demo run with 40 Monte Carlo draws (seed 3), read only
+  model = buildReportModel(await sharedDemoPipelineWithDraws(), 'test');
   compoundIds = input.project.compounds.map((c) => c.id);
 }, 120_000);
 
@@ -36,7 +36,7 @@ describe('the client report in headless Chromium', () => {
   it.skipIf(!HAVE_CHROMIUM)('every figure has data; one look per compound; month ticks; references; A4 screenshot', async () => {
     const ids = reportPlotIds(model);
     for (const want of ['calibration-1', 'dose-against-doc-1', 'sensitivity-dose-1', 'sensitivity-cost-1', 'pac-gac-mass', 'pac-gac-cost-m3', 'pac-gac-cost-year', 'daily-dose', 'daily-doc', 'background-fractions']) expect(ids).toContain(want);
-    const { browser, page, errors, requests } = await openReport(renderHtmlReport(model), A4_PX);
+    const { page, close, errors, requests } = await openReport(renderHtmlReport(model), A4_PX);
     try {
       // 1. every figure present, sized, with something drawn
       for (const p of await inspectPlots(page, ids.map((id) => ({ id })))) {
@@ -104,7 +104,7 @@ describe('the client report in headless Chromium', () => {
       expect(png.readUInt32BE(16)).toBe(A4_PX.width);
       expect(png.readUInt32BE(20)).toBe(A4_PX.height);
     } finally {
-      await browser.close();
+      await close();
     }
   }, 120_000);
 });

@@ -17,13 +17,14 @@ import { REFERENCES } from '../../src/output/referenceList.js';
 import type { PipelineResult } from '../../src/pipeline/pipelineTypes.js';
 import type { ReportModel } from '../../src/output/reportModel.js';
 import { fmtFixed, fmtNumber } from '../../src/output/formatting.js';
+import { sharedDemoPipeline } from '../helpers/sharedDemoPipeline.js';
 
 const demoPath = join(__dirname, '../../fixtures/demo/project.json');
 let r: PipelineResult;
 let model: ReportModel;
 
 beforeAll(() => {
-  r = runPipeline(loadProject(demoPath, { demo: true }), { now: new Date('2026-01-01T00:00:00Z') });
+  r = sharedDemoPipeline(); // the worker's shared plain demo run: runPipeline(loadProject(demoPath, { demo: true }), { now: 2026-01-01 })
   model = buildReportModel(r, 'test');
 }, 60_000);
 

@@ -14,12 +14,13 @@ import { doseFor } from '../../src/api/equilibriumApi.js';
 import { scaleAdsorbable } from '../../src/pipeline/sensitivityStep.js';
 import { pacGacComparison } from '../../src/output/pacGacComparison.js';
 import { specificDose } from '../../src/design/specificDose.js';
+import { sharedDemoPipeline } from '../helpers/sharedDemoPipeline.js';
 
 let r: PipelineResult;
 let a: CarbonResult;
 
 beforeAll(() => {
-  r = runPipeline(loadProject(join(__dirname, '../../fixtures/demo/project.json'), { demo: true }), { now: new Date('2026-01-01T00:00:00Z') });
+  r = sharedDemoPipeline(); // the worker's shared plain demo run (the demo project, { demo: true }, now 2026-01-01)
   a = r.carbons.find((c) => c.carbon.type === 'PAC')!;
 }, 60_000);
 

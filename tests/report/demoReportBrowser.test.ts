@@ -32,7 +32,7 @@ describe('the demo report in headless Chromium', () => {
     const model = buildReportModel(result, 'test');
     const ids = reportPlotIds(model);
     expect(ids.length).toBeGreaterThanOrEqual(10); // isotherm, fractions, removal, loadings, surrogates, pilot, daily dose, DOC, bands …
-    const { browser, page, errors, requests } = await openReport(renderHtmlReport(model), { width: 1200, height: 900 });
+    const { page, close, errors, requests } = await openReport(renderHtmlReport(model), { width: 1200, height: 900 });
     try {
       const plots = await inspectPlots(page, ids.map((id) => ({ id })));
       for (const p of plots) {
@@ -55,7 +55,7 @@ describe('the demo report in headless Chromium', () => {
       expect(requests).toEqual([]);
       expect(existsSync(await saveScreenshot(page, 'demo-report.png'))).toBe(true);
     } finally {
-      await browser.close();
+      await close();
     }
   });
 });

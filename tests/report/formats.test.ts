@@ -3,6 +3,9 @@
  * same values as the CSV files; read back with exceljs) and `--pdf` (A4 pages printed by the
  * installed Chromium, the text holding the headline figures; text extracted with poppler's
  * pdftotext). Without a browser, `--pdf` fails with exit 1 and the reason, and writes nothing.
+ * The workbook is read from the worker's shared demo run (`sharedDemoRun`: the demo with its
+ * draws, read only); the failing `--pdf` runs a small fixture project, since it fails the same way
+ * after any run.
  */
 import { beforeAll, describe, expect, it } from 'vitest';
 import { execFileSync, spawnSync } from 'node:child_process';
@@ -10,6 +13,7 @@ import { existsSync, readFileSync, readdirSync } from 'node:fs';
 import { join } from 'node:path';
 import ExcelJS from 'exceljs';
 import { BIN, requireBuild, scratchDir } from '../helpers/cliHarness.js';
+import { sharedDemoRun } from '../helpers/sharedDemo.js';
 import { CHROMIUM, HAVE_CHROMIUM, IN_CI } from './browserHarness.js';
 import { parseCsv, cellValue } from '../../src/report/resultsWorkbook.js';
 
@@ -22,15 +26,13 @@ function run(args: string[], env: NodeJS.ProcessEnv = {}) {
 }
 
 let outDir = '';
-let summary: { carbons: Array<{ carbon: string; required_dose_mg_per_L: number | null; yearly_cost: number | null; currency: string }> };
+interface Summary { carbons: Array<{ carbon: string; required_dose_mg_per_L: number | null; yearly_cost: number | null; currency: string }> }
 
 describe('results.xlsx', () => {
   beforeAll(() => {
-    requireBuild();
-    outDir = join(scratchDir('sorbshare-xlsx-').dir, 'out');
-    const r = run(['demo', '--draws', '0', '--out', outDir, '--json']);
+    const r = sharedDemoRun(); // sorbshare demo --out DIR --json
     expect(r.code, r.err).toBe(0);
-    summary = JSON.parse(r.out);
+    outDir = r.outDir;
   }, 120_000);
 
   it('holds one sheet per CSV table with the same header and the same numbers, numbers as numbers', async () => {
@@ -77,7 +79,7 @@ describe('--pdf', () => {
     expect(Number(/Pages:\s+(\d+)/.exec(info)![1])).toBeGreaterThanOrEqual(5);
     expect(info).toMatch(/\(A4\)/);
     const text = execFileSync('pdftotext', [pdf, '-'], { encoding: 'utf8' }).replace(/\s+/g, ' ');
-    const s = JSON.parse(r.out) as typeof summary;
+    const s = JSON.parse(r.out) as Summary;
     for (const c of s.carbons.filter((x) => x.required_dose_mg_per_L !== null)) {
       expect(text).toContain(`${Number(c.required_dose_mg_per_L!.toPrecision(3))} mg/L`);
       expect(text).toContain(`${Math.round(c.yearly_cost!).toLocaleString('en-US')} ${c.currency}`);
@@ -92,7 +94,8 @@ describe('--pdf', () => {
   it('without Chromium: exit 1 with the reason, nothing written', () => {
     requireBuild();
     const dir = join(scratchDir('sorbshare-nopdf-').dir, 'out');
-    const r = run(['demo', '--draws', '0', '--out', dir, '--pdf'], { SORBSHARE_CHROMIUM: '/nonexistent/chromium' });
+    const project = join(process.cwd(), 'fixtures/project/surrogates-gac-mc/project.json'); // a small project: the run is not what fails
+    const r = run(['run', project, '--draws', '0', '--out', dir, '--pdf'], { SORBSHARE_CHROMIUM: '/nonexistent/chromium' });
     expect(r.code).toBe(1);
     expect(r.err).toMatch(/--pdf needs Chromium.*none was found.*SORBSHARE_CHROMIUM=\/nonexistent\/chromium/);
     expect(r.out).toBe('');

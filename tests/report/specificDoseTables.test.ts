@@ -5,21 +5,18 @@
  * pipeline's own numbers: the specific dose is dose ÷ design DOC (closed form).
  */
 import { beforeAll, describe, expect, it } from 'vitest';
-import { join } from 'node:path';
-import { loadProject } from '../../src/io/loadProject.js';
-import { runPipelineWithUncertainty } from '../../src/pipeline/runWithUncertainty.js';
 import { buildReportModel } from '../../src/output/buildReportModel.js';
 import { headlineFigures } from '../../src/output/headlineFigures.js';
 import { fmtNumber } from '../../src/output/formatting.js';
 import type { PipelineResult } from '../../src/pipeline/pipelineTypes.js';
 import type { ReportModel, ReportTable } from '../../src/output/reportModel.js';
+import { sharedDemoPipelineWithDraws } from '../helpers/sharedDemoPipeline.js';
 
 let r: PipelineResult;
 let model: ReportModel;
 
 beforeAll(async () => {
-  const input = loadProject(join(__dirname, '../../fixtures/demo/project.json'), { demo: true });
-  r = await runPipelineWithUncertainty(input, { draws: 40, seed: 5 });
+  r = await sharedDemoPipelineWithDraws(); // the worker's shared demo run with 40 Monte Carlo draws (seed 3), read only
   model = buildReportModel(r, 'test');
 }, 120_000);
 

@@ -290,10 +290,15 @@ beforeAll(async () => {
 
 afterAll(() => { if (root) rmSync(root, { recursive: true, force: true }); });
 
-describe('bad and hostile inputs (spawned CLI)', () => {
+describe('bad and hostile inputs (CLI: the first case of each kind and command spawned, the others through runCli in-process)', () => {
   it('covers at least 150 cases', () => {
     expect(CASES.length).toBeGreaterThanOrEqual(150);
     expect(new Set(CASES.map((c) => c.name)).size).toBe(CASES.length);
+  });
+  it('runs the first case of each kind and of each command through the spawned binary', () => {
+    const kinds = new Set(CASES.map((c) => c.name.split(':')[0]));
+    const spawned = CASES.filter((c) => results.get(c.name)!.spawned);
+    expect(new Set(spawned.map((c) => c.name.split(':')[0]))).toEqual(kinds);
   });
   it.each(CASES.map((c) => [c.name, c] as const))('%s', (_name, c) => {
     const r = results.get(c.name)!;

@@ -106,8 +106,13 @@ beforeAll(async () => {
 
 afterAll(() => { if (root) rmSync(root, { recursive: true, force: true }); });
 
-describe('bad and hostile inputs for the phase-2 keys and tables (spawned CLI)', () => {
+describe('bad and hostile inputs for the phase-2 keys and tables (CLI: the first case of each kind and command spawned, the others through runCli in-process)', () => {
   it('case names are unique', () => expect(new Set(CASES.map((c) => c.name)).size).toBe(CASES.length));
+  it('runs the first case of each kind and of each command through the spawned binary', () => {
+    const kinds = new Set(CASES.map((c) => c.name.split(':')[0]));
+    const spawned = CASES.filter((c) => results.get(c.name)!.spawned);
+    expect(new Set(spawned.map((c) => c.name.split(':')[0]))).toEqual(kinds);
+  });
   it.each(CASES.map((c) => [c.name, c] as const))('%s', (_name, c) => {
     const r = results.get(c.name)!;
     expectRefused(r, c);

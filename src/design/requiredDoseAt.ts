@@ -34,16 +34,17 @@ export function requiredDoseAt(model: RemovalModel, problem: DesignProblem, refe
     return { docMgPerL, doseMgPerL: d.doseMgPerL, governedBy: d.governedBy };
   };
   const base = near && near.doseMgPerL !== null ? near : reference;
-  if (base.doseMgPerL === null || !(base.doseMgPerL > 0) || reference.compounds.some((c) => c.status !== 'met' && c.status !== 'report only') || (reference.indicator && reference.indicator.status !== 'met')) return full();
+  if (base.doseMgPerL === null || !(base.doseMgPerL > 0) || !allMet(reference)) return full();
   const hint = base.doseMgPerL * (docMgPerL / base.docMgPerL);
   let dose: number | null;
   let solved: DoseAtRemoval | undefined;
-  if (base.governedBy === 'indicator mean') {
+  const governing = base.governedBy === 'indicator mean' ? -1 : governingIndex(model.compoundIds, base.governedBy);
+  if (governing === -1) {
     if (!problem.indicator) return full();
     const r = indicatorDose(model, problem.indicator, hint);
     dose = r.status === 'met' ? r.doseMgPerL : null;
   } else {
-    const i = model.compoundIds.indexOf(base.governedBy.replace(/^compound /, ''));
+    const i = governing;
     if (i < 0) return full();
     const d = compoundDoseSolved(model, i, problem.goals[i]!, hint, false, near?.warm?.[i]);
     dose = d.dose.status === 'met' ? d.dose.doseMgPerL : null;
@@ -56,7 +57,6 @@ export function requiredDoseAt(model: RemovalModel, problem: DesignProblem, refe
   const T = problem.goals.length;
   const warm: WarmStart[] = near?.warm ? near.warm.slice() : new Array<WarmStart>(T);
   const removal = new Float64Array(T).fill(NaN); // NaN: not solved yet
-  const governing = base.governedBy === 'indicator mean' ? -1 : model.compoundIds.indexOf(base.governedBy.replace(/^compound /, ''));
   let est: RemainingEstimates | undefined;
   if (governing >= 0 && solved) { warm[governing] = solved.warm; removal[governing] = 1 - solved.remainingFraction; }
   if (governing >= 0 && model.remainingEstimates) {
@@ -71,12 +71,37 @@ export function requiredDoseAt(model: RemovalModel, problem: DesignProblem, refe
   }
   if (problem.indicator) {
     const ind = problem.indicator;
-    const fixed = fixedSetOf(model, ind);
+    const fixed = fixedIndicatorSet(model, ind)?.set; // kept per goal and compound list
     // lower bounds of the removals first (the mean of any set rises with every removal)
     const certain = est !== undefined && indicatorMet(model, ind, fixed, D, warm, removal, est);
     if (!certain && !indicatorMet(model, ind, fixed, D, warm, removal, undefined)) return full();
   }
   return { docMgPerL, doseMgPerL: dose, governedBy: base.governedBy, warm };
+}
+
+/** Whether every goal of the reference design is met (or report only): the fast path's condition, kept per design. */
+const allMetCache = new WeakMap<Design, boolean>();
+function allMet(reference: Design): boolean {
+  let v = allMetCache.get(reference);
+  if (v === undefined) {
+    v = !reference.compounds.some((c) => c.status !== 'met' && c.status !== 'report only') && !(reference.indicator && reference.indicator.status !== 'met');
+    allMetCache.set(reference, v);
+  }
+  return v;
+}
+
+/** Index of the compound of "compound <id>" in `ids` (−2 when not there), kept per id list. */
+const governingIndices = new WeakMap<readonly string[], Map<string, number>>();
+function governingIndex(ids: readonly string[], governedBy: string): number {
+  let m = governingIndices.get(ids);
+  if (!m) governingIndices.set(ids, (m = new Map()));
+  let i = m.get(governedBy);
+  if (i === undefined) {
+    const k = ids.indexOf(governedBy.replace(/^compound /, ''));
+    i = k < 0 ? -2 : k;
+    m.set(governedBy, i);
+  }
+  return i;
 }
 
 /** Removal of compound i at dose D (g/L), solved once and kept in `removal` (NaN: not yet). */
@@ -94,7 +119,7 @@ function exactRemoval(model: RemovalModel, i: number, D: number, warm: WarmStart
  * Whether the indicator mean reaches its goal at dose D: from lower bounds of the removals when
  * `est` is given (the solved ones exact, the others the estimate's bound), else from exact removals.
  */
-function indicatorMet(model: RemovalModel, ind: IndicatorGoal, fixed: number[] | undefined, D: number, warm: WarmStart[], removal: Float64Array, est: RemainingEstimates | undefined): boolean {
+function indicatorMet(model: RemovalModel, ind: IndicatorGoal, fixed: readonly number[] | undefined, D: number, warm: WarmStart[], removal: Float64Array, est: RemainingEstimates | undefined): boolean {
   const value = (i: number): number => {
     if (!est) return exactRemoval(model, i, D, warm, removal);
     const v = removal[i]!;
@@ -110,12 +135,3 @@ function indicatorMet(model: RemovalModel, ind: IndicatorGoal, fixed: number[] |
   return selectIndicatorSet(ind, values, false).set.meanRemovalPercent >= ind.goalPercent - 1e-7;
 }
 
-/** fixedIndicatorSet's indices, kept per goal and compound list (the same at every node and draw). */
-const fixedSets = new WeakMap<IndicatorGoal, { ids: readonly string[]; set: number[] | undefined }>();
-function fixedSetOf(model: RemovalModel, ind: IndicatorGoal): number[] | undefined {
-  const c = fixedSets.get(ind);
-  if (c && c.ids === model.compoundIds) return c.set;
-  const set = fixedIndicatorSet(model, ind)?.set;
-  fixedSets.set(ind, { ids: model.compoundIds, set });
-  return set;
-}

@@ -29,34 +29,30 @@ export interface RequiredAtDoc {
  */
 export function requiredDoseAt(model: RemovalModel, problem: DesignProblem, reference: Design, near?: RequiredAtDoc): RequiredAtDoc {
   const docMgPerL = model.docMgPerL;
-  const full = (): RequiredAtDoc => {
-    const d = designDose(model, problem, reference);
-    return { docMgPerL, doseMgPerL: d.doseMgPerL, governedBy: d.governedBy };
-  };
   const base = near && near.doseMgPerL !== null ? near : reference;
-  if (base.doseMgPerL === null || !(base.doseMgPerL > 0) || !allMet(reference)) return full();
+  if (base.doseMgPerL === null || !(base.doseMgPerL > 0) || !allMet(reference)) return full(model, problem, reference);
   const hint = base.doseMgPerL * (docMgPerL / base.docMgPerL);
   let dose: number | null;
   let solved: DoseAtRemoval | undefined;
   const governing = base.governedBy === 'indicator mean' ? -1 : governingIndex(model.compoundIds, base.governedBy);
   if (governing === -1) {
-    if (!problem.indicator) return full();
+    if (!problem.indicator) return full(model, problem, reference);
     const r = indicatorDose(model, problem.indicator, hint);
     dose = r.status === 'met' ? r.doseMgPerL : null;
   } else {
     const i = governing;
-    if (i < 0) return full();
+    if (i < 0) return full(model, problem, reference);
     const d = compoundDoseSolved(model, i, problem.goals[i]!, hint, false, near?.warm?.[i]);
     dose = d.dose.status === 'met' ? d.dose.doseMgPerL : null;
     solved = d.solved;
   }
-  if (dose === null || !(dose > 0)) return full();
+  if (dose === null || !(dose > 0)) return full(model, problem, reference);
   // every compound's removal at that dose, once (the indicator mean uses the same values); a
   // model's estimates with error bounds skip the solves whose outcome they already decide
   const D = dose / 1000;
   const T = problem.goals.length;
   const warm: WarmStart[] = near?.warm ? near.warm.slice() : new Array<WarmStart>(T);
-  const removal = new Float64Array(T).fill(NaN); // NaN: not solved yet
+  const removal = new Array<number>(T).fill(NaN); // NaN: not solved yet (a plain array: less to allocate than a typed one)
   let est: RemainingEstimates | undefined;
   if (governing >= 0 && solved) { warm[governing] = solved.warm; removal[governing] = 1 - solved.remainingFraction; }
   if (governing >= 0 && model.remainingEstimates) {
@@ -67,16 +63,22 @@ export function requiredDoseAt(model: RemovalModel, problem: DesignProblem, refe
     const goal = problem.goals[i]!;
     if (goal.kind === 'none' || !(goal.removalFraction > 0)) continue;
     if (est && est.lnRemaining[i]! + est.lnBound[i]! <= Math.log1p(-goal.removalFraction)) continue; // met for certain
-    if (exactRemoval(model, i, D, warm, removal) < goal.removalFraction - 1e-9) return full();
+    if (exactRemoval(model, i, D, warm, removal) < goal.removalFraction - 1e-9) return full(model, problem, reference);
   }
   if (problem.indicator) {
     const ind = problem.indicator;
     const fixed = fixedIndicatorSet(model, ind)?.set; // kept per goal and compound list
     // lower bounds of the removals first (the mean of any set rises with every removal)
     const certain = est !== undefined && indicatorMet(model, ind, fixed, D, warm, removal, est);
-    if (!certain && !indicatorMet(model, ind, fixed, D, warm, removal, undefined)) return full();
+    if (!certain && !indicatorMet(model, ind, fixed, D, warm, removal, undefined)) return full(model, problem, reference);
   }
   return { docMgPerL, doseMgPerL: dose, governedBy: base.governedBy, warm };
+}
+
+/** The full design at this DOC (what the fast path stands for when it does not apply). */
+function full(model: RemovalModel, problem: DesignProblem, reference: Design): RequiredAtDoc {
+  const d = designDose(model, problem, reference);
+  return { docMgPerL: model.docMgPerL, doseMgPerL: d.doseMgPerL, governedBy: d.governedBy };
 }
 
 /** Whether every goal of the reference design is met (or report only): the fast path's condition, kept per design. */
@@ -105,7 +107,7 @@ function governingIndex(ids: readonly string[], governedBy: string): number {
 }
 
 /** Removal of compound i at dose D (g/L), solved once and kept in `removal` (NaN: not yet). */
-function exactRemoval(model: RemovalModel, i: number, D: number, warm: WarmStart[], removal: Float64Array): number {
+function exactRemoval(model: RemovalModel, i: number, D: number, warm: WarmStart[], removal: number[]): number {
   let v = removal[i]!;
   if (v !== v) {
     const r = model.remaining(i, D, warm[i]);
@@ -119,7 +121,7 @@ function exactRemoval(model: RemovalModel, i: number, D: number, warm: WarmStart
  * Whether the indicator mean reaches its goal at dose D: from lower bounds of the removals when
  * `est` is given (the solved ones exact, the others the estimate's bound), else from exact removals.
  */
-function indicatorMet(model: RemovalModel, ind: IndicatorGoal, fixed: readonly number[] | undefined, D: number, warm: WarmStart[], removal: Float64Array, est: RemainingEstimates | undefined): boolean {
+function indicatorMet(model: RemovalModel, ind: IndicatorGoal, fixed: readonly number[] | undefined, D: number, warm: WarmStart[], removal: number[], est: RemainingEstimates | undefined): boolean {
   const value = (i: number): number => {
     if (!est) return exactRemoval(model, i, D, warm, removal);
     const v = removal[i]!;

@@ -169,7 +169,12 @@ export function prependComponent(lead: FreundlichComponent, rest: PreparedMixtur
   const r = rest.c0.length;
   const first = lead.K > 0 && lead.c0MgPerL > 0 ? 1 : 0;
   const m = r + first;
-  const active = new Int32Array(m), c0 = new Float64Array(m), n = new Float64Array(m), beta = new Float64Array(m), lnK = new Float64Array(m), a = new Float64Array(m);
+  // the five number arrays as views of one buffer, the index array shared by every lead of `rest`
+  // (nothing writes into a prepared mixture): fewer allocations where a Monte Carlo draw
+  // prepares every target beside its background
+  const all = new Float64Array(5 * m);
+  const c0 = all.subarray(0, m), n = all.subarray(m, 2 * m), beta = all.subarray(2 * m, 3 * m), lnK = all.subarray(3 * m, 4 * m), a = all.subarray(4 * m, 5 * m);
+  const active = activeAfterLead(rest, first);
   if (first) {
     c0[0] = lead.c0MgPerL;
     beta[0] = lead.oneOverN;
@@ -179,11 +184,23 @@ export function prependComponent(lead: FreundlichComponent, rest: PreparedMixtur
   }
   c0.set(rest.c0, first); n.set(rest.n, first); beta.set(rest.beta, first); lnK.set(rest.lnK, first); a.set(rest.a, first);
   let cTotal = 0;
-  for (let j = 0; j < m; j++) {
-    active[j] = j < first ? 0 : rest.active[j - first]! + 1;
-    cTotal += c0[j]!; // the order of prepareMixture's sum
-  }
+  for (let j = 0; j < m; j++) cTotal += c0[j]!; // the order of prepareMixture's sum
   return new Mixture(rest.size + 1, active, c0, n, beta, lnK, a, cTotal, undefined, () => [lead, ...rest.source]);
+}
+
+/** The active indices of `rest` behind a lead (active or not), kept per mixture. */
+const leadActive = new WeakMap<PreparedMixture, [Int32Array | undefined, Int32Array | undefined]>();
+function activeAfterLead(rest: PreparedMixture, first: number): Int32Array {
+  let pair = leadActive.get(rest);
+  if (!pair) leadActive.set(rest, (pair = [undefined, undefined]));
+  let active = pair[first];
+  if (!active) {
+    const m = rest.active.length + first;
+    active = new Int32Array(m);
+    for (let j = 0; j < m; j++) active[j] = j < first ? 0 : rest.active[j - first]! + 1;
+    pair[first] = active;
+  }
+  return active;
 }
 
 /** The checks of `prependComponent` alone. @throws InputError as prependComponent */

@@ -122,18 +122,20 @@ function exactRemoval(model: RemovalModel, i: number, D: number, warm: WarmStart
  * `est` is given (the solved ones exact, the others the estimate's bound), else from exact removals.
  */
 function indicatorMet(model: RemovalModel, ind: IndicatorGoal, fixed: readonly number[] | undefined, D: number, warm: WarmStart[], removal: number[], est: RemainingEstimates | undefined): boolean {
-  const value = (i: number): number => {
-    if (!est) return exactRemoval(model, i, D, warm, removal);
-    const v = removal[i]!;
-    return v === v ? v : 1 - Math.exp(est.lnRemaining[i]! + est.lnBound[i]!);
-  };
   if (fixed) {
     // a set that does not depend on the removals: its mean directly (what selectIndicatorSet gives)
     let sum = 0;
-    for (let k = 0; k < fixed.length; k++) sum += 100 * value(fixed[k]!);
+    for (let k = 0; k < fixed.length; k++) sum += 100 * removalValue(model, fixed[k]!, D, warm, removal, est);
     return sum / fixed.length >= ind.goalPercent - 1e-7;
   }
-  const values: IndicatorValue[] = ind.members.map((m) => ({ id: model.compoundIds[m.index]!, category: m.category, removalPercent: 100 * value(m.index) }));
+  const values: IndicatorValue[] = ind.members.map((m) => ({ id: model.compoundIds[m.index]!, category: m.category, removalPercent: 100 * removalValue(model, m.index, D, warm, removal, est) }));
   return selectIndicatorSet(ind, values, false).set.meanRemovalPercent >= ind.goalPercent - 1e-7;
+}
+
+/** Compound i's removal for indicatorMet: exact (solved once), or with `est` the solved value or the estimate's lower bound. */
+function removalValue(model: RemovalModel, i: number, D: number, warm: WarmStart[], removal: number[], est: RemainingEstimates | undefined): number {
+  if (!est) return exactRemoval(model, i, D, warm, removal);
+  const v = removal[i]!;
+  return v === v ? v : 1 - Math.exp(est.lnRemaining[i]! + est.lnBound[i]!);
 }
 

@@ -64,13 +64,15 @@ export function prepareMixture(components: readonly FreundlichComponent[]): Prep
     a[j] = n[j]! * (Math.log(comp.oneOverN) - lnK[j]!);
     cTotal += comp.c0MgPerL;
   }
-  return new Mixture(components.length, new Int32Array(active), c0, n, beta, lnK, a, cTotal, components, undefined);
+  return new Mixture(components.length, new Int32Array(active), c0, n, beta, lnK, a, cTotal, components, undefined, undefined, 1, -1);
 }
 
 /**
  * Every prepared mixture is one of these (prepared, scaled or with a lead component), so that the
  * solvers' hot loops see one object layout. `ids` and `source` of a derived mixture are built
- * from `derive` only when asked for (hot loops never read them).
+ * only when asked for (hot loops never read them), from what it was derived from: `from` scaled
+ * by `factor` except component `fixedIndex` (scaleMixture), or `lead` before `from`
+ * (prependComponent); kept as data rather than a closure (nothing more to allocate per mixture).
  */
 class Mixture implements PreparedMixture {
   readonly lnCTotal: number;
@@ -87,7 +89,10 @@ class Mixture implements PreparedMixture {
     readonly a: Float64Array,
     readonly cTotal: number,
     source: readonly FreundlichComponent[] | undefined,
-    private readonly derive: (() => readonly FreundlichComponent[]) | undefined,
+    private readonly from: PreparedMixture | undefined,
+    private readonly lead: FreundlichComponent | undefined,
+    private readonly factor: number,
+    private readonly fixedIndex: number,
   ) {
     this.lnCTotal = Math.log(cTotal);
     this.sourceCache = source;
@@ -103,7 +108,7 @@ class Mixture implements PreparedMixture {
   }
 
   get source(): readonly FreundlichComponent[] {
-    return (this.sourceCache ??= this.derive!());
+    return (this.sourceCache ??= this.lead ? [this.lead, ...this.from!.source] : scaledSource(this.from!, this.factor, this.fixedIndex));
   }
 }
 
@@ -150,7 +155,7 @@ export function scaleMixture(pm: PreparedMixture, factor: number, fixedIndex = -
   }
   if (ok && !(factor >= 0 && Number.isFinite(factor))) ok = false;
   if (!ok) return prepareMixture(scaledSource(pm, factor, fixedIndex)); // leaves the active set, or its error message
-  return new Mixture(pm.size, pm.active, c0, pm.n, pm.beta, pm.lnK, pm.a, cTotal, undefined, () => scaledSource(pm, factor, fixedIndex));
+  return new Mixture(pm.size, pm.active, c0, pm.n, pm.beta, pm.lnK, pm.a, cTotal, undefined, pm, undefined, factor, fixedIndex);
 }
 
 function scaledSource(pm: PreparedMixture, factor: number, fixedIndex: number): FreundlichComponent[] {
@@ -185,7 +190,7 @@ export function prependComponent(lead: FreundlichComponent, rest: PreparedMixtur
   c0.set(rest.c0, first); n.set(rest.n, first); beta.set(rest.beta, first); lnK.set(rest.lnK, first); a.set(rest.a, first);
   let cTotal = 0;
   for (let j = 0; j < m; j++) cTotal += c0[j]!; // the order of prepareMixture's sum
-  return new Mixture(rest.size + 1, active, c0, n, beta, lnK, a, cTotal, undefined, () => [lead, ...rest.source]);
+  return new Mixture(rest.size + 1, active, c0, n, beta, lnK, a, cTotal, undefined, rest, lead, 1, -1);
 }
 
 /** The active indices of `rest` behind a lead (active or not), kept per mixture. */

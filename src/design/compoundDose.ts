@@ -57,6 +57,15 @@ export function compoundDoseSolved(model: RemovalModel, index: number, goal: Com
     checkReached(model, compoundId, reached, goal.removalFraction, 'dose');
     return { dose: { compoundId, status: 'met', doseMgPerL: direct.doseGPerL * 1000, removalFraction: reached }, solved: direct };
   }
+  return searchedDose(model, index, goal, hintMgPerL);
+}
+
+/**
+ * The dose search of `compoundDoseSolved` (outside the searched doses, or a model without an
+ * inverse), apart so that the direct path allocates none of its closures.
+ */
+function searchedDose(model: RemovalModel, index: number, goal: CompoundGoal, hintMgPerL: number | undefined): { dose: CompoundDose; solved?: DoseAtRemoval } {
+  const compoundId = model.compoundIds[index]!;
   // outside the searched doses (or no inverse): the search gives the status and its message
   let warm: WarmStart;
   let lastDose = NaN;

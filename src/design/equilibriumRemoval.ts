@@ -181,7 +181,7 @@ export class EquilibriumRemoval implements RemovalModel {
     const lnx = pf.lnCTotal - softplus(-st.theta); // ln x = ln C − softplus(−θ) (iastBatch.ts)
     const x = Math.exp(lnx);
     const T = this.c0.length;
-    const lnRemaining = new Float64Array(T), lnBound = new Float64Array(T).fill(Infinity);
+    const lnRemaining = new Array<number>(T).fill(0), lnBound = new Array<number>(T).fill(Infinity);
     for (let i = 0; i < T; i++) {
       if (group[i] !== group[from]) continue;
       const pm = root.mixture(i); // the target's n and a do not change with the DOC

@@ -97,8 +97,27 @@ export interface IndicatorDose {
   message?: string;
 }
 
+/**
+ * What `indicatorInadmissible` and `fixedIndicatorSet` give for a goal and a list of compound ids
+ * (they depend on nothing else), kept per goal and list: every Monte Carlo draw and every node
+ * of the dose table asks again with the same two.
+ */
+interface GoalFacts { ids: readonly string[]; why: string | undefined; fixed: { set: readonly number[]; selection: IndicatorSelection } | undefined }
+const goalFacts = new WeakMap<IndicatorGoal, GoalFacts>();
+function factsOf(model: RemovalModel, goal: IndicatorGoal): GoalFacts {
+  const f = goalFacts.get(goal);
+  if (f && f.ids === model.compoundIds) return f;
+  const fresh: GoalFacts = { ids: model.compoundIds, why: inadmissible(model, goal), fixed: fixedSet(model, goal) };
+  goalFacts.set(goal, fresh);
+  return fresh;
+}
+
 /** Why no admissible set can be formed from the members (undefined when one can). */
 export function indicatorInadmissible(model: RemovalModel, goal: IndicatorGoal): string | undefined {
+  return factsOf(model, goal).why;
+}
+
+function inadmissible(model: RemovalModel, goal: IndicatorGoal): string | undefined {
   const inSet = (m: IndicatorMember) => (goal.chosen ? goal.chosen.includes(model.compoundIds[m.index]!) : true);
   const n1 = goal.members.filter((m) => inSet(m) && m.category === 1).length;
   const n2 = goal.members.filter((m) => inSet(m) && m.category === 2).length;
@@ -108,7 +127,11 @@ export function indicatorInadmissible(model: RemovalModel, goal: IndicatorGoal):
 }
 
 /** The indices of a set that does not depend on the removals (chosen, or all when admissible), else undefined. */
-export function fixedIndicatorSet(model: RemovalModel, goal: IndicatorGoal): { set: number[]; selection: IndicatorSelection } | undefined {
+export function fixedIndicatorSet(model: RemovalModel, goal: IndicatorGoal): { set: readonly number[]; selection: IndicatorSelection } | undefined {
+  return factsOf(model, goal).fixed;
+}
+
+function fixedSet(model: RemovalModel, goal: IndicatorGoal): { set: readonly number[]; selection: IndicatorSelection } | undefined {
   if (goal.chosen) return { set: goal.members.filter((m) => goal.chosen!.includes(model.compoundIds[m.index]!)).map((m) => m.index), selection: 'chosen set' };
   const n1 = goal.members.filter((m) => m.category === 1).length;
   if (ruleViolation(n1, goal.members.length - n1)) return undefined;

@@ -56,9 +56,9 @@ export interface DoseAtRemoval {
 
 export interface RemainingEstimates {
   /** ln(c/c0) of each compound (model order). */
-  lnRemaining: Float64Array;
+  lnRemaining: ArrayLike<number>;
   /** Bound on the error of each estimate in ln(c/c0). */
-  lnBound: Float64Array;
+  lnBound: ArrayLike<number>;
 }
 
 /** One target and its competitors in the water at one DOC (target c0 > 0). */

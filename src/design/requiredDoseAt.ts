@@ -29,34 +29,30 @@ export interface RequiredAtDoc {
  */
 export function requiredDoseAt(model: RemovalModel, problem: DesignProblem, reference: Design, near?: RequiredAtDoc): RequiredAtDoc {
   const docMgPerL = model.docMgPerL;
-  const full = (): RequiredAtDoc => {
-    const d = designDose(model, problem, reference);
-    return { docMgPerL, doseMgPerL: d.doseMgPerL, governedBy: d.governedBy };
-  };
   const base = near && near.doseMgPerL !== null ? near : reference;
-  if (base.doseMgPerL === null || !(base.doseMgPerL > 0) || reference.compounds.some((c) => c.status !== 'met' && c.status !== 'report only') || (reference.indicator && reference.indicator.status !== 'met')) return full();
+  if (base.doseMgPerL === null || !(base.doseMgPerL > 0) || !allMet(reference)) return full(model, problem, reference);
   const hint = base.doseMgPerL * (docMgPerL / base.docMgPerL);
   let dose: number | null;
   let solved: DoseAtRemoval | undefined;
-  if (base.governedBy === 'indicator mean') {
-    if (!problem.indicator) return full();
+  const governing = base.governedBy === 'indicator mean' ? -1 : governingIndex(model.compoundIds, base.governedBy);
+  if (governing === -1) {
+    if (!problem.indicator) return full(model, problem, reference);
     const r = indicatorDose(model, problem.indicator, hint);
     dose = r.status === 'met' ? r.doseMgPerL : null;
   } else {
-    const i = model.compoundIds.indexOf(base.governedBy.replace(/^compound /, ''));
-    if (i < 0) return full();
+    const i = governing;
+    if (i < 0) return full(model, problem, reference);
     const d = compoundDoseSolved(model, i, problem.goals[i]!, hint, false, near?.warm?.[i]);
     dose = d.dose.status === 'met' ? d.dose.doseMgPerL : null;
     solved = d.solved;
   }
-  if (dose === null || !(dose > 0)) return full();
+  if (dose === null || !(dose > 0)) return full(model, problem, reference);
   // every compound's removal at that dose, once (the indicator mean uses the same values); a
   // model's estimates with error bounds skip the solves whose outcome they already decide
   const D = dose / 1000;
   const T = problem.goals.length;
   const warm: WarmStart[] = near?.warm ? near.warm.slice() : new Array<WarmStart>(T);
-  const removal = new Float64Array(T).fill(NaN); // NaN: not solved yet
-  const governing = base.governedBy === 'indicator mean' ? -1 : model.compoundIds.indexOf(base.governedBy.replace(/^compound /, ''));
+  const removal = new Array<number>(T).fill(NaN); // NaN: not solved yet (a plain array: less to allocate than a typed one)
   let est: RemainingEstimates | undefined;
   if (governing >= 0 && solved) { warm[governing] = solved.warm; removal[governing] = 1 - solved.remainingFraction; }
   if (governing >= 0 && model.remainingEstimates) {
@@ -67,20 +63,51 @@ export function requiredDoseAt(model: RemovalModel, problem: DesignProblem, refe
     const goal = problem.goals[i]!;
     if (goal.kind === 'none' || !(goal.removalFraction > 0)) continue;
     if (est && est.lnRemaining[i]! + est.lnBound[i]! <= Math.log1p(-goal.removalFraction)) continue; // met for certain
-    if (exactRemoval(model, i, D, warm, removal) < goal.removalFraction - 1e-9) return full();
+    if (exactRemoval(model, i, D, warm, removal) < goal.removalFraction - 1e-9) return full(model, problem, reference);
   }
   if (problem.indicator) {
     const ind = problem.indicator;
-    const fixed = fixedSetOf(model, ind);
+    const fixed = fixedIndicatorSet(model, ind)?.set; // kept per goal and compound list
     // lower bounds of the removals first (the mean of any set rises with every removal)
     const certain = est !== undefined && indicatorMet(model, ind, fixed, D, warm, removal, est);
-    if (!certain && !indicatorMet(model, ind, fixed, D, warm, removal, undefined)) return full();
+    if (!certain && !indicatorMet(model, ind, fixed, D, warm, removal, undefined)) return full(model, problem, reference);
   }
   return { docMgPerL, doseMgPerL: dose, governedBy: base.governedBy, warm };
 }
 
+/** The full design at this DOC (what the fast path stands for when it does not apply). */
+function full(model: RemovalModel, problem: DesignProblem, reference: Design): RequiredAtDoc {
+  const d = designDose(model, problem, reference);
+  return { docMgPerL: model.docMgPerL, doseMgPerL: d.doseMgPerL, governedBy: d.governedBy };
+}
+
+/** Whether every goal of the reference design is met (or report only): the fast path's condition, kept per design. */
+const allMetCache = new WeakMap<Design, boolean>();
+function allMet(reference: Design): boolean {
+  let v = allMetCache.get(reference);
+  if (v === undefined) {
+    v = !reference.compounds.some((c) => c.status !== 'met' && c.status !== 'report only') && !(reference.indicator && reference.indicator.status !== 'met');
+    allMetCache.set(reference, v);
+  }
+  return v;
+}
+
+/** Index of the compound of "compound <id>" in `ids` (−2 when not there), kept per id list. */
+const governingIndices = new WeakMap<readonly string[], Map<string, number>>();
+function governingIndex(ids: readonly string[], governedBy: string): number {
+  let m = governingIndices.get(ids);
+  if (!m) governingIndices.set(ids, (m = new Map()));
+  let i = m.get(governedBy);
+  if (i === undefined) {
+    const k = ids.indexOf(governedBy.replace(/^compound /, ''));
+    i = k < 0 ? -2 : k;
+    m.set(governedBy, i);
+  }
+  return i;
+}
+
 /** Removal of compound i at dose D (g/L), solved once and kept in `removal` (NaN: not yet). */
-function exactRemoval(model: RemovalModel, i: number, D: number, warm: WarmStart[], removal: Float64Array): number {
+function exactRemoval(model: RemovalModel, i: number, D: number, warm: WarmStart[], removal: number[]): number {
   let v = removal[i]!;
   if (v !== v) {
     const r = model.remaining(i, D, warm[i]);
@@ -94,28 +121,21 @@ function exactRemoval(model: RemovalModel, i: number, D: number, warm: WarmStart
  * Whether the indicator mean reaches its goal at dose D: from lower bounds of the removals when
  * `est` is given (the solved ones exact, the others the estimate's bound), else from exact removals.
  */
-function indicatorMet(model: RemovalModel, ind: IndicatorGoal, fixed: number[] | undefined, D: number, warm: WarmStart[], removal: Float64Array, est: RemainingEstimates | undefined): boolean {
-  const value = (i: number): number => {
-    if (!est) return exactRemoval(model, i, D, warm, removal);
-    const v = removal[i]!;
-    return v === v ? v : 1 - Math.exp(est.lnRemaining[i]! + est.lnBound[i]!);
-  };
+function indicatorMet(model: RemovalModel, ind: IndicatorGoal, fixed: readonly number[] | undefined, D: number, warm: WarmStart[], removal: number[], est: RemainingEstimates | undefined): boolean {
   if (fixed) {
     // a set that does not depend on the removals: its mean directly (what selectIndicatorSet gives)
     let sum = 0;
-    for (let k = 0; k < fixed.length; k++) sum += 100 * value(fixed[k]!);
+    for (let k = 0; k < fixed.length; k++) sum += 100 * removalValue(model, fixed[k]!, D, warm, removal, est);
     return sum / fixed.length >= ind.goalPercent - 1e-7;
   }
-  const values: IndicatorValue[] = ind.members.map((m) => ({ id: model.compoundIds[m.index]!, category: m.category, removalPercent: 100 * value(m.index) }));
+  const values: IndicatorValue[] = ind.members.map((m) => ({ id: model.compoundIds[m.index]!, category: m.category, removalPercent: 100 * removalValue(model, m.index, D, warm, removal, est) }));
   return selectIndicatorSet(ind, values, false).set.meanRemovalPercent >= ind.goalPercent - 1e-7;
 }
 
-/** fixedIndicatorSet's indices, kept per goal and compound list (the same at every node and draw). */
-const fixedSets = new WeakMap<IndicatorGoal, { ids: readonly string[]; set: number[] | undefined }>();
-function fixedSetOf(model: RemovalModel, ind: IndicatorGoal): number[] | undefined {
-  const c = fixedSets.get(ind);
-  if (c && c.ids === model.compoundIds) return c.set;
-  const set = fixedIndicatorSet(model, ind)?.set;
-  fixedSets.set(ind, { ids: model.compoundIds, set });
-  return set;
+/** Compound i's removal for indicatorMet: exact (solved once), or with `est` the solved value or the estimate's lower bound. */
+function removalValue(model: RemovalModel, i: number, D: number, warm: WarmStart[], removal: number[], est: RemainingEstimates | undefined): number {
+  if (!est) return exactRemoval(model, i, D, warm, removal);
+  const v = removal[i]!;
+  return v === v ? v : 1 - Math.exp(est.lnRemaining[i]! + est.lnBound[i]!);
 }
+

@@ -135,15 +135,19 @@ function lumpedStart(pm: PreparedMixture, doseGPerL: number): { u: number; theta
 
 const scratch: Eval = { f1: 0, f2: 0, j11: 0, j12: 0, j21: 0, j22: 0 };
 
-function newton(pm: PreparedMixture, lnD: number, u0: number, th0: number): { u: number; theta: number; iterations: number } | undefined {
+/** Where `newton` leaves a converged root (one object for every solve: nothing allocated per call). */
+const newtonRoot = { u: 0, theta: 0, iterations: 0 };
+
+/** Newton's method from (u0, θ0); true with the root in `newtonRoot`, false when it fails. */
+function newton(pm: PreparedMixture, lnD: number, u0: number, th0: number): boolean {
   let u = u0, th = th0;
   const ev = scratch;
   evaluate(pm, lnD, u, th, ev);
-  if (!Number.isFinite(ev.f1) || !Number.isFinite(ev.f2)) return undefined;
+  if (!Number.isFinite(ev.f1) || !Number.isFinite(ev.f2)) return false;
   let merit = ev.f1 * ev.f1 + ev.f2 * ev.f2;
   for (let it = 1; it <= 80; it++) {
     const det = ev.j11 * ev.j22 - ev.j12 * ev.j21;
-    if (!Number.isFinite(det) || det === 0) return undefined;
+    if (!Number.isFinite(det) || det === 0) return false;
     let du = (-ev.f1 * ev.j22 + ev.f2 * ev.j12) / det;
     let dth = (-ev.f2 * ev.j11 + ev.f1 * ev.j21) / det;
     const big = Math.max(Math.abs(du) / 4, Math.abs(dth) / 8);
@@ -162,11 +166,13 @@ function newton(pm: PreparedMixture, lnD: number, u0: number, th0: number): { u:
     }
     if (!accepted) {
       evaluate(pm, lnD, u, th, ev);
-      return Math.max(Math.abs(ev.f1), Math.abs(ev.f2)) < F_TOL * 50 ? { u, theta: th, iterations: it } : undefined;
+      if (!(Math.max(Math.abs(ev.f1), Math.abs(ev.f2)) < F_TOL * 50)) return false;
+      newtonRoot.u = u; newtonRoot.theta = th; newtonRoot.iterations = it;
+      return true;
     }
-    if (Math.abs(ev.f1) < F_TOL && Math.abs(ev.f2) < F_TOL) return { u, theta: th, iterations: it };
+    if (Math.abs(ev.f1) < F_TOL && Math.abs(ev.f2) < F_TOL) { newtonRoot.u = u; newtonRoot.theta = th; newtonRoot.iterations = it; return true; }
   }
-  return undefined;
+  return false;
 }
 
 /** F1 for fixed θ, as a function of u (decreasing for θ < 0 form, increasing for θ ≥ 0). */
@@ -262,30 +268,32 @@ export function remainingAtState(pm: PreparedMixture, j: number, state: { u: num
 const lastSolve: { iterations: number; method: BatchSolution['method'] } = { iterations: 0, method: 'newton' };
 
 function solveState(pm: PreparedMixture, doseGPerL: number, warm: IastState | undefined, forceBracketed: boolean): IastState {
-  const options = { forceBracketed };
   const lnD = Math.log(doseGPerL);
   const start = warm && Number.isFinite(warm.u) && Number.isFinite(warm.theta) ? warm : lumpedStart(pm, doseGPerL);
-  let sol = options.forceBracketed ? undefined : newton(pm, lnD, start.u, start.theta);
+  let ok = forceBracketed ? false : newton(pm, lnD, start.u, start.theta);
   let method: BatchSolution['method'] = 'newton';
-  if (!sol && warm && !options.forceBracketed) sol = newton(pm, lnD, ...spread(lumpedStart(pm, doseGPerL)));
-  if (!sol) {
-    sol = bracketed(pm, lnD, start);
-    method = 'bracketed';
-    const polished = options.forceBracketed ? undefined : newton(pm, lnD, sol.u, sol.theta);
-    if (polished) sol = { ...polished, iterations: polished.iterations + sol.iterations };
+  if (!ok && warm && !forceBracketed) {
+    const lumped = lumpedStart(pm, doseGPerL);
+    ok = newton(pm, lnD, lumped.u, lumped.theta);
   }
-  const { u, theta } = sol;
+  let u: number, theta: number, iterations: number;
+  if (ok) {
+    u = newtonRoot.u; theta = newtonRoot.theta; iterations = newtonRoot.iterations;
+  } else {
+    const sol = bracketed(pm, lnD, start);
+    method = 'bracketed';
+    u = sol.u; theta = sol.theta; iterations = sol.iterations;
+    if (!forceBracketed && newton(pm, lnD, u, theta)) {
+      u = newtonRoot.u; theta = newtonRoot.theta; iterations = newtonRoot.iterations + sol.iterations;
+    }
+  }
   evaluateScratch(pm, lnD, u, theta);
   if (!(Math.abs(scratch.f1) < 1e-11 && Math.abs(scratch.f2) < 1e-11)) {
     throw new ComputationError(`batch IAST did not converge at dose ${doseGPerL * 1000} mg/L (residuals ${scratch.f1.toExponential(2)}, ${scratch.f2.toExponential(2)})`);
   }
-  lastSolve.iterations = sol.iterations;
+  lastSolve.iterations = iterations;
   lastSolve.method = method;
   return { u, theta };
-}
-
-function spread(s: { u: number; theta: number }): [number, number] {
-  return [s.u, s.theta];
 }
 
 /**

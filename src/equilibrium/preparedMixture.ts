@@ -64,13 +64,15 @@ export function prepareMixture(components: readonly FreundlichComponent[]): Prep
     a[j] = n[j]! * (Math.log(comp.oneOverN) - lnK[j]!);
     cTotal += comp.c0MgPerL;
   }
-  return new Mixture(components.length, new Int32Array(active), c0, n, beta, lnK, a, cTotal, components, undefined);
+  return new Mixture(components.length, new Int32Array(active), c0, n, beta, lnK, a, cTotal, components, undefined, undefined, 1, -1);
 }
 
 /**
  * Every prepared mixture is one of these (prepared, scaled or with a lead component), so that the
  * solvers' hot loops see one object layout. `ids` and `source` of a derived mixture are built
- * from `derive` only when asked for (hot loops never read them).
+ * only when asked for (hot loops never read them), from what it was derived from: `from` scaled
+ * by `factor` except component `fixedIndex` (scaleMixture), or `lead` before `from`
+ * (prependComponent); kept as data rather than a closure (nothing more to allocate per mixture).
  */
 class Mixture implements PreparedMixture {
   readonly lnCTotal: number;
@@ -87,7 +89,10 @@ class Mixture implements PreparedMixture {
     readonly a: Float64Array,
     readonly cTotal: number,
     source: readonly FreundlichComponent[] | undefined,
-    private readonly derive: (() => readonly FreundlichComponent[]) | undefined,
+    private readonly from: PreparedMixture | undefined,
+    private readonly lead: FreundlichComponent | undefined,
+    private readonly factor: number,
+    private readonly fixedIndex: number,
   ) {
     this.lnCTotal = Math.log(cTotal);
     this.sourceCache = source;
@@ -103,7 +108,7 @@ class Mixture implements PreparedMixture {
   }
 
   get source(): readonly FreundlichComponent[] {
-    return (this.sourceCache ??= this.derive!());
+    return (this.sourceCache ??= this.lead ? [this.lead, ...this.from!.source] : scaledSource(this.from!, this.factor, this.fixedIndex));
   }
 }
 
@@ -150,7 +155,7 @@ export function scaleMixture(pm: PreparedMixture, factor: number, fixedIndex = -
   }
   if (ok && !(factor >= 0 && Number.isFinite(factor))) ok = false;
   if (!ok) return prepareMixture(scaledSource(pm, factor, fixedIndex)); // leaves the active set, or its error message
-  return new Mixture(pm.size, pm.active, c0, pm.n, pm.beta, pm.lnK, pm.a, cTotal, undefined, () => scaledSource(pm, factor, fixedIndex));
+  return new Mixture(pm.size, pm.active, c0, pm.n, pm.beta, pm.lnK, pm.a, cTotal, undefined, pm, undefined, factor, fixedIndex);
 }
 
 function scaledSource(pm: PreparedMixture, factor: number, fixedIndex: number): FreundlichComponent[] {
@@ -169,7 +174,12 @@ export function prependComponent(lead: FreundlichComponent, rest: PreparedMixtur
   const r = rest.c0.length;
   const first = lead.K > 0 && lead.c0MgPerL > 0 ? 1 : 0;
   const m = r + first;
-  const active = new Int32Array(m), c0 = new Float64Array(m), n = new Float64Array(m), beta = new Float64Array(m), lnK = new Float64Array(m), a = new Float64Array(m);
+  // the five number arrays as views of one buffer, the index array shared by every lead of `rest`
+  // (nothing writes into a prepared mixture): fewer allocations where a Monte Carlo draw
+  // prepares every target beside its background
+  const all = new Float64Array(5 * m);
+  const c0 = all.subarray(0, m), n = all.subarray(m, 2 * m), beta = all.subarray(2 * m, 3 * m), lnK = all.subarray(3 * m, 4 * m), a = all.subarray(4 * m, 5 * m);
+  const active = activeAfterLead(rest, first);
   if (first) {
     c0[0] = lead.c0MgPerL;
     beta[0] = lead.oneOverN;
@@ -179,11 +189,23 @@ export function prependComponent(lead: FreundlichComponent, rest: PreparedMixtur
   }
   c0.set(rest.c0, first); n.set(rest.n, first); beta.set(rest.beta, first); lnK.set(rest.lnK, first); a.set(rest.a, first);
   let cTotal = 0;
-  for (let j = 0; j < m; j++) {
-    active[j] = j < first ? 0 : rest.active[j - first]! + 1;
-    cTotal += c0[j]!; // the order of prepareMixture's sum
+  for (let j = 0; j < m; j++) cTotal += c0[j]!; // the order of prepareMixture's sum
+  return new Mixture(rest.size + 1, active, c0, n, beta, lnK, a, cTotal, undefined, rest, lead, 1, -1);
+}
+
+/** The active indices of `rest` behind a lead (active or not), kept per mixture. */
+const leadActive = new WeakMap<PreparedMixture, [Int32Array | undefined, Int32Array | undefined]>();
+function activeAfterLead(rest: PreparedMixture, first: number): Int32Array {
+  let pair = leadActive.get(rest);
+  if (!pair) leadActive.set(rest, (pair = [undefined, undefined]));
+  let active = pair[first];
+  if (!active) {
+    const m = rest.active.length + first;
+    active = new Int32Array(m);
+    for (let j = 0; j < m; j++) active[j] = j < first ? 0 : rest.active[j - first]! + 1;
+    pair[first] = active;
   }
-  return new Mixture(rest.size + 1, active, c0, n, beta, lnK, a, cTotal, undefined, () => [lead, ...rest.source]);
+  return active;
 }
 
 /** The checks of `prependComponent` alone. @throws InputError as prependComponent */

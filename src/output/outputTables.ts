@@ -93,17 +93,75 @@ export function carbonsCsv(r: PipelineResult): string {
   ], rows);
 }
 
-/** daily_doses.csv: one line per day and carbon, written line by line (a long series has 73,000 of them). */
+/**
+ * daily_doses.csv: one line per day and carbon (a long series has 73,000 of them), written as
+ * bytes (AsciiText) rather than as one string per line: the same text, without keeping tens of
+ * thousands of small strings alive until the join (most of the cost was garbage collection).
+ */
 export function dailyDosesCsv(r: PipelineResult): string {
-  const lines = [['date', 'carbon', 'DOC (mg/L)', 'flow (m3/d)', 'dose (mg/L)', 'governed by', 'carbon (kg/d)', 'carbon cost per day', 'currency'].map(cell).join(',')];
+  const header = ['date', 'carbon', 'DOC (mg/L)', 'flow (m3/d)', 'dose (mg/L)', 'governed by', 'carbon (kg/d)', 'carbon cost per day', 'currency'].map(cell).join(',');
+  let days = 0;
+  for (const cr of r.carbons) days += cr.daily?.rows.length ?? 0;
+  const out = new AsciiText(header.length + 1 + days * 120);
+  if (!out.add(header)) return dailyDosesLines(r, header);
+  out.byte(10);
   const texts = new Map<string, string>(); // the few texts of every day (governing goal) made once
   const text = (t: string): string => { let c = texts.get(t); if (c === undefined) { c = cell(t); texts.set(t, c); } return c; };
   for (const cr of r.carbons) {
+    const name = `,${cell(cr.carbon.name)},`;
+    const currency = `,${cell(cr.carbon.currency)}`;
+    for (const d of cr.daily?.rows ?? []) {
+      // a text that is not ASCII: the same lines as strings
+      if (!out.add(cell(d.date)) || !out.add(name) || !out.add(cell(d.docMgPerL))) return dailyDosesLines(r, header);
+      out.byte(44); out.add(cell(d.flowM3PerD));
+      out.byte(44); out.add(cell(d.doseMgPerL));
+      out.byte(44); if (!out.add(text(d.governedBy))) return dailyDosesLines(r, header);
+      out.byte(44); out.add(cell(d.carbonKgPerD));
+      out.byte(44); out.add(cell(d.cost));
+      if (!out.add(currency)) return dailyDosesLines(r, header);
+      out.byte(10);
+    }
+  }
+  return out.text();
+}
+
+/** daily_doses.csv as lines of strings (any text). */
+function dailyDosesLines(r: PipelineResult, header: string): string {
+  const lines = [header];
+  for (const cr of r.carbons) {
     const name = cell(cr.carbon.name);
     const currency = cell(cr.carbon.currency);
-    for (const d of cr.daily?.rows ?? []) lines.push(`${cell(d.date)},${name},${cell(d.docMgPerL)},${cell(d.flowM3PerD)},${cell(d.doseMgPerL)},${text(d.governedBy)},${cell(d.carbonKgPerD)},${cell(d.cost)},${currency}`);
+    for (const d of cr.daily?.rows ?? []) lines.push(`${cell(d.date)},${name},${cell(d.docMgPerL)},${cell(d.flowM3PerD)},${cell(d.doseMgPerL)},${cell(d.governedBy)},${cell(d.carbonKgPerD)},${cell(d.cost)},${currency}`);
   }
   return lines.join('\n') + '\n';
+}
+
+/** ASCII text gathered as bytes in one growing buffer, decoded once. */
+class AsciiText {
+  private buf: Uint8Array;
+  private n = 0;
+  constructor(capacity: number) { this.buf = new Uint8Array(Math.max(64, capacity)); }
+  private room(k: number): void {
+    if (this.n + k <= this.buf.length) return;
+    const b = new Uint8Array(Math.max(this.buf.length * 2, this.n + k));
+    b.set(this.buf.subarray(0, this.n));
+    this.buf = b;
+  }
+  /** Append a text; false (nothing appended) when it is not ASCII. */
+  add(s: string): boolean {
+    const len = s.length;
+    this.room(len);
+    const buf = this.buf, start = this.n;
+    for (let i = 0; i < len; i++) {
+      const c = s.charCodeAt(i);
+      if (c > 127) return false;
+      buf[start + i] = c;
+    }
+    this.n = start + len;
+    return true;
+  }
+  byte(c: number): void { this.room(1); this.buf[this.n++] = c; }
+  text(): string { return new TextDecoder().decode(this.buf.subarray(0, this.n)); }
 }
 
 export function indicatorsCsv(r: PipelineResult): string {

@@ -59,8 +59,17 @@ function resolvedInputs(p: ProjectSpec): Record<string, unknown> {
 
 /** The run record as a plain JSON-ready object, snake_case throughout (src/output/snakeCaseJson.ts). */
 export function runRecord(r: PipelineResult, env: RunEnvironment): Record<string, unknown> {
+  return toSnakeCaseJson(runRecordSource(r, env)) as Record<string, unknown>;
+}
+
+/**
+ * The run record before the snake_case conversion (core results still camelCase, user-id maps
+ * marked): run.json is `snakeCaseJsonText(runRecordSource(…))`, converted while it is written
+ * (no renamed copy of a long series' per-day rows).
+ */
+export function runRecordSource(r: PipelineResult, env: RunEnvironment): Record<string, unknown> {
   const doc = r.project.site.docMgPerL;
-  return toSnakeCaseJson({
+  return {
     tool: { name: 'sorbshare', version: env.toolVersion },
     node: env.nodeVersion,
     platform: env.platform ?? null,
@@ -121,5 +130,5 @@ export function runRecord(r: PipelineResult, env: RunEnvironment): Record<string
       warnings: r.warnings,
     },
     timing_ms: userIdMap(r.timingMs),
-  }) as Record<string, unknown>;
+  };
 }

@@ -147,7 +147,157 @@ export function jsonText(value: unknown): string {
   });
 }
 
-/** The JSON text of a result (two-space indent, long arrays one element per line; see jsonText), snake_case: every JSON writer prints through this. */
+/**
+ * The JSON text of a result (two-space indent, long arrays one element per line; see jsonText),
+ * snake_case: every JSON writer prints through this. The text is jsonText(toSnakeCaseJson(value)),
+ * written in one pass over `value` without the renamed copy (a 36,500-day run.json is 15 MB of
+ * per-day objects): plain objects, user-id maps, arrays and typed arrays are written here, with
+ * JSON.stringify's rules (numbers as String(n), non-finite as null, undefined members left out
+ * and null in arrays, JSON.stringify's string quoting); anything else (a Date, a class instance,
+ * an object with toJSON) is handed to jsonText as before.
+ */
 export function snakeCaseJsonText(value: unknown): string {
-  return jsonText(toSnakeCaseJson(value));
+  const text = prettyText(value, '');
+  return text as string; // undefined only where JSON.stringify gives undefined too
+}
+
+/** Quoted JSON names of keys (renamed, and as they are for user-id maps), made once per key. */
+const quotedRenamed = new Map<string, string>();
+const quotedKept = new Map<string, string>();
+function quotedKey(key: string, renamed: boolean): string {
+  const cache = renamed ? quotedRenamed : quotedKept;
+  let q = cache.get(key);
+  if (q === undefined) {
+    q = JSON.stringify(renamed ? snakeCaseKey(key) : key);
+    if (cache.size > 10_000) cache.clear(); // user ids as keys: keep the cache small
+    cache.set(key, q);
+  }
+  return q;
+}
+
+/** How the direct writer treats a value (what toSnakeCaseJson would make of it). */
+enum Shape { Primitive, Map, Array, View, Plain, Other }
+
+function shapeOf(v: unknown): Shape {
+  if (v === null || typeof v !== 'object') return Shape.Primitive;
+  if (v instanceof UserIdMap) return Shape.Map;
+  if (Array.isArray(v)) return Shape.Array;
+  if (ArrayBuffer.isView(v)) return Shape.View;
+  const proto = Object.getPrototypeOf(v);
+  if (proto !== Object.prototype && proto !== null) return Shape.Other;
+  return typeof (v as { toJSON?: unknown }).toJSON === 'function' ? Shape.Other : Shape.Plain;
+}
+
+/** JSON text of a primitive as JSON.stringify writes it (undefined: left out). */
+function primitiveText(v: unknown): string | undefined {
+  switch (typeof v) {
+    case 'number': return Number.isFinite(v) ? String(v) : 'null';
+    case 'string': return JSON.stringify(v);
+    case 'boolean': return v ? 'true' : 'false';
+    case 'object': return 'null'; // null
+    case 'bigint': return JSON.stringify(v); // throws as JSON.stringify does
+    default: return undefined; // undefined, function, symbol
+  }
+}
+
+/** A member of an object: its key (renamed unless in a user-id map) and the value as toSnakeCaseJson converts it. */
+function memberValue(src: Record<string, unknown>, k: string, userIds: boolean): { value: unknown; asMap: boolean } {
+  const v = src[k];
+  if (userIds) return { value: v, asMap: false };
+  const isMap = USER_ID_MAP_FIELDS.has(k) && v !== null && typeof v === 'object' && !Array.isArray(v) && !ArrayBuffer.isView(v);
+  return { value: v, asMap: isMap };
+}
+
+/**
+ * Pretty text (two-space indent, at `indent`) of `v` after toSnakeCaseJson; `asMap`: v is a map
+ * whose keys are kept (convertMap). undefined where JSON.stringify leaves the value out.
+ */
+function prettyText(v: unknown, indent: string, asMap = false): string | undefined {
+  const shape = asMap ? Shape.Map : shapeOf(v);
+  switch (shape) {
+    case Shape.Primitive: return primitiveText(v);
+    case Shape.Other: {
+      const t = jsonText(v);
+      return t === undefined ? undefined : indent === '' ? t : t.replace(/\n/g, `\n${indent}`);
+    }
+    case Shape.Array: case Shape.View: {
+      const a = v as ArrayLike<unknown>;
+      const len = a.length;
+      if (len === 0) return '[]';
+      const inner = `${indent}  `;
+      const parts = new Array<string>(len);
+      if (len > LONG_ARRAY) {
+        const lines = longArrayLines(a, inner);
+        if (lines !== undefined) return `[\n${inner}${lines}\n${indent}]`;
+        // the general case: each element converted, then compact (what jsonText does)
+        for (let i = 0; i < len; i++) parts[i] = (JSON.stringify(toSnakeCaseJson(a[i])) as string | undefined) ?? 'null';
+      } else {
+        for (let i = 0; i < len; i++) parts[i] = prettyText(a[i], inner) ?? 'null';
+      }
+      return `[\n${inner}${parts.join(`,\n${inner}`)}\n${indent}]`;
+    }
+    default: {
+      // a plain object (keys renamed) or a user-id map (keys kept; asMap or a UserIdMap)
+      const userIds = shape === Shape.Map;
+      const src = (!asMap && v instanceof UserIdMap ? v.entries : v) as Record<string, unknown>;
+      const inner = `${indent}  `;
+      let out = '';
+      for (const k of Object.keys(src)) {
+        const m = memberValue(src, k, userIds);
+        const t = prettyText(m.value, inner, m.asMap);
+        if (t === undefined) continue;
+        out += `${out === '' ? '' : ','}\n${inner}${quotedKey(k, !userIds)}: ${t}`;
+      }
+      return out === '' ? '{}' : `{${out}\n${indent}}`;
+    }
+  }
+}
+
+/**
+ * The lines of a long array (joined by ",\n" + inner) written by one native JSON.stringify, for
+ * the two shapes of per-day data: numbers only, and flat plain objects (every value a primitive;
+ * per-day rows, renamed as toSnakeCaseJson does). In compact JSON text a quote inside a string is
+ * always escaped, so `},{"` occurs only between two objects of such an array or at the end of a
+ * string ending in "},{" (such arrays are left to the general case). undefined for any other
+ * array (written element by element).
+ */
+function longArrayLines(a: ArrayLike<unknown>, inner: string): string | undefined {
+  const len = a.length;
+  if (ArrayBuffer.isView(a) && !(a instanceof BigInt64Array || a instanceof BigUint64Array)) {
+    return len === 0 ? '' : JSON.stringify(Array.from(a)).slice(1, -1).replaceAll(',', `,\n${inner}`);
+  }
+  let numbers = true, rows = true;
+  const renamed = new Set<string>();
+  for (let i = 0; i < len && (numbers || rows); i++) {
+    const e = a[i];
+    if (typeof e !== 'number') numbers = false;
+    if (!rows) continue;
+    if (e === null || typeof e !== 'object' || Array.isArray(e) || e instanceof UserIdMap || ArrayBuffer.isView(e)) { rows = false; continue; }
+    const proto = Object.getPrototypeOf(e);
+    if (proto !== Object.prototype && proto !== null) { rows = false; continue; }
+    let written = false;
+    for (const k in e) {
+      const v = (e as Record<string, unknown>)[k];
+      // a string (or key) ending in "},{" would end its text with `},{"`: written element by element
+      if (k === 'toJSON' || (v !== null && typeof v === 'object') || (typeof v === 'string' && v.endsWith('},{')) || k.endsWith('},{')) { rows = false; break; }
+      if (v !== undefined && typeof v !== 'function' && typeof v !== 'symbol') written = true;
+      if (!renamed.has(k) && snakeCaseKey(k) !== k) renamed.add(k);
+    }
+    if (!written) rows = false; // `{}` would not be split safely
+  }
+  if (numbers) return JSON.stringify(Array.isArray(a) ? a : Array.prototype.slice.call(a)).slice(1, -1).replaceAll(',', `,\n${inner}`);
+  if (!rows) return undefined;
+  let source: ArrayLike<unknown> = a;
+  if (renamed.size > 0) {
+    // renamed copies (the same key order; rows of one shape share one hidden class)
+    const copies = new Array<Record<string, unknown>>(len);
+    for (let i = 0; i < len; i++) {
+      const e = a[i] as Record<string, unknown>;
+      const o: Record<string, unknown> = {};
+      for (const k in e) o[renamed.has(k) ? snakeCaseKey(k) : k] = e[k];
+      copies[i] = o;
+    }
+    source = copies;
+  }
+  return (JSON.stringify(Array.isArray(source) ? source : Array.prototype.slice.call(source)) as string).slice(1, -1).replaceAll('},{"', `},\n${inner}{"`);
 }

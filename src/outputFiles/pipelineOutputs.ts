@@ -7,7 +7,7 @@ import { renderMarkdownSummary } from '../report/markdownSummary.js';
 import { buildReportModel } from '../output/buildReportModel.js';
 import { carbonsCsv, compoundsCsv, dailyDosesCsv, indicatorsCsv, removalCurvesCsv } from '../output/outputTables.js';
 import { gacCsv, pilotCheckCsv, setpointsCsv, surrogatesCsv, uncertaintyCsv } from '../output/surrogateGacUncertaintyTables.js';
-import { runRecord, type RunEnvironment } from '../output/runRecord.js';
+import { runRecordSource, type RunEnvironment } from '../output/runRecord.js';
 import type { PipelineResult } from '../pipeline/pipelineTypes.js';
 import { snakeCaseJsonText } from '../output/snakeCaseJson.js';
 import { kineticCalibrationCsv } from '../output/kineticCalibrationRecord.js';
@@ -52,6 +52,6 @@ export function pipelineOutputs(r: PipelineResult, env: RunEnvironment, tables: 
     'summary.md': renderMarkdownSummary(model),
     'report.html': renderHtmlReport(model),
     ...tables,
-    'run.json': snakeCaseJsonText(runRecord(r, env)) + '\n',
+    'run.json': snakeCaseJsonText(runRecordSource(r, env)) + '\n', // converted while written (runRecord's object, one pass)
   };
 }

@@ -19,6 +19,12 @@ describe('date axis (month ticks)', () => {
     expect(dayNumber('2024-03-01') - dayNumber('2024-02-01')).toBe(29); // 2024 is a leap year
     expect(dayNumber('2025-03-01') - dayNumber('2025-02-01')).toBe(28);
     expect(() => dayNumber('01.02.2025')).toThrow(/ISO date/);
+    for (const bad of ['2025-1-01', '2025-01-0x', '2025/01/01', ' 2025-01-01', '2025-01-01 ', '２０２５-01-01']) expect(() => dayNumber(bad), bad).toThrow(/ISO date/);
+    // days of 1900–2100 (every 29th, all weekdays and months) against the date's own time value (ECMA-262 Date: ms since 1970-01-01 UTC)
+    for (let t = Date.UTC(1900, 0, 1); t <= Date.UTC(2100, 11, 31); t += 86_400_000 * 29 + 3_600_000) {
+      const day = Math.floor(t / 86_400_000);
+      expect(dayNumber(new Date(day * 86_400_000).toISOString().slice(0, 10))).toBe(day);
+    }
   });
 
   it('a calendar year gets ticks on the first of every month and at most eight labels', () => {

@@ -37,7 +37,7 @@ export function validRuns(points: ReadonlyArray<readonly [number, number]>, xLog
       run = [];
       continue;
     }
-    run.push([x, y]);
+    run.push(p as [number, number]); // the point itself (runs are only read): no copy of a long series' points
   }
   if (run.length) out.runs.push(run);
   return out;

@@ -43,7 +43,7 @@ export function renderXYPlot(spec: XYPlotSpec, opts: PlotRenderOptions = {}): st
   const xv: number[] = [];
   const yv: number[] = [];
   for (const { runs, band } of series) {
-    for (const run of runs.runs) for (const [x, y] of run) (xv.push(x), yv.push(y));
+    for (const run of runs.runs) for (let i = 0; i < run.length; i++) (xv.push(run[i]![0]), yv.push(run[i]![1]));
     for (const b of band?.runs ?? []) for (let i = 0; i < b.x.length; i++) (xv.push(b.x[i]!), yv.push(b.lower[i]!, b.upper[i]!));
   }
   const hasData = xv.length > 0;

@@ -8,7 +8,7 @@
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { beforeAll, describe, expect, it } from 'vitest';
-import { HAVE_CHROMIUM, inspectPlots, openReport, saveScreenshot, type PageDocument, type PageNode } from './browserHarness.js';
+import { HAVE_CHROMIUM, itWithChromium, inspectPlots, openReport, saveScreenshot, type PageDocument, type PageNode } from './browserHarness.js';
 import { loadProject } from '../../src/io/loadProject.js';
 import { buildReportModel } from '../../src/output/buildReportModel.js';
 import { renderHtmlReport } from '../../src/report/htmlReport.js';
@@ -33,7 +33,7 @@ beforeAll(async () => {
 }, 120_000);
 
 describe('the client report in headless Chromium', () => {
-  it.skipIf(!HAVE_CHROMIUM)('every figure has data; one look per compound; month ticks; references; A4 screenshot', async () => {
+  itWithChromium('every figure has data; one look per compound; month ticks; references; A4 screenshot', async () => {
     const ids = reportPlotIds(model);
     for (const want of ['calibration-1', 'dose-against-doc-1', 'sensitivity-dose-1', 'sensitivity-cost-1', 'pac-gac-mass', 'pac-gac-cost-m3', 'pac-gac-cost-year', 'daily-dose', 'daily-doc', 'background-fractions']) expect(ids).toContain(want);
     const { page, close, errors, requests } = await openReport(renderHtmlReport(model), A4_PX);

@@ -87,7 +87,7 @@ export function surrogatesAt(model: RemovalModel, doseMgPerL: number, uv254Absor
  */
 function indicatorHint(goal: IndicatorGoal, solved: ReadonlyArray<DoseAtRemoval | undefined>): number | undefined {
   const n = goal.members.length;
-  const x = new Array<number>(n).fill(0), l = new Array<number>(n).fill(0), s = new Array<number>(n).fill(0);
+  const x = new Float64Array(n), l = new Float64Array(n), s = new Float64Array(n);
   for (let k = 0; k < n; k++) {
     const d = solved[goal.members[k]!.index];
     if (!d || d.slope === undefined || !(d.slope < 0) || !(d.remainingFraction > 0)) return undefined;

@@ -52,7 +52,7 @@ export function requiredDoseAt(model: RemovalModel, problem: DesignProblem, refe
   const D = dose / 1000;
   const T = problem.goals.length;
   const warm: WarmStart[] = near?.warm ? near.warm.slice() : new Array<WarmStart>(T);
-  const removal = new Array<number>(T).fill(NaN); // NaN: not solved yet (a plain array: less to allocate than a typed one)
+  const removal = new Array<number>(T).fill(NaN); // NaN: not solved yet (a plain array: a typed array of more than 8 numbers is allocated outside the JS heap)
   let est: RemainingEstimates | undefined;
   if (governing >= 0 && solved) { warm[governing] = solved.warm; removal[governing] = 1 - solved.remainingFraction; }
   if (governing >= 0 && model.remainingEstimates) {

@@ -10,6 +10,8 @@
  * 'report only' (a compound without a goal: no dose, so it never governs).
  * Throws ComputationError if a solve or the search fails, or the dose found misses the goal by
  * more than the model's `removalTolerance` (1e-9 by default).
+ * Every result has the same fields (absent ones undefined, left out of JSON): one object layout
+ * for the Monte Carlo's hot code, whatever the status.
  */
 import { ComputationError } from '../core/errors.js';
 import type { CompoundGoal } from './compoundGoal.js';
@@ -46,16 +48,16 @@ export function compoundDose(model: RemovalModel, index: number, goal: CompoundG
  */
 export function compoundDoseSolved(model: RemovalModel, index: number, goal: CompoundGoal, hintMgPerL?: number, withSlope = false, warmStart?: WarmStart): { dose: CompoundDose; solved?: DoseAtRemoval } {
   const compoundId = model.compoundIds[index]!;
-  if (goal.kind === 'none') return { dose: { compoundId, status: 'report only', doseMgPerL: null, removalFraction: null, message: `"${compoundId}" is reported only: it has no goal and does not govern the dose` } };
+  if (goal.kind === 'none') return { dose: { compoundId, status: 'report only', doseMgPerL: null, removalFraction: null, message: `"${compoundId}" is reported only: it has no goal and does not govern the dose` }, solved: undefined };
   if (goal.removalFraction <= 0) {
-    return { dose: { compoundId, status: 'met without carbon', doseMgPerL: 0, removalFraction: 0, message: `${goal.text} is met without carbon (c0 is already at or below it)` } };
+    return { dose: { compoundId, status: 'met without carbon', doseMgPerL: 0, removalFraction: 0, message: `${goal.text} is met without carbon (c0 is already at or below it)` }, solved: undefined };
   }
   const direct = model.doseForRemoval?.(index, goal.removalFraction, warmStart, withSlope);
   if (direct && direct.doseGPerL >= MIN_DOSE_G_PER_L && direct.doseGPerL <= MAX_DOSE_G_PER_L) {
     // the model's inverse: the same root as the search below, without searching
     const reached = 1 - direct.remainingFraction;
     checkReached(model, compoundId, reached, goal.removalFraction, 'dose');
-    return { dose: { compoundId, status: 'met', doseMgPerL: direct.doseGPerL * 1000, removalFraction: reached }, solved: direct };
+    return { dose: { compoundId, status: 'met', doseMgPerL: direct.doseGPerL * 1000, removalFraction: reached, message: undefined }, solved: direct };
   }
   return searchedDose(model, index, goal, hintMgPerL);
 }
@@ -83,16 +85,23 @@ function searchedDose(model: RemovalModel, index: number, goal: CompoundGoal, hi
   const pct = (f: number) => `${(f * 100).toPrecision(4)} %`;
   if (r.status === 'unreachable') {
     const reached = 1 - model.remaining(index, MAX_DOSE_G_PER_L).remainingFraction;
-    return { dose: { compoundId, status: 'unreachable', doseMgPerL: null, removalFraction: reached, message: `the goal of ${pct(goal.removalFraction)} removal of "${compoundId}" is not reached by any dose up to ${MAX_DOSE_G_PER_L * 1000} mg/L (it reaches ${pct(reached)} there)` } };
+    return { dose: { compoundId, status: 'unreachable', doseMgPerL: null, removalFraction: reached, message: `the goal of ${pct(goal.removalFraction)} removal of "${compoundId}" is not reached by any dose up to ${MAX_DOSE_G_PER_L * 1000} mg/L (it reaches ${pct(reached)} there)` }, solved: undefined };
   }
   if (r.status === 'met below the smallest dose') {
-    return { dose: { compoundId, status: 'met below the smallest dose', doseMgPerL: 0, removalFraction: null, message: `the goal of ${pct(goal.removalFraction)} removal of "${compoundId}" is already met below ${MIN_DOSE_G_PER_L * 1000} mg/L of carbon` } };
+    return { dose: { compoundId, status: 'met below the smallest dose', doseMgPerL: 0, removalFraction: null, message: `the goal of ${pct(goal.removalFraction)} removal of "${compoundId}" is already met below ${MIN_DOSE_G_PER_L * 1000} mg/L of carbon` }, solved: undefined };
   }
   // Brent's answer is normally its last evaluation: reuse it rather than solve again
   const reached = 1 - (lastDose === r.doseGPerL ? lastRemaining : model.remaining(index, r.doseGPerL, warm).remainingFraction);
   checkReached(model, compoundId, reached, goal.removalFraction, 'dose search');
-  return { dose: { compoundId, status: 'met', doseMgPerL: r.doseGPerL * 1000, removalFraction: reached } };
+  return { dose: { compoundId, status: 'met', doseMgPerL: r.doseGPerL * 1000, removalFraction: reached, message: undefined }, solved: undefined };
 }
+
+/** Results made once at load with and without numbers (see requiredDoseAt.ts: layouts that a rare null mid-run does not change). */
+const layoutPrimers: ReadonlyArray<{ dose: CompoundDose; solved?: DoseAtRemoval }> = [
+  { dose: { compoundId: '', status: 'met', doseMgPerL: 1.5, removalFraction: 0.5, message: undefined }, solved: undefined },
+  { dose: { compoundId: '', status: 'unreachable', doseMgPerL: null, removalFraction: null, message: '' }, solved: undefined },
+];
+void layoutPrimers;
 
 /** The removal reached at the dose found must sit within the model's accuracy of the goal. @throws ComputationError */
 function checkReached(model: RemovalModel, compoundId: string, reached: number, goal: number, what: string): void {

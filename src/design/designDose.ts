@@ -87,7 +87,7 @@ export function surrogatesAt(model: RemovalModel, doseMgPerL: number, uv254Absor
  */
 function indicatorHint(goal: IndicatorGoal, solved: ReadonlyArray<DoseAtRemoval | undefined>): number | undefined {
   const n = goal.members.length;
-  const x = new Array<number>(n).fill(0), l = new Array<number>(n).fill(0), s = new Array<number>(n).fill(0);
+  const x = new Float64Array(n), l = new Float64Array(n), s = new Float64Array(n);
   for (let k = 0; k < n; k++) {
     const d = solved[goal.members[k]!.index];
     if (!d || d.slope === undefined || !(d.slope < 0) || !(d.remainingFraction > 0)) return undefined;
@@ -101,6 +101,13 @@ function indicatorHint(goal: IndicatorGoal, solved: ReadonlyArray<DoseAtRemoval 
   const root = powerLawRoot(x0, x, l, s, goal.goalPercent);
   return root === undefined ? undefined : Math.exp(root) * 1000;
 }
+
+/** Designs made once at load with and without numbers (see requiredDoseAt.ts: layouts that a rare null mid-run does not change). */
+const layoutPrimers: readonly Design[] = [
+  { docMgPerL: 1.5, compounds: [], doseMgPerL: 1.5, governedBy: '', costPerM3: 1.5, governing: undefined, indicator: undefined, surrogate: { doseMgPerL: 1.5, docReduction: 0.5, uv254Reduction: 0.5 } },
+  { docMgPerL: 1.5, compounds: [], doseMgPerL: null, governedBy: '', costPerM3: null, governing: { compoundId: '', doseMgPerL: 1.5 }, indicator: { status: 'unreachable', doseMgPerL: null }, surrogate: { doseMgPerL: 1.5, docReduction: 0.5, uv254Reduction: null } },
+];
+void layoutPrimers;
 
 /**
  * @param model the removal model of the carbon at the water's DOC
@@ -133,11 +140,13 @@ export function designDoseWarm(model: RemovalModel, problem: DesignProblem, near
   for (const c of compounds) {
     if (c.doseMgPerL !== null && (!governing || c.doseMgPerL > governing.doseMgPerL)) governing = { compoundId: c.compoundId, doseMgPerL: c.doseMgPerL };
   }
+  // every field present (undefined when absent, which JSON leaves out), in the order they are
+  // filled: one object layout whatever the outcome (the Monte Carlo's hot code sees one shape)
   const out: Design = {
     docMgPerL, compounds, doseMgPerL: governing?.doseMgPerL ?? null,
     governedBy: governing ? `compound ${governing.compoundId}` : 'nothing reachable', costPerM3: null,
+    governing, indicator: undefined, surrogate: undefined,
   };
-  if (governing) out.governing = governing;
   if (problem.indicator) {
     const prior = near?.indicator;
     const hint = indicatorHint(problem.indicator, solved) ?? (prior && prior.status === 'met' && prior.doseMgPerL ? prior.doseMgPerL * scale : undefined);

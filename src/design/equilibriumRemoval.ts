@@ -47,7 +47,8 @@ export class EquilibriumRemoval implements RemovalModel {
   readonly compoundIds: readonly string[];
   readonly backgroundC0MgPerL?: Float64Array;
   private readonly mixtures: Array<PreparedMixture | undefined>;
-  private readonly c0: Float64Array;
+  /** Feed concentrations of the targets (a plain array: a typed array of more than 8 numbers is allocated outside the JS heap, dearer per draw). */
+  private readonly c0: readonly number[];
   private bgMixture?: PreparedMixture;
   private setsCache?: readonly CompetitionSet[];
   private backgroundCache?: readonly FreundlichComponent[];
@@ -77,7 +78,7 @@ export class EquilibriumRemoval implements RemovalModel {
     }
     this.setsCache = sets;
     this.compoundIds = sets.map((s) => s.target.id);
-    this.c0 = Float64Array.from(sets, (s, i) => {
+    this.c0 = sets.map((s, i) => {
       if (!(s.target.c0MgPerL > 0) || !Number.isFinite(s.target.c0MgPerL)) throw new InputError(`expected a feed concentration > 0 mg/L for "${s.target.id}", got ${s.target.c0MgPerL}`, { path: `compounds[${i}].c0` });
       return s.target.c0MgPerL;
     });

@@ -57,7 +57,7 @@ export function indicatorDoseNewton(model: RemovalModel, set: readonly number[],
   if (!(x > lo0 && x < hi0)) return undefined;
   let lo = lo0, hi = hi0; // leaving the searched doses means "search" (statuses)
   const warm: WarmStart[] = set.map((i) => warmStarts?.[i]);
-  const xs = new Array<number>(set.length).fill(0), l = new Array<number>(set.length).fill(0), s = new Array<number>(set.length).fill(0);
+  const xs = new Float64Array(set.length), l = new Float64Array(set.length), s = new Float64Array(set.length);
   for (let it = 0; it < 30; it++) {
     const D = Math.exp(x);
     let mean = 0;

@@ -52,7 +52,7 @@ export function requiredDoseAt(model: RemovalModel, problem: DesignProblem, refe
   const D = dose / 1000;
   const T = problem.goals.length;
   const warm: WarmStart[] = near?.warm ? near.warm.slice() : new Array<WarmStart>(T);
-  const removal = new Array<number>(T).fill(NaN); // NaN: not solved yet (a plain array: less to allocate than a typed one)
+  const removal = new Array<number>(T).fill(NaN); // NaN: not solved yet (a plain array: a typed array of more than 8 numbers is allocated outside the JS heap)
   let est: RemainingEstimates | undefined;
   if (governing >= 0 && solved) { warm[governing] = solved.warm; removal[governing] = 1 - solved.remainingFraction; }
   if (governing >= 0 && model.remainingEstimates) {
@@ -75,10 +75,22 @@ export function requiredDoseAt(model: RemovalModel, problem: DesignProblem, refe
   return { docMgPerL, doseMgPerL: dose, governedBy: base.governedBy, warm };
 }
 
+/**
+ * Two answers made once at load, one with a dose and one without: a field that has held both a
+ * number and null keeps a general layout, so a draw in which nothing is reachable (a rare null
+ * mid-run) does not change the layout of every answer and send the optimised code back to the
+ * interpreter (V8 stores a field that has only held numbers as a number until null arrives).
+ */
+const layoutPrimers: readonly RequiredAtDoc[] = [
+  { docMgPerL: 1.5, doseMgPerL: 1.5, governedBy: '', warm: undefined },
+  { docMgPerL: 1.5, doseMgPerL: null, governedBy: '', warm: [] },
+];
+void layoutPrimers;
+
 /** The full design at this DOC (what the fast path stands for when it does not apply). */
 function full(model: RemovalModel, problem: DesignProblem, reference: Design): RequiredAtDoc {
   const d = designDose(model, problem, reference);
-  return { docMgPerL: model.docMgPerL, doseMgPerL: d.doseMgPerL, governedBy: d.governedBy };
+  return { docMgPerL: model.docMgPerL, doseMgPerL: d.doseMgPerL, governedBy: d.governedBy, warm: undefined }; // the fast path's layout
 }
 
 /** Whether every goal of the reference design is met (or report only): the fast path's condition, kept per design. */

@@ -174,11 +174,10 @@ export function prependComponent(lead: FreundlichComponent, rest: PreparedMixtur
   const r = rest.c0.length;
   const first = lead.K > 0 && lead.c0MgPerL > 0 ? 1 : 0;
   const m = r + first;
-  // the five number arrays as views of one buffer, the index array shared by every lead of `rest`
-  // (nothing writes into a prepared mixture): fewer allocations where a Monte Carlo draw
-  // prepares every target beside its background
-  const all = new Float64Array(5 * m);
-  const c0 = all.subarray(0, m), n = all.subarray(m, 2 * m), beta = all.subarray(2 * m, 3 * m), lnK = all.subarray(3 * m, 4 * m), a = all.subarray(4 * m, 5 * m);
+  // the index array is shared by every lead of `rest` (nothing writes into a prepared mixture);
+  // the number arrays stay apart: a few small typed arrays live on the JS heap, where one buffer
+  // for all of them would be allocated outside it (dearer to allocate and to collect)
+  const c0 = new Float64Array(m), n = new Float64Array(m), beta = new Float64Array(m), lnK = new Float64Array(m), a = new Float64Array(m);
   const active = activeAfterLead(rest, first);
   if (first) {
     c0[0] = lead.c0MgPerL;

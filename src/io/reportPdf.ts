@@ -18,13 +18,23 @@ export function findChromium(env: NodeJS.ProcessEnv = process.env): string | und
   return CHROMIUM_CANDIDATES.find((p) => existsSync(p));
 }
 
-/** Print `html` to PDF bytes. */
-export async function reportPdf(html: string, env: NodeJS.ProcessEnv = process.env): Promise<Uint8Array> {
+/**
+ * Path of the browser to print with. `run --pdf` and `demo --pdf` call it before the run, so that a
+ * missing browser fails at once instead of after minutes of computing.
+ * @throws ComputationError when none is installed (with where it looked and what to install)
+ */
+export function requireChromium(env: NodeJS.ProcessEnv = process.env): string {
   const exe = findChromium(env);
   if (!exe) {
     const where = env.SORBSHARE_CHROMIUM ? `SORBSHARE_CHROMIUM=${env.SORBSHARE_CHROMIUM}` : CHROMIUM_CANDIDATES.join(' or ');
     throw new ComputationError(`--pdf needs Chromium to print the report, and none was found (${where}); install the Debian package "chromium" or set SORBSHARE_CHROMIUM to the browser's path`);
   }
+  return exe;
+}
+
+/** Print `html` to PDF bytes. */
+export async function reportPdf(html: string, env: NodeJS.ProcessEnv = process.env): Promise<Uint8Array> {
+  const exe = requireChromium(env);
   const { chromium } = await import('playwright-core');
   let browser;
   try {

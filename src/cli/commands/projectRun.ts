@@ -9,7 +9,7 @@ import { createProgressBar, type ProgressBar } from '../progressBar.js';
 import { pipelineOutputs, pipelineTables } from '../../outputFiles/pipelineOutputs.js';
 import type { PipelineInput, PipelineResult, ProgressEvent } from '../../pipeline/pipelineTypes.js';
 import { writeOutputDir } from '../../io/writeOutputs.js';
-import { reportPdf } from '../../io/reportPdf.js';
+import { reportPdf, requireChromium } from '../../io/reportPdf.js';
 import { resultsWorkbookThreaded } from '../workbookThread.js';
 import { checkOutputFolder } from '../../io/outputChecks.js';
 import { assertFiniteResult } from '../../scenario/finiteResult.js';
@@ -106,6 +106,7 @@ export function monteCarloProgress(ctx: CommandContext, thresholdMs = 1000, now:
 /** Run, write and print. */
 export async function runAndWrite(input: PipelineInput, outDir: string, json: boolean, ctx: CommandContext, mc: { draws?: number; seed?: number } = {}, formats: { pdf?: boolean } = {}): Promise<void> {
   checkOutputFolder(outDir, input.provenance.files.map((f) => f.resolved));
+  if (formats.pdf) requireChromium(); // before the run: a missing browser fails at once
   const progress = progressPrinter(ctx);
   const bar = monteCarloProgress(ctx);
   const result = await runPipelineWithUncertainty(input, { ...mc, onProgress: progress.onProgress, onMonteCarloProgress: (d, t) => bar.update(d, t) });

@@ -13,5 +13,7 @@ export default defineConfig({
     // two workers on the 2-core machines this project runs on (the default leaves one core idle);
     // many suites wait on spawned CLI processes or Chromium, so both cores stay busy
     maxWorkers: 2,
+    // one temporary folder for the whole run, removed at its end (tests/helpers/scratchRoot.ts)
+    globalSetup: ['tests/helpers/scratchRoot.ts'],
   },
 });

@@ -21,11 +21,13 @@ import { workerEntry } from './workerEntry.js';
  * Fewest targets for which a worker is started (ours). An outlet of the demo's compounds costs
  * 20–50 ms of CPU in a warm thread, but the worker starts cold: measured on the 2-core machine
  * under a load of about 9, the demo's 45 drawn outlets took 1.7–1.9 s of CPU in this thread
- * (warm from the run) and 3.5–3.7 s on a worker alone (JIT warm-up in a fresh isolate). So the
- * worker shortens the wall time only where a core is idle (beside the PAC draws, or sharing the
- * rest), and adds CPU time on a machine with no idle core.
+ * (warm from the run) and 3.5–3.7 s on a worker alone (JIT warm-up in a fresh isolate), about
+ * 1.8 s more. With the worker from 8 targets on, `sorbshare demo` (45 outlets) was no faster at a
+ * load of 1 (3.98 against 3.96 s) and slower at a load of 2.7 (7.9 against 5.4 s wall, 7.2 against
+ * 5.2 s of CPU). The worker takes about half the outlets, so it pays once that half costs more
+ * than its warm-up: from about 150 outlets at 25 ms each; 200 keeps a margin.
  */
-export const SHARED_MIN_TARGETS = 8;
+export const SHARED_MIN_TARGETS = 200;
 
 export interface SharedTraceOutlets {
   /** Worker threads started (0 or 1). */

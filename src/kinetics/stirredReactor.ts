@@ -96,8 +96,9 @@ export function stirredReactorFrom(pk: PreparedKinetics, doseGPerL: number, cont
   const interior = options.interiorPoints ?? stirredGridPoints(pk, theta);
   // the age integral sums the errors of a long run, and a dose search compares solves started
   // from different outlets: a hundredth of the batch tolerance keeps c/c0 within ContactRemoval's
-  // removalTolerance (1e-6) of the same grid integrated to rtol 1e-8 (a tenth was measured up to
-  // 8e-6 from it in a test water, a hundredth within 3e-7: tests/kinetics/stirredShortAge.test.ts)
+  // removalTolerance (1e-6) of the same grid integrated to rtol 1e-8 on the test waters (a tenth
+  // was measured up to 8e-6 from it in one, a hundredth within 3e-7: tests/kinetics/
+  // stirredShortAge.test.ts; see ContactRemoval.removalTolerance for where it does not hold)
   const rtol = options.rtol ?? STIRRED_DEFAULT_RTOL;
   const comps = pk.components;
   const m = comps.length;

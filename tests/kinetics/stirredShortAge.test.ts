@@ -2,8 +2,7 @@
  * The stirred contact reactor at short carbon ages (θ = τ, no recirculation), where the young
  * particles' steep surface profiles set the particle grid the model needs (stirredGridPoints), and
  * the accuracy it states (ContactRemoval.removalTolerance). References are the same model on a
- * finer grid or integrated to rtol 1e-8: convergence checks (closed form of the numerical method's
- * limit, no published value). The waters are invented (the kinetics bench's fictive DOC with a
+ * finer grid or integrated to rtol 1e-8 (convergence checks, no published value). The waters are invented (the kinetics bench's fictive DOC with a
  * target whose Ds lies below and above the DOC's); they are inputs, never check values.
  */
 import { describe, expect, it } from 'vitest';

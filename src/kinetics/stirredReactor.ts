@@ -26,9 +26,9 @@
  * second solved dose correcting the slope along the curve of solutions.
  * Carbon held in the reactor: D·θ/τ.
  *
- * The particle grid: `options.interiorPoints`, else 16 interior points, 8 when the carbon age is
- * long for every component (stirredGridPoints); the integration's rtol: `options.rtol`, else a
- * tenth of the batch's, a hundredth on that 8-point grid.
+ * The particle grid: `options.interiorPoints`, else 8 to 24 interior points from the shortest
+ * penetration Ds·θ/R² of the components (stirredGridPoints: more points for young carbon); the
+ * integration's rtol: `options.rtol`, else a hundredth of the batch's.
  *
  * Units: τ, θ s; D g/L; c mg/L; q mg/g.
  * @throws InputError for τ ≤ 0 or θ < τ; ComputationError when the balance does not close within
@@ -64,6 +64,9 @@ export interface StirredReactorResult {
   balanceJacobian?: Float64Array;
 }
 
+/** Default rtol of the stirred reactor's particle integration: a hundredth of the batch's (ours; see stirredReactorFrom). */
+export const STIRRED_DEFAULT_RTOL = DEFAULT_KINETIC_RTOL / 100;
+
 /** Tolerance of the outer balance, relative to c0 (ours). */
 const BALANCE_TOL = 1e-7;
 
@@ -92,10 +95,11 @@ export function stirredReactorFrom(pk: PreparedKinetics, doseGPerL: number, cont
   const theta = Math.max(carbonAgeS, contactTimeS);
   const interior = options.interiorPoints ?? stirredGridPoints(pk, theta);
   // the age integral sums the errors of a long run, and a dose search compares solves started
-  // from different outlets: a tenth of the batch tolerance keeps them within 1e-6 of c0 (tests);
-  // on the long-age grid a hundredth (its cheaper steps pay for it; a tenth was measured up to
-  // 8e-6 from the converged c/c0 in a test water, a hundredth within 6e-7)
-  const rtol = options.rtol ?? (options.interiorPoints === undefined && interior === LONG_AGE_POINTS ? DEFAULT_KINETIC_RTOL / 100 : DEFAULT_KINETIC_RTOL / 10);
+  // from different outlets: a hundredth of the batch tolerance keeps c/c0 within ContactRemoval's
+  // removalTolerance (1e-6) of the same grid integrated to rtol 1e-8 on the test waters (a tenth
+  // was measured up to 8e-6 from it in one, a hundredth within 3e-7: tests/kinetics/
+  // stirredShortAge.test.ts; see ContactRemoval.removalTolerance for where it does not hold)
+  const rtol = options.rtol ?? STIRRED_DEFAULT_RTOL;
   const comps = pk.components;
   const m = comps.length;
   const nB = pk.coupled.length;
@@ -148,25 +152,37 @@ export function stirredReactorFrom(pk: PreparedKinetics, doseGPerL: number, cont
 }
 
 /**
- * Interior points of the stirred reactor's default particle grid (ours): LONG_AGE_POINTS when the
- * carbon age is long for every block, Ds·θ/R² ≥ LONG_AGE_NUMBER with the smallest Ds of the
- * coupled and trace components, else DEFAULT_INTERIOR_POINTS (the batch's grid). The grid error
- * lives in the steep profiles of young particles, which the age distribution exp(−t/θ)/θ weighs
- * by about their age over θ; measured on the bench waters (Ds 5e-17 to 6e-15 m²/s, R 10–12 µm,
- * doses 5–60 mg/L): from Ds·θ/R² = 0.1 on the 8-point grid is within 4e-5 of c0 of a 32-point
- * one, and doubling it changes c/c0 by < 1e-4 (tests/kinetics/pacKinetics.test.ts), the issue's
- * grid criterion; below it the 8-point grid was off by up to 3.5e-4.
+ * Interior points of the stirred reactor's default particle grid (ours), from the smallest
+ * penetration number x = Ds·θ/R² of the coupled and trace components: LONG_AGE_POINTS from
+ * x ≥ LONG_AGE_NUMBER, DEFAULT_INTERIOR_POINTS (the batch's grid) from x ≥ SHORT_AGE_NUMBER,
+ * SHORT_AGE_POINTS below, VERY_SHORT_AGE_POINTS below VERY_SHORT_AGE_NUMBER. The grid error lives
+ * in the steep profiles of young particles (penetration depth about √(Ds·t)), which the age
+ * distribution exp(−t/θ)/θ weighs by about their age over θ, so the shorter the carbon age the
+ * more points the surface layer needs. Measured on the bench waters (DOC Ds 5e-17 m²/s, targets
+ * 2e-17 to 6e-16, R 10 µm, doses up to 60 mg/L; tests/kinetics/pacKinetics.test.ts and
+ * stirredShortAge.test.ts): doubling the grid changes c/c0 by < 1e-4 (the issue's grid
+ * criterion) on the 8-point grid from x = 0.1, on 16 points from x = 3e-3 (below it 16 points
+ * were off by up to 3.8e-4), on 20 points from x ≈ 2e-4; below that 24 points stay within 7e-5
+ * of 40 points (the largest collocation grid) down to x = 6e-5 (θ = τ = 5 min at Ds 2e-17).
  */
 export function stirredGridPoints(pk: PreparedKinetics, thetaS: number): number {
   const ds = [...pk.coupled, ...pk.trace].map((i) => pk.components[i]!.dsM2PerS!).filter((d) => d > 0);
   if (!ds.length) return DEFAULT_INTERIOR_POINTS;
   const R = pk.particle.radiusM;
-  return (Math.min(...ds) * thetaS) / (R * R) >= LONG_AGE_NUMBER ? LONG_AGE_POINTS : DEFAULT_INTERIOR_POINTS;
+  const x = (Math.min(...ds) * thetaS) / (R * R);
+  if (x >= LONG_AGE_NUMBER) return LONG_AGE_POINTS;
+  if (x >= SHORT_AGE_NUMBER) return DEFAULT_INTERIOR_POINTS;
+  return x >= VERY_SHORT_AGE_NUMBER ? SHORT_AGE_POINTS : VERY_SHORT_AGE_POINTS;
 }
 
 /** Ds·θ/R² from which the default grid of the stirred reactor is LONG_AGE_POINTS (ours; stirredGridPoints). */
 export const LONG_AGE_NUMBER = 0.1;
 const LONG_AGE_POINTS = 8;
+/** Ds·θ/R² below which the default grid is SHORT_AGE_POINTS, and VERY_SHORT_AGE_POINTS (ours; stirredGridPoints). */
+export const SHORT_AGE_NUMBER = 3e-3;
+export const VERY_SHORT_AGE_NUMBER = 2e-4;
+const SHORT_AGE_POINTS = 20;
+const VERY_SHORT_AGE_POINTS = 24;
 
 /** Steps recorded at the feed (v = 0) per prepared mixture and `grid|age|rtol` (BalanceSolver.record). */
 const RECORDED = new WeakMap<PreparedKinetics, Map<string, { times: number[]; orders: number[] }>>();

@@ -53,6 +53,8 @@ export async function bench(): Promise<BenchFigure[]> {
   const load = loadavg()[0]!;
   const batch = best(5, 20, () => pacBatch(pk, 0.02, [60, 300, 900, 1800, 3600, 86400]));
   const reactor = best(2, 5, () => stirredReactor(pk, 0.02, 1800, 3 * 86400));
+  const young = best(2, 5, () => stirredReactor(pk, 0.02, 1800, 1800));
+  const doseYoung = best(1, 2, () => doseUnderContact(pk, 5, 0.8, { kind: 'stirred', contactTimeS: 1800, carbonAgeS: 1800 }));
   const dose = best(1, 3, () => doseUnderContact(pk, 5, 0.8, { kind: 'plug-flow', contactTimeS: 1800 }));
   const doseStirred = best(1, 2, () => doseUnderContact(pk, 5, 0.8, { kind: 'stirred', contactTimeS: 1800, carbonAgeS: 3 * 86400 }));
   const stirred = { kind: 'stirred' as const, contactTimeS: 1800, carbonAgeS: 3 * 86400 };
@@ -65,6 +67,10 @@ export async function bench(): Promise<BenchFigure[]> {
     { name: '  CPU time; steps (rejected), factorisations', value: batch.cpuMs, unit: `ms; ${s.steps} (${s.rejectedSteps}), ${s.factorizations}` },
     { name: 'stirred contact reactor at steady state (θ = 3 d)', value: reactor.ms, unit: 'ms', target: '≤ 20 ms' },
     { name: '  CPU time; particle integrations (coarse + fine)', value: reactor.cpuMs, unit: `ms; ${reactor.result.integrations}` },
+    { name: 'stirred contact reactor without recirculation (θ = τ = 30 min)', value: young.ms, unit: 'ms' },
+    { name: '  CPU time; particle integrations (coarse + fine)', value: young.cpuMs, unit: `ms; ${young.result.integrations}` },
+    { name: 'dose under contact conditions (stirred, θ = τ = 30 min)', value: doseYoung.ms, unit: 'ms' },
+    { name: '  CPU time; kinetic solves', value: doseYoung.cpuMs, unit: `ms; ${doseYoung.result.evaluations}` },
     { name: 'dose under contact conditions (plug flow, 30 min)', value: dose.ms, unit: 'ms', target: '≤ 100 ms' },
     { name: '  CPU time; kinetic solves', value: dose.cpuMs, unit: `ms; ${dose.result.evaluations}` },
     { name: 'dose under contact conditions (stirred, 30 min, θ = 3 d)', value: doseStirred.ms, unit: 'ms' },

@@ -46,13 +46,17 @@ export function contactDosePlot(carbon: string, k: ContactCurves, conditions: st
   };
 }
 
-/** Removal against mean carbon age at the required dose (stirred tank of the plant's residence time). */
-export function carbonAgePlot(carbon: string, k: ContactCurves, index: number): XYPlotSpec {
+/**
+ * Removal against mean carbon age at the required dose (stirred tank of the plant's residence
+ * time), with the plant's own carbon age marked when its tank is stirred (`plantCarbonAgeS`).
+ */
+export function carbonAgePlot(carbon: string, k: ContactCurves, index: number, plantCarbonAgeS?: number): XYPlotSpec {
   return {
     kind: 'xy', id: `carbon-age-${index + 1}`,
     title: `${carbon}: removal of ${k.compoundId} against mean carbon age at ${fn(k.requiredDoseMgPerL, 3)} mg/L in a stirred tank of residence ${fn(k.contactTimeS / MIN, 3)} min (carbon age = residence time without recirculation)`,
     xLabel: 'mean carbon age (h)', yLabel: `removal of ${k.compoundId} (%)`, xLog: true, yRange: [0, 100],
     series: [{ name: k.compoundId, key: k.compoundId, points: k.carbonAge.carbonAgesS.map((a, i) => [a / 3600, k.carbonAge.removalPercent[i]!]), emphasis: true }],
+    ...(plantCarbonAgeS !== undefined ? { vLines: [{ x: plantCarbonAgeS / 3600, label: 'plant carbon age' }] } : {}),
   };
 }
 
@@ -63,7 +67,7 @@ export function contactSection(r: PipelineResult): ReportSection | undefined {
   withContact.forEach((cr, i) => {
     const k = cr.contact!.curves;
     if (!k) return;
-    plots.push(contactTimePlot(cr.carbon.name, k, i), contactDosePlot(cr.carbon.name, k, describeConditions(cr.contact!), i), carbonAgePlot(cr.carbon.name, k, i));
+    plots.push(contactTimePlot(cr.carbon.name, k, i), contactDosePlot(cr.carbon.name, k, describeConditions(cr.contact!), i), carbonAgePlot(cr.carbon.name, k, i, cr.contact!.reactor === 'stirred' ? cr.contact!.carbonAgeS : undefined));
   });
   const c0 = withContact[0]!.contact!;
   return {

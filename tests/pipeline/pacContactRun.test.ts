@@ -117,6 +117,13 @@ describe('run under PAC contact conditions', () => {
       if (p.kind !== 'xy') throw new Error('expected xy plots');
       expect(p.series.every((s) => s.points.length > 1 && s.points.every(([x, y]) => Number.isFinite(x) && Number.isFinite(y)))).toBe(true);
     }
+    // the plant's own values are marked: contact time (min), required dose (mg/L), carbon age (h; a stirred tank)
+    const cr = r.carbons.find((c) => c.contact)!;
+    const lines = sec.plots!.map((p) => (p.kind === 'xy' ? p.vLines ?? [] : []));
+    expect(lines[0]).toEqual([{ x: cr.contact!.contactTimeS / 60, label: 'plant contact time' }]);
+    expect(lines[1]).toEqual([{ x: cr.contact!.curves!.requiredDoseMgPerL, label: 'required dose' }]);
+    expect(cr.contact!.reactor).toBe('plug-flow');
+    expect(lines[2]).toEqual([]); // no carbon age of the plant's own to mark (its stirred-tank case below)
     const plain = buildReportModel(runPipeline(withoutContact(input), { now: NOW }), 'test');
     expect(plain.sections.some((x) => x.id === 'contact-conditions')).toBe(false);
   });
@@ -135,12 +142,16 @@ describe('run in a stirred contact tank: what recirculation buys', () => {
     const input = loadProject(FIXTURE);
     const dose = (carbonAgeS: number) => {
       const project = { ...input.project, site: { ...input.project.site, pacContact: { kind: 'stirred' as const, contactTimeS: 1800, carbonAgeS } } };
-      const c = runPipeline({ ...input, project }, { ...FAST, now: NOW }).carbons[0]!;
+      const res = runPipeline({ ...input, project }, { ...FAST, now: NOW });
+      const c = res.carbons[0]!;
       expect(c.contact!.carbonAgeS).toBe(carbonAgeS);
-      return { req: c.required!.doseMgPerL!, eq: c.contact!.equilibriumDoseMgPerL! };
+      return { req: c.required!.doseMgPerL!, eq: c.contact!.equilibriumDoseMgPerL!, res };
     };
     const noRecirculation = dose(1800);
     const threeDays = dose(3 * 86400);
+    // the report's carbon-age figure marks the plant's carbon age (72 h)
+    const agePlot = buildReportModel(threeDays.res, 'test').sections.find((x) => x.id === 'contact-conditions')!.plots!.find((p) => p.id === 'carbon-age-1')!;
+    expect(agePlot.kind === 'xy' ? agePlot.vLines : undefined).toEqual([{ x: 72, label: 'plant carbon age' }]);
     // removal rises with carbon age at every dose, so the dose for the goal falls
     expect(threeDays.req).toBeLessThan(noRecirculation.req);
     // contact never removes more than equilibrium (the stirred reactor tends to it as θ grows)

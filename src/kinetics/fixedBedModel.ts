@@ -134,7 +134,6 @@ export function fixedBedModel(components: readonly BedComponentScales[], backgro
   const cs = new Float64Array(na);
   const jacBg = new Float64Array(nb * nb);
   const dKappa = new Float64Array(nb);
-  const Bw = new Float64Array(N + 1);
 
   // ln(β/K) per component, so that κ_T shares ln ψ_B over the traces of a cell (traceKappa)
   const lnBetaOverK = Float64Array.from(components, (c) => Math.log(c.beta / c.K));
@@ -191,21 +190,7 @@ export function fixedBedModel(components: readonly BedComponentScales[], backgro
     if (d >= 0) return u + 0.5 * d;
     return u + (2 * u * u * d) / (d * d + 4 * u * u + ETA2); // ½·δ·θ²/(1 + θ²), θ = 2u/|δ|, regularised
   };
-  /** Fill ∂F_{j+1/2}/∂u_j and ∂F_{j+1/2}/∂u_{j−1}. */
-  const faceDerivatives = (y: Float64Array): void => {
-    for (let j = 0; j < Nz; j++) for (let m = 0; m < na; m++) {
-      const k = j * na + m;
-      if (j === 0) { faceOwn[k] = 1; faceUp[k] = 0; continue; }
-      const u = y[j * S + m * P]!;
-      const d = u - y[(j - 1) * S + m * P]!;
-      if (d >= 0) { faceOwn[k] = 1.5; faceUp[k] = -0.5; continue; }
-      const D = d * d + 4 * u * u + ETA2;
-      const gU = (4 * u * d) / D - (16 * u * u * u * d) / (D * D); // ∂G/∂u at fixed δ
-      const gD = (2 * u * u * (D - 2 * d * d)) / (D * D); // ∂G/∂δ
-      faceOwn[k] = 1 + gU + gD;
-      faceUp[k] = -gD;
-    }
-  };
+
 
   // the state of the last rhs call (Newton's current iterate), for refreshing the Newton matrix:
   // the integrator solves with the matrix of the step's start (simplified Newton); with the steep
@@ -234,31 +219,30 @@ export function fixedBedModel(components: readonly BedComponentScales[], backgro
     return false;
   };
   let lastT = 0;
+  // the components' scales as typed arrays for the inner loops, and F_{j+1/2} of the last rhs call
+  // (each face is computed once and used by the cells on both sides)
+  const stantonOf = Float64Array.from(components, (c) => c.stanton);
+  const diffusionOf = Float64Array.from(components, (c) => c.diffusion);
+  const filmOf = Float64Array.from(components, (c) => c.film);
+  const faces = new Float64Array(Nz * na);
+  const N1 = N + 1;
+  // c_s/c0 per cell and component at the state of the rhs call
+  const csOverC0 = new Float64Array(Nz * na);
   const rhs = (t: number, y: Float64Array, dy: Float64Array): void => {
     lastState.set(y);
     lastT = t;
     tNow = t;
     rhsCalls++;
-    for (let j = 0; j < Nz; j++) {
-      surface(y, j, false);
-      const base = j * S;
-      for (let m = 0; m < na; m++) {
-        const comp = components[m]!;
-        const o = base + m * P;
-        const film = y[o]! - cs[m]! / c0[m]!;
-        dy[o] = (-(face(y, j, m) - face(y, j - 1, m)) / dz - comp.stanton * film) / eps;
-        let interior = 0;
-        for (let i = 0; i <= N; i++) {
-          let s = 0;
-          for (let k = 0; k <= N; k++) s += B[i * (N + 1) + k]! * y[o + 1 + k]!;
-          Bw[i] = s;
-          if (i < N) interior += wt[i]! * s;
-        }
-        for (let i = 0; i < N; i++) dy[o + 1 + i] = comp.diffusion * Bw[i]!;
-        dy[o + 1 + N] = (comp.film * film - comp.diffusion * interior) / wN;
+    if (background) {
+      fillStoredKappa();
+      for (let j = 0; j < Nz; j++) for (let m = 0; m < na; m++) csOverC0[j * na + m] = (storedKappa![j * na + m]! * qRef[m]! * y[j * S + m * P + 1 + N]!) / c0[m]!;
+    } else {
+      for (let j = 0; j < Nz; j++) {
+        surface(y, j, false);
+        for (let m = 0; m < na; m++) csOverC0[j * na + m] = cs[m]! / c0[m]!;
       }
     }
-    for (let m = 0; m < na; m++) dy[Nz * S + m] = face(y, Nz - 1, m);
+    transportRhs(y, dy, csOverC0, faces, stantonOf, diffusionOf, filmOf, B, wt, Nz, na, N, eps, dz, ETA2);
   };
 
   const kappas = new Float64Array(na);
@@ -285,6 +269,10 @@ export function fixedBedModel(components: readonly BedComponentScales[], backgro
   const bgPiv = new Int32Array(Nz * n2);
   const tr = new Float64Array(Nz * Math.max(1, nt) * 4);
   const coupling = new Float64Array(Nz * Math.max(1, nt) * 2 * nb);
+  // per cell: κ of each trace, the background's reverse-IAST Jacobian, and ∂κ_T/∂q_b (from `surface`)
+  const kappaAll = new Float64Array(Nz * na);
+  const jacAll = new Float64Array(Nz * nb * nb);
+  const dKappaAll = new Float64Array(Nz * Math.max(1, nt * nb));
   const factor = (t0: number, y: Float64Array, gh: number): NewtonSolve => {
     solvesSinceFactor = 0;
     for (let m = 0; m < na; m++) {
@@ -306,44 +294,19 @@ export function fixedBedModel(components: readonly BedComponentScales[], backgro
     // the state-dependent blocks at y: per cell the background block's LU, and per trace its 2×2
     // matrix (4 values) and the coupling of its u and w_N rows to the background w_N (2·nb)
     const blocks = (y: Float64Array): void => {
-    faceDerivatives(y);
-    for (let j = 0; j < Nz; j++) {
-      surface(y, j, true, kappas, dKappas);
-      const base = j * S;
-      const mo = j * n2 * n2;
-      bgMat.fill(0, mo, mo + n2 * n2);
-      for (let m = 0; m < nb; m++) {
-        const comp = components[m]!;
-        const ru = 2 * m, rs = 2 * m + 1;
-        bgMat[mo + ru * n2 + ru] = 1 + gh * (faceOwn[j * na + m]! / (eps * dz) + comp.stanton / eps);
-        bgMat[mo + rs * n2 + ru] = -gh * comp.film / wN;
-        bgMat[mo + rs * n2 + rs] = sig[m]!;
-        for (let b = 0; b < nb; b++) {
-          const dFilm = -(jacBg[m * nb + b]! * qRef[b]!) / c0[m]!; // ∂(u − c_s/c0)/∂w_b,N
-          bgMat[mo + ru * n2 + 2 * b + 1] = bgMat[mo + ru * n2 + 2 * b + 1]! + gh * (comp.stanton / eps) * dFilm;
-          bgMat[mo + rs * n2 + 2 * b + 1] = bgMat[mo + rs * n2 + 2 * b + 1]! - gh * (comp.film / wN) * dFilm;
-        }
+      faceDerivativesOf(y, faceOwn, faceUp, Nz, na, N, ETA2);
+      if (background) {
+        fillStoredKappa();
+        assembleBlocks(y, gh, storedKappa!, jacAll, dKappaAll, faceOwn, sig, stantonOf, filmOf, qRef, c0, bgMat, bgPiv, tr, coupling, Nz, na, nb, N, eps, dz, wN);
+        return;
       }
-      if (nb > 0) luFactorAt(bgMat, j * n2 * n2, n2, bgPiv, j * n2, 'fixed bed (background block)');
-      for (let m = nb; m < na; m++) {
-        const comp = components[m]!;
-        const t = j * nt + (m - nb);
-        const dFilmOwn = -(kappas[m]! * qRef[m]!) / c0[m]!;
-        tr[4 * t] = 1 + gh * (faceOwn[j * na + m]! / (eps * dz) + comp.stanton / eps);
-        tr[4 * t + 1] = gh * (comp.stanton / eps) * dFilmOwn;
-        tr[4 * t + 2] = -gh * comp.film / wN;
-        tr[4 * t + 3] = sig[m]! - gh * (comp.film / wN) * dFilmOwn;
-        const det = tr[4 * t]! * tr[4 * t + 3]! - tr[4 * t + 1]! * tr[4 * t + 2]!;
-        if (!(Math.abs(det) > 0) || !Number.isFinite(det)) throw new ComputationError('fixed bed: the Newton matrix of a trace block is singular or not finite');
-        const wT = y[base + m * P + 1 + N]!;
-        const cOff = t * 2 * nb;
-        for (let b = 0; b < nb; b++) {
-          const dFilm = -(qRef[m]! * wT * dKappas[(m - nb) * nb + b]! * qRef[b]!) / c0[m]!;
-          coupling[cOff + b] = -(comp.stanton / eps) * dFilm; // J(u_T, w_b,N)
-          coupling[cOff + nb + b] = (comp.film / wN) * dFilm; // J(w_T,N, w_b,N)
-        }
+      for (let j = 0; j < Nz; j++) {
+        surface(y, j, true, kappas, dKappas);
+        for (let m = nb; m < na; m++) kappaAll[j * na + m] = kappas[m]!;
+        jacAll.set(jacBg, j * nb * nb);
+        if (nt > 0) dKappaAll.set(dKappas.subarray(0, nt * nb), j * nt * nb);
       }
-    }
+      assembleBlocks(y, gh, kappaAll, jacAll, dKappaAll, faceOwn, sig, stantonOf, filmOf, qRef, c0, bgMat, bgPiv, tr, coupling, Nz, na, nb, N, eps, dz, wN);
     };
     tNow = t0;
     blocks(y);
@@ -368,52 +331,7 @@ export function fixedBedModel(components: readonly BedComponentScales[], backgro
           blocks(builtState); // singular at a wild iterate: keep the last good matrix
         }
       }
-      for (let j = 0; j < Nz; j++) {
-        const base = j * S;
-        for (let m = 0; m < na; m++) {
-          const o = base + m * P;
-          // F_{j+1/2} − F_{j−1/2} through u_{j−1} and u_{j−2}
-          let up = 0;
-          if (j >= 1) up += (faceUp[j * na + m]! - faceOwn[(j - 1) * na + m]!) * x[(j - 1) * S + m * P]!;
-          if (j >= 2) up -= faceUp[(j - 1) * na + m]! * x[(j - 2) * S + m * P]!;
-          x[o] = x[o]! - (gh * up) / (eps * dz);
-          // grain interior: p = A⁻¹·b_int, and the surface row's right side
-          let corr = 0;
-          const ai = m * N * N;
-          for (let i = 0; i < N; i++) {
-            let v = 0;
-            for (let k = 0; k < N; k++) v += aInv[ai + i * N + k]! * x[o + 1 + k]!;
-            pBuf[m * N + i] = v;
-            corr += interiorMeanB[i]! * v;
-          }
-          x[o + 1 + N] = x[o + 1 + N]! - (gh * components[m]!.diffusion * corr) / wN;
-        }
-        for (let m = 0; m < nb; m++) { rBg[2 * m] = x[base + m * P]!; rBg[2 * m + 1] = x[base + m * P + 1 + N]!; }
-        if (nb > 0) luSolveAt(bgMat, j * n2 * n2, n2, bgPiv, j * n2, rBg, 0);
-        for (let m = 0; m < nb; m++) { x[base + m * P] = rBg[2 * m]!; x[base + m * P + 1 + N] = rBg[2 * m + 1]!; }
-        for (let m = nb; m < na; m++) {
-          const o = base + m * P;
-          const t = j * nt + (m - nb);
-          const cOff = t * 2 * nb;
-          let bu = x[o]!, bs = x[o + 1 + N]!;
-          for (let b = 0; b < nb; b++) {
-            const xb = x[base + b * P + 1 + N]!;
-            bu += gh * coupling[cOff + b]! * xb;
-            bs += gh * coupling[cOff + nb + b]! * xb;
-          }
-          const a11 = tr[4 * t]!, a12 = tr[4 * t + 1]!, a21 = tr[4 * t + 2]!, a22 = tr[4 * t + 3]!;
-          const det = a11 * a22 - a12 * a21;
-          x[o] = (a22 * bu - a12 * bs) / det;
-          x[o + 1 + N] = (a11 * bs - a21 * bu) / det;
-        }
-        for (let m = 0; m < na; m++) {
-          const o = base + m * P;
-          const wS = x[o + 1 + N]!;
-          for (let i = 0; i < N; i++) x[o + 1 + i] = pBuf[m * N + i]! + e[m * N + i]! * wS;
-        }
-      }
-      const last = (Nz - 1) * S, prev = (Nz - 2) * S;
-      for (let m = 0; m < na; m++) x[Nz * S + m] = x[Nz * S + m]! + gh * (faceOwn[(Nz - 1) * na + m]! * x[last + m * P]! + faceUp[(Nz - 1) * na + m]! * x[prev + m * P]!);
+      blockSolve(x, gh, faceOwn, faceUp, aInv, e, pBuf, interiorMeanB, diffusionOf, bgMat, bgPiv, rBg, tr, coupling, Nz, na, nb, N, eps, dz, wN);
     };
   };
 
@@ -444,4 +362,169 @@ export function fixedBedModel(components: readonly BedComponentScales[], backgro
       return s * dz;
     },
   };
+}
+
+/**
+ * The model's right-hand side given c_s/c0 per cell and component (`csOverC0`), written into `dy`
+ * (see the file comment: the liquid with the limited second-order upwind faces, the grain's
+ * collocation rows and the surface node's grain balance, and the cumulative outflows); `faces`
+ * receives F_{j+1/2}. A function of its arguments only, so that the compiler keeps them in
+ * registers across the loops.
+ */
+function transportRhs(y: Float64Array, dy: Float64Array, csOverC0: Float64Array, faces: Float64Array, stantonOf: Float64Array, diffusionOf: Float64Array, filmOf: Float64Array, B: Float64Array, wt: Float64Array, Nz: number, na: number, N: number, eps: number, dz: number, eta2: number): void {
+  const P = N + 2, S = na * P, N1 = N + 1;
+  const wN = wt[N]!;
+  for (let j = 0; j < Nz; j++) {
+    const base = j * S;
+    for (let m = 0; m < na; m++) {
+      const o = base + m * P;
+      const u = y[o]!;
+      // F_{j+1/2}, and F_{j−1/2} from the cell upstream (the feed's 1 at j = 0)
+      let F: number;
+      if (j === 0) F = u;
+      else {
+        const d = u - y[o - S]!;
+        F = d >= 0 ? u + 0.5 * d : u + (2 * u * u * d) / (d * d + 4 * u * u + eta2);
+      }
+      const Fup = j === 0 ? 1 : faces[(j - 1) * na + m]!;
+      faces[j * na + m] = F;
+      const film = u - csOverC0[j * na + m]!;
+      const dTau = diffusionOf[m]!;
+      dy[o] = (-(F - Fup) / dz - stantonOf[m]! * film) / eps;
+      let interior = 0;
+      for (let i = 0; i < N; i++) {
+        let s = 0;
+        const row = i * N1;
+        for (let k = 0; k <= N; k++) s += B[row + k]! * y[o + 1 + k]!;
+        interior += wt[i]! * s;
+        dy[o + 1 + i] = dTau * s;
+      }
+      dy[o + 1 + N] = (filmOf[m]! * film - dTau * interior) / wN;
+    }
+  }
+  for (let m = 0; m < na; m++) dy[Nz * S + m] = faces[(Nz - 1) * na + m]!;
+}
+
+/**
+ * Solve (I − gh·J)·x = b in place with the blocks of the Newton matrix (see `factor` in
+ * fixedBedModel): forward block substitution along the bed, cell by cell, the grain interior
+ * eliminated through A⁻¹ (`aInv`, `e`), the background block's LU (`bgMat`, `bgPiv`) and each
+ * trace's 2×2 block (`tr`) with its coupling to the background. A function of its arguments only,
+ * so that the compiler keeps them in registers across the loops.
+ */
+function blockSolve(x: Float64Array, gh: number, faceOwn: Float64Array, faceUp: Float64Array, aInv: Float64Array, e: Float64Array, pBuf: Float64Array, interiorMeanB: Float64Array, diffusionOf: Float64Array, bgMat: Float64Array, bgPiv: Int32Array, rBg: Float64Array, tr: Float64Array, coupling: Float64Array, Nz: number, na: number, nb: number, N: number, eps: number, dz: number, wN: number): void {
+  const P = N + 2, S = na * P, n2 = 2 * nb, nt = na - nb;
+  for (let j = 0; j < Nz; j++) {
+    const base = j * S;
+    for (let m = 0; m < na; m++) {
+      const o = base + m * P;
+      // F_{j+1/2} − F_{j−1/2} through u_{j−1} and u_{j−2}
+      let up = 0;
+      if (j >= 1) up += (faceUp[j * na + m]! - faceOwn[(j - 1) * na + m]!) * x[(j - 1) * S + m * P]!;
+      if (j >= 2) up -= faceUp[(j - 1) * na + m]! * x[(j - 2) * S + m * P]!;
+      x[o] = x[o]! - (gh * up) / (eps * dz);
+      // grain interior: p = A⁻¹·b_int, and the surface row's right side
+      let corr = 0;
+      const ai = m * N * N;
+      for (let i = 0; i < N; i++) {
+        let v = 0;
+        for (let k = 0; k < N; k++) v += aInv[ai + i * N + k]! * x[o + 1 + k]!;
+        pBuf[m * N + i] = v;
+        corr += interiorMeanB[i]! * v;
+      }
+      x[o + 1 + N] = x[o + 1 + N]! - (gh * diffusionOf[m]! * corr) / wN;
+    }
+    for (let m = 0; m < nb; m++) { rBg[2 * m] = x[base + m * P]!; rBg[2 * m + 1] = x[base + m * P + 1 + N]!; }
+    if (nb > 0) luSolveAt(bgMat, j * n2 * n2, n2, bgPiv, j * n2, rBg, 0);
+    for (let m = 0; m < nb; m++) { x[base + m * P] = rBg[2 * m]!; x[base + m * P + 1 + N] = rBg[2 * m + 1]!; }
+    for (let m = nb; m < na; m++) {
+      const o = base + m * P;
+      const t = j * nt + (m - nb);
+      const cOff = t * 2 * nb;
+      let bu = x[o]!, bs = x[o + 1 + N]!;
+      for (let b = 0; b < nb; b++) {
+        const xb = x[base + b * P + 1 + N]!;
+        bu += gh * coupling[cOff + b]! * xb;
+        bs += gh * coupling[cOff + nb + b]! * xb;
+      }
+      const a11 = tr[4 * t]!, a12 = tr[4 * t + 1]!, a21 = tr[4 * t + 2]!, a22 = tr[4 * t + 3]!;
+      const det = a11 * a22 - a12 * a21;
+      x[o] = (a22 * bu - a12 * bs) / det;
+      x[o + 1 + N] = (a11 * bs - a21 * bu) / det;
+    }
+    for (let m = 0; m < na; m++) {
+      const o = base + m * P;
+      const wS = x[o + 1 + N]!;
+      for (let i = 0; i < N; i++) x[o + 1 + i] = pBuf[m * N + i]! + e[m * N + i]! * wS;
+    }
+  }
+  const last = (Nz - 1) * S, prev = (Nz - 2) * S;
+  for (let m = 0; m < na; m++) x[Nz * S + m] = x[Nz * S + m]! + gh * (faceOwn[(Nz - 1) * na + m]! * x[last + m * P]! + faceUp[(Nz - 1) * na + m]! * x[prev + m * P]!);
+}
+
+/** Fill ∂F_{j+1/2}/∂u_j (`faceOwn`) and ∂F_{j+1/2}/∂u_{j−1} (`faceUp`) per cell and component at y (the faces of fixedBedModel). */
+function faceDerivativesOf(y: Float64Array, faceOwn: Float64Array, faceUp: Float64Array, Nz: number, na: number, N: number, eta2: number): void {
+  const S = na * (N + 2), P = N + 2;
+  for (let j = 0; j < Nz; j++) for (let m = 0; m < na; m++) {
+    const k = j * na + m;
+    if (j === 0) { faceOwn[k] = 1; faceUp[k] = 0; continue; }
+    const u = y[j * S + m * P]!;
+    const d = u - y[(j - 1) * S + m * P]!;
+    if (d >= 0) { faceOwn[k] = 1.5; faceUp[k] = -0.5; continue; }
+    const D = d * d + 4 * u * u + eta2;
+    const gU = (4 * u * d) / D - (16 * u * u * u * d) / (D * D); // ∂G/∂u at fixed δ
+    const gD = (2 * u * u * (D - 2 * d * d)) / (D * D); // ∂G/∂δ
+    faceOwn[k] = 1 + gU + gD;
+    faceUp[k] = -gD;
+  }
+}
+
+/**
+ * The state-dependent blocks of the Newton matrix (I − gh·J) at y (see `factor` in fixedBedModel):
+ * per cell the background block, LU-factorised in place (`bgMat`, `bgPiv`), and per trace its 2×2
+ * matrix (`tr`, 4 values) and the coupling of its u and w_N rows to the background w_N (`coupling`,
+ * 2·nb values), from κ of each trace (`kappaAll`), the background's reverse-IAST Jacobian
+ * (`jacAll`) and ∂κ_T/∂q_b (`dKappaAll`) per cell.
+ * @throws ComputationError when a block is singular or not finite
+ */
+function assembleBlocks(y: Float64Array, gh: number, kappaAll: Float64Array, jacAll: Float64Array, dKappaAll: Float64Array, faceOwn: Float64Array, sig: Float64Array, stantonOf: Float64Array, filmOf: Float64Array, qRef: Float64Array, c0: Float64Array, bgMat: Float64Array, bgPiv: Int32Array, tr: Float64Array, coupling: Float64Array, Nz: number, na: number, nb: number, N: number, eps: number, dz: number, wN: number): void {
+  const P = N + 2, S = na * P, n2 = 2 * nb, nt = na - nb;
+  for (let j = 0; j < Nz; j++) {
+    const base = j * S;
+    const mo = j * n2 * n2;
+    const jo = j * nb * nb;
+    if (nb > 0) bgMat.fill(0, mo, mo + n2 * n2);
+    for (let m = 0; m < nb; m++) {
+      const stanton = stantonOf[m]!, film = filmOf[m]!;
+      const ru = 2 * m, rs = 2 * m + 1;
+      bgMat[mo + ru * n2 + ru] = 1 + gh * (faceOwn[j * na + m]! / (eps * dz) + stanton / eps);
+      bgMat[mo + rs * n2 + ru] = -gh * film / wN;
+      bgMat[mo + rs * n2 + rs] = sig[m]!;
+      for (let b = 0; b < nb; b++) {
+        const dFilm = -(jacAll[jo + m * nb + b]! * qRef[b]!) / c0[m]!; // ∂(u − c_s/c0)/∂w_b,N
+        bgMat[mo + ru * n2 + 2 * b + 1] = bgMat[mo + ru * n2 + 2 * b + 1]! + gh * (stanton / eps) * dFilm;
+        bgMat[mo + rs * n2 + 2 * b + 1] = bgMat[mo + rs * n2 + 2 * b + 1]! - gh * (film / wN) * dFilm;
+      }
+    }
+    if (nb > 0) luFactorAt(bgMat, mo, n2, bgPiv, j * n2, 'fixed bed (background block)');
+    for (let m = nb; m < na; m++) {
+      const stanton = stantonOf[m]!, film = filmOf[m]!;
+      const t = j * nt + (m - nb);
+      const dFilmOwn = -(kappaAll[j * na + m]! * qRef[m]!) / c0[m]!;
+      tr[4 * t] = 1 + gh * (faceOwn[j * na + m]! / (eps * dz) + stanton / eps);
+      tr[4 * t + 1] = gh * (stanton / eps) * dFilmOwn;
+      tr[4 * t + 2] = -gh * film / wN;
+      tr[4 * t + 3] = sig[m]! - gh * (film / wN) * dFilmOwn;
+      const det = tr[4 * t]! * tr[4 * t + 3]! - tr[4 * t + 1]! * tr[4 * t + 2]!;
+      if (!(Math.abs(det) > 0) || !Number.isFinite(det)) throw new ComputationError('fixed bed: the Newton matrix of a trace block is singular or not finite');
+      const wT = y[base + m * P + 1 + N]!;
+      const cOff = t * 2 * nb;
+      const dOff = t * nb;
+      for (let b = 0; b < nb; b++) {
+        const dFilm = -(qRef[m]! * wT * dKappaAll[dOff + b]! * qRef[b]!) / c0[m]!;
+        coupling[cOff + b] = -(stanton / eps) * dFilm; // J(u_T, w_b,N)
+        coupling[cOff + nb + b] = (film / wN) * dFilm; // J(w_T,N, w_b,N)
+      }
+    }
+  }
 }

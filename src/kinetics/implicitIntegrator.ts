@@ -194,8 +194,10 @@ export function integrateImplicit(
       for (let i = 0; i < n; i++) delta[i] = rhsVec[i]! - z[i]! + dh * fz[i]!;
       solve(delta);
       stats.newtonIterations++;
-      for (let i = 0; i < n; i++) z[i] = z[i]! + delta[i]!;
-      const dn = norm(delta);
+      // z += delta, with the scaled RMS norm of delta in the same pass (as `norm`)
+      let sq = 0;
+      for (let i = 0; i < n; i++) { const di = delta[i]!; z[i] = z[i]! + di; const x = di * w[i]!; sq += x * x; }
+      const dn = Math.sqrt(sq / Math.max(n, 1));
       if (!Number.isFinite(dn)) return false;
       if (dn <= Math.min(1e-10, done)) { return rhs(ts, z, fz); }
       if (it > 0) {

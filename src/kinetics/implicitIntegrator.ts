@@ -140,20 +140,9 @@ export function integrateImplicit(
   const err = new Float64Array(n);
   const w = new Float64Array(n);
 
-  const rhs = (t: number, state: Float64Array, out: Float64Array): boolean => {
-    stats.rhsEvaluations++;
-    system.rhs(t, state, out);
-    for (let i = 0; i < n; i++) if (!Number.isFinite(out[i]!)) return false;
-    return true;
-  };
-  const setWeights = (a: Float64Array, b: Float64Array) => {
-    for (let i = 0; i < n; i++) w[i] = 1 / (atol[i]! + rtol * Math.max(Math.abs(a[i]!), Math.abs(b[i]!)));
-  };
-  const norm = (v: Float64Array): number => {
-    let s = 0;
-    for (let i = 0; i < n; i++) { const x = v[i]! * w[i]!; s += x * x; }
-    return Math.sqrt(s / Math.max(n, 1));
-  };
+  const rhs = (t: number, state: Float64Array, out: Float64Array): boolean => evalRhs(system, stats, t, state, out);
+  const setWeights = (a: Float64Array, b: Float64Array) => errorWeights(w, atol, rtol, a, b);
+  const norm = (v: Float64Array): number => scaledRms(v, w);
 
   const times: number[] = [];
   const states: Float64Array[] = [];
@@ -182,35 +171,7 @@ export function integrateImplicit(
   }
   h = Math.min(h, maxStep);
 
-  /** Simplified Newton for z − d·h·f(t_s, z) = rhsVec, starting at z. Returns false on failure. */
-  const newton = (ts: number, z: Float64Array, fz: Float64Array, solve: NewtonSolve, dh: number): boolean => {
-    let prevNorm = 0;
-    // a replay solves each stage to 1e-4 of the tolerance, so that its result is smooth in the
-    // model's parameters; otherwise the usual rate test (Hairer & Wanner eq. 8.10)
-    const maxIt = replay ? 4 * MAX_NEWTON : MAX_NEWTON;
-    const done = replay ? 1e-4 : 0.03;
-    for (let it = 0; it < maxIt; it++) {
-      if (!rhs(ts, z, fz)) return false;
-      for (let i = 0; i < n; i++) delta[i] = rhsVec[i]! - z[i]! + dh * fz[i]!;
-      solve(delta);
-      stats.newtonIterations++;
-      // z += delta, with the scaled RMS norm of delta in the same pass (as `norm`)
-      let sq = 0;
-      for (let i = 0; i < n; i++) { const di = delta[i]!; z[i] = z[i]! + di; const x = di * w[i]!; sq += x * x; }
-      const dn = Math.sqrt(sq / Math.max(n, 1));
-      if (!Number.isFinite(dn)) return false;
-      if (dn <= Math.min(1e-10, done)) { return rhs(ts, z, fz); }
-      if (it > 0) {
-        const rate = dn / prevNorm;
-        if (rate >= (replay ? 0.99 : 0.9)) return false;
-        if ((rate / (1 - rate)) * dn <= done) return rhs(ts, z, fz);
-      } else if (dn <= 1e-3 * done / 0.03) {
-        return rhs(ts, z, fz);
-      }
-      prevNorm = dn;
-    }
-    return false;
-  };
+  const newton = (ts: number, z: Float64Array, fz: Float64Array, solve: NewtonSolve, dh: number): boolean => simplifiedNewton(system, stats, ts, z, fz, solve, dh, rhsVec, delta, w, replay !== undefined);
 
   const hMinFloor = 16 * Number.EPSILON;
   while (outIdx < outputTimes.length) {
@@ -288,4 +249,62 @@ export function integrateImplicit(
     }
   }
   return { times, states, stats, stepTimes };
+}
+
+/** f(t, state) into `out`, counted; false when a value is not finite. */
+function evalRhs(system: StiffSystem, stats: IntegratorStats, t: number, state: Float64Array, out: Float64Array): boolean {
+  stats.rhsEvaluations++;
+  system.rhs(t, state, out);
+  const n = out.length;
+  for (let i = 0; i < n; i++) if (!Number.isFinite(out[i]!)) return false;
+  return true;
+}
+
+/** The error weights w_i = 1/(atol_i + rtol·max(|a_i|, |b_i|)). */
+function errorWeights(w: Float64Array, atol: Float64Array, rtol: number, a: Float64Array, b: Float64Array): void {
+  const n = w.length;
+  for (let i = 0; i < n; i++) w[i] = 1 / (atol[i]! + rtol * Math.max(Math.abs(a[i]!), Math.abs(b[i]!)));
+}
+
+/** The scaled RMS norm √(Σ(v_i·w_i)²/n). */
+function scaledRms(v: Float64Array, w: Float64Array): number {
+  const n = v.length;
+  let s = 0;
+  for (let i = 0; i < n; i++) { const x = v[i]! * w[i]!; s += x * x; }
+  return Math.sqrt(s / Math.max(n, 1));
+}
+
+/**
+ * Simplified Newton for z − dh·f(ts, z) = rhsVec, starting at z, with the solver of the step's
+ * Newton matrix; on success fz = f(ts, z). Returns false on failure (a non-finite value, a rate
+ * ≥ 0.9, or no convergence in MAX_NEWTON iterations). A replay solves each stage to 1e-4 of the
+ * tolerance, so that its result is smooth in the model's parameters; otherwise the usual rate
+ * test (Hairer & Wanner eq. 8.10).
+ */
+function simplifiedNewton(system: StiffSystem, stats: IntegratorStats, ts: number, z: Float64Array, fz: Float64Array, solve: NewtonSolve, dh: number, rhsVec: Float64Array, delta: Float64Array, w: Float64Array, replay: boolean): boolean {
+  const n = z.length;
+  let prevNorm = 0;
+  const maxIt = replay ? 4 * MAX_NEWTON : MAX_NEWTON;
+  const done = replay ? 1e-4 : 0.03;
+  for (let it = 0; it < maxIt; it++) {
+    if (!evalRhs(system, stats, ts, z, fz)) return false;
+    for (let i = 0; i < n; i++) delta[i] = rhsVec[i]! - z[i]! + dh * fz[i]!;
+    solve(delta);
+    stats.newtonIterations++;
+    // z += delta, with the scaled RMS norm of delta in the same pass (as scaledRms)
+    let sq = 0;
+    for (let i = 0; i < n; i++) { const di = delta[i]!; z[i] = z[i]! + di; const x = di * w[i]!; sq += x * x; }
+    const dn = Math.sqrt(sq / Math.max(n, 1));
+    if (!Number.isFinite(dn)) return false;
+    if (dn <= Math.min(1e-10, done)) { return evalRhs(system, stats, ts, z, fz); }
+    if (it > 0) {
+      const rate = dn / prevNorm;
+      if (rate >= (replay ? 0.99 : 0.9)) return false;
+      if ((rate / (1 - rate)) * dn <= done) return evalRhs(system, stats, ts, z, fz);
+    } else if (dn <= 1e-3 * done / 0.03) {
+      return evalRhs(system, stats, ts, z, fz);
+    }
+    prevNorm = dn;
+  }
+  return false;
 }

@@ -32,7 +32,7 @@ import { percentiles } from '../numerics/percentile.js';
 import type { ProjectSpec, UncertaintySpec } from '../project/projectTypes.js';
 import { lognormalFromZ, lognormalSigma, NormalSampler } from '../uncertainty/distributions.js';
 import { chunkRng } from '../uncertainty/prng.js';
-import { sharedTraceOutlets } from '../uncertainty/sharedTraceOutlets.js';
+import { sharedTraceOutlets, type StartedTraceWorker } from '../uncertainty/sharedTraceOutlets.js';
 import { DEFAULT_DS_REL_SD } from './contactUncertainty.js';
 import { fractionatedBackground, gacDocComponents, gacIndicatorRule, gacStaggeredRun } from './gacKineticStep.js';
 import type { CarbonResult, PipelineResult } from './pipelineTypes.js';
@@ -248,13 +248,13 @@ export interface StartedGacUncertainty {
  * withGacUncertainty's: the random draws are taken here in the same order, and each outlet is a
  * pure function of its drawn target. `workers` 0 keeps everything in this thread.
  */
-export function startGacUncertainty(result: PipelineResult, s: UncertaintySettings, options: { workers?: number } = {}): StartedGacUncertainty {
+export function startGacUncertainty(result: PipelineResult, s: UncertaintySettings, options: { workers?: number; /** A worker started ahead (startTraceOutletWorker), for the first carbon's outlets. */ started?: StartedTraceWorker } = {}): StartedGacUncertainty {
   const t0 = performance.now();
   const active = gacDrawCount(s) > 0 && result.carbons.some((c) => c.gacKinetic);
   const plans = active ? result.carbons.map((cr, ci) => (cr.gacKinetic ? planGacDraws(result.project, cr, ci, s) : undefined)) : [];
   // one shared run over the drawn targets of every carbon, carbon after carbon
   const ready = plans.filter((p): p is GacDrawPlan => p !== undefined && !('skipped' in p));
-  const shared = ready.map((p) => sharedTraceOutlets(p.bed, p.drawn, options));
+  const shared = ready.map((p, i) => sharedTraceOutlets(p.bed, p.drawn, { ...(options.workers !== undefined ? { workers: options.workers } : {}), ...(i === 0 && options.started ? { started: options.started } : {}) }));
   const planMs = performance.now() - t0;
   return {
     async finish(after) {

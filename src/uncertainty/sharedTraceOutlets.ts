@@ -6,15 +6,17 @@
  * its target, so the results, put back in target order, are identical to computing them all in
  * this thread. Without a worker (one core, workers 0, fewer than SHARED_MIN_TARGETS targets, or no worker file:
  * src/uncertainty/workerEntry.ts) everything runs in this thread; a worker that fails to start
- * leaves its unfinished targets to this thread.
+ * leaves its unfinished targets to this thread. A worker started ahead of the work
+ * (startTraceOutletWorker, while this thread runs the pipeline) is used from
+ * SHARED_MIN_TARGETS_STARTED targets on.
  * @throws InputError / ComputationError from an outlet (from either thread, rethrown as such)
  */
-import { availableParallelism } from 'node:os';
+import { availableParallelism, loadavg } from 'node:os';
 import { Worker } from 'node:worker_threads';
 import { ComputationError, InputError } from '../core/errors.js';
 import type { TraceBed } from '../kinetics/fixedBed.js';
 import type { FixedBedComponent } from '../kinetics/fixedBedInput.js';
-import type { TraceOutletWorkerInput, TraceOutletWorkerMessage } from './traceOutletWorker.js';
+import type { TraceOutletWorkerCommand, TraceOutletWorkerInput, TraceOutletWorkerMessage } from './traceOutletWorker.js';
 import { workerEntry } from './workerEntry.js';
 
 /**
@@ -29,6 +31,55 @@ import { workerEntry } from './workerEntry.js';
  */
 export const SHARED_MIN_TARGETS = 200;
 
+/**
+ * Fewest targets for which a worker started ahead of the work (startTraceOutletWorker) is used
+ * (ours): it has booted and loaded its modules while this thread ran the pipeline, so only its
+ * JIT warm-up is left against its share of the outlets.
+ */
+export const SHARED_MIN_TARGETS_STARTED = 20;
+
+/** A worker thread started ahead of its work (it waits for its targets); see startTraceOutletWorker. */
+export interface StartedTraceWorker {
+  readonly worker: Worker;
+  /** Taken by a sharedTraceOutlets run (a worker serves one run). */
+  taken: boolean;
+  /** End the worker if no run took it. */
+  release(): Promise<void>;
+}
+
+/**
+ * Is a core free for a worker started ahead? At least two cores and a 1-minute load average at
+ * most one below their number (ours: on a machine already busy, a worker's start-up and JIT
+ * warm-up cost more than its share of the outlets saves; measured on 2 cores, the demo's 45
+ * outlets with a worker took 6.1–6.4 s against 4.9–5.3 s without at a load of 4.4).
+ */
+export function spareCore(): boolean {
+  const cores = availableParallelism();
+  return cores >= 2 && loadavg()[0]! <= cores - 1;
+}
+
+/**
+ * Start a trace-outlet worker now, to be handed its targets later (`sharedTraceOutlets(…, { started })`),
+ * so that its start-up (a fresh isolate loading its modules) runs beside this thread's work;
+ * undefined on one core or without a worker file.
+ */
+export function startTraceOutletWorker(): StartedTraceWorker | undefined {
+  if (availableParallelism() < 2) return undefined;
+  const entry = workerEntry('traceOutletWorker');
+  if (!entry) return undefined;
+  const execArgv = process.execArgv.filter((a) => !a.startsWith('--input-type'));
+  const pending = { pending: true };
+  const worker = entry.kind === 'file' ? new Worker(entry.url, { workerData: pending, execArgv }) : new Worker(entry.code, { eval: true, workerData: pending, execArgv });
+  worker.unref();
+  worker.on('error', () => undefined); // a worker that fails leaves its targets to this thread (sharedTraceOutlets)
+  const started: StartedTraceWorker = {
+    worker,
+    taken: false,
+    async release() { if (!started.taken) { started.taken = true; await worker.terminate(); } },
+  };
+  return started;
+}
+
 export interface SharedTraceOutlets {
   /** Worker threads started (0 or 1). */
   readonly workers: number;
@@ -41,19 +92,35 @@ export interface SharedTraceOutlets {
 }
 
 /** Start the outlets of `targets` against `tb` (see the file comment); `workers` 0 keeps them in this thread. */
-export function sharedTraceOutlets(tb: TraceBed, targets: readonly FixedBedComponent[], options: { workers?: number; /** Leave every target to the worker (tests; default false). */ workerOnly?: boolean } = {}): SharedTraceOutlets {
+export function sharedTraceOutlets(tb: TraceBed, targets: readonly FixedBedComponent[], options: {
+  workers?: number;
+  /** Leave every target to the worker (tests; default false). */
+  workerOnly?: boolean;
+  /** A worker started ahead (startTraceOutletWorker): used from SHARED_MIN_TARGETS_STARTED targets, if no run took it yet. */
+  started?: StartedTraceWorker;
+} = {}): SharedTraceOutlets {
   const n = targets.length;
   const next = new Int32Array(new SharedArrayBuffer(4));
   const results: Array<number[] | undefined> = new Array(n);
   const wanted = Math.min(1, options.workers ?? 1);
-  const entry = wanted > 0 && (n >= SHARED_MIN_TARGETS || (options.workerOnly && n >= 1)) && availableParallelism() >= 2 ? workerEntry('traceOutletWorker') : undefined;
+  const pre = options.started;
+  const usePre = wanted > 0 && pre !== undefined && !pre.taken && (n >= SHARED_MIN_TARGETS_STARTED || (options.workerOnly === true && n >= 1));
+  const entry = !usePre && wanted > 0 && (n >= SHARED_MIN_TARGETS || (options.workerOnly && n >= 1)) && availableParallelism() >= 2 ? workerEntry('traceOutletWorker') : undefined;
   let worker: Worker | undefined;
   let byWorker = 0;
   let settled: Promise<Error | undefined> = Promise.resolve(undefined);
-  if (entry) {
+  if (usePre || entry) {
     const input: TraceOutletWorkerInput = { bed: tb.data(), targets: targets.map((t) => ({ ...t })), next: next.buffer as SharedArrayBuffer };
-    const execArgv = process.execArgv.filter((a) => !a.startsWith('--input-type'));
-    const w = entry.kind === 'file' ? new Worker(entry.url, { workerData: input, execArgv }) : new Worker(entry.code, { eval: true, workerData: input, execArgv });
+    let w: Worker;
+    if (usePre) {
+      pre.taken = true;
+      w = pre.worker;
+      w.ref();
+      w.postMessage({ type: 'input', input } satisfies TraceOutletWorkerCommand);
+    } else {
+      const execArgv = process.execArgv.filter((a) => !a.startsWith('--input-type'));
+      w = entry!.kind === 'file' ? new Worker(entry!.url, { workerData: input, execArgv }) : new Worker(entry!.code, { eval: true, workerData: input, execArgv });
+    }
     worker = w;
     // resolves with the worker's input or computation error (to rethrow), undefined otherwise
     // (done, or failed in another way: its unfinished targets are then computed here)

@@ -2,7 +2,9 @@
  * Worker-thread entry of `sharedTraceOutlets`: rebuilds the stored background (TraceBed data),
  * then claims target indices from the shared counter (Atomics) and posts each outlet c/c0 back,
  * until every index is claimed. Errors are posted as plain data so the main thread can rethrow
- * the same error type.
+ * the same error type. Its input comes as workerData, or, for a worker started ahead of its work
+ * (`startTraceOutletWorker`, workerData `{ pending: true }`), as the first message
+ * `{ type: 'input', input }`; a pending worker that receives `{ type: 'stop' }` ends.
  */
 import { parentPort, workerData } from 'node:worker_threads';
 import { ComputationError, InputError } from '../core/errors.js';
@@ -16,6 +18,9 @@ export interface TraceOutletWorkerInput {
   next: SharedArrayBuffer;
 }
 
+/** Messages to a worker started ahead of its work. */
+export type TraceOutletWorkerCommand = { type: 'input'; input: TraceOutletWorkerInput } | { type: 'stop' };
+
 export type TraceOutletWorkerMessage =
   | { type: 'outlet'; index: number; cOverC0: Float64Array }
   | { type: 'done' }
@@ -23,7 +28,15 @@ export type TraceOutletWorkerMessage =
 
 const port = parentPort;
 if (port) {
-  const input = workerData as TraceOutletWorkerInput;
+  const data = workerData as TraceOutletWorkerInput | { pending: true };
+  if ('pending' in data) {
+    port.once('message', (m: TraceOutletWorkerCommand) => { if (m.type === 'input') run(m.input); else port.close(); });
+  } else run(data);
+}
+
+/** Claim targets and post their outlets until none is left (see the file comment). */
+function run(input: TraceOutletWorkerInput): void {
+  const out = parentPort!;
   const next = new Int32Array(input.next);
   try {
     const tb = traceBedFromData(input.bed);
@@ -31,14 +44,14 @@ if (port) {
       const i = Atomics.add(next, 0, 1);
       if (i >= input.targets.length) break;
       const c = Float64Array.from(tb.outlet(input.targets[i]!).cOverC0);
-      port.postMessage({ type: 'outlet', index: i, cOverC0: c } satisfies TraceOutletWorkerMessage, [c.buffer as ArrayBuffer]);
+      out.postMessage({ type: 'outlet', index: i, cOverC0: c } satisfies TraceOutletWorkerMessage, [c.buffer as ArrayBuffer]);
     }
-    port.postMessage({ type: 'done' } satisfies TraceOutletWorkerMessage);
+    out.postMessage({ type: 'done' } satisfies TraceOutletWorkerMessage);
   } catch (e) {
     let msg: TraceOutletWorkerMessage;
     if (e instanceof InputError) msg = { type: 'error', kind: 'input', message: e.message, expected: e.expected, location: e.location };
     else if (e instanceof ComputationError) msg = { type: 'error', kind: 'computation', message: e.reason };
     else msg = { type: 'error', kind: 'other', message: (e as Error).stack ?? String(e) };
-    port.postMessage(msg);
+    out.postMessage(msg);
   }
 }

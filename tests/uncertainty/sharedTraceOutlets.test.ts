@@ -8,7 +8,7 @@
 import { describe, expect, it } from 'vitest';
 import { availableParallelism } from 'node:os';
 import { traceBed, traceBedFromData } from '../../src/kinetics/fixedBed.js';
-import { sharedTraceOutlets } from '../../src/uncertainty/sharedTraceOutlets.js';
+import { sharedTraceOutlets, SHARED_MIN_TARGETS_STARTED, startTraceOutletWorker } from '../../src/uncertainty/sharedTraceOutlets.js';
 import { InputError } from '../../src/core/errors.js';
 import { BED, TARGET, background } from '../kinetics/fixedBedCases.js';
 
@@ -29,6 +29,34 @@ describe('trace outlets shared with a worker thread', () => {
     const inThread = sharedTraceOutlets(tb, targets, { workers: 0 });
     expect(inThread.workers).toBe(0);
     expect(await inThread.finish()).toEqual(here);
+  }, 60_000);
+
+  it('a worker started ahead of its work gives the same outlets; it serves one run, and one never taken is released', async () => {
+    const here = targets.map((t) => tb.outlet(t).cOverC0);
+    const started = startTraceOutletWorker();
+    expect(started === undefined).toBe(availableParallelism() < 2);
+    const shared = sharedTraceOutlets(tb, targets, { workerOnly: true, ...(started ? { started } : {}) });
+    expect(shared.workers).toBe(started ? 1 : 0);
+    expect(await shared.finish()).toEqual(here);
+    if (started) {
+      expect(shared.byWorker).toBe(targets.length);
+      expect(started.taken).toBe(true);
+      // taken: a second run starts no worker from it (fewer targets than SHARED_MIN_TARGETS), and the outlets are the same
+      const again = sharedTraceOutlets(tb, targets, { started });
+      expect(again.workers).toBe(0);
+      expect(await again.finish()).toEqual(here);
+    }
+    // below SHARED_MIN_TARGETS_STARTED targets a started worker is not used, and release ends it
+    const unused = startTraceOutletWorker();
+    expect(targets.length).toBeLessThan(SHARED_MIN_TARGETS_STARTED);
+    const alone = sharedTraceOutlets(tb, targets, { ...(unused ? { started: unused } : {}) });
+    expect(alone.workers).toBe(0);
+    expect(await alone.finish()).toEqual(here);
+    if (unused) {
+      expect(unused.taken).toBe(false);
+      await unused.release();
+      expect(unused.taken).toBe(true);
+    }
   }, 60_000);
 
   it('a target that is not a trace is refused (InputError) from the worker as in this thread', async () => {

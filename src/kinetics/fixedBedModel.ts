@@ -186,9 +186,7 @@ export function fixedBedModel(components: readonly BedComponentScales[], backgro
     if (j < 0) return 1;
     const u = y[j * S + m * P]!;
     if (j === 0) return u;
-    const d = u - y[(j - 1) * S + m * P]!;
-    if (d >= 0) return u + 0.5 * d;
-    return u + (2 * u * u * d) / (d * d + 4 * u * u + ETA2); // ½·δ·θ²/(1 + θ²), θ = 2u/|δ|, regularised
+    return limitedFace(u, y[(j - 1) * S + m * P]!, ETA2);
   };
 
 
@@ -365,6 +363,17 @@ export function fixedBedModel(components: readonly BedComponentScales[], backgro
 }
 
 /**
+ * F_{j+1/2} of a cell with u = c/c0 and its upstream neighbour's uUp (j ≥ 1): u + ½·δ·φ with
+ * δ = u − uUp, φ = 1 for δ ≥ 0, else the limiter θ²/(1 + θ²), θ = 2u/|δ|, regularised by eta2
+ * (see the file comment).
+ */
+function limitedFace(u: number, uUp: number, eta2: number): number {
+  const d = u - uUp;
+  if (d >= 0) return u + 0.5 * d;
+  return u + (2 * u * u * d) / (d * d + 4 * u * u + eta2); // ½·δ·θ²/(1 + θ²), regularised
+}
+
+/**
  * The model's right-hand side given c_s/c0 per cell and component (`csOverC0`), written into `dy`
  * (see the file comment: the liquid with the limited second-order upwind faces, the grain's
  * collocation rows and the surface node's grain balance, and the cumulative outflows); `faces`
@@ -382,10 +391,7 @@ function transportRhs(y: Float64Array, dy: Float64Array, csOverC0: Float64Array,
       // F_{j+1/2}, and F_{j−1/2} from the cell upstream (the feed's 1 at j = 0)
       let F: number;
       if (j === 0) F = u;
-      else {
-        const d = u - y[o - S]!;
-        F = d >= 0 ? u + 0.5 * d : u + (2 * u * u * d) / (d * d + 4 * u * u + eta2);
-      }
+      else F = limitedFace(u, y[o - S]!, eta2);
       const Fup = j === 0 ? 1 : faces[(j - 1) * na + m]!;
       faces[j * na + m] = F;
       const film = u - csOverC0[j * na + m]!;

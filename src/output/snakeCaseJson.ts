@@ -268,6 +268,7 @@ function longArrayLines(a: ArrayLike<unknown>, inner: string): string | undefine
   }
   let numbers = true, rows = true;
   const renamed = new Set<string>();
+  const checked = new Set<string>(); // keys whose snake_case form is known (renamed or not)
   for (let i = 0; i < len && (numbers || rows); i++) {
     const e = a[i];
     if (typeof e !== 'number') numbers = false;
@@ -281,7 +282,7 @@ function longArrayLines(a: ArrayLike<unknown>, inner: string): string | undefine
       // a string (or key) ending in "},{" would end its text with `},{"`: written element by element
       if (k === 'toJSON' || (v !== null && typeof v === 'object') || (typeof v === 'string' && v.endsWith('},{')) || k.endsWith('},{')) { rows = false; break; }
       if (v !== undefined && typeof v !== 'function' && typeof v !== 'symbol') written = true;
-      if (!renamed.has(k) && snakeCaseKey(k) !== k) renamed.add(k);
+      if (!checked.has(k)) { checked.add(k); if (snakeCaseKey(k) !== k) renamed.add(k); }
     }
     if (!written) rows = false; // `{}` would not be split safely
   }

@@ -3,7 +3,8 @@
  * (Golub & Van Loan, Matrix Computations, 4th ed. 2013, §3.2 and §3.4). Used for the Newton
  * matrices (I − γh·J) of the implicit integrators; the matrix is a row-major Float64Array.
  * `luFactorAt`/`luSolveAt` work in place on a matrix stored at an offset of a larger array (no
- * allocation, for the integrators' inner loops); `denseLu` wraps them.
+ * allocation, for the integrators' inner loops); `denseLu` wraps them. `luSolveBlocksAt` solves
+ * several such blocks stored one after another.
  */
 import { ComputationError } from '../core/errors.js';
 
@@ -66,6 +67,56 @@ export function luSolveAt(a: Float64Array, off: number, n: number, piv: Int32Arr
     for (let j = i + 1; j < n; j++) s -= a[row + j]! * b[bOff + j]!;
     b[bOff + i] = s / a[row + i]!;
   }
+}
+
+/**
+ * Solve `count` independent systems factorised by luFactorAt and stored one after another: block
+ * q has its matrix at a[off + q·n² …], its pivots at piv[pOff + q·n …] and its right-hand side at
+ * b[bOff + q·n …] (overwritten with x). Every block gets exactly the arithmetic of luSolveAt, in
+ * the same order; four blocks at a time go through the rows together, so that their independent
+ * chains of dependent operations overlap in the processor (the rest one by one, by luSolveAt).
+ */
+export function luSolveBlocksAt(a: Float64Array, off: number, n: number, piv: Int32Array, pOff: number, b: Float64Array, bOff: number, count: number): void {
+  const nn = n * n;
+  let q = 0;
+  for (; q + 3 < count; q += 4) {
+    for (let u = q; u < q + 4; u++) {
+      const po = pOff + u * n, bo = bOff + u * n;
+      for (let k = 0; k < n; k++) {
+        const p = piv[po + k]!;
+        if (p !== k) {
+          const t = b[bo + k]!;
+          b[bo + k] = b[bo + p]!;
+          b[bo + p] = t;
+        }
+      }
+    }
+    const b0 = bOff + q * n, b1 = b0 + n, b2 = b1 + n, b3 = b2 + n;
+    const a0 = off + q * nn, a1 = a0 + nn, a2 = a1 + nn, a3 = a2 + nn;
+    for (let i = 1; i < n; i++) {
+      let s0 = b[b0 + i]!, s1 = b[b1 + i]!, s2 = b[b2 + i]!, s3 = b[b3 + i]!;
+      const r = i * n;
+      for (let j = 0; j < i; j++) {
+        s0 -= a[a0 + r + j]! * b[b0 + j]!;
+        s1 -= a[a1 + r + j]! * b[b1 + j]!;
+        s2 -= a[a2 + r + j]! * b[b2 + j]!;
+        s3 -= a[a3 + r + j]! * b[b3 + j]!;
+      }
+      b[b0 + i] = s0; b[b1 + i] = s1; b[b2 + i] = s2; b[b3 + i] = s3;
+    }
+    for (let i = n - 1; i >= 0; i--) {
+      let s0 = b[b0 + i]!, s1 = b[b1 + i]!, s2 = b[b2 + i]!, s3 = b[b3 + i]!;
+      const r = i * n;
+      for (let j = i + 1; j < n; j++) {
+        s0 -= a[a0 + r + j]! * b[b0 + j]!;
+        s1 -= a[a1 + r + j]! * b[b1 + j]!;
+        s2 -= a[a2 + r + j]! * b[b2 + j]!;
+        s3 -= a[a3 + r + j]! * b[b3 + j]!;
+      }
+      b[b0 + i] = s0 / a[a0 + r + i]!; b[b1 + i] = s1 / a[a1 + r + i]!; b[b2 + i] = s2 / a[a2 + r + i]!; b[b3 + i] = s3 / a[a3 + r + i]!;
+    }
+  }
+  for (; q < count; q++) luSolveAt(a, off + q * nn, n, piv, pOff + q * n, b, bOff + q * n);
 }
 
 /**

@@ -72,7 +72,7 @@ export function hsdmParticleSystem(pk: PreparedKinetics, doseGPerL: number, col:
   const cFixed = fixed ? Float64Array.from(blocks, (i) => liquid.cMgPerL[i]!) : new Float64Array(nBlocks);
   const theta = fixed ? liquid.meanAgeS : 0;
   const qEqScaled = Float64Array.from(blocks, (i, b) => (fixed && liquid.equilibriumMgPerG ? liquid.equilibriumMgPerG[i]! / scale[b]! : 0));
-  const iso: SurfaceIsotherms = { K: traceK.slice(0, nB), beta: traceBeta.slice(0, nB) };
+
   const B = col.laplacian;
   const w = col.weights;
   const dose = doseGPerL;
@@ -85,8 +85,10 @@ export function hsdmParticleSystem(pk: PreparedKinetics, doseGPerL: number, col:
   const jrev = new Float64Array(nB * nB);
   const dKappa = new Float64Array(nB);
   const surf: ReverseIastState = { psi: 0, total: 0 };
-  // ln(β_T/K_T) of each block, so that κ_T shares ln ψ_B over the trace blocks (traceKappa)
+  // ln(β/K) of each block, computed once: for reverse IAST of the coupled blocks and so that κ_T
+  // shares ln ψ_B over the trace blocks (traceKappa)
   const lnBetaOverK = Float64Array.from(comps, (c) => Math.log(c.oneOverN / c.K));
+  const iso: SurfaceIsotherms = { K: traceK.slice(0, nB), beta: traceBeta.slice(0, nB), lnBetaOverK: lnBetaOverK.slice(0, nB) };
 
   const meanLoading = (y: Float64Array, b: number): number => meanScaledAt(y, w, b * M, M) * scale[b]!;
 

@@ -35,14 +35,36 @@ export function luFactorAt(a: Float64Array, off: number, n: number, piv: Int32Ar
         a[off + p * n + j] = t;
       }
     }
-    const inv = 1 / a[off + k * n + k]!;
-    for (let i = k + 1; i < n; i++) {
-      const f = a[off + i * n + k]! * inv;
-      if (f === 0) continue;
-      a[off + i * n + k] = f;
-      for (let j = k + 1; j < n; j++) a[off + i * n + j] = a[off + i * n + j]! - f * a[off + k * n + j]!;
+    const rk = off + k * n;
+    const inv = 1 / a[rk + k]!;
+    // the rows below, two at a time where both have a multiplier (each element's arithmetic is
+    // that of eliminateRow)
+    let i = k + 1;
+    for (; i + 1 < n; i += 2) {
+      const ri = off + i * n, ri2 = ri + n;
+      const f = a[ri + k]! * inv, f2 = a[ri2 + k]! * inv;
+      if (f !== 0 && f2 !== 0) {
+        a[ri + k] = f;
+        a[ri2 + k] = f2;
+        for (let j = k + 1; j < n; j++) {
+          const akj = a[rk + j]!;
+          a[ri + j] = a[ri + j]! - f * akj;
+          a[ri2 + j] = a[ri2 + j]! - f2 * akj;
+        }
+      } else {
+        eliminateRow(a, rk, ri, k, n, f);
+        eliminateRow(a, rk, ri2, k, n, f2);
+      }
     }
+    if (i < n) eliminateRow(a, rk, off + i * n, k, n, a[off + i * n + k]! * inv);
   }
+}
+
+/** One step of Gaussian elimination on the row at a[ri …] with the pivot row at a[rk …] (column k, multiplier f; nothing when f is 0). */
+function eliminateRow(a: Float64Array, rk: number, ri: number, k: number, n: number, f: number): void {
+  if (f === 0) return;
+  a[ri + k] = f;
+  for (let j = k + 1; j < n; j++) a[ri + j] = a[ri + j]! - f * a[rk + j]!;
 }
 
 /** Solve with a factorisation from luFactorAt: b[bOff … bOff + n) is overwritten with x. */

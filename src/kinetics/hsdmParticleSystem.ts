@@ -295,7 +295,7 @@ function hsdmSolve(x: Float64Array, gE: number, lu: Float64Array, piv: Int32Arra
     for (let k = 0; k < nB; k++) add += traceCross[cOff + k]! * x[k * M + N]!;
     x[b * M + N] = x[b * M + N]! + add;
   }
-  luSolveBlocksAt(lu, nB * MM, M, piv, nB * M, x, nB * M, nBlocks - nB);
+  if (nBlocks > nB) luSolveBlocksAt(lu, nB * MM, M, piv, nB * M, x, nB * M, nBlocks - nB);
   if (fixed) {
     // age rows: X_b' = (q_eq − q̄_b)·E, so x_X = b_X − g·E·Σ w_l x_l
     for (let b = 0; b < nBlocks; b++) x[nBlocks * M + b] = x[nBlocks * M + b]! - gE * meanScaledAt(x, w, b * M, M);

@@ -1,13 +1,63 @@
 /**
- * luSolveBlocksAt (several LU-factorised blocks solved together, four at a time) gives exactly
- * the numbers of luSolveAt block by block (the same arithmetic in the same order), with row
- * exchanges and at the offsets the HSDM particle system uses; and the reverse IAST with ln(β/K)
- * kept by the caller gives exactly the numbers computed without it.
+ * luFactorAt (rows eliminated two at a time) gives exactly the numbers of the textbook loop, one
+ * row at a time, also with zero multipliers; luSolveBlocksAt (several LU-factorised blocks solved
+ * together, four at a time) gives exactly the numbers of luSolveAt block by block (the same
+ * arithmetic in the same order), with row exchanges and at the offsets the HSDM particle system
+ * uses; and the reverse IAST with ln(β/K) kept by the caller gives exactly the numbers computed
+ * without it.
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { luFactorAt, luSolveAt, luSolveBlocksAt } from '../../src/kinetics/denseLu.js';
 import { reverseIast } from '../../src/kinetics/reverseIast.js';
+
+/** Gaussian elimination with partial pivoting, one row at a time (Golub & Van Loan 2013, §3.4): the reference. */
+function referenceFactor(a: Float64Array, off: number, n: number, piv: Int32Array, pOff: number): void {
+  for (let k = 0; k < n; k++) {
+    let p = k;
+    let best = Math.abs(a[off + k * n + k]!);
+    for (let i = k + 1; i < n; i++) {
+      const v = Math.abs(a[off + i * n + k]!);
+      if (v > best) { best = v; p = i; }
+    }
+    piv[pOff + k] = p;
+    if (p !== k) {
+      for (let j = 0; j < n; j++) {
+        const t = a[off + k * n + j]!;
+        a[off + k * n + j] = a[off + p * n + j]!;
+        a[off + p * n + j] = t;
+      }
+    }
+    const inv = 1 / a[off + k * n + k]!;
+    for (let i = k + 1; i < n; i++) {
+      const f = a[off + i * n + k]! * inv;
+      if (f === 0) continue;
+      a[off + i * n + k] = f;
+      for (let j = k + 1; j < n; j++) a[off + i * n + j] = a[off + i * n + j]! - f * a[off + k * n + j]!;
+    }
+  }
+}
+
+describe('luFactorAt', () => {
+  it('equals the one-row-at-a-time elimination bit for bit (order 1 to 12, with zero entries and -0)', () => {
+    fc.assert(fc.property(
+      fc.integer({ min: 1, max: 12 }), fc.integer({ min: 0, max: 2 }), fc.integer({ min: 1, max: 2147483646 }),
+      (n, lead, seed) => {
+        let s = seed;
+        const rnd = () => { s = (s * 16807) % 2147483647; return s / 2147483647; };
+        const off = lead * n * n;
+        // about a third of the entries zero (some -0), so that multipliers of zero occur
+        const a = Float64Array.from({ length: off + n * n }, () => { const u = rnd(); return u < 0.3 ? (u < 0.1 ? -0 : 0) : rnd() - 0.5; });
+        for (let i = 0; i < n; i++) a[off + i * n + i] = a[off + i * n + i]! + (i % 2 ? 2 : -2); // nonsingular
+        const ref = Float64Array.from(a), refPiv = new Int32Array(n), piv = new Int32Array(n);
+        referenceFactor(ref, off, n, refPiv, 0);
+        luFactorAt(a, off, n, piv, 0);
+        expect(Array.from(piv)).toEqual(Array.from(refPiv));
+        for (let i = 0; i < a.length; i++) expect(Object.is(a[i], ref[i])).toBe(true);
+      },
+    ), { numRuns: 300 });
+  });
+});
 
 describe('luSolveBlocksAt', () => {
   it('equals luSolveAt on every block, bit for bit (1 to 9 blocks of order 1 to 12, at offsets)', () => {

@@ -19,7 +19,9 @@
  * States are scaled loadings y = q/(c0/D) (fraction of the component that the carbon could hold).
  *
  * Units: t s, q mg/g, c mg/L, D g/L, R m, ρp g/L, Ds m²/s, kf m/s.
- * The hot paths (rhs, factor, solve) allocate nothing: the Newton matrices live in one array.
+ * The hot paths (rhs, factor, solve) allocate nothing: the Newton matrices live in one array; they
+ * are module-level kernels (hsdmRhs, hsdmFactor, hsdmSolve) that take every array and scalar as
+ * arguments.
  * Throws ComputationError (from the LU) when a Newton matrix is singular.
  */
 import type { StiffSystem, NewtonSolve } from './implicitIntegrator.js';
@@ -72,7 +74,6 @@ export function hsdmParticleSystem(pk: PreparedKinetics, doseGPerL: number, col:
   const cFixed = fixed ? Float64Array.from(blocks, (i) => liquid.cMgPerL[i]!) : new Float64Array(nBlocks);
   const theta = fixed ? liquid.meanAgeS : 0;
   const qEqScaled = Float64Array.from(blocks, (i, b) => (fixed && liquid.equilibriumMgPerG ? liquid.equilibriumMgPerG[i]! / scale[b]! : 0));
-
   const B = col.laplacian;
   const w = col.weights;
   const dose = doseGPerL;

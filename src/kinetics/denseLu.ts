@@ -3,7 +3,8 @@
  * (Golub & Van Loan, Matrix Computations, 4th ed. 2013, §3.2 and §3.4). Used for the Newton
  * matrices (I − γh·J) of the implicit integrators; the matrix is a row-major Float64Array.
  * `luFactorAt`/`luSolveAt` work in place on a matrix stored at an offset of a larger array (no
- * allocation, for the integrators' inner loops); `denseLu` wraps them.
+ * allocation, for the integrators' inner loops); `denseLu` wraps them. `luSolveBlocksAt` solves
+ * several such blocks stored one after another.
  */
 import { ComputationError } from '../core/errors.js';
 
@@ -34,14 +35,36 @@ export function luFactorAt(a: Float64Array, off: number, n: number, piv: Int32Ar
         a[off + p * n + j] = t;
       }
     }
-    const inv = 1 / a[off + k * n + k]!;
-    for (let i = k + 1; i < n; i++) {
-      const f = a[off + i * n + k]! * inv;
-      if (f === 0) continue;
-      a[off + i * n + k] = f;
-      for (let j = k + 1; j < n; j++) a[off + i * n + j] = a[off + i * n + j]! - f * a[off + k * n + j]!;
+    const rk = off + k * n;
+    const inv = 1 / a[rk + k]!;
+    // the rows below, two at a time where both have a multiplier (each element's arithmetic is
+    // that of eliminateRow)
+    let i = k + 1;
+    for (; i + 1 < n; i += 2) {
+      const ri = off + i * n, ri2 = ri + n;
+      const f = a[ri + k]! * inv, f2 = a[ri2 + k]! * inv;
+      if (f !== 0 && f2 !== 0) {
+        a[ri + k] = f;
+        a[ri2 + k] = f2;
+        for (let j = k + 1; j < n; j++) {
+          const akj = a[rk + j]!;
+          a[ri + j] = a[ri + j]! - f * akj;
+          a[ri2 + j] = a[ri2 + j]! - f2 * akj;
+        }
+      } else {
+        eliminateRow(a, rk, ri, k, n, f);
+        eliminateRow(a, rk, ri2, k, n, f2);
+      }
     }
+    if (i < n) eliminateRow(a, rk, off + i * n, k, n, a[off + i * n + k]! * inv);
   }
+}
+
+/** One step of Gaussian elimination on the row at a[ri …] with the pivot row at a[rk …] (column k, multiplier f; nothing when f is 0). */
+function eliminateRow(a: Float64Array, rk: number, ri: number, k: number, n: number, f: number): void {
+  if (f === 0) return;
+  a[ri + k] = f;
+  for (let j = k + 1; j < n; j++) a[ri + j] = a[ri + j]! - f * a[rk + j]!;
 }
 
 /** Solve with a factorisation from luFactorAt: b[bOff … bOff + n) is overwritten with x. */
@@ -66,6 +89,56 @@ export function luSolveAt(a: Float64Array, off: number, n: number, piv: Int32Arr
     for (let j = i + 1; j < n; j++) s -= a[row + j]! * b[bOff + j]!;
     b[bOff + i] = s / a[row + i]!;
   }
+}
+
+/**
+ * Solve `count` independent systems factorised by luFactorAt and stored one after another: block
+ * q has its matrix at a[off + q·n² …], its pivots at piv[pOff + q·n …] and its right-hand side at
+ * b[bOff + q·n …] (overwritten with x). Every block gets exactly the arithmetic of luSolveAt, in
+ * the same order; four blocks at a time go through the rows together, so that their independent
+ * chains of dependent operations overlap in the processor (the rest one by one, by luSolveAt).
+ */
+export function luSolveBlocksAt(a: Float64Array, off: number, n: number, piv: Int32Array, pOff: number, b: Float64Array, bOff: number, count: number): void {
+  const nn = n * n;
+  let q = 0;
+  for (; q + 3 < count; q += 4) {
+    for (let u = q; u < q + 4; u++) {
+      const po = pOff + u * n, bo = bOff + u * n;
+      for (let k = 0; k < n; k++) {
+        const p = piv[po + k]!;
+        if (p !== k) {
+          const t = b[bo + k]!;
+          b[bo + k] = b[bo + p]!;
+          b[bo + p] = t;
+        }
+      }
+    }
+    const b0 = bOff + q * n, b1 = b0 + n, b2 = b1 + n, b3 = b2 + n;
+    const a0 = off + q * nn, a1 = a0 + nn, a2 = a1 + nn, a3 = a2 + nn;
+    for (let i = 1; i < n; i++) {
+      let s0 = b[b0 + i]!, s1 = b[b1 + i]!, s2 = b[b2 + i]!, s3 = b[b3 + i]!;
+      const r = i * n;
+      for (let j = 0; j < i; j++) {
+        s0 -= a[a0 + r + j]! * b[b0 + j]!;
+        s1 -= a[a1 + r + j]! * b[b1 + j]!;
+        s2 -= a[a2 + r + j]! * b[b2 + j]!;
+        s3 -= a[a3 + r + j]! * b[b3 + j]!;
+      }
+      b[b0 + i] = s0; b[b1 + i] = s1; b[b2 + i] = s2; b[b3 + i] = s3;
+    }
+    for (let i = n - 1; i >= 0; i--) {
+      let s0 = b[b0 + i]!, s1 = b[b1 + i]!, s2 = b[b2 + i]!, s3 = b[b3 + i]!;
+      const r = i * n;
+      for (let j = i + 1; j < n; j++) {
+        s0 -= a[a0 + r + j]! * b[b0 + j]!;
+        s1 -= a[a1 + r + j]! * b[b1 + j]!;
+        s2 -= a[a2 + r + j]! * b[b2 + j]!;
+        s3 -= a[a3 + r + j]! * b[b3 + j]!;
+      }
+      b[b0 + i] = s0 / a[a0 + r + i]!; b[b1 + i] = s1 / a[a1 + r + i]!; b[b2 + i] = s2 / a[a2 + r + i]!; b[b3 + i] = s3 / a[a3 + r + i]!;
+    }
+  }
+  for (; q < count; q++) luSolveAt(a, off + q * nn, n, piv, pOff + q * n, b, bOff + q * n);
 }
 
 /**

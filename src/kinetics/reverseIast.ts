@@ -21,6 +21,8 @@ export interface SurfaceIsotherms {
   readonly K: Float64Array;
   /** Freundlich exponent β = 1/n of each component (> 0). */
   readonly beta: Float64Array;
+  /** ln(β/K) of each component, when the caller keeps it (the same values reverseIast computes otherwise). */
+  readonly lnBetaOverK?: Float64Array;
 }
 
 export interface ReverseIastState {
@@ -50,10 +52,11 @@ export function reverseIast(iso: SurfaceIsotherms, q: ArrayLike<number>, cs: Flo
     return { psi: 0, total: 0 };
   }
   const lnPsi = Math.log(psi);
+  const lnBetaOverK = iso.lnBetaOverK;
   for (let i = 0; i < m; i++) {
     const qi = q[i]! > 0 ? q[i]! : 0;
     const b = iso.beta[i]!;
-    const cStar = Math.exp((Math.log(b / iso.K[i]!) + lnPsi) / b); // c°_i = (β_i ψ/K_i)^(1/β_i)
+    const cStar = Math.exp(((lnBetaOverK ? lnBetaOverK[i]! : Math.log(b / iso.K[i]!)) + lnPsi) / b); // c°_i = (β_i ψ/K_i)^(1/β_i)
     const csi = (qi / total) * cStar; // c_s,i = z_i c°_i
     cs[i] = csi;
     if (jac) {

@@ -45,6 +45,10 @@ export interface DrawModel {
   L: number[][];
   /** Position in the covariance vector of `lnK:id`, `fraction:id`, `one_over_n:id`. */
   covIndex: Map<string, number>;
+  /** The same positions by component (−1: not in the covariance), for the draws. */
+  covAt: CovPositions;
+  /** 1 for a report-only target, by target index. */
+  reportOnly: Uint8Array;
   sigma: { bgK: number[]; bgF: number[]; tK: number[]; tN: number[]; doc: number };
   index: { uv: number; docRed: number; yearlyKg: number; yearlyCost: number; governing: number; indicator: number; costPerM3: number };
   /** The design problem every draw solves (goals, indicator goal, price, absorbances). */
@@ -115,6 +119,8 @@ export function compileDrawModel(problem: MonteCarloProblem): DrawModel {
     quantities,
     L,
     covIndex,
+    covAt: covPositions(problem, covIndex),
+    reportOnly: Uint8Array.from(problem.targets, (t) => (t.reportOnly === true ? 1 : 0)),
     sigma: {
       bgK: problem.background.map((b) => lognormalSigma(b.KRelSd ?? 0)),
       bgF: problem.background.map((b) => lognormalSigma(b.fractionRelSd ?? 0)),
@@ -135,7 +141,7 @@ export function compileDrawModel(problem: MonteCarloProblem): DrawModel {
 
 /** The dose-table nodes at the point estimate, when the problem does not give the run's. */
 function pointNodes(problem: MonteCarloProblem, factory: RemovalModelFactory, design: DesignProblem): number[] {
-  const bg = problem.background.map((b): FreundlichComponent => ({ id: b.id, K: b.K, oneOverN: b.oneOverN, c0MgPerL: b.fraction * problem.docMgPerL }));
+  const bg = problem.background.map((b): FreundlichComponent => ({ id: b.id, c0MgPerL: b.fraction * problem.docMgPerL, K: b.K, oneOverN: b.oneOverN }));
   const model = factory(problem.targets.map((t) => ({ target: { id: t.id, c0MgPerL: t.c0MgPerL, K: t.K, oneOverN: t.oneOverN }, competitors: bg })), problem.docMgPerL, bg);
   return doseTable(model, design, problem.yearly!.docSeriesMgPerL).docMgPerL;
 }
@@ -146,7 +152,7 @@ function pointNodes(problem: MonteCarloProblem, factory: RemovalModelFactory, de
  */
 export function sampleParameters(model: DrawModel, normal: NormalSampler | undefined): DrawnParameters {
   const { problem: p, sigma } = model;
-  const at = covPositions(model);
+  const at = model.covAt;
   const delta = new Float64Array(model.L.length);
   if (normal && model.L.length > 0) multivariateNormalDeviation(model.L, normal, delta);
   const B = p.background.length;
@@ -182,11 +188,12 @@ export function sampleParameters(model: DrawModel, normal: NormalSampler | undef
   for (let i = 0; i < B; i++) {
     const b = p.background[i]!;
     const kN = at.bgN[i]!;
+    // the key order of every FreundlichComponent (one object layout for the solvers)
     background[i] = {
       id: b.id,
+      c0MgPerL: (fractions[i]! / sum) * docMgPerL,
       K: Ks[i]!,
       oneOverN: b.K === 0 ? b.oneOverN : kN >= 0 ? Math.max(0.01, b.oneOverN + delta[kN]!) : b.oneOverN,
-      c0MgPerL: (fractions[i]! / sum) * docMgPerL,
     };
   }
   const drawn: DrawnParameters = { background, targets, docMgPerL };
@@ -195,23 +202,17 @@ export function sampleParameters(model: DrawModel, normal: NormalSampler | undef
 }
 
 /** Positions in the covariance vector of each parameter (−1: not in the covariance), by component. */
-interface CovPositions { bgK: Int32Array; bgF: Int32Array; bgN: Int32Array; tK: Int32Array; tN: Int32Array }
-const covPositionsCache = new WeakMap<DrawModel, CovPositions>();
+export interface CovPositions { bgK: Int32Array; bgF: Int32Array; bgN: Int32Array; tK: Int32Array; tN: Int32Array }
 
-function covPositions(model: DrawModel): CovPositions {
-  let at = covPositionsCache.get(model);
-  if (at) return at;
-  const p = model.problem;
-  const pos = (name: string) => model.covIndex.get(name) ?? -1;
-  at = {
+function covPositions(p: MonteCarloProblem, covIndex: ReadonlyMap<string, number>): CovPositions {
+  const pos = (name: string) => covIndex.get(name) ?? -1;
+  return {
     bgK: Int32Array.from(p.background, (b) => pos(`lnK:${b.id}`)),
     bgF: Int32Array.from(p.background, (b) => pos(`fraction:${b.id}`)),
     bgN: Int32Array.from(p.background, (b) => pos(`one_over_n:${b.id}`)),
     tK: Int32Array.from(p.targets, (t) => pos(`lnK:${t.id}`)),
     tN: Int32Array.from(p.targets, (t) => pos(`one_over_n:${t.id}`)),
   };
-  covPositionsCache.set(model, at);
-  return at;
 }
 
 /** The removal model of one draw at its DOC. */
@@ -234,7 +235,7 @@ export function evaluateDraw(model: DrawModel, d: DrawnParameters, out: Float64A
   const required = orInfinity(design.doseMgPerL);
   for (let t = 0; t < T; t++) {
     // a report-only compound: its removal at the required dose (none without a dose)
-    out[t] = p.targets[t]!.reportOnly !== true ? orInfinity(design.compounds[t]!.doseMgPerL)
+    out[t] = model.reportOnly[t] === 0 ? orInfinity(design.compounds[t]!.doseMgPerL)
       : required === Infinity ? Infinity : required > 0 ? 1 - removal.remaining(t, required / 1000).remainingFraction : 0;
   }
   out[model.index.governing] = required;

@@ -77,11 +77,16 @@ export class EquilibriumRemoval implements RemovalModel {
       return;
     }
     this.setsCache = sets;
-    this.compoundIds = sets.map((s) => s.target.id);
-    this.c0 = sets.map((s, i) => {
+    // arrays built by push: one array layout in every tier (designDose.ts)
+    const ids: string[] = [], c0: number[] = [];
+    for (let i = 0; i < sets.length; i++) {
+      const s = sets[i]!;
+      ids.push(s.target.id);
       if (!(s.target.c0MgPerL > 0) || !Number.isFinite(s.target.c0MgPerL)) throw new InputError(`expected a feed concentration > 0 mg/L for "${s.target.id}", got ${s.target.c0MgPerL}`, { path: `compounds[${i}].c0` });
-      return s.target.c0MgPerL;
-    });
+      c0.push(s.target.c0MgPerL);
+    }
+    this.compoundIds = ids;
+    this.c0 = c0;
     const competitors = sharedCompetitors(sets);
     let shared: PreparedMixture | undefined;
     if (competitors) {

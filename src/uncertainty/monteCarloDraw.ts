@@ -23,7 +23,7 @@ import { requiredDoseAt, type RequiredAtDoc } from '../design/requiredDoseAt.js'
 import { REPORT_ONLY_GOAL } from '../design/compoundGoal.js';
 import { seriesCarbon, seriesSegments, doseTable, type SeriesSegments } from '../design/doseTable.js';
 import { REMOVAL_MODELS } from '../design/removalModels.js';
-import type { RemovalModel, RemovalModelFactory } from '../design/removalModel.js';
+import type { CompetitionSet, RemovalModel, RemovalModelFactory } from '../design/removalModel.js';
 import { carbonCost } from '../design/carbonCost.js';
 import { yearlyLabel } from '../design/annualised.js';
 import { cholesky, lognormalFromZ, lognormalSigma, multivariateNormalDeviation, NormalSampler } from './distributions.js';
@@ -218,7 +218,9 @@ function covPositions(p: MonteCarloProblem, covIndex: ReadonlyMap<string, number
 /** The removal model of one draw at its DOC. */
 export function drawModel(model: DrawModel, d: DrawnParameters): RemovalModel {
   const factory = d.kinetics ? kineticDrawFactory(model.problem.kinetics!, model.problem.targets.map((t) => t.id), d.kinetics) : model.factory;
-  return factory(d.targets.map((t) => ({ target: t, competitors: d.background })), d.docMgPerL, d.background);
+  const sets: CompetitionSet[] = []; // by push: one array layout in every tier (designDose.ts)
+  for (const t of d.targets) sets.push({ target: t, competitors: d.background });
+  return factory(sets, d.docMgPerL, d.background);
 }
 
 const orInfinity = (v: number | null): number => (v === null ? Infinity : v);
@@ -247,11 +249,12 @@ export function evaluateDraw(model: DrawModel, d: DrawnParameters, out: Float64A
   if (model.yearly) {
     const factor = d.docMgPerL / p.docMgPerL;
     let near: RequiredAtDoc | undefined;
-    const doses = model.yearly.nodes.map((node) => {
+    const doses: Array<number | null> = []; // by push: one array layout in every tier (designDose.ts)
+    for (const node of model.yearly.nodes) {
       const doc = node * factor;
       near = requiredDoseAt(doc === removal.docMgPerL ? removal : removal.atDoc(doc), model.design, design, near);
-      return near.doseMgPerL;
-    });
+      doses.push(near.doseMgPerL);
+    }
     const y = seriesCarbon(model.yearly.segments, doses);
     const nothing = y.daysWithDose === 0;
     out[model.index.yearlyKg] = nothing ? Infinity : y.yearlyKg;

@@ -62,7 +62,7 @@ export function requiredDoseAt(model: RemovalModel, problem: DesignProblem, refe
   for (let i = 0; i < T; i++) {
     const goal = problem.goals[i]!;
     if (goal.kind === 'none' || !(goal.removalFraction > 0)) continue;
-    if (est && est.lnRemaining[i]! + est.lnBound[i]! <= Math.log1p(-goal.removalFraction)) continue; // met for certain
+    if (est && est.lnRemaining[i]! + est.lnBound[i]! <= lnKept(i, goal.removalFraction)) continue; // met for certain
     if (exactRemoval(model, i, D, warm, removal) < goal.removalFraction - 1e-9) return full(model, problem, reference);
   }
   if (problem.indicator) {
@@ -127,6 +127,17 @@ function governingIndex(ids: readonly string[], governedBy: string): number {
   governingLast.governedBy = governedBy;
   governingLast.index = i;
   return i;
+}
+
+/** ln(1 − R) last computed for the goal at each index, with its R (every node of every draw asks again for the same goals). */
+const lnKeptR: number[] = [], lnKeptValue: number[] = [];
+function lnKept(i: number, R: number): number {
+  if (lnKeptR[i] === R) return lnKeptValue[i]!;
+  const v = Math.log1p(-R);
+  while (lnKeptR.length <= i) { lnKeptR.push(NaN); lnKeptValue.push(NaN); }
+  lnKeptR[i] = R;
+  lnKeptValue[i] = v;
+  return v;
 }
 
 /** Removal of compound i at dose D (g/L), solved once and kept in `removal` (NaN: not yet). */

@@ -45,7 +45,8 @@ interface Moved {
 export class EquilibriumRemoval implements RemovalModel {
   readonly kind = 'equilibrium (batch IAST)';
   readonly compoundIds: readonly string[];
-  readonly backgroundC0MgPerL?: Float64Array;
+  /** Initial concentrations of the fictive DOC components (a moved model's: scaled when first asked for). */
+  private bgC0?: Float64Array;
   private readonly mixtures: Array<PreparedMixture | undefined>;
   /** Feed concentrations of the targets (a plain array: a typed array of more than 8 numbers is allocated outside the JS heap, dearer per draw). */
   private readonly c0: readonly number[];
@@ -73,7 +74,6 @@ export class EquilibriumRemoval implements RemovalModel {
       this.compoundIds = p.compoundIds;
       this.c0 = p.c0;
       this.mixtures = new Array<PreparedMixture | undefined>(p.mixtures.length);
-      if (p.backgroundC0MgPerL) this.backgroundC0MgPerL = p.backgroundC0MgPerL.map((c) => c * moved.factor);
       return;
     }
     this.setsCache = sets;
@@ -105,8 +105,17 @@ export class EquilibriumRemoval implements RemovalModel {
     if (background && background.length) {
       this.backgroundCache = background;
       this.bgMixture = shared && background === competitors ? shared : prepareMixture(background);
-      this.backgroundC0MgPerL = Float64Array.from(background, (c) => c.c0MgPerL);
+      this.bgC0 = Float64Array.from(background, (c) => c.c0MgPerL);
     }
+  }
+
+  /** Initial concentrations of the fictive DOC components, mg/L (absent without a fractionated background). */
+  get backgroundC0MgPerL(): Float64Array | undefined {
+    if (this.bgC0 || !this.moved) return this.bgC0;
+    const factor = this.moved.factor;
+    const p = this.moved.parent.backgroundC0MgPerL;
+    if (p) this.bgC0 = p.map((c) => c * factor);
+    return this.bgC0;
   }
 
   /** Each target with its competitors at this DOC. */

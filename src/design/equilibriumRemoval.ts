@@ -26,6 +26,24 @@ function scaled(components: readonly FreundlichComponent[], factor: number): Fre
 
 const traceResponse: BackgroundResponse = { u: 0, lnX: 0, j11: 0, j12: 0, j21: 0, j22: 0, det: 0, du: 0, dLnX: 0 };
 const traceScratch: TraceTarget = { t: 0, dt: 0, u: 0, lnX: 0 };
+const traceSums = { mean: 0, slope: 0 };
+
+/**
+ * Σ_k (1 − f_k) and Σ_k −f_k(1 − f_k)·dt_k/d ln D over trace targets k (n, a and c0 of each), with
+ * f_k = σ(t_k) their remaining fractions beside the background whose response is `r`
+ * (traceTargets.ts): the indicator mean's numerator and its slope, into `out`. `tt` is scratch.
+ */
+function traceMeanRemoval(r: BackgroundResponse, nT: readonly number[], aT: readonly number[], c0T: readonly number[], tt: TraceTarget, out: { mean: number; slope: number }): void {
+  let mean = 0, slope = 0;
+  for (let k = 0; k < nT.length; k++) {
+    traceTarget(r, nT[k]!, aT[k]!, c0T[k]!, tt);
+    const f = sigmoid(tt.t);
+    mean += 1 - f;
+    slope -= f * (1 - f) * tt.dt;
+  }
+  out.mean = mean;
+  out.slope = slope;
+}
 
 /** The competitors of every set when all sets share one non-empty list (the same array), else undefined. */
 function sharedCompetitors(sets: readonly CompetitionSet[]): readonly FreundlichComponent[] | undefined {
@@ -266,19 +284,19 @@ export class EquilibriumRemoval implements RemovalModel {
     let x = Math.log(hintGPerL);
     if (!(x > lo && x < hi)) return undefined;
     const r = traceResponse, tt = traceScratch;
+    // each member's n, a and c0 (component 0 of its mixture), read once rather than every step
+    const nT: number[] = [], aT: number[] = [], c0T: number[] = [];
+    for (let k = 0; k < m; k++) {
+      const pm = this.mixture(set[k]!);
+      nT.push(pm.n[0]!); aT.push(pm.a[0]!); c0T.push(pm.c0[0]!);
+    }
     let state: IastState | undefined = this.traceWarm;
     for (let it = 0; it < 30; it++) {
       state = solveBatchState(bg, Math.exp(x), state);
       backgroundResponse(bg, state, r);
       if (!Number.isFinite(r.det) || r.det === 0) return undefined;
-      let mean = 0, slope = 0;
-      for (let k = 0; k < m; k++) {
-        const pm = this.mixture(set[k]!);
-        traceTarget(r, pm.n[0]!, pm.a[0]!, pm.c0[0]!, tt);
-        const f = sigmoid(tt.t);
-        mean += 1 - f;
-        slope -= f * (1 - f) * tt.dt;
-      }
+      traceMeanRemoval(r, nT, aT, c0T, tt, traceSums);
+      const mean = traceSums.mean, slope = traceSums.slope;
       const e = (100 * mean) / m - goalPercent, de = (100 * slope) / m;
       if (!(de > 0) || !Number.isFinite(e)) return undefined;
       let step = -e / de;
@@ -288,7 +306,7 @@ export class EquilibriumRemoval implements RemovalModel {
         const warm: WarmStart[] = [];
         for (let k = 0; k < m; k++) {
           const i = set[k]!, pm = this.mixture(i);
-          traceTarget(r, pm.n[0]!, pm.a[0]!, pm.c0[0]!, tt);
+          traceTarget(r, nT[k]!, aT[k]!, c0T[k]!, tt);
           const gap = pm.cTotal - Math.exp(tt.lnX); // liquid total; θ = ln x − ln(C − x)
           if (gap > 0) warm[i] = { u: tt.u, theta: tt.lnX - Math.log(gap) };
         }

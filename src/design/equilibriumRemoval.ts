@@ -12,7 +12,7 @@
  */
 import { InputError } from '../core/errors.js';
 import { sigmoid, softplus } from '../core/logistic.js';
-import { checkLead, prepareMixture, prependComponent, scaleMixture, type FreundlichComponent, type PreparedMixture } from '../equilibrium/preparedMixture.js';
+import { checkLead, prepareMixture, prependChecked, scaleMixture, type FreundlichComponent, type PreparedMixture } from '../equilibrium/preparedMixture.js';
 import { remainingAtState, remainingSlopeAtState, solveBatchPrepared, solveBatchState, type IastState } from '../equilibrium/iastBatch.js';
 import { iastDoseForRemoval } from '../equilibrium/iastDoseForRemoval.js';
 import { backgroundResponse, traceTarget, type BackgroundResponse, type TraceTarget } from '../equilibrium/traceTargets.js';
@@ -155,7 +155,7 @@ export class EquilibriumRemoval implements RemovalModel {
     let pm = this.mixtures[index];
     if (pm) return pm;
     if (this.shared && !this.moved && index >= 0 && index < this.mixtures.length) {
-      pm = prependComponent(this.setsCache![index]!.target, this.shared);
+      pm = prependChecked(this.setsCache![index]!.target, this.shared); // checked against it in the constructor
       this.mixtures[index] = pm;
       return pm;
     }

@@ -181,6 +181,14 @@ function scaledSource(pm: PreparedMixture, factor: number, fixedIndex: number): 
  */
 export function prependComponent(lead: FreundlichComponent, rest: PreparedMixture): PreparedMixture {
   checkLead(lead, rest);
+  return prependChecked(lead, rest);
+}
+
+/**
+ * `prependComponent` for a lead that `checkLead` has already accepted beside the same `rest`
+ * (an equilibrium model checks every target when it is built and prepends it on first use).
+ */
+export function prependChecked(lead: FreundlichComponent, rest: PreparedMixture): PreparedMixture {
   const r = rest.c0.length;
   const first = lead.K > 0 && lead.c0MgPerL > 0 ? 1 : 0;
   const m = r + first;

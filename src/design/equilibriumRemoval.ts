@@ -12,7 +12,7 @@
  */
 import { InputError } from '../core/errors.js';
 import { sigmoid, softplus } from '../core/logistic.js';
-import { checkLead, prepareMixture, prependChecked, scaleMixture, type FreundlichComponent, type PreparedMixture } from '../equilibrium/preparedMixture.js';
+import { checkLeadAmong, prepareMixture, prependChecked, scaleMixture, type FreundlichComponent, type PreparedMixture } from '../equilibrium/preparedMixture.js';
 import { remainingAtState, remainingSlopeAtState, solveBatchPrepared, solveBatchState, type IastState } from '../equilibrium/iastBatch.js';
 import { iastDoseForRemoval } from '../equilibrium/iastDoseForRemoval.js';
 import { backgroundResponse, traceTarget, type BackgroundResponse, type TraceTarget } from '../equilibrium/traceTargets.js';
@@ -113,7 +113,9 @@ export class EquilibriumRemoval implements RemovalModel {
       // is left to prepareMixture below, for its messages
       try {
         shared = prepareMixture(competitors);
-        for (const s of sets) checkLead(s.target, shared);
+        const competitorIds: string[] = []; // shared.ids, read from the components it was prepared from
+        for (const c of competitors) competitorIds.push(c.id);
+        for (const s of sets) checkLeadAmong(s.target, competitorIds);
       } catch { shared = undefined; }
     }
     if (shared) {

@@ -235,10 +235,17 @@ function activeAfterLead(rest: PreparedMixture, first: number): Int32Array {
 
 /** The checks of `prependComponent` alone. @throws InputError as prependComponent */
 export function checkLead(lead: FreundlichComponent, rest: PreparedMixture): void {
+  checkLeadAmong(lead, rest.ids);
+}
+
+/**
+ * The checks of `checkLead` against the ids of the rest (`rest.ids`), for a caller checking many
+ * leads beside one rest (the ids read once). @throws InputError as prependComponent
+ */
+export function checkLeadAmong(lead: FreundlichComponent, ids: readonly string[]): void {
   if (!(lead.c0MgPerL >= 0) || !Number.isFinite(lead.c0MgPerL)) throw new InputError(`expected a non-negative finite concentration, got ${lead.c0MgPerL}`, { path: 'components[0].c0' });
   if (!(lead.K >= 0) || !Number.isFinite(lead.K)) throw new InputError(`expected K ≥ 0 (0 = non-adsorbable), got ${lead.K}`, { path: 'components[0].K' });
   if (lead.K > 0 && (!(lead.oneOverN > 0) || !Number.isFinite(lead.oneOverN))) throw new InputError(`expected an exponent one_over_n > 0, got ${lead.oneOverN}`, { path: 'components[0].one_over_n' });
-  const ids = rest.ids;
   for (let k = 0; k < ids.length; k++) if (ids[k] === lead.id) throw new InputError(`duplicate id "${lead.id}"; every component needs its own id`, { path: `components[${k + 1}].id` });
 }
 

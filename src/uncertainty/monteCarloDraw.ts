@@ -156,22 +156,28 @@ export function sampleParameters(model: DrawModel, normal: NormalSampler | undef
   const delta = new Float64Array(model.L.length);
   if (normal && model.L.length > 0) multivariateNormalDeviation(model.L, normal, delta);
   const B = p.background.length;
+  const T = p.targets.length;
+  // the draw's other normals, in the order they are used below (two per background component,
+  // two per target, one for the DOC), taken from the sampler in one loop
+  const nz = 2 * B + 2 * T + 1;
+  const z = normalScratch(nz);
+  if (normal) for (let k = 0; k < nz; k++) z[k] = normal.next();
+  else z.fill(0, 0, nz);
   const fractions = new Float64Array(B);
   const Ks = new Float64Array(B);
   for (let i = 0; i < B; i++) {
     const b = p.background[i]!;
-    const zK = normal ? normal.next() : 0;
-    const zF = normal ? normal.next() : 0;
+    const zK = z[2 * i]!;
+    const zF = z[2 * i + 1]!;
     const kK = at.bgK[i]!, kF = at.bgF[i]!;
     Ks[i] = b.K === 0 ? 0 : kK >= 0 ? b.K * Math.exp(delta[kK]!) : lognormalFromZ(b.K, sigma.bgK[i]!, zK);
     fractions[i] = kF >= 0 ? Math.max(0, b.fraction + delta[kF]!) : lognormalFromZ(b.fraction, sigma.bgF[i]!, zF);
   }
-  const T = p.targets.length;
   const targets = new Array<FreundlichComponent>(T);
   for (let i = 0; i < T; i++) {
     const t = p.targets[i]!;
-    const zK = normal ? normal.next() : 0;
-    const zN = normal ? normal.next() : 0;
+    const zK = z[2 * B + 2 * i]!;
+    const zN = z[2 * B + 2 * i + 1]!;
     const kK = at.tK[i]!, kN = at.tN[i]!;
     targets[i] = {
       id: t.id,
@@ -180,7 +186,7 @@ export function sampleParameters(model: DrawModel, normal: NormalSampler | undef
       oneOverN: kN >= 0 ? Math.max(0.01, t.oneOverN + delta[kN]!) : lognormalFromZ(t.oneOverN, sigma.tN[i]!, zN),
     };
   }
-  const docMgPerL = lognormalFromZ(p.docMgPerL, sigma.doc, normal ? normal.next() : 0);
+  const docMgPerL = lognormalFromZ(p.docMgPerL, sigma.doc, z[2 * B + 2 * T]!);
   let sum = 0;
   for (let i = 0; i < B; i++) sum += fractions[i]!;
   if (!(sum > 0)) throw new ComputationError('a Monte Carlo draw gave background fractions that sum to 0');
@@ -199,6 +205,13 @@ export function sampleParameters(model: DrawModel, normal: NormalSampler | undef
   const drawn: DrawnParameters = { background, targets, docMgPerL };
   if (p.kinetics) drawn.kinetics = sampleKinetics(p.kinetics, () => (normal ? normal.next() : 0)); // after every other normal: equilibrium streams unchanged
   return drawn;
+}
+
+/** Scratch for a draw's normals (only the first `n`, written before they are read, are used). */
+let normals = new Float64Array(64);
+function normalScratch(n: number): Float64Array {
+  if (normals.length < n) normals = new Float64Array(2 * n);
+  return normals;
 }
 
 /** Positions in the covariance vector of each parameter (−1: not in the covariance), by component. */

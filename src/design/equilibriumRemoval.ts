@@ -281,17 +281,17 @@ export class EquilibriumRemoval implements RemovalModel {
     const bg = this.sharedMixture();
     const m = set.length;
     if (!bg || bg.c0.length === 0 || m === 0 || !(hintGPerL > 0)) return undefined;
-    for (let k = 0; k < m; k++) if (this.mixture(set[k]!).active[0] !== 0) return undefined;
+    // each member's n, a and c0 (component 0 of its mixture) and liquid total, read once
+    const nT: number[] = [], aT: number[] = [], c0T: number[] = [], cTotalT: number[] = [];
+    for (let k = 0; k < m; k++) {
+      const pm = this.mixture(set[k]!);
+      if (pm.active[0] !== 0) return undefined; // a member that does not adsorb
+      nT.push(pm.n[0]!); aT.push(pm.a[0]!); c0T.push(pm.c0[0]!); cTotalT.push(pm.cTotal);
+    }
     const lo = Math.log(MIN_DOSE_G_PER_L), hi = Math.log(MAX_DOSE_G_PER_L);
     let x = Math.log(hintGPerL);
     if (!(x > lo && x < hi)) return undefined;
     const r = traceResponse, tt = traceScratch;
-    // each member's n, a and c0 (component 0 of its mixture), read once rather than every step
-    const nT: number[] = [], aT: number[] = [], c0T: number[] = [];
-    for (let k = 0; k < m; k++) {
-      const pm = this.mixture(set[k]!);
-      nT.push(pm.n[0]!); aT.push(pm.a[0]!); c0T.push(pm.c0[0]!);
-    }
     let state: IastState | undefined = this.traceWarm;
     for (let it = 0; it < 30; it++) {
       state = solveBatchState(bg, Math.exp(x), state);
@@ -307,10 +307,9 @@ export class EquilibriumRemoval implements RemovalModel {
         this.traceWarm = state;
         const warm: WarmStart[] = [];
         for (let k = 0; k < m; k++) {
-          const i = set[k]!, pm = this.mixture(i);
           traceTarget(r, nT[k]!, aT[k]!, c0T[k]!, tt);
-          const gap = pm.cTotal - Math.exp(tt.lnX); // liquid total; θ = ln x − ln(C − x)
-          if (gap > 0) warm[i] = { u: tt.u, theta: tt.lnX - Math.log(gap) };
+          const gap = cTotalT[k]! - Math.exp(tt.lnX); // liquid total; θ = ln x − ln(C − x)
+          if (gap > 0) warm[set[k]!] = { u: tt.u, theta: tt.lnX - Math.log(gap) };
         }
         return { doseGPerL: Math.exp(x + step), warm };
       }

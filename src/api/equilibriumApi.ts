@@ -79,14 +79,19 @@ function matches(v: unknown, snap: readonly unknown[], at: number): number {
     for (let k = 0; k < v.length && i >= 0; k++) i = matches(v[k], snap, i);
     return i;
   }
-  const keys = Object.keys(v);
-  if (snap[i] !== OBJECT_MARK || snap[i + 1] !== keys.length) return -1;
+  if (snap[i] !== OBJECT_MARK) return -1;
+  const count = snap[i + 1];
   i += 2;
-  for (let k = 0; k < keys.length && i >= 0; k++) {
-    if (snap[i] !== keys[k]) return -1;
-    i = matches((v as Record<string, unknown>)[keys[k]!], snap, i + 1);
+  // the own enumerable string keys in the order of Object.keys (for-in lists them first, then
+  // inherited ones, which are skipped), without allocating the array of keys on every call
+  let seen = 0;
+  for (const key in v) {
+    if (!Object.prototype.hasOwnProperty.call(v, key)) continue;
+    if (++seen > (count as number) || snap[i] !== key) return -1;
+    i = matches((v as Record<string, unknown>)[key], snap, i + 1);
+    if (i < 0) return -1;
   }
-  return i;
+  return seen === count ? i : -1;
 }
 
 /** The parsed mixture and its prepared form (kept per object while the object is unchanged). */

@@ -87,7 +87,8 @@ export function surrogatesAt(model: RemovalModel, doseMgPerL: number, uv254Absor
  */
 function indicatorHint(goal: IndicatorGoal, solved: ReadonlyArray<DoseAtRemoval | undefined>): number | undefined {
   const n = goal.members.length;
-  const x = new Float64Array(n), l = new Float64Array(n), s = new Float64Array(n);
+  // plain arrays: a Float64Array of more than 8 numbers (9 indicator compounds) is allocated outside the JS heap
+  const x = new Array<number>(n), l = new Array<number>(n), s = new Array<number>(n);
   for (let k = 0; k < n; k++) {
     const d = solved[goal.members[k]!.index];
     if (!d || d.slope === undefined || !(d.slope < 0) || !(d.remainingFraction > 0)) return undefined;
@@ -126,15 +127,20 @@ export function designDoseWarm(model: RemovalModel, problem: DesignProblem, near
   const docMgPerL = model.docMgPerL;
   const scale = near ? docMgPerL / near.docMgPerL : 1;
   const prev = nearWarm && nearWarm.kind === model.kind ? nearWarm : undefined;
+  // arrays built by push, not by map: V8's optimised map makes arrays of another layout (holey)
+  // than its first, unoptimised runs, which sent every reader of them back to the interpreter
   const solved: Array<DoseAtRemoval | undefined> = [];
-  const compounds = problem.goals.map((goal, i) => {
+  const compounds: CompoundDose[] = [];
+  const compoundWarm: Array<WarmStart | undefined> = [];
+  for (let i = 0; i < problem.goals.length; i++) {
     const prior = near?.compounds[i];
     const hint = prior && prior.status === 'met' && prior.doseMgPerL ? prior.doseMgPerL * scale : undefined;
-    const r = compoundDoseSolved(model, i, goal, hint, problem.indicator !== undefined, prev?.compounds[i]);
-    solved[i] = r.solved;
-    return r.dose;
-  });
-  const warm: DesignWarmStarts = { kind: model.kind, compounds: solved.map((d) => d?.warm) };
+    const r = compoundDoseSolved(model, i, problem.goals[i]!, hint, problem.indicator !== undefined, prev?.compounds[i]);
+    solved.push(r.solved);
+    compounds.push(r.dose);
+    compoundWarm.push(r.solved?.warm);
+  }
+  const warm: DesignWarmStarts = { kind: model.kind, compounds: compoundWarm };
   if (prev?.background !== undefined) warm.background = prev.background;
   let governing: Design['governing'];
   for (const c of compounds) {
@@ -150,7 +156,7 @@ export function designDoseWarm(model: RemovalModel, problem: DesignProblem, near
   if (problem.indicator) {
     const prior = near?.indicator;
     const hint = indicatorHint(problem.indicator, solved) ?? (prior && prior.status === 'met' && prior.doseMgPerL ? prior.doseMgPerL * scale : undefined);
-    const ind = indicatorDose(model, problem.indicator, hint, solved.map((d) => d?.warm));
+    const ind = indicatorDose(model, problem.indicator, hint, compoundWarm); // read only there
     out.indicator = ind;
     if (ind.doseMgPerL !== null && (out.doseMgPerL === null || ind.doseMgPerL > out.doseMgPerL)) {
       out.doseMgPerL = ind.doseMgPerL;

@@ -12,7 +12,7 @@
  */
 import { InputError } from '../core/errors.js';
 import { sigmoid, softplus } from '../core/logistic.js';
-import { checkLead, prepareMixture, prependComponent, scaleMixture, type FreundlichComponent, type PreparedMixture } from '../equilibrium/preparedMixture.js';
+import { checkLeadAmong, prepareMixture, prependChecked, scaleMixture, type FreundlichComponent, type PreparedMixture } from '../equilibrium/preparedMixture.js';
 import { remainingAtState, remainingSlopeAtState, solveBatchPrepared, solveBatchState, type IastState } from '../equilibrium/iastBatch.js';
 import { iastDoseForRemoval } from '../equilibrium/iastDoseForRemoval.js';
 import { backgroundResponse, traceTarget, type BackgroundResponse, type TraceTarget } from '../equilibrium/traceTargets.js';
@@ -26,6 +26,24 @@ function scaled(components: readonly FreundlichComponent[], factor: number): Fre
 
 const traceResponse: BackgroundResponse = { u: 0, lnX: 0, j11: 0, j12: 0, j21: 0, j22: 0, det: 0, du: 0, dLnX: 0 };
 const traceScratch: TraceTarget = { t: 0, dt: 0, u: 0, lnX: 0 };
+const traceSums = { mean: 0, slope: 0 };
+
+/**
+ * Σ_k (1 − f_k) and Σ_k −f_k(1 − f_k)·dt_k/d ln D over trace targets k (n, a and c0 of each), with
+ * f_k = σ(t_k) their remaining fractions beside the background whose response is `r`
+ * (traceTargets.ts): the indicator mean's numerator and its slope, into `out`. `tt` is scratch.
+ */
+function traceMeanRemoval(r: BackgroundResponse, nT: readonly number[], aT: readonly number[], c0T: readonly number[], tt: TraceTarget, out: { mean: number; slope: number }): void {
+  let mean = 0, slope = 0;
+  for (let k = 0; k < nT.length; k++) {
+    traceTarget(r, nT[k]!, aT[k]!, c0T[k]!, tt);
+    const f = sigmoid(tt.t);
+    mean += 1 - f;
+    slope -= f * (1 - f) * tt.dt;
+  }
+  out.mean = mean;
+  out.slope = slope;
+}
 
 /** The competitors of every set when all sets share one non-empty list (the same array), else undefined. */
 function sharedCompetitors(sets: readonly CompetitionSet[]): readonly FreundlichComponent[] | undefined {
@@ -45,7 +63,8 @@ interface Moved {
 export class EquilibriumRemoval implements RemovalModel {
   readonly kind = 'equilibrium (batch IAST)';
   readonly compoundIds: readonly string[];
-  readonly backgroundC0MgPerL?: Float64Array;
+  /** Initial concentrations of the fictive DOC components (a moved model's: scaled when first asked for). */
+  private bgC0?: Float64Array;
   private readonly mixtures: Array<PreparedMixture | undefined>;
   /** Feed concentrations of the targets (a plain array: a typed array of more than 8 numbers is allocated outside the JS heap, dearer per draw). */
   private readonly c0: readonly number[];
@@ -73,15 +92,19 @@ export class EquilibriumRemoval implements RemovalModel {
       this.compoundIds = p.compoundIds;
       this.c0 = p.c0;
       this.mixtures = new Array<PreparedMixture | undefined>(p.mixtures.length);
-      if (p.backgroundC0MgPerL) this.backgroundC0MgPerL = p.backgroundC0MgPerL.map((c) => c * moved.factor);
       return;
     }
     this.setsCache = sets;
-    this.compoundIds = sets.map((s) => s.target.id);
-    this.c0 = sets.map((s, i) => {
+    // arrays built by push: one array layout in every tier (designDose.ts)
+    const ids: string[] = [], c0: number[] = [];
+    for (let i = 0; i < sets.length; i++) {
+      const s = sets[i]!;
+      ids.push(s.target.id);
       if (!(s.target.c0MgPerL > 0) || !Number.isFinite(s.target.c0MgPerL)) throw new InputError(`expected a feed concentration > 0 mg/L for "${s.target.id}", got ${s.target.c0MgPerL}`, { path: `compounds[${i}].c0` });
-      return s.target.c0MgPerL;
-    });
+      c0.push(s.target.c0MgPerL);
+    }
+    this.compoundIds = ids;
+    this.c0 = c0;
     const competitors = sharedCompetitors(sets);
     let shared: PreparedMixture | undefined;
     if (competitors) {
@@ -90,7 +113,9 @@ export class EquilibriumRemoval implements RemovalModel {
       // is left to prepareMixture below, for its messages
       try {
         shared = prepareMixture(competitors);
-        for (const s of sets) checkLead(s.target, shared);
+        const competitorIds: string[] = []; // shared.ids, read from the components it was prepared from
+        for (const c of competitors) competitorIds.push(c.id);
+        for (const s of sets) checkLeadAmong(s.target, competitorIds);
       } catch { shared = undefined; }
     }
     if (shared) {
@@ -100,8 +125,17 @@ export class EquilibriumRemoval implements RemovalModel {
     if (background && background.length) {
       this.backgroundCache = background;
       this.bgMixture = shared && background === competitors ? shared : prepareMixture(background);
-      this.backgroundC0MgPerL = Float64Array.from(background, (c) => c.c0MgPerL);
+      this.bgC0 = Float64Array.from(background, (c) => c.c0MgPerL);
     }
+  }
+
+  /** Initial concentrations of the fictive DOC components, mg/L (absent without a fractionated background). */
+  get backgroundC0MgPerL(): Float64Array | undefined {
+    if (this.bgC0 || !this.moved) return this.bgC0;
+    const factor = this.moved.factor;
+    const p = this.moved.parent.backgroundC0MgPerL;
+    if (p) this.bgC0 = p.map((c) => c * factor);
+    return this.bgC0;
   }
 
   /** Each target with its competitors at this DOC. */
@@ -123,7 +157,7 @@ export class EquilibriumRemoval implements RemovalModel {
     let pm = this.mixtures[index];
     if (pm) return pm;
     if (this.shared && !this.moved && index >= 0 && index < this.mixtures.length) {
-      pm = prependComponent(this.setsCache![index]!.target, this.shared);
+      pm = prependChecked(this.setsCache![index]!.target, this.shared); // checked against it in the constructor
       this.mixtures[index] = pm;
       return pm;
     }
@@ -247,7 +281,13 @@ export class EquilibriumRemoval implements RemovalModel {
     const bg = this.sharedMixture();
     const m = set.length;
     if (!bg || bg.c0.length === 0 || m === 0 || !(hintGPerL > 0)) return undefined;
-    for (let k = 0; k < m; k++) if (this.mixture(set[k]!).active[0] !== 0) return undefined;
+    // each member's n, a and c0 (component 0 of its mixture) and liquid total, read once
+    const nT: number[] = [], aT: number[] = [], c0T: number[] = [], cTotalT: number[] = [];
+    for (let k = 0; k < m; k++) {
+      const pm = this.mixture(set[k]!);
+      if (pm.active[0] !== 0) return undefined; // a member that does not adsorb
+      nT.push(pm.n[0]!); aT.push(pm.a[0]!); c0T.push(pm.c0[0]!); cTotalT.push(pm.cTotal);
+    }
     const lo = Math.log(MIN_DOSE_G_PER_L), hi = Math.log(MAX_DOSE_G_PER_L);
     let x = Math.log(hintGPerL);
     if (!(x > lo && x < hi)) return undefined;
@@ -257,14 +297,8 @@ export class EquilibriumRemoval implements RemovalModel {
       state = solveBatchState(bg, Math.exp(x), state);
       backgroundResponse(bg, state, r);
       if (!Number.isFinite(r.det) || r.det === 0) return undefined;
-      let mean = 0, slope = 0;
-      for (let k = 0; k < m; k++) {
-        const pm = this.mixture(set[k]!);
-        traceTarget(r, pm.n[0]!, pm.a[0]!, pm.c0[0]!, tt);
-        const f = sigmoid(tt.t);
-        mean += 1 - f;
-        slope -= f * (1 - f) * tt.dt;
-      }
+      traceMeanRemoval(r, nT, aT, c0T, tt, traceSums);
+      const mean = traceSums.mean, slope = traceSums.slope;
       const e = (100 * mean) / m - goalPercent, de = (100 * slope) / m;
       if (!(de > 0) || !Number.isFinite(e)) return undefined;
       let step = -e / de;
@@ -273,10 +307,9 @@ export class EquilibriumRemoval implements RemovalModel {
         this.traceWarm = state;
         const warm: WarmStart[] = [];
         for (let k = 0; k < m; k++) {
-          const i = set[k]!, pm = this.mixture(i);
-          traceTarget(r, pm.n[0]!, pm.a[0]!, pm.c0[0]!, tt);
-          const gap = pm.cTotal - Math.exp(tt.lnX); // liquid total; θ = ln x − ln(C − x)
-          if (gap > 0) warm[i] = { u: tt.u, theta: tt.lnX - Math.log(gap) };
+          traceTarget(r, nT[k]!, aT[k]!, c0T[k]!, tt);
+          const gap = cTotalT[k]! - Math.exp(tt.lnX); // liquid total; θ = ln x − ln(C − x)
+          if (gap > 0) warm[set[k]!] = { u: tt.u, theta: tt.lnX - Math.log(gap) };
         }
         return { doseGPerL: Math.exp(x + step), warm };
       }

@@ -56,8 +56,10 @@ export function indicatorDoseNewton(model: RemovalModel, set: readonly number[],
   let x = Math.log(hintGPerL !== undefined && hintGPerL > 0 && Number.isFinite(hintGPerL) ? hintGPerL : DEFAULT_DOSE_HINT_G_PER_L);
   if (!(x > lo0 && x < hi0)) return undefined;
   let lo = lo0, hi = hi0; // leaving the searched doses means "search" (statuses)
-  const warm: WarmStart[] = set.map((i) => warmStarts?.[i]);
-  const xs = new Float64Array(set.length), l = new Float64Array(set.length), s = new Float64Array(set.length);
+  const warm: WarmStart[] = []; // by push: one array layout in every tier (designDose.ts)
+  for (let k = 0; k < set.length; k++) warm.push(warmStarts?.[set[k]!]);
+  // plain arrays: a Float64Array of more than 8 numbers is allocated outside the JS heap
+  const xs = new Array<number>(set.length), l = new Array<number>(set.length), s = new Array<number>(set.length);
   for (let it = 0; it < 30; it++) {
     const D = Math.exp(x);
     let mean = 0;

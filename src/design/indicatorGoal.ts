@@ -106,10 +106,17 @@ interface GoalFacts { ids: readonly string[]; why: string | undefined; fixed: { 
 const goalFacts = new WeakMap<IndicatorGoal, GoalFacts>();
 function factsOf(model: RemovalModel, goal: IndicatorGoal): GoalFacts {
   const f = goalFacts.get(goal);
-  if (f && f.ids === model.compoundIds) return f;
+  if (f && sameIds(f.ids, model.compoundIds)) return f; // each draw's model has its own list of the same ids
   const fresh: GoalFacts = { ids: model.compoundIds, why: inadmissible(model, goal), fixed: fixedSet(model, goal) };
   goalFacts.set(goal, fresh);
   return fresh;
+}
+
+function sameIds(a: readonly string[], b: readonly string[]): boolean {
+  if (a === b) return true;
+  if (a.length !== b.length) return false;
+  for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return false;
+  return true;
 }
 
 /** Why no admissible set can be formed from the members (undefined when one can). */

@@ -62,7 +62,7 @@ export function requiredDoseAt(model: RemovalModel, problem: DesignProblem, refe
   for (let i = 0; i < T; i++) {
     const goal = problem.goals[i]!;
     if (goal.kind === 'none' || !(goal.removalFraction > 0)) continue;
-    if (est && est.lnRemaining[i]! + est.lnBound[i]! <= Math.log1p(-goal.removalFraction)) continue; // met for certain
+    if (est && est.lnRemaining[i]! + est.lnBound[i]! <= lnKept(i, goal.removalFraction)) continue; // met for certain
     if (exactRemoval(model, i, D, warm, removal) < goal.removalFraction - 1e-9) return full(model, problem, reference);
   }
   if (problem.indicator) {
@@ -95,18 +95,26 @@ function full(model: RemovalModel, problem: DesignProblem, reference: Design): R
 
 /** Whether every goal of the reference design is met (or report only): the fast path's condition, kept per design. */
 const allMetCache = new WeakMap<Design, boolean>();
+/** The last design asked about and its answer (every node of a draw asks about the same one). */
+const allMetLast: { reference: Design | undefined; value: boolean } = { reference: undefined, value: false };
 function allMet(reference: Design): boolean {
+  if (allMetLast.reference === reference) return allMetLast.value;
   let v = allMetCache.get(reference);
   if (v === undefined) {
     v = !reference.compounds.some((c) => c.status !== 'met' && c.status !== 'report only') && !(reference.indicator && reference.indicator.status !== 'met');
     allMetCache.set(reference, v);
   }
+  allMetLast.reference = reference;
+  allMetLast.value = v;
   return v;
 }
 
 /** Index of the compound of "compound <id>" in `ids` (−2 when not there), kept per id list. */
 const governingIndices = new WeakMap<readonly string[], Map<string, number>>();
+/** The last question and its answer (the nodes of a draw ask the same one over and over). */
+const governingLast: { ids: readonly string[] | undefined; governedBy: string; index: number } = { ids: undefined, governedBy: '', index: -2 };
 function governingIndex(ids: readonly string[], governedBy: string): number {
+  if (governingLast.ids === ids && governingLast.governedBy === governedBy) return governingLast.index;
   let m = governingIndices.get(ids);
   if (!m) governingIndices.set(ids, (m = new Map()));
   let i = m.get(governedBy);
@@ -115,7 +123,21 @@ function governingIndex(ids: readonly string[], governedBy: string): number {
     i = k < 0 ? -2 : k;
     m.set(governedBy, i);
   }
+  governingLast.ids = ids;
+  governingLast.governedBy = governedBy;
+  governingLast.index = i;
   return i;
+}
+
+/** ln(1 − R) last computed for the goal at each index, with its R (every node of every draw asks again for the same goals). */
+const lnKeptR: number[] = [], lnKeptValue: number[] = [];
+function lnKept(i: number, R: number): number {
+  if (lnKeptR[i] === R) return lnKeptValue[i]!;
+  const v = Math.log1p(-R);
+  while (lnKeptR.length <= i) { lnKeptR.push(NaN); lnKeptValue.push(NaN); }
+  lnKeptR[i] = R;
+  lnKeptValue[i] = v;
+  return v;
 }
 
 /** Removal of compound i at dose D (g/L), solved once and kept in `removal` (NaN: not yet). */

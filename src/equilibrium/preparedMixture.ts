@@ -73,6 +73,8 @@ export function prepareMixture(components: readonly FreundlichComponent[]): Prep
  * only when asked for (hot loops never read them), from what it was derived from: `from` scaled
  * by `factor` except component `fixedIndex` (scaleMixture), or `lead` before `from`
  * (prependComponent); kept as data rather than a closure (nothing more to allocate per mixture).
+ * So are `beta` and `lnK` of a derived mixture (only a cold start of the batch solve reads them):
+ * a scaled mixture shares those of `from`, a mixture with a lead builds them on first use.
  */
 class Mixture implements PreparedMixture {
   readonly lnCTotal: number;
@@ -84,8 +86,8 @@ class Mixture implements PreparedMixture {
     readonly active: Int32Array,
     readonly c0: Float64Array,
     readonly n: Float64Array,
-    readonly beta: Float64Array,
-    readonly lnK: Float64Array,
+    private betaCache: Float64Array | undefined,
+    private lnKCache: Float64Array | undefined,
     readonly a: Float64Array,
     readonly cTotal: number,
     source: readonly FreundlichComponent[] | undefined,
@@ -97,6 +99,14 @@ class Mixture implements PreparedMixture {
     this.lnCTotal = Math.log(cTotal);
     this.sourceCache = source;
     this.idsCache = undefined;
+  }
+
+  get beta(): Float64Array {
+    return (this.betaCache ??= this.lead ? leadBefore(this.lead, this.lead.oneOverN, this.from!.beta) : this.from!.beta);
+  }
+
+  get lnK(): Float64Array {
+    return (this.lnKCache ??= this.lead ? leadBefore(this.lead, Math.log(this.lead.K), this.from!.lnK) : this.from!.lnK);
   }
 
   get ids(): readonly string[] {
@@ -155,7 +165,7 @@ export function scaleMixture(pm: PreparedMixture, factor: number, fixedIndex = -
   }
   if (ok && !(factor >= 0 && Number.isFinite(factor))) ok = false;
   if (!ok) return prepareMixture(scaledSource(pm, factor, fixedIndex)); // leaves the active set, or its error message
-  return new Mixture(pm.size, pm.active, c0, pm.n, pm.beta, pm.lnK, pm.a, cTotal, undefined, pm, undefined, factor, fixedIndex);
+  return new Mixture(pm.size, pm.active, c0, pm.n, undefined, undefined, pm.a, cTotal, undefined, pm, undefined, factor, fixedIndex);
 }
 
 function scaledSource(pm: PreparedMixture, factor: number, fixedIndex: number): FreundlichComponent[] {
@@ -171,25 +181,41 @@ function scaledSource(pm: PreparedMixture, factor: number, fixedIndex: number): 
  */
 export function prependComponent(lead: FreundlichComponent, rest: PreparedMixture): PreparedMixture {
   checkLead(lead, rest);
+  return prependChecked(lead, rest);
+}
+
+/**
+ * `prependComponent` for a lead that `checkLead` has already accepted beside the same `rest`
+ * (an equilibrium model checks every target when it is built and prepends it on first use).
+ */
+export function prependChecked(lead: FreundlichComponent, rest: PreparedMixture): PreparedMixture {
   const r = rest.c0.length;
   const first = lead.K > 0 && lead.c0MgPerL > 0 ? 1 : 0;
   const m = r + first;
   // the index array is shared by every lead of `rest` (nothing writes into a prepared mixture);
   // the number arrays stay apart: a few small typed arrays live on the JS heap, where one buffer
   // for all of them would be allocated outside it (dearer to allocate and to collect)
-  const c0 = new Float64Array(m), n = new Float64Array(m), beta = new Float64Array(m), lnK = new Float64Array(m), a = new Float64Array(m);
+  // (beta and lnK, which only a cold start reads, are built when first asked for: leadBefore)
+  const c0 = new Float64Array(m), n = new Float64Array(m), a = new Float64Array(m);
   const active = activeAfterLead(rest, first);
   if (first) {
     c0[0] = lead.c0MgPerL;
-    beta[0] = lead.oneOverN;
     n[0] = 1 / lead.oneOverN;
-    lnK[0] = Math.log(lead.K);
-    a[0] = n[0] * (Math.log(lead.oneOverN) - lnK[0]);
+    a[0] = n[0] * (Math.log(lead.oneOverN) - Math.log(lead.K));
   }
-  c0.set(rest.c0, first); n.set(rest.n, first); beta.set(rest.beta, first); lnK.set(rest.lnK, first); a.set(rest.a, first);
+  c0.set(rest.c0, first); n.set(rest.n, first); a.set(rest.a, first);
   let cTotal = 0;
   for (let j = 0; j < m; j++) cTotal += c0[j]!; // the order of prepareMixture's sum
-  return new Mixture(rest.size + 1, active, c0, n, beta, lnK, a, cTotal, undefined, rest, lead, 1, -1);
+  return new Mixture(rest.size + 1, active, c0, n, undefined, undefined, a, cTotal, undefined, rest, lead, 1, -1);
+}
+
+/** `value` (the lead's β or ln K) before the rest's array when the lead is active, else a copy of the rest's (prependComponent). */
+function leadBefore(lead: FreundlichComponent, value: number, rest: Float64Array): Float64Array {
+  const first = lead.K > 0 && lead.c0MgPerL > 0 ? 1 : 0;
+  const out = new Float64Array(rest.length + first);
+  if (first) out[0] = value;
+  out.set(rest, first);
+  return out;
 }
 
 /** The active indices of `rest` behind a lead (active or not), kept per mixture. */
@@ -209,10 +235,17 @@ function activeAfterLead(rest: PreparedMixture, first: number): Int32Array {
 
 /** The checks of `prependComponent` alone. @throws InputError as prependComponent */
 export function checkLead(lead: FreundlichComponent, rest: PreparedMixture): void {
+  checkLeadAmong(lead, rest.ids);
+}
+
+/**
+ * The checks of `checkLead` against the ids of the rest (`rest.ids`), for a caller checking many
+ * leads beside one rest (the ids read once). @throws InputError as prependComponent
+ */
+export function checkLeadAmong(lead: FreundlichComponent, ids: readonly string[]): void {
   if (!(lead.c0MgPerL >= 0) || !Number.isFinite(lead.c0MgPerL)) throw new InputError(`expected a non-negative finite concentration, got ${lead.c0MgPerL}`, { path: 'components[0].c0' });
   if (!(lead.K >= 0) || !Number.isFinite(lead.K)) throw new InputError(`expected K ≥ 0 (0 = non-adsorbable), got ${lead.K}`, { path: 'components[0].K' });
   if (lead.K > 0 && (!(lead.oneOverN > 0) || !Number.isFinite(lead.oneOverN))) throw new InputError(`expected an exponent one_over_n > 0, got ${lead.oneOverN}`, { path: 'components[0].one_over_n' });
-  const ids = rest.ids;
   for (let k = 0; k < ids.length; k++) if (ids[k] === lead.id) throw new InputError(`duplicate id "${lead.id}"; every component needs its own id`, { path: `components[${k + 1}].id` });
 }
 

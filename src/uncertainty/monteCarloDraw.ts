@@ -23,7 +23,7 @@ import { requiredDoseAt, type RequiredAtDoc } from '../design/requiredDoseAt.js'
 import { REPORT_ONLY_GOAL } from '../design/compoundGoal.js';
 import { seriesCarbon, seriesSegments, doseTable, type SeriesSegments } from '../design/doseTable.js';
 import { REMOVAL_MODELS } from '../design/removalModels.js';
-import type { RemovalModel, RemovalModelFactory } from '../design/removalModel.js';
+import type { CompetitionSet, RemovalModel, RemovalModelFactory } from '../design/removalModel.js';
 import { carbonCost } from '../design/carbonCost.js';
 import { yearlyLabel } from '../design/annualised.js';
 import { cholesky, lognormalFromZ, lognormalSigma, multivariateNormalDeviation, NormalSampler } from './distributions.js';
@@ -45,6 +45,10 @@ export interface DrawModel {
   L: number[][];
   /** Position in the covariance vector of `lnK:id`, `fraction:id`, `one_over_n:id`. */
   covIndex: Map<string, number>;
+  /** The same positions by component (−1: not in the covariance), for the draws. */
+  covAt: CovPositions;
+  /** 1 for a report-only target, by target index. */
+  reportOnly: Uint8Array;
   sigma: { bgK: number[]; bgF: number[]; tK: number[]; tN: number[]; doc: number };
   index: { uv: number; docRed: number; yearlyKg: number; yearlyCost: number; governing: number; indicator: number; costPerM3: number };
   /** The design problem every draw solves (goals, indicator goal, price, absorbances). */
@@ -115,6 +119,8 @@ export function compileDrawModel(problem: MonteCarloProblem): DrawModel {
     quantities,
     L,
     covIndex,
+    covAt: covPositions(problem, covIndex),
+    reportOnly: Uint8Array.from(problem.targets, (t) => (t.reportOnly === true ? 1 : 0)),
     sigma: {
       bgK: problem.background.map((b) => lognormalSigma(b.KRelSd ?? 0)),
       bgF: problem.background.map((b) => lognormalSigma(b.fractionRelSd ?? 0)),
@@ -135,7 +141,7 @@ export function compileDrawModel(problem: MonteCarloProblem): DrawModel {
 
 /** The dose-table nodes at the point estimate, when the problem does not give the run's. */
 function pointNodes(problem: MonteCarloProblem, factory: RemovalModelFactory, design: DesignProblem): number[] {
-  const bg = problem.background.map((b): FreundlichComponent => ({ id: b.id, K: b.K, oneOverN: b.oneOverN, c0MgPerL: b.fraction * problem.docMgPerL }));
+  const bg = problem.background.map((b): FreundlichComponent => ({ id: b.id, c0MgPerL: b.fraction * problem.docMgPerL, K: b.K, oneOverN: b.oneOverN }));
   const model = factory(problem.targets.map((t) => ({ target: { id: t.id, c0MgPerL: t.c0MgPerL, K: t.K, oneOverN: t.oneOverN }, competitors: bg })), problem.docMgPerL, bg);
   return doseTable(model, design, problem.yearly!.docSeriesMgPerL).docMgPerL;
 }
@@ -146,26 +152,32 @@ function pointNodes(problem: MonteCarloProblem, factory: RemovalModelFactory, de
  */
 export function sampleParameters(model: DrawModel, normal: NormalSampler | undefined): DrawnParameters {
   const { problem: p, sigma } = model;
-  const at = covPositions(model);
+  const at = model.covAt;
   const delta = new Float64Array(model.L.length);
   if (normal && model.L.length > 0) multivariateNormalDeviation(model.L, normal, delta);
   const B = p.background.length;
+  const T = p.targets.length;
+  // the draw's other normals, in the order they are used below (two per background component,
+  // two per target, one for the DOC), taken from the sampler in one loop
+  const nz = 2 * B + 2 * T + 1;
+  const z = normalScratch(nz);
+  if (normal) for (let k = 0; k < nz; k++) z[k] = normal.next();
+  else z.fill(0, 0, nz);
   const fractions = new Float64Array(B);
   const Ks = new Float64Array(B);
   for (let i = 0; i < B; i++) {
     const b = p.background[i]!;
-    const zK = normal ? normal.next() : 0;
-    const zF = normal ? normal.next() : 0;
+    const zK = z[2 * i]!;
+    const zF = z[2 * i + 1]!;
     const kK = at.bgK[i]!, kF = at.bgF[i]!;
     Ks[i] = b.K === 0 ? 0 : kK >= 0 ? b.K * Math.exp(delta[kK]!) : lognormalFromZ(b.K, sigma.bgK[i]!, zK);
     fractions[i] = kF >= 0 ? Math.max(0, b.fraction + delta[kF]!) : lognormalFromZ(b.fraction, sigma.bgF[i]!, zF);
   }
-  const T = p.targets.length;
   const targets = new Array<FreundlichComponent>(T);
   for (let i = 0; i < T; i++) {
     const t = p.targets[i]!;
-    const zK = normal ? normal.next() : 0;
-    const zN = normal ? normal.next() : 0;
+    const zK = z[2 * B + 2 * i]!;
+    const zN = z[2 * B + 2 * i + 1]!;
     const kK = at.tK[i]!, kN = at.tN[i]!;
     targets[i] = {
       id: t.id,
@@ -174,7 +186,7 @@ export function sampleParameters(model: DrawModel, normal: NormalSampler | undef
       oneOverN: kN >= 0 ? Math.max(0.01, t.oneOverN + delta[kN]!) : lognormalFromZ(t.oneOverN, sigma.tN[i]!, zN),
     };
   }
-  const docMgPerL = lognormalFromZ(p.docMgPerL, sigma.doc, normal ? normal.next() : 0);
+  const docMgPerL = lognormalFromZ(p.docMgPerL, sigma.doc, z[2 * B + 2 * T]!);
   let sum = 0;
   for (let i = 0; i < B; i++) sum += fractions[i]!;
   if (!(sum > 0)) throw new ComputationError('a Monte Carlo draw gave background fractions that sum to 0');
@@ -182,11 +194,12 @@ export function sampleParameters(model: DrawModel, normal: NormalSampler | undef
   for (let i = 0; i < B; i++) {
     const b = p.background[i]!;
     const kN = at.bgN[i]!;
+    // the key order of every FreundlichComponent (one object layout for the solvers)
     background[i] = {
       id: b.id,
+      c0MgPerL: (fractions[i]! / sum) * docMgPerL,
       K: Ks[i]!,
       oneOverN: b.K === 0 ? b.oneOverN : kN >= 0 ? Math.max(0.01, b.oneOverN + delta[kN]!) : b.oneOverN,
-      c0MgPerL: (fractions[i]! / sum) * docMgPerL,
     };
   }
   const drawn: DrawnParameters = { background, targets, docMgPerL };
@@ -194,30 +207,33 @@ export function sampleParameters(model: DrawModel, normal: NormalSampler | undef
   return drawn;
 }
 
-/** Positions in the covariance vector of each parameter (−1: not in the covariance), by component. */
-interface CovPositions { bgK: Int32Array; bgF: Int32Array; bgN: Int32Array; tK: Int32Array; tN: Int32Array }
-const covPositionsCache = new WeakMap<DrawModel, CovPositions>();
+/** Scratch for a draw's normals (only the first `n`, written before they are read, are used). */
+let normals = new Float64Array(64);
+function normalScratch(n: number): Float64Array {
+  if (normals.length < n) normals = new Float64Array(2 * n);
+  return normals;
+}
 
-function covPositions(model: DrawModel): CovPositions {
-  let at = covPositionsCache.get(model);
-  if (at) return at;
-  const p = model.problem;
-  const pos = (name: string) => model.covIndex.get(name) ?? -1;
-  at = {
+/** Positions in the covariance vector of each parameter (−1: not in the covariance), by component. */
+export interface CovPositions { bgK: Int32Array; bgF: Int32Array; bgN: Int32Array; tK: Int32Array; tN: Int32Array }
+
+function covPositions(p: MonteCarloProblem, covIndex: ReadonlyMap<string, number>): CovPositions {
+  const pos = (name: string) => covIndex.get(name) ?? -1;
+  return {
     bgK: Int32Array.from(p.background, (b) => pos(`lnK:${b.id}`)),
     bgF: Int32Array.from(p.background, (b) => pos(`fraction:${b.id}`)),
     bgN: Int32Array.from(p.background, (b) => pos(`one_over_n:${b.id}`)),
     tK: Int32Array.from(p.targets, (t) => pos(`lnK:${t.id}`)),
     tN: Int32Array.from(p.targets, (t) => pos(`one_over_n:${t.id}`)),
   };
-  covPositionsCache.set(model, at);
-  return at;
 }
 
 /** The removal model of one draw at its DOC. */
 export function drawModel(model: DrawModel, d: DrawnParameters): RemovalModel {
   const factory = d.kinetics ? kineticDrawFactory(model.problem.kinetics!, model.problem.targets.map((t) => t.id), d.kinetics) : model.factory;
-  return factory(d.targets.map((t) => ({ target: t, competitors: d.background })), d.docMgPerL, d.background);
+  const sets: CompetitionSet[] = []; // by push: one array layout in every tier (designDose.ts)
+  for (const t of d.targets) sets.push({ target: t, competitors: d.background });
+  return factory(sets, d.docMgPerL, d.background);
 }
 
 const orInfinity = (v: number | null): number => (v === null ? Infinity : v);
@@ -234,7 +250,7 @@ export function evaluateDraw(model: DrawModel, d: DrawnParameters, out: Float64A
   const required = orInfinity(design.doseMgPerL);
   for (let t = 0; t < T; t++) {
     // a report-only compound: its removal at the required dose (none without a dose)
-    out[t] = p.targets[t]!.reportOnly !== true ? orInfinity(design.compounds[t]!.doseMgPerL)
+    out[t] = model.reportOnly[t] === 0 ? orInfinity(design.compounds[t]!.doseMgPerL)
       : required === Infinity ? Infinity : required > 0 ? 1 - removal.remaining(t, required / 1000).remainingFraction : 0;
   }
   out[model.index.governing] = required;
@@ -246,11 +262,12 @@ export function evaluateDraw(model: DrawModel, d: DrawnParameters, out: Float64A
   if (model.yearly) {
     const factor = d.docMgPerL / p.docMgPerL;
     let near: RequiredAtDoc | undefined;
-    const doses = model.yearly.nodes.map((node) => {
+    const doses: Array<number | null> = []; // by push: one array layout in every tier (designDose.ts)
+    for (const node of model.yearly.nodes) {
       const doc = node * factor;
       near = requiredDoseAt(doc === removal.docMgPerL ? removal : removal.atDoc(doc), model.design, design, near);
-      return near.doseMgPerL;
-    });
+      doses.push(near.doseMgPerL);
+    }
     const y = seriesCarbon(model.yearly.segments, doses);
     const nothing = y.daysWithDose === 0;
     out[model.index.yearlyKg] = nothing ? Infinity : y.yearlyKg;

@@ -41,7 +41,9 @@ export class Xoshiro128 {
   private s3: number;
   /** @param state four 32-bit words, not all zero. */
   constructor(state: readonly [number, number, number, number]) {
-    [this.s0, this.s1, this.s2, this.s3] = state.map((w) => w >>> 0) as [number, number, number, number];
+    // held as signed 32-bit words (| 0), as every later update leaves them: one number
+    // representation for the fields (the outputs are the same bits either way)
+    [this.s0, this.s1, this.s2, this.s3] = state.map((w) => w | 0) as [number, number, number, number];
     if ((this.s0 | this.s1 | this.s2 | this.s3) === 0) throw new InputError('xoshiro128** needs a state that is not all zero');
   }
 

@@ -79,7 +79,9 @@ export class EquilibriumRemoval implements RemovalModel {
   private traceWarm?: IastState;
 
   /**
-   * @param sets       each target with its competitors at `docMgPerL`
+   * @param sets       each target with its competitors at `docMgPerL`; checked here and read
+   *                   later (each target's mixture is prepared on first use), so the objects must
+   *                   not be changed after the model is made
    * @param docMgPerL  DOC of the water, mg/L (> 0)
    * @param background the fictive DOC components at `docMgPerL` (for the surrogates), if any
    */

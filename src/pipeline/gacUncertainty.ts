@@ -38,7 +38,7 @@ import { fractionatedBackground, gacDocComponents, gacIndicatorRule, gacStaggere
 import type { CarbonResult, PipelineResult } from './pipelineTypes.js';
 import type { UncertainParameter, UncertaintySettings } from './uncertaintyTypes.js';
 
-/** Draws of a GAC carbon when `uncertainty.gac_draws` is not given (ours: each draw integrates every compound again, about 0.2–0.3 s of CPU on the demo's nine compounds). */
+/** Draws of a GAC carbon when `uncertainty.gac_draws` is not given (ours: each draw integrates every compound again, about 0.2 s of CPU on the demo's nine compounds). */
 export const DEFAULT_GAC_DRAWS = 20;
 /** Random stream of the GAC draws (a chunk index of chunkRng apart from the PAC carbons' chunks). */
 const GAC_STREAM = 0x6ac0;

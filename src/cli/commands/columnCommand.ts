@@ -24,7 +24,7 @@ export function columnOptionValue<T>(f: () => T, map: Record<string, string> = C
 export const columnCommand: CommandSpec = {
   name: 'column',
   args: ['<mixture>'],
-  summary: 'GAC fixed-bed breakthrough of every component (plug flow, film, surface diffusion in the grains, IAST at their surface): c/c0 against bed volumes and the bed volumes at c/c0 0.1, 0.2 and 0.5',
+  summary: 'GAC fixed-bed breakthrough of every component (plug flow, film, surface diffusion in the grains, IAST at their surface): c/c0 against bed volumes and the bed volumes at c/c0 0.1, 0.2 and 0.5; trace components (below 0.1 % of the adsorbable feed) are integrated each on its own against the background solved once, which they do not disturb',
   options: [
     { flags: '--ebct <time>', description: 'empty-bed contact time, e.g. "20 min"', parse: positiveTime, required: true },
     { flags: '--bed-depth <length>', description: 'bed depth, e.g. "2 m"', parse: positiveLength, required: true },

@@ -4,6 +4,7 @@
  * stdout on failure: commands hand their whole output to ctx.out only when it is complete.
  */
 import { Command, CommanderError, Option } from 'commander';
+import '../uncertainty/idleReading.js'; // the machine's idle time at start-up, for spareCore (src/uncertainty/sharedTraceOutlets.ts)
 import { ComputationError, InputError } from '../core/errors.js';
 import { attributeName, fullDescription, longFlag, type CommandContext, type OptionSpec } from './commandSpec.js';
 import { COMMANDS } from './commands/index.js';

@@ -11,13 +11,14 @@
  * SHARED_MIN_TARGETS_STARTED targets on.
  * @throws InputError / ComputationError from an outlet (from either thread, rethrown as such)
  */
-import { availableParallelism, cpus, loadavg } from 'node:os';
+import { availableParallelism, loadavg } from 'node:os';
 import { Worker } from 'node:worker_threads';
 import { ComputationError, InputError } from '../core/errors.js';
 import type { TraceBed } from '../kinetics/fixedBed.js';
 import type { FixedBedComponent } from '../kinetics/fixedBedInput.js';
 import type { TraceOutletWorkerCommand, TraceOutletWorkerInput, TraceOutletWorkerMessage } from './traceOutletWorker.js';
 import { workerEntry } from './workerEntry.js';
+import { firstIdleReading, idleReading } from './idleReading.js';
 
 /**
  * Fewest targets for which a worker is started (ours). An outlet of the demo's compounds costs
@@ -47,19 +48,10 @@ export interface StartedTraceWorker {
   release(): Promise<void>;
 }
 
-/** The machine's idle CPU time, ms summed over its cores, and the time of the reading. */
-function idleReading(): { atMs: number; idleMs: number } {
-  let idleMs = 0;
-  for (const c of cpus()) idleMs += c.times.idle;
-  return { atMs: performance.now(), idleMs };
-}
-/** The reading when this module was loaded, early in the process (for spareCore; speed only). */
-const loadedReading = idleReading();
-
 /**
- * Is a core free for a worker started ahead? At least two cores, and since this module was loaded
- * (the process's start-up) the machine's idle time was at least 0.6 of a core; within the first
- * 50 ms, a 1-minute load average at most one below the number of cores. Ours: on a machine already
+ * Is a core free for a worker started ahead? At least two cores, and since the first idle reading
+ * (src/uncertainty/idleReading.ts: the CLI's start-up) the machine's idle time was at least 0.6 of
+ * a core; within the first 50 ms, a 1-minute load average at most one below the number of cores. Ours: on a machine already
  * busy, a worker's start-up and JIT warm-up cost more than its share of the outlets saves
  * (measured on 2 cores, the demo with its 45 GAC outlets took 4.2 s with the worker against 5.1 s
  * without on an idle machine, and 6.1–6.4 s against 4.9–5.3 s at a load of 4.4). Speed only: the
@@ -69,8 +61,8 @@ export function spareCore(): boolean {
   const cores = availableParallelism();
   if (cores < 2) return false;
   const now = idleReading();
-  const wallMs = now.atMs - loadedReading.atMs;
-  if (wallMs >= 50) return (now.idleMs - loadedReading.idleMs) / wallMs >= 0.6;
+  const wallMs = now.atMs - firstIdleReading.atMs;
+  if (wallMs >= 50) return (now.idleMs - firstIdleReading.idleMs) / wallMs >= 0.6;
   return loadavg()[0]! <= cores - 1;
 }
 

@@ -4,7 +4,7 @@
  * as plain data so the main thread can rethrow the same error type.
  */
 import { parentPort, workerData } from 'node:worker_threads';
-import { ComputationError, InputError } from '../core/errors.js';
+import { workerErrorMessage, type WorkerErrorMessage } from './workerError.js';
 import { compileDrawModel, runChunk } from './monteCarloDraw.js';
 import type { MonteCarloProblem } from './monteCarloProblem.js';
 
@@ -17,7 +17,7 @@ export interface WorkerInput {
 export type WorkerMessage =
   | { type: 'chunk'; chunk: number; count: number; values: Float64Array; governing: Int32Array }
   | { type: 'done' }
-  | { type: 'error'; kind: 'input' | 'computation' | 'other'; message: string; expected?: string; location?: InputError['location'] };
+  | WorkerErrorMessage;
 
 const port = parentPort;
 if (port) {
@@ -31,10 +31,6 @@ if (port) {
     }
     port.postMessage({ type: 'done' } satisfies WorkerMessage);
   } catch (e) {
-    let msg: WorkerMessage;
-    if (e instanceof InputError) msg = { type: 'error', kind: 'input', message: e.message, expected: e.expected, location: e.location };
-    else if (e instanceof ComputationError) msg = { type: 'error', kind: 'computation', message: e.reason };
-    else msg = { type: 'error', kind: 'other', message: (e as Error).stack ?? String(e) };
-    port.postMessage(msg);
+    port.postMessage(workerErrorMessage(e) satisfies WorkerMessage);
   }
 }

@@ -17,6 +17,7 @@ import { checkOptions, monteCarlo, planChunks, summarise, type MonteCarloOptions
 import type { MonteCarloProblem } from './monteCarloProblem.js';
 import type { WorkerInput, WorkerMessage } from './monteCarloWorker.js';
 import { workerEntry, type WorkerEntry } from './workerEntry.js';
+import { errorFromWorker } from './workerError.js';
 
 /**
  * Below this many dose searches (draws × targets × (1 + DOC levels when a yearly cost is asked))
@@ -43,9 +44,7 @@ export function resolveWorkerEntry(): WorkerEntry | undefined {
 }
 
 function rebuildError(m: Extract<WorkerMessage, { type: 'error' }>): Error {
-  if (m.kind === 'input') return new InputError(m.expected ?? m.message, m.location ?? {});
-  if (m.kind === 'computation') return new ComputationError(m.message);
-  return new Error(`Monte Carlo worker failed: ${m.message}`);
+  return errorFromWorker(m) ?? new Error(`Monte Carlo worker failed: ${m.message}`);
 }
 
 function runWorker(entry: WorkerEntry, input: WorkerInput, onChunk: (c: ChunkResult) => void): { done: Promise<void>; worker: Worker } {

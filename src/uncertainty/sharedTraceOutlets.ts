@@ -13,12 +13,12 @@
  */
 import { availableParallelism, loadavg } from 'node:os';
 import { Worker } from 'node:worker_threads';
-import { ComputationError, InputError } from '../core/errors.js';
 import type { TraceBed } from '../kinetics/fixedBed.js';
 import type { FixedBedComponent } from '../kinetics/fixedBedInput.js';
 import type { TraceOutletWorkerCommand, TraceOutletWorkerInput, TraceOutletWorkerMessage } from './traceOutletWorker.js';
 import { workerEntry } from './workerEntry.js';
 import { firstIdleReading, idleReading } from './idleReading.js';
+import { errorFromWorker } from './workerError.js';
 
 /**
  * Fewest targets for which a worker is started (ours). An outlet of the demo's compounds costs
@@ -139,7 +139,7 @@ export function sharedTraceOutlets(tb: TraceBed, targets: readonly FixedBedCompo
         else if (m.type === 'done') { finished = true; resolve(undefined); }
         else {
           finished = true;
-          resolve(m.kind === 'input' ? new InputError(m.expected ?? m.message, m.location ?? {}) : m.kind === 'computation' ? new ComputationError(m.message) : undefined);
+          resolve(errorFromWorker(m));
         }
       });
       w.on('error', () => { finished = true; resolve(undefined); });

@@ -7,7 +7,7 @@
  * `{ type: 'input', input }`; a pending worker that receives `{ type: 'stop' }` ends.
  */
 import { parentPort, workerData } from 'node:worker_threads';
-import { ComputationError, InputError } from '../core/errors.js';
+import { workerErrorMessage, type WorkerErrorMessage } from './workerError.js';
 import { traceBedFromData, type TraceBedData } from '../kinetics/fixedBed.js';
 import type { FixedBedComponent } from '../kinetics/fixedBedInput.js';
 
@@ -24,7 +24,7 @@ export type TraceOutletWorkerCommand = { type: 'input'; input: TraceOutletWorker
 export type TraceOutletWorkerMessage =
   | { type: 'outlet'; index: number; cOverC0: Float64Array }
   | { type: 'done' }
-  | { type: 'error'; kind: 'input' | 'computation' | 'other'; message: string; expected?: string; location?: InputError['location'] };
+  | WorkerErrorMessage;
 
 const port = parentPort;
 if (port) {
@@ -48,10 +48,6 @@ function run(input: TraceOutletWorkerInput): void {
     }
     out.postMessage({ type: 'done' } satisfies TraceOutletWorkerMessage);
   } catch (e) {
-    let msg: TraceOutletWorkerMessage;
-    if (e instanceof InputError) msg = { type: 'error', kind: 'input', message: e.message, expected: e.expected, location: e.location };
-    else if (e instanceof ComputationError) msg = { type: 'error', kind: 'computation', message: e.reason };
-    else msg = { type: 'error', kind: 'other', message: (e as Error).stack ?? String(e) };
-    out.postMessage(msg);
+    out.postMessage(workerErrorMessage(e) satisfies TraceOutletWorkerMessage);
   }
 }

@@ -152,18 +152,13 @@ export function fixedBedModel(components: readonly BedComponentScales[], backgro
     storedKappaTime = tNow;
   };
 
-  /** Surface concentrations of all components in cell j (and background Jacobian when asked). */
+  /**
+   * Surface concentrations of all components in cell j from reverse IAST of the background (and
+   * its Jacobian when asked); without a stored background only (with one, κ_T comes from
+   * fillStoredKappa).
+   */
   const surface = (y: Float64Array, j: number, withJac: boolean, kappas?: Float64Array, dKappas?: Float64Array): void => {
     const base = j * S;
-    if (background) {
-      fillStoredKappa();
-      for (let m = 0; m < na; m++) {
-        const kappa = storedKappa![j * na + m]!;
-        if (kappas) kappas[m] = kappa;
-        cs[m] = kappa * qRef[m]! * y[base + m * P + 1 + N]!;
-      }
-      return;
-    }
     // for the Newton matrix the loadings are floored at JAC_FLOOR·q_ref: reverse IAST's Jacobian
     // overflows at loadings near the smallest doubles (c°/Σq), and any finite approximation will do
     if (withJac) for (let b = 0; b < nb; b++) qS[b] = qRef[b]! * Math.max(y[base + b * P + 1 + N]!, JAC_FLOOR);
@@ -223,7 +218,6 @@ export function fixedBedModel(components: readonly BedComponentScales[], backgro
   const diffusionOf = Float64Array.from(components, (c) => c.diffusion);
   const filmOf = Float64Array.from(components, (c) => c.film);
   const faces = new Float64Array(Nz * na);
-  const N1 = N + 1;
   // c_s/c0 per cell and component at the state of the rhs call
   const csOverC0 = new Float64Array(Nz * na);
   const rhs = (t: number, y: Float64Array, dy: Float64Array): void => {

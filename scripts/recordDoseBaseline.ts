@@ -46,4 +46,4 @@ const runs = projects.map((p) => {
   };
 });
 writeFileSync(root + 'fixtures/design/dose-baseline.json', JSON.stringify({ note: 'doses before the dose searches were merged (scripts/recordDoseBaseline.ts)', random, runs }) + '\n');
-console.log(`recorded ${random.length} random problems (${random.filter((r) => r.doseGPerL === null).length} unreachable) and ${runs.length} projects`);
+console.log(`stored ${random.length} random problems (${random.filter((r) => r.doseGPerL === null).length} unreachable) and ${runs.length} projects`);

@@ -69,7 +69,7 @@ function snapshot(v: unknown, out: unknown[]): boolean {
   return true;
 }
 
-/** The position after `v` in `snap` when `v` still holds what was recorded from `at` on, else -1. */
+/** The position after `v` in `snap` when `v` still holds what was stored from `at` on, else -1. */
 function matches(v: unknown, snap: readonly unknown[], at: number): number {
   if (v === null || typeof v !== 'object') return at < snap.length && Object.is(snap[at], v) ? at + 1 : -1;
   let i = at;

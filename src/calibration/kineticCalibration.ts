@@ -13,7 +13,7 @@
  * (s²·(JᵀJ)⁻¹, the usual linearised interval). The particle runs of each series replay the steps
  * and orders of a first run in logarithmic time s = ln(1 + t/t_c), where t_c ∝ R²/Ds follows the
  * diffusion clock (src/kinetics/logTimeSystem.ts), so the residuals are smooth in Ds for the
- * difference quotients; a second round records them at the first answer with a tight tolerance
+ * difference quotients; a second round takes them again at the first answer with a tight tolerance
  * (1e-7; the first round 1e-5) and polishes from there. Warnings: poor fit (RMSE of ln c above 0.3, as for the other
  * fits), Ds not determined within a decade, Ds at the search bound.
  *
@@ -102,19 +102,19 @@ export function calibrateKinetics(data: string | CsvTable, options: KineticCalib
 
   const n = series.reduce((a, s) => a + s.timesS.length, 0);
   const lnMeas = Float64Array.from(series.flatMap((s) => s.cMgPerL.map((c) => Math.log(c))));
-  let recorded: { steps: number[]; orders: number[] }[] = [];
-  let recordRtol = 1e-5;
+  let kept: { steps: number[]; orders: number[] }[] = [];
+  let stepsRtol = 1e-5;
   const grid = options.interiorPoints !== undefined ? { interiorPoints: options.interiorPoints } : {};
   const predict = (ds: number): Float64Array => {
     const out = new Float64Array(n);
     let k = 0;
     series.forEach((s, j) => {
       const pk = prepareKinetics(mixture(s, ds), particle);
-      let rec = recorded[j];
+      let rec = kept[j];
       let run;
       if (!rec) {
-        run = pacBatch(pk, s.doseMgPerL / 1000, s.timesS, { rtol: recordRtol, ...grid });
-        rec = recorded[j] = { steps: run.stepTimes, orders: run.stepOrders };
+        run = pacBatch(pk, s.doseMgPerL / 1000, s.timesS, { rtol: stepsRtol, ...grid });
+        rec = kept[j] = { steps: run.stepTimes, orders: run.stepOrders };
       }
       try {
         run = pacBatch(pk, s.doseMgPerL / 1000, s.timesS, { stepTimes: rec.steps, stepOrders: rec.orders, ...grid });
@@ -137,9 +137,9 @@ export function calibrateKinetics(data: string | CsvTable, options: KineticCalib
   const what = `${model} calibration`;
   const first = fitLeastSquares({ residuals, starts: DS_START.map((d) => [Math.log(d)]), lower: [Math.log(DS_MIN)], upper: [Math.log(DS_MAX)], residualScale: 1, maxIterations: 8, what });
   if (!first.converged) throw new ComputationError(`${what} did not converge (${first.stop})`);
-  // second round: steps recorded at the first answer with a tight tolerance, polished from there
-  recorded = [];
-  recordRtol = 1e-7;
+  // second round: steps kept at the first answer with a tight tolerance, polished from there
+  kept = [];
+  stepsRtol = 1e-7;
   const fit = fitLeastSquares({ residuals, starts: [first.x], lower: [Math.log(DS_MIN)], upper: [Math.log(DS_MAX)], residualScale: 1, maxIterations: 4, what });
   if (!fit.converged) throw new ComputationError(`${what} did not converge (${fit.stop})`);
   const x = fit.x[0]!;

@@ -202,7 +202,7 @@ export function integrateBdf(system: StiffSystem, t0: number, y0: Float64Array, 
   if (replay) {
     const last = replay[replay.length - 1];
     if (!(last !== undefined && last > t0)) throw new ComputationError(`${what}: a replay needs steps after the start`);
-    // steps recorded over another span are stretched to end at the last output time (a smooth
+    // steps taken over another span are stretched to end at the last output time (a smooth
     // map, so that results stay smooth in a parameter that moves the end, e.g. t_c of logTime)
     if (last !== tEnd) {
       const f = (tEnd - t0) / (last - t0);

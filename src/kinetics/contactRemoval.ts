@@ -140,7 +140,7 @@ export class ContactRemoval implements RemovalModel {
    * contactRemovalTolerance.test.ts and stirredShortAge.test.ts). Not everywhere: in a water with
    * one DOC fraction removed to 1.3 % (stirred, θ = 3 d, 50 mg/L) the c/c0 of a partly removed
    * fraction scattered by up to 3e-5 between rtol 1e-5 and 1e-7, settling only from 3e-8: the
-   * reactor replays steps recorded at the feed (stirredReactor), far from that outlet. Recording
+   * reactor replays steps pinned at the feed (stirredReactor), far from that outlet. Pinning
    * the steps again at the outlet closed the gap (within 1e-7 from rtol 1e-6) but cost about 55 %
    * more CPU in the demo contact run; an open problem. The particle grid adds its own error:
    * doubling the grid changes c/c0 by < 1e-4 (stirredGridPoints).

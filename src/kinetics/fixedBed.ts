@@ -27,7 +27,7 @@
 import { InputError } from '../core/errors.js';
 import { firstCrossing, curveIntegral, type BreakthroughCurve } from './breakthroughCurve.js';
 import { checkBed, checkComponents, filmCoefficients, type ComponentFilm, type FixedBedComponent, type FixedBedInput, type FixedBedSpec } from './fixedBedInput.js';
-import { bedBackgroundHistory, recordingBedBackground, solveBedBackground, type BedBackgroundHistory, type BedBackgroundHistoryData, type RecordingBedBackground } from './fixedBedBackground.js';
+import { bedBackgroundHistory, storingBedBackground, solveBedBackground, type BedBackgroundHistory, type BedBackgroundHistoryData, type StoringBedBackground } from './fixedBedBackground.js';
 import { fixedBedModel, type BedComponentScales, type BedModel } from './fixedBedModel.js';
 import { integrateImplicit, type IntegratorStats } from './implicitIntegrator.js';
 
@@ -169,24 +169,24 @@ export function simulateFixedBed(input: FixedBedInput, options: FixedBedOptions)
   if (options.stepTimes && options.stopWhen) throw new InputError('a replay of steps cannot stop early', { path: 'stepTimes' });
   const split = options.storedBackground === true && nb >= 1 && nb < ordered.length;
   if (options.storedBackground && options.stepTimes) throw new InputError('a replay of steps needs the coupled solve (not storedBackground)', { path: 'stepTimes' });
-  let recorded: RecordingBedBackground | undefined;
+  let stored: StoringBedBackground | undefined;
   if (ordered.length > 0) {
     // the systems integrated: the coupled model of every component, or (split) the background
-    // alone with its history recorded, then each trace alone against that history
-    interface Part { model: BedModel; members: number[]; y: Float64Array; h?: number; onStep?: RecordingBedBackground['onStep'] }
+    // alone with its history stored, then each trace alone against that history
+    interface Part { model: BedModel; members: number[]; y: Float64Array; h?: number; onStep?: StoringBedBackground['onStep'] }
     const parts: Part[] = [];
     if (split) {
-      recorded = recordingBedBackground(scales.slice(0, nb), eps, rhoP, grid);
-      parts.push({ model: recorded.model, members: ordered.slice(0, nb).map((x) => x.i), y: new Float64Array(recorded.model.size), onStep: recorded.onStep });
+      stored = storingBedBackground(scales.slice(0, nb), eps, rhoP, grid);
+      parts.push({ model: stored.model, members: ordered.slice(0, nb).map((x) => x.i), y: new Float64Array(stored.model.size), onStep: stored.onStep });
       for (let m = nb; m < ordered.length; m++) {
-        const model = fixedBedModel([scales[m]!], 0, eps, rhoP, grid, recorded.history);
+        const model = fixedBedModel([scales[m]!], 0, eps, rhoP, grid, stored.history);
         parts.push({ model, members: [ordered[m]!.i], y: new Float64Array(model.size) });
       }
     } else {
       const model = fixedBedModel(scales, nb, eps, rhoP, grid);
       parts.push({ model, members: ordered.map((x) => x.i), y: new Float64Array(model.size) });
     }
-    const record = (part: Part, y: Float64Array, k: number) => {
+    const keep = (part: Part, y: Float64Array, k: number) => {
       const model = part.model;
       part.members.forEach((i, m) => {
         cOverC0[i]![k] = model.outlet(y, m);
@@ -206,20 +206,20 @@ export function simulateFixedBed(input: FixedBedInput, options: FixedBedOptions)
         const res = integrateImplicit(part.model, 0, part.y, bvs, { ...tol, ...(options.stepTimes ? { stepTimes: options.stepTimes } : {}), ...(part.onStep ? { onStep: part.onStep } : {}) });
         add(res.stats);
         if (!split) stepTimes = res.stepTimes;
-        res.states.forEach((y, k) => record(part, y, k));
+        res.states.forEach((y, k) => keep(part, y, k));
       }
     } else {
       // in segments of STOP_CHECK_POINTS output points, each continuing from the last state with
       // the last step size, asking stopWhen in between (split: the background's segment first)
       let from = 0;
-      for (const part of parts) record(part, part.y, 0);
+      for (const part of parts) keep(part, part.y, 0);
       end = 1;
       while (end < bvs.length) {
         const seg = bvs.slice(end, Math.min(bvs.length, end + STOP_CHECK_POINTS));
         for (const part of parts) {
           const res = integrateImplicit(part.model, bvs[from]!, part.y, seg, { ...tol, ...(part.h === undefined ? {} : { initialStep: part.h }), ...(part.onStep ? { onStep: part.onStep } : {}) });
           add(res.stats);
-          res.states.forEach((st, k) => record(part, st, end + k));
+          res.states.forEach((st, k) => keep(part, st, end + k));
           const st = res.stepTimes;
           if (st.length >= 2) part.h = st[st.length - 1]! - st[st.length - 2]!;
           part.y = res.states[res.states.length - 1]!;
@@ -272,7 +272,7 @@ export function simulateFixedBed(input: FixedBedInput, options: FixedBedOptions)
     grid,
     stats,
     ...(stepTimes ? { stepTimes } : {}),
-    ...(recorded ? { storedBackground: storedTraceBed(bed, grid, bvs, recorded.history, ordered.slice(0, nb).reduce((s, x) => s + x.c.c0MgPerL, 0), { rtol: options.rtol ?? FIXED_BED_TOLERANCES.rtol, atol: options.atol ?? FIXED_BED_TOLERANCES.atol }) } : {}),
+    ...(stored ? { storedBackground: storedTraceBed(bed, grid, bvs, stored.history, ordered.slice(0, nb).reduce((s, x) => s + x.c.c0MgPerL, 0), { rtol: options.rtol ?? FIXED_BED_TOLERANCES.rtol, atol: options.atol ?? FIXED_BED_TOLERANCES.atol }) } : {}),
     warnings: films.filter((f) => f.warning).map((f) => f.warning!),
   };
   const docIdx = comps.map((c, i) => (c.doc ? i : -1)).filter((i) => i >= 0);

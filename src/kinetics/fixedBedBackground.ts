@@ -47,13 +47,13 @@ export interface BedBackgroundHistoryData {
   values: Float64Array;
 }
 
-/** The history of `data` (the same interpolation as the recorded one). */
+/** The history of `data` (the same interpolation as the stored one). */
 export function bedBackgroundHistory(data: BedBackgroundHistoryData): BedBackgroundHistory {
   const n = 4 * data.cells;
   return storedHistory(data.iso, data.cells, Array.from(data.times), Array.from(data.times, (_, k) => data.values.subarray(k * n, (k + 1) * n)));
 }
 
-/** The history over `times` and `chunks` (live arrays: a recording may still append to them). */
+/** The history over `times` and `chunks` (live arrays: a solve in progress may still append to them). */
 function storedHistory(iso: SurfaceIsotherms, Nz: number, times: number[], chunks: Float64Array[]): BedBackgroundHistory {
   let k = 0; // interval [times[k], times[k+1]] of the last query (queries mostly move forward)
   return {
@@ -96,8 +96,8 @@ export interface SolvedBedBackground {
   integration: IntegrationResult;
 }
 
-/** The background model with a history that records every accepted step handed to `onStep`. */
-export interface RecordingBedBackground {
+/** The background model with a history that stores every accepted step handed to `onStep`. */
+export interface StoringBedBackground {
   model: BedModel;
   history: BedBackgroundHistory;
   /** The integrator's onStep: stores ψ_B, Q_B and their time derivatives per cell (a step at the last stored time replaces it). */
@@ -109,7 +109,7 @@ export interface RecordingBedBackground {
  * with an empty history that `onStep` fills; an integration may go on in segments (the history
  * grows with each), see the file comment.
  */
-export function recordingBedBackground(components: readonly BedComponentScales[], porosity: number, particleDensityGPerL: number, grid: BedGrid): RecordingBedBackground {
+export function storingBedBackground(components: readonly BedComponentScales[], porosity: number, particleDensityGPerL: number, grid: BedGrid): StoringBedBackground {
   const nb = components.length;
   if (nb < 1) throw new ComputationError('fixed bed: a stored background needs at least one background component');
   const model = fixedBedModel(components, nb, porosity, particleDensityGPerL, grid);
@@ -147,7 +147,7 @@ export function recordingBedBackground(components: readonly BedComponentScales[]
  * time and store their surface history; see the file comment.
  */
 export function solveBedBackground(components: readonly BedComponentScales[], porosity: number, particleDensityGPerL: number, grid: BedGrid, outputBedVolumes: readonly number[], tolerances: IntegratorOptions): SolvedBedBackground {
-  const { model, history, onStep } = recordingBedBackground(components, porosity, particleDensityGPerL, grid);
+  const { model, history, onStep } = storingBedBackground(components, porosity, particleDensityGPerL, grid);
   const integration = integrateImplicit(model, 0, new Float64Array(model.size), outputBedVolumes, { ...tolerances, onStep });
   return { history, model, integration };
 }

@@ -62,7 +62,7 @@ export interface IntegratorOptions {
   stepTimes?: readonly number[];
   /**
    * Called at the start and after every accepted step with the time, the state and its derivative
-   * (views into the integrator's buffers: copy what you keep), e.g. to record a dense history.
+   * (views into the integrator's buffers: copy what you keep), e.g. to store a dense history.
    */
   onStep?: (t: number, y: Float64Array, dydt: Float64Array) => void;
 }

@@ -16,7 +16,7 @@
  * Comp. 19:577) and backtracking on the scaled residual. It is solved first on a coarse particle
  * grid (2 interior points, a difference Jacobian, cheap), whose outlet and Jacobian start the
  * solve on the requested grid (ours: the Jacobian hardly depends on the grid). The particle runs
- * replay the steps of a run with error control recorded with every component at its feed
+ * replay the steps of a run with error control taken with every component at its feed
  * concentration (the same steps for every dose, so the outlet is smooth in the dose), so the
  * residual is smooth in v; one Newton step past the tolerance makes the answer independent of
  * the path of the iterations. Trace targets are linear given the background:
@@ -112,12 +112,12 @@ export function stirredReactorFrom(pk: PreparedKinetics, doseGPerL: number, cont
       ? { v: Float64Array.from(secondStart.remaining, (r) => Math.log(r)), dose: secondStart.dose } : undefined;
     ({ v, J } = predictOutlet(v, J, startDoseGPerL, doseGPerL, second));
   }
-  // the steps of the requested grid are recorded with every component at its feed concentration
+  // the steps of the requested grid are pinned with every component at its feed concentration
   // (v = 0), the same for every dose: error-controlled step sequences react to the smallest change
   // of their input through discrete decisions (rejected steps, order changes, a kept Newton
-  // matrix), so steps recorded at a dose-dependent start would make the outlet jump between doses
+  // matrix), so steps pinned at a dose-dependent start would make the outlet jump between doses
   // 1e-12 apart, and a dose search would land on such a jump
-  const recordAt = new Float64Array(nB);
+  const pinAt = new Float64Array(nB);
   if (nB > 0 && interior > COARSE_POINTS && !J) {
     try {
       const coarseBalance = new BalanceSolver(pk, doseGPerL, theta, COARSE_RTOL);
@@ -131,10 +131,10 @@ export function stirredReactorFrom(pk: PreparedKinetics, doseGPerL: number, cont
     }
   }
   // the polishing step runs every block (the trace targets too), so that it is also the final run
-  const fine = nB > 0 ? balance.solve(sphereCollocation(interior), v, J, BALANCE_TOL, false, recordAt, true) : undefined;
+  const fine = nB > 0 ? balance.solve(sphereCollocation(interior), v, J, BALANCE_TOL, false, pinAt, true) : undefined;
   if (fine) v = fine.v;
   // the trace targets (linear given the background): one run of everything at the solution
-  const fin = fine?.all ?? balance.evaluate(sphereCollocation(interior), v, fine ? 'replay-all' : 'record');
+  const fin = fine?.all ?? balance.evaluate(sphereCollocation(interior), v, fine ? 'replay-all' : 'pin');
   const c = Float64Array.from(comps, (comp) => comp.c0MgPerL);
   const qMean = new Float64Array(m);
   fin.blocks.forEach((i, b) => {
@@ -184,8 +184,8 @@ export const VERY_SHORT_AGE_NUMBER = 2e-4;
 const SHORT_AGE_POINTS = 20;
 const VERY_SHORT_AGE_POINTS = 24;
 
-/** Steps recorded at the feed (v = 0) per prepared mixture and `grid|age|rtol` (BalanceSolver.record). */
-const RECORDED = new WeakMap<PreparedKinetics, Map<string, { times: number[]; orders: number[] }>>();
+/** Steps pinned at the feed (v = 0) per prepared mixture and `grid|age|rtol` (BalanceSolver.pinSteps). */
+const PINNED_STEPS = new WeakMap<PreparedKinetics, Map<string, { times: number[]; orders: number[] }>>();
 
 /** Dose that scales the particle's loadings in the reactor's runs, g/L (ours; 10 mg/L). */
 const SCALE_DOSE_G_PER_L = 0.01;
@@ -236,10 +236,10 @@ class BalanceSolver {
 
   /**
    * Age integrals of every block with the coupled components at c_out = c0·exp(v) and the trace
-   * targets at their c0. `record` integrates everything with error control and keeps the steps;
+   * targets at their c0. `pin` integrates everything with error control and keeps the steps;
    * `replay` replays them on the background alone, `replay-all` on everything (smooth in v).
    */
-  evaluate(col: SphereCollocation, v: Float64Array, mode: 'record' | 'replay' | 'replay-all'): Evaluation {
+  evaluate(col: SphereCollocation, v: Float64Array, mode: 'pin' | 'replay' | 'replay-all'): Evaluation {
     const { pk, background, qEq, cFixed } = this;
     const comps = pk.components;
     const qB = this.equilibriumAt(v);
@@ -254,25 +254,25 @@ class BalanceSolver {
       }
     }
     // a particle at a fixed liquid does not depend on the dose; its loadings are scaled by c0/D
-    // for a fixed reference D, so that the recorded steps do not change with the dose either
+    // for a fixed reference D, so that the pinned steps do not change with the dose either
     const particleFor = (which: PreparedKinetics) => hsdmParticleSystem(which, SCALE_DOSE_G_PER_L, col, { kind: 'fixed', cMgPerL: cFixed, meanAgeS: this.theta, equilibriumMgPerG: qEq });
     let part: ParticleSystem | undefined;
     let y: Float64Array | undefined;
-    if (mode !== 'record' && this.steps && this.steps.col === col) {
+    if (mode !== 'pin' && this.steps && this.steps.col === col) {
       part = particleFor(mode === 'replay' ? this.pkB : pk);
       try {
-        // the corrector is solved to 1e-4 of the recording's own error norm (bdfIntegrator)
+        // the corrector is solved to 1e-4 of the pinned run's own error norm (bdfIntegrator)
         y = integrateBdf(logTimeSystem(part, this.tc), 0, part.initialState(), [this.sEnd], { stepTimes: this.steps.times, stepOrders: this.steps.orders, rtol: this.rtol, atol: this.rtol * 1e-3 }).states[0]!;
       } catch (e) {
-        if (!(e instanceof ComputationError)) throw e; // the recorded steps do not suit v: this one runs with error control
+        if (!(e instanceof ComputationError)) throw e; // the pinned steps do not suit v: this one runs with error control
       }
     }
     if (!y) {
       part = particleFor(pk);
       const run = integrateBdf(logTimeSystem(part, this.tc), 0, part.initialState(), [this.sEnd], { rtol: this.rtol, atol: this.rtol * 1e-3 });
-      // only a recording sets the steps that later evaluations replay (a failed replay does not
+      // only a pinning run sets the steps that later evaluations replay (a failed replay does not
       // change the residual function in the middle of a solve)
-      if (mode === 'record' || !this.steps || this.steps.col !== col) this.steps = { times: run.stepTimes, orders: run.stepOrders, col };
+      if (mode === 'pin' || !this.steps || this.steps.col !== col) this.steps = { times: run.stepTimes, orders: run.stepOrders, col };
       y = run.states[0]!;
     }
     this.integrations++;
@@ -284,19 +284,20 @@ class BalanceSolver {
   }
 
   /**
-   * Records the steps at v (evaluate's 'record'). The steps recorded at v = 0 (every component at
+   * Pins the steps at v (evaluate's 'pin'). The steps pinned at v = 0 (every component at
    * its feed) do not depend on the dose, so they are kept per mixture, grid, age and tolerance
-   * (RECORDED) and a later solve of the same mixture at another dose replays them unrecorded.
+   * (PINNED_STEPS) and a later solve of the same mixture at another dose replays them without
+   * integrating again.
    */
-  record(col: SphereCollocation, v: Float64Array): void {
+  pinSteps(col: SphereCollocation, v: Float64Array): void {
     const atFeed = v.every((x) => x === 0);
     const key = `${col.interiorPoints}|${this.theta}|${this.rtol}`;
-    const kept = atFeed ? RECORDED.get(this.pk)?.get(key) : undefined;
+    const kept = atFeed ? PINNED_STEPS.get(this.pk)?.get(key) : undefined;
     if (kept) { this.steps = { times: kept.times, orders: kept.orders, col }; return; }
-    this.evaluate(col, v, 'record');
+    this.evaluate(col, v, 'pin');
     if (atFeed && this.steps) {
-      let byKey = RECORDED.get(this.pk);
-      if (!byKey) { byKey = new Map(); RECORDED.set(this.pk, byKey); }
+      let byKey = PINNED_STEPS.get(this.pk);
+      if (!byKey) { byKey = new Map(); PINNED_STEPS.set(this.pk, byKey); }
       byKey.set(key, { times: this.steps.times, orders: this.steps.orders });
     }
   }
@@ -316,22 +317,22 @@ class BalanceSolver {
   }
 
   /** Newton–Broyden on v from `v0` (with the Jacobian `J0`, else differences) until the balance closes. */
-  solve(col: SphereCollocation, v0: Float64Array, J0: Float64Array | undefined, tol = BALANCE_TOL, reRecord = true, recordAt: Float64Array = v0, polish = false): { v: Float64Array; J: Float64Array; I: Float64Array; all?: Evaluation } {
+  solve(col: SphereCollocation, v0: Float64Array, J0: Float64Array | undefined, tol = BALANCE_TOL, rePin = true, pinAt: Float64Array = v0, polish = false): { v: Float64Array; J: Float64Array; I: Float64Array; all?: Evaluation } {
     const nB = v0.length;
     const normOf = (G: Float64Array) => G.reduce((s, g) => Math.max(s, Math.abs(g)), 0);
     let v = Float64Array.from(v0);
-    let recordedAt = onRecordGrid(recordAt);
+    let pinnedAt = onPinGrid(pinAt);
     let J: Float64Array | undefined = J0 ? Float64Array.from(J0) : undefined;
-    // record the steps, then evaluate by replay, so that every residual of the solve (and the
+    // pin the steps, then evaluate by replay, so that every residual of the solve (and the
     // difference Jacobian) comes from the same smooth function of v
-    this.record(col, recordedAt);
+    this.pinSteps(col, pinnedAt);
     let cur = this.evaluate(col, v, 'replay');
     let iterations = 0;
     for (let round = 0; round < 3; round++) {
       if (round > 0) {
-        if (!reRecord || !v.some((x, p) => Math.abs(x - recordedAt[p]!) > 0.05)) break;
-        recordedAt = onRecordGrid(v);
-        this.evaluate(col, recordedAt, 'record');
+        if (!rePin || !v.some((x, p) => Math.abs(x - pinnedAt[p]!) > 0.05)) break;
+        pinnedAt = onPinGrid(v);
+        this.evaluate(col, pinnedAt, 'pin');
         cur = this.evaluate(col, v, 'replay');
       }
       let lastNorm = Infinity;
@@ -471,13 +472,13 @@ function startGuess(pk: PreparedKinetics, doseGPerL: number, thetaS: number): Fl
 }
 
 /**
- * Where steps are recorded (ours): v rounded to multiples of 0.05. Error-controlled step sequences
+ * Where steps are pinned (ours): v rounded to multiples of 0.05. Error-controlled step sequences
  * react to the smallest change of their input through discrete decisions (rejected steps, order
- * changes, a kept Newton matrix), so steps recorded at the exact start would make the outlet jump
+ * changes, a kept Newton matrix), so steps pinned at the exact start would make the outlet jump
  * between doses 1e-12 apart; on this grid the steps, and so the outlet, are smooth in the dose
  * except at the rare cell boundaries. The steps still suit the particle (5 % in c_out).
  */
-function onRecordGrid(v: Float64Array): Float64Array {
+function onPinGrid(v: Float64Array): Float64Array {
   return Float64Array.from(v, (x) => Math.min(0, Math.round(x / 0.05) * 0.05));
 }
 

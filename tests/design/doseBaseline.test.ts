@@ -1,6 +1,6 @@
 /**
  * The merged dose search returns the doses of the searches it replaced (within 1e-10, relative):
- * fixtures/design/dose-baseline.json was recorded by scripts/recordDoseBaseline.ts from the old
+ * fixtures/design/dose-baseline.json was written by scripts/recordDoseBaseline.ts from the old
  * searches before they were merged. Each search solves to |Δ ln D| ≤ 1e-12, so two correct
  * searches from different brackets agree to about 2e-12; 1e-10 leaves room for the IAST solver's
  * own tolerance. These are regression checks against the project's previous figures (not
@@ -22,7 +22,7 @@ interface Baseline {
 }
 const baseline = JSON.parse(readFileSync(new URL('../../fixtures/design/dose-baseline.json', import.meta.url), 'utf8')) as Baseline;
 
-describe('merged dose search against the recorded doses', () => {
+describe('merged dose search against the stored doses', () => {
   it('the 300 random problems of the property test: same doses within 1e-10, same unreachable cases', () => {
     expect(baseline.random).toHaveLength(300);
     let compared = 0;
@@ -55,7 +55,7 @@ const runs = (JSON.parse(readFileSync(new URL('../../fixtures/design/dose-baseli
 const rel = (a: number, b: number) => Math.abs(a / b - 1);
 const oldStatus: Record<string, string> = { ok: 'met', 'no-carbon-needed': 'met without carbon', unreachable: 'unreachable' };
 
-describe('the design layer against the doses recorded from the old pipeline', () => {
+describe('the design layer against the doses stored from the old pipeline', () => {
   for (const run of runs) {
     it(`${run.project}: compound, indicator and required doses within 1e-10; exact daily designs within 1e-10; the run's interpolated days within the table's tolerance`, () => {
       // the demo is the worker's shared plain demo run (the same input; its date is not a result)

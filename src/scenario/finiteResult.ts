@@ -21,21 +21,33 @@ const INPUTS_BEHIND: ReadonlyArray<[RegExp, (carbon: string) => string]> = [
  */
 export function assertFiniteResult(result: unknown, carbonNames: readonly string[] = []): void {
   const seen = new WeakSet<object>();
-  const walk = (v: unknown, path: string): void => {
+  // the path is kept as a stack of keys and written out only for a failure (a 36,500-day result
+  // holds hundreds of thousands of numbers)
+  const keys: Array<string | number> = [];
+  const pathOf = (): string => keys.reduce<string>((p, k) => (typeof k === 'number' ? `${p}[${k}]` : p ? `${p}.${k}` : k), '');
+  const walk = (v: unknown): void => {
     if (typeof v === 'number') {
-      if (!Number.isFinite(v)) fail(v, path);
+      if (!Number.isFinite(v)) fail(v, pathOf());
       return;
     }
     if (v === null || typeof v !== 'object' || seen.has(v)) return;
     seen.add(v);
-    if (Array.isArray(v) || ArrayBuffer.isView(v)) {
-      const a = v as unknown as ArrayLike<unknown>;
-      for (let i = 0; i < a.length; i++) walk(a[i], `${path}[${i}]`);
+    if (v instanceof Float64Array || v instanceof Float32Array) {
+      for (let i = 0; i < v.length; i++) if (!Number.isFinite(v[i]!)) { keys.push(i); fail(v[i]!, pathOf()); }
       return;
     }
-    for (const [k, x] of Object.entries(v)) {
-      if (k === 'project' || k === 'provenance') continue;
-      walk(x, path ? `${path}.${k}` : k);
+    if (Array.isArray(v) || ArrayBuffer.isView(v)) {
+      const a = v as unknown as ArrayLike<unknown>;
+      keys.push(0);
+      for (let i = 0; i < a.length; i++) { keys[keys.length - 1] = i; walk(a[i]); }
+      keys.pop();
+      return;
+    }
+    for (const k in v) {
+      if (!Object.prototype.hasOwnProperty.call(v, k) || k === 'project' || k === 'provenance') continue;
+      keys.push(k);
+      walk((v as Record<string, unknown>)[k]);
+      keys.pop();
     }
   };
   const fail = (v: number, path: string): never => {
@@ -44,5 +56,5 @@ export function assertFiniteResult(result: unknown, carbonNames: readonly string
     const behind = INPUTS_BEHIND.find(([re]) => re.test(path.replace(/^carbons\[\d+\]\.?/, '')))?.[1](carbon) ?? 'the magnitudes of the inputs';
     throw new ComputationError(`the result ${path} would be ${Number.isNaN(v) ? 'not a number' : 'infinite'}; the inputs behind it are ${behind}: check their values and units (nothing was written)`);
   };
-  walk(result, '');
+  walk(result);
 }

@@ -49,6 +49,12 @@ describe('non-finite results', () => {
     expect(() => assertFiniteResult({ a: [1, 2, { b: NaN }] })).toThrow(/a\[2\]\.b would be not a number/);
     expect(() => assertFiniteResult({ project: { flow: Infinity }, a: 1 })).not.toThrow();
   });
+  it('name the element of a typed array, of a long array and of a nested row', () => {
+    expect(() => assertFiniteResult({ carbons: [{ curve: { c: Float64Array.of(1, 0.5, -Infinity) } }] })).toThrow(/^the result carbons\[0\]\.curve\.c\[2\] would be infinite/);
+    const rows = Array.from({ length: 40_000 }, (_, k) => ({ day: k, doseMgPerL: k === 39_999 ? NaN : 10 }));
+    expect(() => assertFiniteResult({ carbons: [{ daily: { rows } }, {}] })).toThrow(/^the result carbons\[0\]\.daily\.rows\[39999\]\.doseMgPerL would be not a number/);
+    expect(() => assertFiniteResult({ a: [[1, 2], [3, { b: [4, 5, Int32Array.of(1, 2)] }]], c: Float32Array.of(1, 2), d: 'x', e: null })).not.toThrow();
+  });
 });
 
 describe('equilibrium at dose 0', () => {

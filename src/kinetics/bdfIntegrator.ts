@@ -19,7 +19,8 @@
  * time is stepped onto exactly.
  *
  * Replay (`stepTimes` with `stepOrders` of an earlier run, stretched to end at the last output
- * time when they end elsewhere): the same steps and orders without error control, each corrector solved to 1e-4 of the scaled norm, so that the results are smooth
+ * time when they end elsewhere): the same steps and orders without error control, each corrector
+ * solved to `replayTolerance` (default 1e-4) of the scaled norm, so that the results are smooth
  * functions of the model's parameters (for difference quotients). A Newton failure then throws.
  *
  * The model owns its Jacobian through `StiffSystem.factor(t, y, c)` (a solver for (I − c·J)x = b).
@@ -36,6 +37,12 @@ export interface BdfOptions extends IntegratorOptions {
   stepOrders?: readonly number[];
   /** Highest order (1–5, default 5). */
   maxOrder?: number;
+  /**
+   * A replay's corrector tolerance, relative to the scaled norm (default 1e-4). The corrector's
+   * error relative to y stays below it times rtol, which is what a difference quotient over a
+   * replay resolves.
+   */
+  replayTolerance?: number;
 }
 
 export interface BdfResult {
@@ -252,9 +259,10 @@ export function integrateBdf(system: StiffSystem, t0: number, y0: Float64Array, 
   let solve: NewtonSolve | undefined;
   let solveC = 0;
   let jacFresh = false;
-  // a replay solves each corrector to 1e-4 of the scaled norm (1e-10 relative at the default
-  // rtol), far below what difference quotients resolve; otherwise Shampine & Reichelt's test
-  const newtonTol = replay ? 1e-4 : Math.max((10 * Number.EPSILON) / rtol, Math.min(0.03, Math.sqrt(rtol)));
+  // a replay solves each corrector to replayTolerance (1e-4) of the scaled norm (1e-10 relative
+  // at the default rtol), far below what difference quotients resolve; otherwise Shampine &
+  // Reichelt's test
+  const newtonTol = replay ? options.replayTolerance ?? 1e-4 : Math.max((10 * Number.EPSILON) / rtol, Math.min(0.03, Math.sqrt(rtol)));
   const maxIter = replay ? 12 : NEWTON_MAXITER;
 
   /** Simplified Newton for d; returns the iterations used, or 0 on failure. The first

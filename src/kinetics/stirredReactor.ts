@@ -218,6 +218,12 @@ class BalanceSolver {
   private readonly tc: number;
   private readonly sEnd: number;
   private steps: { times: number[]; orders: number[]; col: SphereCollocation } | undefined;
+  /**
+   * Corrector tolerance of the replays, of the scaled norm (ours): its error relative to the
+   * loadings, this times rtol, stays at most 1e-9, a thousandth of the difference step of
+   * differenceJacobian, and 1e-4 at most 1e-3 (1e-3 at the default rtol 1e-6).
+   */
+  private readonly replayTolerance: number;
 
   constructor(private readonly pk: PreparedKinetics, private readonly dose: number, private readonly theta: number, private readonly rtol: number) {
     this.background = pk.coupled.map((i) => pk.components[i]!);
@@ -227,6 +233,7 @@ class BalanceSolver {
     this.qEq = new Float64Array(pk.components.length);
     this.tc = particleTimeScale(pk.particle.radiusM, [...pk.coupled, ...pk.trace].map((i) => pk.components[i]!.dsM2PerS!));
     this.sEnd = logTime(40 * theta, this.tc);
+    this.replayTolerance = Math.min(1e-3, Math.max(1e-4, 1e-9 / rtol));
   }
 
   /** Loadings in equilibrium with the coupled outlet c0·exp(v) (direct IAST), mg/g, in pk.coupled order. */
@@ -261,8 +268,8 @@ class BalanceSolver {
     if (mode !== 'pin' && this.steps && this.steps.col === col) {
       part = particleFor(mode === 'replay' ? this.pkB : pk);
       try {
-        // the corrector is solved to 1e-4 of the pinned run's own error norm (bdfIntegrator)
-        y = integrateBdf(logTimeSystem(part, this.tc), 0, part.initialState(), [this.sEnd], { stepTimes: this.steps.times, stepOrders: this.steps.orders, rtol: this.rtol, atol: this.rtol * 1e-3 }).states[0]!;
+        // the corrector is solved to replayTolerance of the pinned run's own error norm (bdfIntegrator)
+        y = integrateBdf(logTimeSystem(part, this.tc), 0, part.initialState(), [this.sEnd], { stepTimes: this.steps.times, stepOrders: this.steps.orders, rtol: this.rtol, atol: this.rtol * 1e-3, replayTolerance: this.replayTolerance }).states[0]!;
       } catch (e) {
         if (!(e instanceof ComputationError)) throw e; // the pinned steps do not suit v: this one runs with error control
       }

@@ -4,7 +4,9 @@
  * matrices (I − γh·J) of the implicit integrators; the matrix is a row-major Float64Array.
  * `luFactorAt`/`luSolveAt` work in place on a matrix stored at an offset of a larger array (no
  * allocation, for the integrators' inner loops); `denseLu` wraps them. `luSolveBlocksAt` solves
- * several such blocks stored one after another.
+ * several such blocks stored one after another. `luFactorLastRowAt` factorises a matrix whose rows
+ * but the last are those of one already factorised, by eliminating only its last row (ours: the
+ * same arithmetic as luFactorAt, element by element, where the pivots allow it).
  */
 import { ComputationError } from '../core/errors.js';
 
@@ -16,15 +18,23 @@ export interface DenseLu {
 
 /**
  * Factorise the n×n row-major matrix stored at a[off …] in place, pivots into piv[pOff …].
+ * With `upperBest`, the largest |a_ik| of the rows k ≤ i < n − 1 at step k (the pivot candidates
+ * but the last row) goes to upperBest[uOff + k] for k < n − 1 (for luFactorLastRowAt).
  * @throws ComputationError when a pivot is zero or not finite (numerically singular matrix).
  */
-export function luFactorAt(a: Float64Array, off: number, n: number, piv: Int32Array, pOff: number, what = 'linear system'): void {
+export function luFactorAt(a: Float64Array, off: number, n: number, piv: Int32Array, pOff: number, what = 'linear system', upperBest?: Float64Array, uOff = 0): void {
+  const last = n - 1;
   for (let k = 0; k < n; k++) {
     let p = k;
     let best = Math.abs(a[off + k * n + k]!);
-    for (let i = k + 1; i < n; i++) {
+    for (let i = k + 1; i < last; i++) {
       const v = Math.abs(a[off + i * n + k]!);
       if (v > best) { best = v; p = i; }
+    }
+    if (k < last) {
+      if (upperBest) upperBest[uOff + k] = best;
+      const v = Math.abs(a[off + last * n + k]!);
+      if (v > best) { best = v; p = last; }
     }
     if (!(best > 0) || !Number.isFinite(best)) throw new ComputationError(`${what}: the Newton matrix is singular or not finite (column ${k})`);
     piv[pOff + k] = p;
@@ -58,6 +68,35 @@ export function luFactorAt(a: Float64Array, off: number, n: number, piv: Int32Ar
     }
     if (i < n) eliminateRow(a, rk, off + i * n, k, n, a[off + i * n + k]! * inv);
   }
+}
+
+/**
+ * Factorise in place the n×n matrix at a[off …] whose rows but the last (and their pivots,
+ * piv[pOff …]) already hold luFactorAt's factorisation of a matrix with the same rows but the
+ * last, that factorisation having chosen no pivot in the last row and given `upperBest` (luFactorAt),
+ * and whose last row holds this matrix's own: the last row is eliminated with the factorised rows
+ * in order, each element with luFactorAt's arithmetic, so that the result is luFactorAt's bit for
+ * bit. Returns false, with the last row partly eliminated, where luFactorAt would choose a pivot in
+ * the last row before the last column or meets a zero multiplier there (then factorise the whole
+ * matrix with luFactorAt).
+ * @throws ComputationError when the last pivot is zero or not finite, as luFactorAt.
+ */
+export function luFactorLastRowAt(a: Float64Array, off: number, n: number, piv: Int32Array, pOff: number, upperBest: Float64Array, uOff: number, what = 'linear system'): boolean {
+  const last = n - 1;
+  const rl = off + last * n;
+  for (let k = 0; k < last; k++) {
+    const v = a[rl + k]!;
+    if (!(Math.abs(v) <= upperBest[uOff + k]!)) return false;
+    const rk = off + k * n;
+    const f = v * (1 / a[rk + k]!);
+    if (f === 0) return false;
+    a[rl + k] = f;
+    for (let j = k + 1; j < n; j++) a[rl + j] = a[rl + j]! - f * a[rk + j]!;
+  }
+  const best = Math.abs(a[rl + last]!);
+  if (!(best > 0) || !Number.isFinite(best)) throw new ComputationError(`${what}: the Newton matrix is singular or not finite (column ${last})`);
+  piv[pOff + last] = last;
+  return true;
 }
 
 /** One step of Gaussian elimination on the row at a[ri …] with the pivot row at a[rk …] (column k, multiplier f; nothing when f is 0). */

@@ -21,7 +21,9 @@
  * Replay (`stepTimes` with `stepOrders` of an earlier run, stretched to end at the last output
  * time when they end elsewhere): the same steps and orders without error control, each corrector
  * solved to `replayTolerance` (default 1e-4) of the scaled norm, so that the results are smooth
- * functions of the model's parameters (for difference quotients). A Newton failure then throws.
+ * functions of the model's parameters (for difference quotients); the Newton matrix is
+ * refactorised where the step changes, or at every step with `replayFactorEveryStep` (a choice
+ * that does not depend on the model, so the results stay smooth). A Newton failure then throws.
  *
  * The model owns its Jacobian through `StiffSystem.factor(t, y, c)` (a solver for (I − c·J)x = b).
  *
@@ -43,6 +45,12 @@ export interface BdfOptions extends IntegratorOptions {
    * replay resolves.
    */
   replayTolerance?: number;
+  /**
+   * Refactorise the Newton matrix (with the Jacobian at the predictor) at every replayed step,
+   * not only where the step changes: fewer corrector iterations, for systems whose factorisation
+   * costs about what an iteration does (default false).
+   */
+  replayFactorEveryStep?: boolean;
 }
 
 export interface BdfResult {
@@ -336,11 +344,13 @@ export function integrateBdf(system: StiffSystem, t0: number, y0: Float64Array, 
     setWeights(yPred);
     const c = h / ALPHA_K[order]!;
     let iters = 0;
+    let refactor = !!replay && options.replayFactorEveryStep === true;
     for (;;) {
       // the Newton matrix of a nearby c is kept (within 30 %, as in variable-coefficient codes):
       // simplified Newton still converges, and the rate test catches it when it does not; a
       // replay, whose corrector is solved tightly, refactorises whenever the step changes
-      if (!solve || Math.abs(c / solveC - 1) > (replay ? 1e-9 : 0.3)) {
+      if (!solve || refactor || Math.abs(c / solveC - 1) > (replay ? 1e-9 : 0.3)) {
+        refactor = false;
         stats.factorizations++;
         try { solve = system.factor(tNew, yPred, c); } catch (e) {
           if (!(e instanceof ComputationError) || replay) throw e;

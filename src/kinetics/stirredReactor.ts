@@ -275,8 +275,11 @@ class BalanceSolver {
     if (mode !== 'pin' && this.steps && this.steps.col === col) {
       part = particleFor(mode === 'replay' ? this.pkB : pk);
       try {
-        // the corrector is solved to replayTolerance of the pinned run's own error norm (bdfIntegrator)
-        y = integrateBdf(logTimeSystem(part, this.tc), 0, part.initialState(), [this.sEnd], { stepTimes: this.steps.times, stepOrders: this.steps.orders, rtol: this.rtol, atol: this.rtol * 1e-3, replayTolerance: this.replayTolerance }).states[0]!;
+        // the corrector is solved to replayTolerance of the pinned run's own error norm
+        // (bdfIntegrator); on the coarse grid, whose blocks factorise for about the cost of an
+        // iteration, with the Newton matrix refactorised at every step (ours: ~40 % less CPU there,
+        // ~30 % more on 8 points)
+        y = integrateBdf(logTimeSystem(part, this.tc), 0, part.initialState(), [this.sEnd], { stepTimes: this.steps.times, stepOrders: this.steps.orders, rtol: this.rtol, atol: this.rtol * 1e-3, replayTolerance: this.replayTolerance, replayFactorEveryStep: col.interiorPoints <= COARSE_POINTS }).states[0]!;
       } catch (e) {
         if (!(e instanceof ComputationError)) throw e; // the pinned steps do not suit v: this one runs with error control
       }

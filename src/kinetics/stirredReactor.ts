@@ -14,23 +14,24 @@
  * solver, not of the time integration.
  * Coupled components: quasi-Newton on v = ln(c_out/c0) with Broyden updates (Broyden 1965, Math.
  * Comp. 19:577) and backtracking on the scaled residual. It is solved first on a coarse particle
- * grid (2 interior points, rtol 3e-4, cheap), whose outlet and Jacobian start the solve on the
- * requested grid (ours: the Jacobian hardly depends on the grid). The coarse solve integrates with
- * error control at its start, and takes its first Newton step from the equilibrium Jacobian
+ * grid (a fifth of the requested grid's points, at least 2; rtol 3e-4; cheap), whose outlet and
+ * Jacobian start the solve on the requested grid (ours: the Jacobian hardly depends on the grid).
+ * The coarse solve integrates with error control at its start, its replays refactorise the
+ * Newton matrix at every step, and it takes its first Newton step from the equilibrium Jacobian
  * (ours): each component's age integral taken as its uptake fraction I_i/q_eq,i at the start times
  * q_eq,i(c_out) of the direct IAST, so ∂G_i/∂v_k = −δ_ik·e^v_i − (D/c0_i)·(I_i/q_eq,i)·∂q_eq,i/∂v_k
  * (no particle integration); later steps use Broyden updates, or forward differences over the
- * replayed steps where those are slow. The particle runs
- * replay the steps of a run with error control taken with every component at its feed
- * concentration (the same steps for every dose, so the outlet is smooth in the dose), so the
- * residual is smooth in v; the last Newton step goes past the tolerance, so that the answer
- * hardly depends on the path of the iterations (ours): the step that the last one's fall
- * predicts to close the balance is final where it lands within a quarter of the tolerance
- * (CLOSING_FRACTION), else one more step follows once the balance closes (quadratic: far below
- * it). Trace targets are linear given the background: c_out,T = c0_T/(1 + D·Φ_T),
- * Φ_T = ∫q̄_T·E dt per unit c_out,T, one run at the solution: the run of that last Newton step,
- * which integrates every block (the trace targets too) on the same steps. A warm start from a solved dose is carried to this dose by predictOutlet, with a
- * second solved dose correcting the slope along the curve of solutions.
+ * replayed steps where those are slow. The particle runs replay the steps of a run with error
+ * control taken with every component at its feed concentration (the same steps for every dose,
+ * so the outlet is smooth in the dose), so the residual is smooth in v; the last Newton step goes
+ * past the tolerance, so that the answer hardly depends on the path of the iterations (ours): the
+ * step that the last one's fall predicts to close the balance is final where it lands within a
+ * quarter of the tolerance (CLOSING_FRACTION), else one more step follows once the balance closes
+ * (quadratic: far below it). Trace targets are linear given the background:
+ * c_out,T = c0_T/(1 + D·Φ_T), Φ_T = ∫q̄_T·E dt per unit c_out,T, one run at the solution: the run
+ * of that last Newton step, which integrates every block (the trace targets too) on the same
+ * steps. A warm start from a solved dose is carried to this dose by predictOutlet, with a second
+ * solved dose correcting the slope along the curve of solutions.
  * Carbon held in the reactor: D·θ/τ.
  *
  * The particle grid: `options.interiorPoints`, else 8 to 24 interior points from the shortest
@@ -132,11 +133,12 @@ export function stirredReactorFrom(pk: PreparedKinetics, doseGPerL: number, cont
   // matrix), so steps pinned at a dose-dependent start would make the outlet jump between doses
   // 1e-12 apart, and a dose search would land on such a jump
   const pinAt = new Float64Array(nB);
-  if (nB > 0 && interior > COARSE_POINTS && !J) {
+  const coarsePoints = Math.max(COARSE_POINTS, Math.round(interior / 5));
+  if (nB > 0 && interior > coarsePoints && !J) {
     try {
       // only a start: its steps pinned at the start itself, whose run is the first evaluation
-      const coarseBalance = new BalanceSolver(pk, doseGPerL, theta, COARSE_RTOL);
-      const coarse = coarseBalance.solve(sphereCollocation(COARSE_POINTS), v, undefined, COARSE_TOL, false, v, false, { pinAtStart: true, equilibriumStart: true });
+      const coarseBalance = new BalanceSolver(pk, doseGPerL, theta, COARSE_RTOL, true);
+      const coarse = coarseBalance.solve(sphereCollocation(coarsePoints), v, undefined, COARSE_TOL, false, v, false, { pinAtStart: true, equilibriumStart: true });
       balance.iterations += coarseBalance.iterations;
       balance.integrations += coarseBalance.integrations;
       v = coarse.v;
@@ -205,9 +207,11 @@ const PINNED_STEPS = new WeakMap<PreparedKinetics, Map<string, { times: number[]
 /** Dose that scales the particle's loadings in the reactor's runs, g/L (ours; 10 mg/L). */
 const SCALE_DOSE_G_PER_L = 0.01;
 
-/** Interior points of the coarse grid that starts the balance, its balance tolerance and its
- *  integration tolerance (ours: only a start; rtol 3e-4 takes ~25 % fewer steps than 1e-4, 1e-3
- *  left the requested grid's solve a worse start on the bench waters). */
+/** Interior points of the coarse grid that starts the balance (at least COARSE_POINTS, a fifth of
+ *  the requested grid's: the short-age grids of 20 and 24 points, whose young particles 2 points
+ *  describe poorly, then start 4 or 5, which saved the requested grid one to two runs on the bench
+ *  waters), its balance tolerance and its integration tolerance (ours: only a start; rtol 3e-4
+ *  takes ~25 % fewer steps than 1e-4, 1e-3 left the requested grid's solve a worse start). */
 const COARSE_POINTS = 2;
 const COARSE_TOL = 1e-4;
 const COARSE_RTOL = 3e-4;
@@ -241,7 +245,8 @@ class BalanceSolver {
    */
   private readonly replayTolerance: number;
 
-  constructor(private readonly pk: PreparedKinetics, private readonly dose: number, private readonly theta: number, private readonly rtol: number) {
+  /** `factorEveryStep`: replays refactorise at every step (the coarse start; see evaluate). */
+  constructor(private readonly pk: PreparedKinetics, private readonly dose: number, private readonly theta: number, private readonly rtol: number, private readonly factorEveryStep = false) {
     this.background = pk.coupled.map((i) => pk.components[i]!);
     this.pmB = this.background.length ? prepareMixture(this.background) : undefined;
     this.pkB = { ...pk, trace: [] };
@@ -285,10 +290,10 @@ class BalanceSolver {
       part = particleFor(mode === 'replay' ? this.pkB : pk);
       try {
         // the corrector is solved to replayTolerance of the pinned run's own error norm
-        // (bdfIntegrator); on the coarse grid, whose blocks factorise for about the cost of an
-        // iteration, with the Newton matrix refactorised at every step (ours: ~40 % less CPU there,
-        // ~30 % more on 8 points)
-        y = integrateBdf(logTimeSystem(part, this.tc), 0, part.initialState(), [this.sEnd], { stepTimes: this.steps.times, stepOrders: this.steps.orders, rtol: this.rtol, atol: this.rtol * 1e-3, replayTolerance: this.replayTolerance, replayFactorEveryStep: col.interiorPoints <= COARSE_POINTS }).states[0]!;
+        // (bdfIntegrator); on the coarse start's grid, whose blocks factorise for about the cost of
+        // an iteration, with the Newton matrix refactorised at every step (ours: ~40 % less CPU on
+        // 2 points, ~30 % more on the requested 8)
+        y = integrateBdf(logTimeSystem(part, this.tc), 0, part.initialState(), [this.sEnd], { stepTimes: this.steps.times, stepOrders: this.steps.orders, rtol: this.rtol, atol: this.rtol * 1e-3, replayTolerance: this.replayTolerance, replayFactorEveryStep: this.factorEveryStep }).states[0]!;
       } catch (e) {
         if (!(e instanceof ComputationError)) throw e; // the pinned steps do not suit v: this one runs with error control
       }

@@ -116,13 +116,18 @@ function changeDifferences(Dif: Float64Array[], k: number, rho: number, tmp: Flo
 /** Predictor y⁽⁰⁾ = Σ_(j≤k) ∇ʲy and ψ = Σ_(1≤j≤k) γ_j·∇ʲy/α_k. */
 function predict(Dif: Float64Array[], k: number, yPred: Float64Array, psi: Float64Array): void {
   const n = yPred.length;
-  yPred.set(Dif[0]!);
-  psi.fill(0);
   const inv = 1 / ALPHA_K[k]!;
-  for (let j = 1; j <= k; j++) {
-    const g = GAMMA_K[j]! * inv;
-    const dj = Dif[j]!;
-    for (let i = 0; i < n; i++) { const x = dj[i]!; yPred[i] = yPred[i]! + x; psi[i] = psi[i]! + g * x; }
+  const d0 = Dif[0]!, d1 = Dif[1]!, d2 = Dif[2]!, d3 = Dif[3]!, d4 = Dif[4]!, d5 = Dif[5]!;
+  const g1 = GAMMA_K[1]! * inv, g2 = GAMMA_K[2]! * inv, g3 = GAMMA_K[3]! * inv, g4 = GAMMA_K[4]! * inv, g5 = GAMMA_K[5]! * inv;
+  // element by element, the sums in the order of j (as one pass per difference would take them)
+  for (let i = 0; i < n; i++) {
+    let y = d0[i]!, p = 0;
+    let x = d1[i]!; y = y + x; p = p + g1 * x;
+    if (k >= 2) { x = d2[i]!; y = y + x; p = p + g2 * x; }
+    if (k >= 3) { x = d3[i]!; y = y + x; p = p + g3 * x; }
+    if (k >= 4) { x = d4[i]!; y = y + x; p = p + g4 * x; }
+    if (k >= 5) { x = d5[i]!; y = y + x; p = p + g5 * x; }
+    yPred[i] = y; psi[i] = p;
   }
 }
 
@@ -136,10 +141,19 @@ function scaleInto(out: Float64Array, a: Float64Array, c: number): void {
 function updateDifferences(Dif: Float64Array[], k: number, d: Float64Array): void {
   const n = d.length;
   const Dk2 = Dif[k + 2]!, Dk1 = Dif[k + 1]!;
-  for (let i = 0; i < n; i++) { Dk2[i] = d[i]! - Dk1[i]!; Dk1[i] = d[i]!; }
-  for (let j = k; j >= 0; j--) {
-    const a = Dif[j]!, b = Dif[j + 1]!;
-    for (let i = 0; i < n; i++) a[i] = a[i]! + b[i]!;
+  const d0 = Dif[0]!, d1 = Dif[1]!, d2 = Dif[2]!, d3 = Dif[3]!, d4 = Dif[4]!, d5 = Dif[5]!;
+  // element by element, ∇ʲ += ∇ʲ⁺¹ from j = k down (as one pass per difference would take them)
+  for (let i = 0; i < n; i++) {
+    const x = d[i]!;
+    Dk2[i] = x - Dk1[i]!;
+    Dk1[i] = x;
+    let up = x;
+    if (k >= 5) { up = d5[i]! + up; d5[i] = up; }
+    if (k >= 4) { up = d4[i]! + up; d4[i] = up; }
+    if (k >= 3) { up = d3[i]! + up; d3[i] = up; }
+    if (k >= 2) { up = d2[i]! + up; d2[i] = up; }
+    if (k >= 1) { up = d1[i]! + up; d1[i] = up; }
+    d0[i] = d0[i]! + up;
   }
 }
 

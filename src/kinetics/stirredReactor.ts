@@ -239,9 +239,11 @@ class BalanceSolver {
   private readonly sEnd: number;
   private steps: { times: number[]; orders: number[]; col: SphereCollocation } | undefined;
   /**
-   * Corrector tolerance of the replays, of the scaled norm (ours): its error relative to the
-   * loadings, this times rtol, stays at most 1e-9, a thousandth of the difference step of
-   * differenceJacobian, and 1e-4 at most 1e-3 (1e-3 at the default rtol 1e-6).
+   * Corrector tolerance of the replays, of the scaled norm (ours): 1e-9/rtol within [1e-4, 1e-3],
+   * so that where it is looser than bdfIntegrator's default 1e-4 the corrector's error relative
+   * to the loadings, this times rtol, stays at most 1e-9, a thousandth of the difference step of
+   * differenceJacobian (1e-3 at the default rtol 1e-6; the default from rtol 1e-5 up, the coarse
+   * start's 3e-4 included).
    */
   private readonly replayTolerance: number;
 

@@ -6,7 +6,8 @@
  * allocation, for the integrators' inner loops); `denseLu` wraps them. `luSolveBlocksAt` solves
  * several such blocks stored one after another. `luFactorLastRowAt` factorises a matrix whose rows
  * but the last are those of one already factorised, by eliminating only its last row (ours: the
- * same arithmetic as luFactorAt, element by element, where the pivots allow it).
+ * same arithmetic as luFactorAt, element by element, where the pivots allow it), and
+ * `luSolveSharedBlocksAt` solves blocks that share those rows.
  */
 import { ComputationError } from '../core/errors.js';
 
@@ -175,6 +176,73 @@ export function luSolveBlocksAt(a: Float64Array, off: number, n: number, piv: In
         s3 -= a[a3 + r + j]! * b[b3 + j]!;
       }
       b[b0 + i] = s0 / a[a0 + r + i]!; b[b1 + i] = s1 / a[a1 + r + i]!; b[b2 + i] = s2 / a[a2 + r + i]!; b[b3 + i] = s3 / a[a3 + r + i]!;
+    }
+  }
+  for (; q < count; q++) luSolveAt(a, off + q * nn, n, piv, pOff + q * n, b, bOff + q * n);
+}
+
+/**
+ * luSolveBlocksAt for blocks whose factorisations share every row but the last with the first
+ * block (its rows 0 … n − 2 and pivots; luFactorLastRowAt): each block gets exactly the arithmetic
+ * of luSolveAt, in the same order, the shared rows' coefficients read once from the first block
+ * for four blocks at a time.
+ */
+export function luSolveSharedBlocksAt(a: Float64Array, off: number, n: number, piv: Int32Array, pOff: number, b: Float64Array, bOff: number, count: number): void {
+  const nn = n * n;
+  const last = n - 1;
+  let q = 0;
+  for (; q + 3 < count; q += 4) {
+    for (let u = q; u < q + 4; u++) {
+      const bo = bOff + u * n;
+      for (let k = 0; k < n; k++) {
+        const p = piv[pOff + k]!;
+        if (p !== k) {
+          const t = b[bo + k]!;
+          b[bo + k] = b[bo + p]!;
+          b[bo + p] = t;
+        }
+      }
+    }
+    const b0 = bOff + q * n, b1 = b0 + n, b2 = b1 + n, b3 = b2 + n;
+    const a0 = off + q * nn, a1 = a0 + nn, a2 = a1 + nn, a3 = a2 + nn;
+    for (let i = 1; i < last; i++) {
+      let s0 = b[b0 + i]!, s1 = b[b1 + i]!, s2 = b[b2 + i]!, s3 = b[b3 + i]!;
+      const r = off + i * n;
+      for (let j = 0; j < i; j++) {
+        const c = a[r + j]!;
+        s0 -= c * b[b0 + j]!;
+        s1 -= c * b[b1 + j]!;
+        s2 -= c * b[b2 + j]!;
+        s3 -= c * b[b3 + j]!;
+      }
+      b[b0 + i] = s0; b[b1 + i] = s1; b[b2 + i] = s2; b[b3 + i] = s3;
+    }
+    if (last > 0) {
+      let s0 = b[b0 + last]!, s1 = b[b1 + last]!, s2 = b[b2 + last]!, s3 = b[b3 + last]!;
+      const r = last * n;
+      for (let j = 0; j < last; j++) {
+        s0 -= a[a0 + r + j]! * b[b0 + j]!;
+        s1 -= a[a1 + r + j]! * b[b1 + j]!;
+        s2 -= a[a2 + r + j]! * b[b2 + j]!;
+        s3 -= a[a3 + r + j]! * b[b3 + j]!;
+      }
+      const d = last * n + last;
+      b[b0 + last] = s0 / a[a0 + d]!; b[b1 + last] = s1 / a[a1 + d]!; b[b2 + last] = s2 / a[a2 + d]!; b[b3 + last] = s3 / a[a3 + d]!;
+    } else {
+      b[b0] = b[b0]! / a[a0]!; b[b1] = b[b1]! / a[a1]!; b[b2] = b[b2]! / a[a2]!; b[b3] = b[b3]! / a[a3]!;
+    }
+    for (let i = last - 1; i >= 0; i--) {
+      let s0 = b[b0 + i]!, s1 = b[b1 + i]!, s2 = b[b2 + i]!, s3 = b[b3 + i]!;
+      const r = off + i * n;
+      for (let j = i + 1; j < n; j++) {
+        const c = a[r + j]!;
+        s0 -= c * b[b0 + j]!;
+        s1 -= c * b[b1 + j]!;
+        s2 -= c * b[b2 + j]!;
+        s3 -= c * b[b3 + j]!;
+      }
+      const d = a[r + i]!;
+      b[b0 + i] = s0 / d; b[b1 + i] = s1 / d; b[b2 + i] = s2 / d; b[b3 + i] = s3 / d;
     }
   }
   for (; q < count; q++) luSolveAt(a, off + q * nn, n, piv, pOff + q * n, b, bOff + q * n);

@@ -28,7 +28,7 @@ import type { StiffSystem, NewtonSolve } from './implicitIntegrator.js';
 import type { SphereCollocation } from './sphereCollocation.js';
 import type { PreparedKinetics } from './kineticMixture.js';
 import { reverseIast, traceKappa, traceSurfaceFactor, type ReverseIastState, type SurfaceIsotherms } from './reverseIast.js';
-import { luFactorAt, luFactorLastRowAt, luSolveAt, luSolveBlocksAt } from './denseLu.js';
+import { luFactorAt, luFactorLastRowAt, luSolveAt, luSolveBlocksAt, luSolveSharedBlocksAt } from './denseLu.js';
 
 export type LiquidSpec =
   | { kind: 'batch' }
@@ -105,7 +105,9 @@ export function hsdmParticleSystem(pk: PreparedKinetics, doseGPerL: number, col:
   const lu = new Float64Array(nBlocks * MM);
   const piv = new Int32Array(nBlocks * M);
   const upperBest = new Float64Array(nBlocks * M);
-  const shareable = new Uint8Array(nBlocks);
+  // shareable[b]: block b's diffusion rows may serve later blocks; shareable[nBlocks]: every
+  // coupled block shares the first one's (luSolveSharedBlocksAt)
+  const shareable = new Uint8Array(nBlocks + 1);
   const unitCols = new Float64Array(nB * M);
   const coupling = new Float64Array(nB * nB);
   const small = new Float64Array(nB * nB);
@@ -117,7 +119,7 @@ export function hsdmParticleSystem(pk: PreparedKinetics, doseGPerL: number, col:
   let eCur = 0;
 
   const solve: NewtonSolve = (x: Float64Array) => {
-    hsdmSolve(x, gCur * eCur, lu, piv, small, smallPiv, coupling, unitCols, traceCross, zBuf, czBuf, w, M, nB, nBlocks, fixed);
+    hsdmSolve(x, gCur * eCur, lu, piv, shareable[nBlocks] === 1, small, smallPiv, coupling, unitCols, traceCross, zBuf, czBuf, w, M, nB, nBlocks, fixed);
   };
 
   const factor = (t: number, y: Float64Array, g: number): NewtonSolve => {
@@ -220,7 +222,8 @@ function hsdmRhs(y: Float64Array, dy: Float64Array, E: number, iso: SurfaceIsoth
  * (`traceCross`, from ∂κ_T/∂q into `dKappa`). Blocks differ only in their surface row where
  * their Ds is the same (the diffusion rows are I − g·(Ds/R²)·B): such a block takes the
  * factorised diffusion rows of the first block with its Ds and eliminates only its surface row
- * (luFactorLastRowAt, bit for bit luFactorAt's factorisation; `upperBest`, `shareable` per block).
+ * (luFactorLastRowAt, bit for bit luFactorAt's factorisation; `upperBest`, `shareable` per block);
+ * where every coupled block shares the first one's, hsdmSolve reads them once (luSolveSharedBlocksAt).
  * @throws ComputationError when a block is singular or not finite
  */
 function hsdmFactor(y: Float64Array, g: number, iso: SurfaceIsotherms, qs: Float64Array, cs: Float64Array, surf: ReverseIastState, jrev: Float64Array, dKappa: Float64Array, lu: Float64Array, piv: Int32Array, upperBest: Float64Array, shareable: Uint8Array, small: Float64Array, smallPiv: Int32Array, coupling: Float64Array, unitCols: Float64Array, traceCross: Float64Array, scale: Float64Array, a: Float64Array, phi: Float64Array, traceK: Float64Array, traceBeta: Float64Array, B: Float64Array, w: Float64Array, wB: Float64Array, M: number, nB: number, nBlocks: number, liquidDoseGPerL: number): void {
@@ -229,6 +232,7 @@ function hsdmFactor(y: Float64Array, g: number, iso: SurfaceIsotherms, qs: Float
   const wN = w[N]!;
   for (let b = 0; b < nB; b++) qs[b] = y[b * M + N]! * scale[b]!;
   reverseIast(iso, qs, cs, jrev, surf);
+  let coupledShared = nB > 1;
   for (let b = 0; b < nBlocks; b++) {
     const off = b * MM;
     const liq = phi[b]! * liquidDoseGPerL;
@@ -257,6 +261,7 @@ function hsdmFactor(y: Float64Array, g: number, iso: SurfaceIsotherms, qs: Float
       factored = luFactorLastRowAt(lu, off, M, piv, b * M, upperBest, src * M, 'HSDM Newton matrix');
     }
     shareable[b] = 0;
+    if (b > 0 && b < nB && !(factored && src === 0)) coupledShared = false;
     if (!factored) {
       fillOwnBlock(lu, off, g, a[b]!, liq, B, w, wB, M, 0);
       lu[off + N * M + N] = lu[off + N * M + N]! + own;
@@ -266,10 +271,12 @@ function hsdmFactor(y: Float64Array, g: number, iso: SurfaceIsotherms, qs: Float
       shareable[b] = lastRowPivot ? 0 : 1;
     }
   }
+  shareable[nBlocks] = coupledShared ? 1 : 0;
   if (nB > 1) {
     unitCols.fill(0);
     for (let p = 0; p < nB; p++) unitCols[p * M + N] = 1;
-    luSolveBlocksAt(lu, 0, M, piv, 0, unitCols, 0, nB);
+    if (coupledShared) luSolveSharedBlocksAt(lu, 0, M, piv, 0, unitCols, 0, nB);
+    else luSolveBlocksAt(lu, 0, M, piv, 0, unitCols, 0, nB);
     for (let p = 0; p < nB; p++) {
       for (let k = 0; k < nB; k++) small[p * nB + k] = (p === k ? 1 : 0) + unitCols[p * M + N]! * coupling[p * nB + k]!;
     }
@@ -298,10 +305,11 @@ function fillOwnBlock(mat: Float64Array, off: number, g: number, ab: number, liq
  * (A⁻¹b, then the surface values through the small system and the correction −A⁻¹U·(C·z)), then
  * each trace block with its background surface terms, then (fixed liquid, gE = g·E) the age rows.
  */
-function hsdmSolve(x: Float64Array, gE: number, lu: Float64Array, piv: Int32Array, small: Float64Array, smallPiv: Int32Array, coupling: Float64Array, unitCols: Float64Array, traceCross: Float64Array, zBuf: Float64Array, czBuf: Float64Array, w: Float64Array, M: number, nB: number, nBlocks: number, fixed: boolean): void {
+function hsdmSolve(x: Float64Array, gE: number, lu: Float64Array, piv: Int32Array, coupledShared: boolean, small: Float64Array, smallPiv: Int32Array, coupling: Float64Array, unitCols: Float64Array, traceCross: Float64Array, zBuf: Float64Array, czBuf: Float64Array, w: Float64Array, M: number, nB: number, nBlocks: number, fixed: boolean): void {
   const N = M - 1;
   const MM = M * M;
-  luSolveBlocksAt(lu, 0, M, piv, 0, x, 0, nB);
+  if (coupledShared) luSolveSharedBlocksAt(lu, 0, M, piv, 0, x, 0, nB);
+  else luSolveBlocksAt(lu, 0, M, piv, 0, x, 0, nB);
   if (nB > 1) {
     for (let p = 0; p < nB; p++) zBuf[p] = x[p * M + N]!;
     luSolveAt(small, 0, nB, smallPiv, 0, zBuf, 0);

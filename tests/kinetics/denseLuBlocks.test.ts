@@ -4,12 +4,13 @@
  * together, four at a time) gives exactly the numbers of luSolveAt block by block (the same
  * arithmetic in the same order), with row exchanges and at the offsets the HSDM particle system
  * uses; luFactorLastRowAt (a matrix whose rows but the last are those of one factorised before)
- * gives exactly luFactorAt's numbers where it accepts; and the reverse IAST with ln(β/K) kept by
+ * gives exactly luFactorAt's numbers where it accepts, and luSolveSharedBlocksAt solves such
+ * blocks with exactly luSolveAt's numbers; and the reverse IAST with ln(β/K) kept by
  * the caller gives exactly the numbers computed without it.
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { luFactorAt, luFactorLastRowAt, luSolveAt, luSolveBlocksAt } from '../../src/kinetics/denseLu.js';
+import { luFactorAt, luFactorLastRowAt, luSolveAt, luSolveBlocksAt, luSolveSharedBlocksAt } from '../../src/kinetics/denseLu.js';
 import { reverseIast } from '../../src/kinetics/reverseIast.js';
 
 /** Gaussian elimination with partial pivoting, one row at a time (Golub & Van Loan 2013, §3.4): the reference. */
@@ -99,6 +100,46 @@ describe('luFactorLastRowAt', () => {
     ), { numRuns: 400 });
     expect(accepted).toBeGreaterThan(20);
     expect(refused).toBeGreaterThan(20);
+  });
+});
+
+describe('luSolveSharedBlocksAt', () => {
+  it('equals luSolveAt on every block, bit for bit (1 to 9 blocks of order 1 to 12 sharing all rows but the last, at offsets)', () => {
+    let compared = 0;
+    fc.assert(fc.property(
+      fc.integer({ min: 1, max: 12 }), fc.integer({ min: 1, max: 9 }), fc.integer({ min: 0, max: 3 }), fc.integer({ min: 1, max: 2147483646 }),
+      (n, count, lead, seed) => {
+        let s = seed;
+        const rnd = () => { s = (s * 16807) % 2147483647; return s / 2147483647 - 0.5; };
+        const nn = n * n, last = n - 1;
+        const off = lead * nn, pOff = lead * n, bOff = lead * n;
+        const a = new Float64Array(off + count * nn);
+        const piv = new Int32Array(pOff + count * n);
+        const upperBest = new Float64Array(count * n);
+        // a first block whose last row is never a pivot (a small last row), the others its rows
+        // but the last with last rows of their own, factorised by luFactorLastRowAt
+        for (let i = 0; i < nn; i++) a[off + i] = i >= last * n ? 1e-3 * rnd() : rnd();
+        if (n > 1) a[off + last * n + last] = 1;
+        luFactorAt(a, off, n, piv, pOff, 'test', upperBest, 0);
+        if (Array.from(piv.subarray(pOff, pOff + last)).includes(last)) return;
+        for (let q = 1; q < count; q++) {
+          const o = off + q * nn;
+          a.copyWithin(o, off, off + last * n);
+          piv.copyWithin(pOff + q * n, pOff, pOff + last);
+          for (let j = 0; j < n; j++) a[o + last * n + j] = 1e-3 * rnd();
+          a[o + last * n + last] = 1 + rnd();
+          if (!luFactorLastRowAt(a, o, n, piv, pOff + q * n, upperBest, 0, 'test')) return;
+        }
+        const b = Float64Array.from({ length: bOff + count * n + 2 }, rnd);
+        const one = Float64Array.from(b);
+        for (let q = 0; q < count; q++) luSolveAt(a, off + q * nn, n, piv, pOff + q * n, one, bOff + q * n);
+        const all = Float64Array.from(b);
+        luSolveSharedBlocksAt(a, off, n, piv, pOff, all, bOff, count);
+        for (let i = 0; i < b.length; i++) expect(Object.is(all[i], one[i])).toBe(true);
+        compared++;
+      },
+    ), { numRuns: 300 });
+    expect(compared).toBeGreaterThan(200);
   });
 });
 

@@ -19,8 +19,11 @@
  * time is stepped onto exactly.
  *
  * Replay (`stepTimes` with `stepOrders` of an earlier run, stretched to end at the last output
- * time when they end elsewhere): the same steps and orders without error control, each corrector solved to 1e-4 of the scaled norm, so that the results are smooth
- * functions of the model's parameters (for difference quotients). A Newton failure then throws.
+ * time when they end elsewhere): the same steps and orders without error control, each corrector
+ * solved to `replayTolerance` (default 1e-4) of the scaled norm, so that the results are smooth
+ * functions of the model's parameters (for difference quotients); the Newton matrix is
+ * refactorised where the step changes, or at every step with `replayFactorEveryStep` (a choice
+ * that does not depend on the model, so the results stay smooth). A Newton failure then throws.
  *
  * The model owns its Jacobian through `StiffSystem.factor(t, y, c)` (a solver for (I − c·J)x = b).
  *
@@ -36,6 +39,18 @@ export interface BdfOptions extends IntegratorOptions {
   stepOrders?: readonly number[];
   /** Highest order (1–5, default 5). */
   maxOrder?: number;
+  /**
+   * A replay's corrector tolerance, relative to the scaled norm (default 1e-4). The corrector's
+   * error relative to y stays below it times rtol, which is what a difference quotient over a
+   * replay resolves.
+   */
+  replayTolerance?: number;
+  /**
+   * Refactorise the Newton matrix (with the Jacobian at the predictor) at every replayed step,
+   * not only where the step changes: fewer corrector iterations, for systems whose factorisation
+   * costs about what an iteration does (default false).
+   */
+  replayFactorEveryStep?: boolean;
 }
 
 export interface BdfResult {
@@ -101,13 +116,18 @@ function changeDifferences(Dif: Float64Array[], k: number, rho: number, tmp: Flo
 /** Predictor y⁽⁰⁾ = Σ_(j≤k) ∇ʲy and ψ = Σ_(1≤j≤k) γ_j·∇ʲy/α_k. */
 function predict(Dif: Float64Array[], k: number, yPred: Float64Array, psi: Float64Array): void {
   const n = yPred.length;
-  yPred.set(Dif[0]!);
-  psi.fill(0);
   const inv = 1 / ALPHA_K[k]!;
-  for (let j = 1; j <= k; j++) {
-    const g = GAMMA_K[j]! * inv;
-    const dj = Dif[j]!;
-    for (let i = 0; i < n; i++) { const x = dj[i]!; yPred[i] = yPred[i]! + x; psi[i] = psi[i]! + g * x; }
+  const d0 = Dif[0]!, d1 = Dif[1]!, d2 = Dif[2]!, d3 = Dif[3]!, d4 = Dif[4]!, d5 = Dif[5]!;
+  const g1 = GAMMA_K[1]! * inv, g2 = GAMMA_K[2]! * inv, g3 = GAMMA_K[3]! * inv, g4 = GAMMA_K[4]! * inv, g5 = GAMMA_K[5]! * inv;
+  // element by element, the sums in the order of j (as one pass per difference would take them)
+  for (let i = 0; i < n; i++) {
+    let y = d0[i]!, p = 0;
+    let x = d1[i]!; y = y + x; p = p + g1 * x;
+    if (k >= 2) { x = d2[i]!; y = y + x; p = p + g2 * x; }
+    if (k >= 3) { x = d3[i]!; y = y + x; p = p + g3 * x; }
+    if (k >= 4) { x = d4[i]!; y = y + x; p = p + g4 * x; }
+    if (k >= 5) { x = d5[i]!; y = y + x; p = p + g5 * x; }
+    yPred[i] = y; psi[i] = p;
   }
 }
 
@@ -121,10 +141,19 @@ function scaleInto(out: Float64Array, a: Float64Array, c: number): void {
 function updateDifferences(Dif: Float64Array[], k: number, d: Float64Array): void {
   const n = d.length;
   const Dk2 = Dif[k + 2]!, Dk1 = Dif[k + 1]!;
-  for (let i = 0; i < n; i++) { Dk2[i] = d[i]! - Dk1[i]!; Dk1[i] = d[i]!; }
-  for (let j = k; j >= 0; j--) {
-    const a = Dif[j]!, b = Dif[j + 1]!;
-    for (let i = 0; i < n; i++) a[i] = a[i]! + b[i]!;
+  const d0 = Dif[0]!, d1 = Dif[1]!, d2 = Dif[2]!, d3 = Dif[3]!, d4 = Dif[4]!, d5 = Dif[5]!;
+  // element by element, ∇ʲ += ∇ʲ⁺¹ from j = k down (as one pass per difference would take them)
+  for (let i = 0; i < n; i++) {
+    const x = d[i]!;
+    Dk2[i] = x - Dk1[i]!;
+    Dk1[i] = x;
+    let up = x;
+    if (k >= 5) { up = d5[i]! + up; d5[i] = up; }
+    if (k >= 4) { up = d4[i]! + up; d4[i] = up; }
+    if (k >= 3) { up = d3[i]! + up; d3[i] = up; }
+    if (k >= 2) { up = d2[i]! + up; d2[i] = up; }
+    if (k >= 1) { up = d1[i]! + up; d1[i] = up; }
+    d0[i] = d0[i]! + up;
   }
 }
 
@@ -252,9 +281,10 @@ export function integrateBdf(system: StiffSystem, t0: number, y0: Float64Array, 
   let solve: NewtonSolve | undefined;
   let solveC = 0;
   let jacFresh = false;
-  // a replay solves each corrector to 1e-4 of the scaled norm (1e-10 relative at the default
-  // rtol), far below what difference quotients resolve; otherwise Shampine & Reichelt's test
-  const newtonTol = replay ? 1e-4 : Math.max((10 * Number.EPSILON) / rtol, Math.min(0.03, Math.sqrt(rtol)));
+  // a replay solves each corrector to replayTolerance (1e-4) of the scaled norm (1e-10 relative
+  // at the default rtol), far below what difference quotients resolve; otherwise Shampine &
+  // Reichelt's test
+  const newtonTol = replay ? options.replayTolerance ?? 1e-4 : Math.max((10 * Number.EPSILON) / rtol, Math.min(0.03, Math.sqrt(rtol)));
   const maxIter = replay ? 12 : NEWTON_MAXITER;
 
   /** Simplified Newton for d; returns the iterations used, or 0 on failure. The first
@@ -328,11 +358,13 @@ export function integrateBdf(system: StiffSystem, t0: number, y0: Float64Array, 
     setWeights(yPred);
     const c = h / ALPHA_K[order]!;
     let iters = 0;
+    let refactor = !!replay && options.replayFactorEveryStep === true;
     for (;;) {
       // the Newton matrix of a nearby c is kept (within 30 %, as in variable-coefficient codes):
       // simplified Newton still converges, and the rate test catches it when it does not; a
       // replay, whose corrector is solved tightly, refactorises whenever the step changes
-      if (!solve || Math.abs(c / solveC - 1) > (replay ? 1e-9 : 0.3)) {
+      if (!solve || refactor || Math.abs(c / solveC - 1) > (replay ? 1e-9 : 0.3)) {
+        refactor = false;
         stats.factorizations++;
         try { solve = system.factor(tNew, yPred, c); } catch (e) {
           if (!(e instanceof ComputationError) || replay) throw e;

@@ -28,7 +28,7 @@ import type { StiffSystem, NewtonSolve } from './implicitIntegrator.js';
 import type { SphereCollocation } from './sphereCollocation.js';
 import type { PreparedKinetics } from './kineticMixture.js';
 import { reverseIast, traceKappa, traceSurfaceFactor, type ReverseIastState, type SurfaceIsotherms } from './reverseIast.js';
-import { luFactorAt, luSolveAt, luSolveBlocksAt } from './denseLu.js';
+import { luFactorAt, luFactorLastRowAt, luSolveAt, luSolveBlocksAt, luSolveSharedBlocksAt } from './denseLu.js';
 
 export type LiquidSpec =
   | { kind: 'batch' }
@@ -104,6 +104,10 @@ export function hsdmParticleSystem(pk: PreparedKinetics, doseGPerL: number, col:
   // system (I + diag(S)·C)·z = Vᵀ·A⁻¹b with S_p = (A_p⁻¹)_NN; then x = A⁻¹b − A⁻¹U·(C·z).
   const lu = new Float64Array(nBlocks * MM);
   const piv = new Int32Array(nBlocks * M);
+  const upperBest = new Float64Array(nBlocks * M);
+  // shareable[b]: block b's diffusion rows may serve later blocks; shareable[nBlocks]: every
+  // coupled block shares the first one's (luSolveSharedBlocksAt)
+  const shareable = new Uint8Array(nBlocks + 1);
   const unitCols = new Float64Array(nB * M);
   const coupling = new Float64Array(nB * nB);
   const small = new Float64Array(nB * nB);
@@ -115,13 +119,13 @@ export function hsdmParticleSystem(pk: PreparedKinetics, doseGPerL: number, col:
   let eCur = 0;
 
   const solve: NewtonSolve = (x: Float64Array) => {
-    hsdmSolve(x, gCur * eCur, lu, piv, small, smallPiv, coupling, unitCols, traceCross, zBuf, czBuf, w, M, nB, nBlocks, fixed);
+    hsdmSolve(x, gCur * eCur, lu, piv, shareable[nBlocks] === 1, small, smallPiv, coupling, unitCols, traceCross, zBuf, czBuf, w, M, nB, nBlocks, fixed);
   };
 
   const factor = (t: number, y: Float64Array, g: number): NewtonSolve => {
     gCur = g;
     eCur = fixed ? Math.exp(-t / theta) / theta : 0;
-    hsdmFactor(y, g, iso, qs, cs, surf, jrev, dKappa, lu, piv, small, smallPiv, coupling, unitCols, traceCross, scale, a, phi, traceK, traceBeta, B, w, wB, M, nB, nBlocks, fixed ? 0 : dose);
+    hsdmFactor(y, g, iso, qs, cs, surf, jrev, dKappa, lu, piv, upperBest, shareable, small, smallPiv, coupling, unitCols, traceCross, scale, a, phi, traceK, traceBeta, B, w, wB, M, nB, nBlocks, fixed ? 0 : dose);
     return solve;
   };
 
@@ -215,37 +219,64 @@ function hsdmRhs(y: Float64Array, dy: Float64Array, E: number, iso: SurfaceIsoth
  * term) LU-factorised in `lu`/`piv`; the coupled blocks' surface coupling through the reverse-IAST
  * Jacobian `jrev` (`coupling`, the columns A_p⁻¹·e_N in `unitCols`, and the small surface system
  * in `small`/`smallPiv`); each trace block's dependence on the background's surface nodes
- * (`traceCross`, from ∂κ_T/∂q into `dKappa`).
+ * (`traceCross`, from ∂κ_T/∂q into `dKappa`). Blocks differ only in their surface row where
+ * their Ds is the same (the diffusion rows are I − g·(Ds/R²)·B): such a block takes the
+ * factorised diffusion rows of the first block with its Ds and eliminates only its surface row
+ * (luFactorLastRowAt, bit for bit luFactorAt's factorisation; `upperBest`, `shareable` per block);
+ * where every coupled block shares the first one's, hsdmSolve reads them once (luSolveSharedBlocksAt).
  * @throws ComputationError when a block is singular or not finite
  */
-function hsdmFactor(y: Float64Array, g: number, iso: SurfaceIsotherms, qs: Float64Array, cs: Float64Array, surf: ReverseIastState, jrev: Float64Array, dKappa: Float64Array, lu: Float64Array, piv: Int32Array, small: Float64Array, smallPiv: Int32Array, coupling: Float64Array, unitCols: Float64Array, traceCross: Float64Array, scale: Float64Array, a: Float64Array, phi: Float64Array, traceK: Float64Array, traceBeta: Float64Array, B: Float64Array, w: Float64Array, wB: Float64Array, M: number, nB: number, nBlocks: number, liquidDoseGPerL: number): void {
+function hsdmFactor(y: Float64Array, g: number, iso: SurfaceIsotherms, qs: Float64Array, cs: Float64Array, surf: ReverseIastState, jrev: Float64Array, dKappa: Float64Array, lu: Float64Array, piv: Int32Array, upperBest: Float64Array, shareable: Uint8Array, small: Float64Array, smallPiv: Int32Array, coupling: Float64Array, unitCols: Float64Array, traceCross: Float64Array, scale: Float64Array, a: Float64Array, phi: Float64Array, traceK: Float64Array, traceBeta: Float64Array, B: Float64Array, w: Float64Array, wB: Float64Array, M: number, nB: number, nBlocks: number, liquidDoseGPerL: number): void {
   const N = M - 1;
   const MM = M * M;
   const wN = w[N]!;
   for (let b = 0; b < nB; b++) qs[b] = y[b * M + N]! * scale[b]!;
   reverseIast(iso, qs, cs, jrev, surf);
+  let coupledShared = nB > 1;
   for (let b = 0; b < nBlocks; b++) {
     const off = b * MM;
-    fillOwnBlock(lu, off, g, a[b]!, phi[b]! * liquidDoseGPerL, B, w, wB, M);
+    const liq = phi[b]! * liquidDoseGPerL;
+    let own: number; // the own surface term of the surface row's diagonal
     if (b < nB) {
-      lu[off + N * M + N] = lu[off + N * M + N]! + g * phi[b]! * jrev[b * nB + b]! / wN; // own surface term
+      own = g * phi[b]! * jrev[b * nB + b]! / wN;
       for (let k = 0; k < nB; k++) {
         coupling[b * nB + k] = k === b ? 0 : g * phi[b]! * jrev[b * nB + k]! / wN * scale[k]! / scale[b]!;
       }
     } else {
       const kappa = traceSurfaceFactor(traceK[b]!, traceBeta[b]!, surf, iso.beta, dKappa);
-      lu[off + N * M + N] = lu[off + N * M + N]! + g * phi[b]! * kappa / wN;
+      own = g * phi[b]! * kappa / wN;
       const qT = Math.max(y[b * M + N]! * scale[b]!, 0);
       // g·J_y[(b,N),(k,N)] for the background surface nodes k
       const cOff = (b - nB) * nB;
       for (let k = 0; k < nB; k++) traceCross[cOff + k] = g * (-phi[b]! * qT * dKappa[k]! / wN) * scale[k]! / scale[b]!;
     }
-    luFactorAt(lu, off, M, piv, b * M, 'HSDM Newton matrix');
+    let src = -1;
+    for (let e = 0; e < b && src < 0; e++) if (shareable[e] === 1 && a[e] === a[b]) src = e;
+    let factored = false;
+    if (src >= 0) {
+      lu.copyWithin(off, src * MM, src * MM + N * M);
+      piv.copyWithin(b * M, src * M, src * M + N);
+      fillOwnBlock(lu, off, g, a[b]!, liq, B, w, wB, M, N);
+      lu[off + N * M + N] = lu[off + N * M + N]! + own;
+      factored = luFactorLastRowAt(lu, off, M, piv, b * M, upperBest, src * M, 'HSDM Newton matrix');
+    }
+    shareable[b] = 0;
+    if (b > 0 && b < nB && !(factored && src === 0)) coupledShared = false;
+    if (!factored) {
+      fillOwnBlock(lu, off, g, a[b]!, liq, B, w, wB, M, 0);
+      lu[off + N * M + N] = lu[off + N * M + N]! + own;
+      luFactorAt(lu, off, M, piv, b * M, 'HSDM Newton matrix', upperBest, b * M);
+      let lastRowPivot = false;
+      for (let k = 0; k < N; k++) if (piv[b * M + k] === N) lastRowPivot = true;
+      shareable[b] = lastRowPivot ? 0 : 1;
+    }
   }
+  shareable[nBlocks] = coupledShared ? 1 : 0;
   if (nB > 1) {
     unitCols.fill(0);
     for (let p = 0; p < nB; p++) unitCols[p * M + N] = 1;
-    luSolveBlocksAt(lu, 0, M, piv, 0, unitCols, 0, nB);
+    if (coupledShared) luSolveSharedBlocksAt(lu, 0, M, piv, 0, unitCols, 0, nB);
+    else luSolveBlocksAt(lu, 0, M, piv, 0, unitCols, 0, nB);
     for (let p = 0; p < nB; p++) {
       for (let k = 0; k < nB; k++) small[p * nB + k] = (p === k ? 1 : 0) + unitCols[p * M + N]! * coupling[p * nB + k]!;
     }
@@ -254,13 +285,14 @@ function hsdmFactor(y: Float64Array, g: number, iso: SurfaceIsotherms, qs: Float
 }
 
 /**
- * I − g·J for one block's own rows into mat[off …]: diffusion (a = Ds/R²) and, through
- * `liq` = φ·D (0 for a fixed liquid), the batch liquid's dependence on q̄ in the surface row.
+ * I − g·J for one block's own rows from row `fromRow` on into mat[off …]: diffusion (a = Ds/R²)
+ * and, through `liq` = φ·D (0 for a fixed liquid), the batch liquid's dependence on q̄ in the
+ * surface row.
  */
-function fillOwnBlock(mat: Float64Array, off: number, g: number, ab: number, liq: number, B: Float64Array, w: Float64Array, wB: Float64Array, M: number): void {
+function fillOwnBlock(mat: Float64Array, off: number, g: number, ab: number, liq: number, B: Float64Array, w: Float64Array, wB: Float64Array, M: number, fromRow: number): void {
   const N = M - 1;
   const wN = w[N]!;
-  for (let j = 0; j < M; j++) {
+  for (let j = fromRow; j < M; j++) {
     for (let l = 0; l < M; l++) {
       const jq = j < N ? ab * B[j * M + l]! : (-liq * w[l]! - ab * wB[l]!) / wN;
       mat[off + j * M + l] = (j === l ? 1 : 0) - g * jq;
@@ -273,10 +305,11 @@ function fillOwnBlock(mat: Float64Array, off: number, g: number, ab: number, liq
  * (A⁻¹b, then the surface values through the small system and the correction −A⁻¹U·(C·z)), then
  * each trace block with its background surface terms, then (fixed liquid, gE = g·E) the age rows.
  */
-function hsdmSolve(x: Float64Array, gE: number, lu: Float64Array, piv: Int32Array, small: Float64Array, smallPiv: Int32Array, coupling: Float64Array, unitCols: Float64Array, traceCross: Float64Array, zBuf: Float64Array, czBuf: Float64Array, w: Float64Array, M: number, nB: number, nBlocks: number, fixed: boolean): void {
+function hsdmSolve(x: Float64Array, gE: number, lu: Float64Array, piv: Int32Array, coupledShared: boolean, small: Float64Array, smallPiv: Int32Array, coupling: Float64Array, unitCols: Float64Array, traceCross: Float64Array, zBuf: Float64Array, czBuf: Float64Array, w: Float64Array, M: number, nB: number, nBlocks: number, fixed: boolean): void {
   const N = M - 1;
   const MM = M * M;
-  luSolveBlocksAt(lu, 0, M, piv, 0, x, 0, nB);
+  if (coupledShared) luSolveSharedBlocksAt(lu, 0, M, piv, 0, x, 0, nB);
+  else luSolveBlocksAt(lu, 0, M, piv, 0, x, 0, nB);
   if (nB > 1) {
     for (let p = 0; p < nB; p++) zBuf[p] = x[p * M + N]!;
     luSolveAt(small, 0, nB, smallPiv, 0, zBuf, 0);

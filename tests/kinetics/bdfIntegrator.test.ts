@@ -141,6 +141,29 @@ describe('replay', () => {
     expect(Math.abs(dq / (-3 * Math.exp(-3)) - 1)).toBeLessThan(1e-4);
   });
 
+  it('replayTolerance loosens the replayed corrector (y\' = −y², y = 1/(1 + t)): within 1e-8 of the default replay (the closed form within 1e-5, the integration error at rtol 1e-6)', () => {
+    const square = denseSystem(1, (_t, y, f) => { f[0] = -y[0]! * y[0]!; }, (_t, y, J) => { J[0] = -2 * y[0]!; });
+    const r = integrateBdf(square, 0, Float64Array.of(1), [1, 10], { rtol: 1e-6, atol: 1e-12 });
+    const replay = (replayTolerance?: number) => integrateBdf(square, 0, Float64Array.of(1), [1, 10], { stepTimes: r.stepTimes, stepOrders: r.stepOrders, rtol: 1e-6, atol: 1e-12, ...(replayTolerance ? { replayTolerance } : {}) });
+    const tight = replay(), loose = replay(1e-3);
+    expect(loose.stats.newtonIterations).toBeLessThanOrEqual(tight.stats.newtonIterations);
+    loose.states.forEach((s, k) => {
+      expect(Math.abs(s[0]! - tight.states[k]![0]!)).toBeLessThan(1e-8);
+      expect(Math.abs(s[0]! - 1 / (1 + loose.times[k]!))).toBeLessThan(1e-5);
+    });
+  });
+
+  it('replayFactorEveryStep refactorises at every replayed step (y\' = −y²): within 1e-8 of the default replay, with no more corrector iterations', () => {
+    const square = denseSystem(1, (_t, y, f) => { f[0] = -y[0]! * y[0]!; }, (_t, y, J) => { J[0] = -2 * y[0]!; });
+    const r = integrateBdf(square, 0, Float64Array.of(1), [1, 10], { rtol: 1e-6, atol: 1e-12 });
+    const opts = { stepTimes: r.stepTimes, stepOrders: r.stepOrders, rtol: 1e-6, atol: 1e-12 };
+    const onChange = integrateBdf(square, 0, Float64Array.of(1), [1, 10], opts);
+    const every = integrateBdf(square, 0, Float64Array.of(1), [1, 10], { ...opts, replayFactorEveryStep: true });
+    expect(every.stats.factorizations).toBe(r.stepTimes.length);
+    expect(every.stats.newtonIterations).toBeLessThanOrEqual(onChange.stats.newtonIterations);
+    every.states.forEach((s, k) => expect(Math.abs(s[0]! - onChange.states[k]![0]!)).toBeLessThan(1e-8));
+  });
+
   it('rejects a replay without one order per step; stretches steps that end elsewhere to the last output', () => {
     expect(() => integrateBdf(decay(1), 0, Float64Array.of(1), [1], { stepTimes: [0.5, 1] })).toThrow(/one order per step/);
     const r = integrateBdf(decay(1), 0, Float64Array.of(1), [1], { stepTimes: [0.25, 0.5], stepOrders: [1, 2] });

@@ -29,7 +29,7 @@ import type { BackgroundAtDose, CompetitionSet, DoseAtRemoval, RemainingAtDose, 
 import { prepareKinetics, type CarbonParticle, type KineticComponent, type PreparedKinetics } from './kineticMixture.js';
 import { checkTimes, DEFAULT_KINETIC_RTOL, pacBatch, type KineticSolverOptions } from './pacBatch.js';
 import { checkContactConditions, STIRRED_DEFAULT_RTOL, stirredReactor, stirredReactorFrom } from './stirredReactor.js';
-import { ContactSolveStore, nearestOutlets, sharedBackground, sharedBackgroundKey, type SharedBackground, type SharedSlot, type StirredOutlet } from './sharedBackground.js';
+import { ContactSolveStore, nearestOutlets, sharedBackground, sharedBackgroundKey, type ModelSolves, type SharedBackground, type SharedSlot, type StirredOutlet } from './sharedBackground.js';
 import { traceDoseRoot } from './traceDoseRoot.js';
 
 export type ContactConditions =
@@ -91,12 +91,14 @@ export function doseUnderContact(pk: PreparedKinetics, targetIndex: number, remo
 }
 
 /**
- * remainingUnderContact over the doses of one search: remembers every dose's result (a dose
- * asked again costs nothing) and starts each stirred reactor from the outlet and the balance
- * Jacobian at the nearest dose already solved (warm start; the result does not depend on the
- * start beyond the balance tolerance).
+ * remainingUnderContact over the doses of one search, or of one compound solved on its own in a
+ * ContactRemoval: remembers every dose's result (a dose asked again costs nothing) and starts each
+ * stirred reactor from the outlet and the balance Jacobian at the nearest dose already solved,
+ * before the first at the nearest of `starts` (warm start; the result does not depend on the
+ * start beyond the balance tolerance). With `stored` (a ContactSolveStore's live list for this
+ * mixture, conditions and options) its outlets are starts too, and this one's are added to it.
  */
-function remainingAtDoses(pk: PreparedKinetics, cond: ContactConditions, options: KineticSolverOptions) {
+function remainingAtDoses(pk: PreparedKinetics, cond: ContactConditions, options: KineticSolverOptions, starts: readonly StirredOutlet[] = [], stored?: StirredOutlet[]) {
   const done = new Map<number, Float64Array>();
   const outlets: StirredOutlet[] = [];
   const at = (d: number): Float64Array => {
@@ -105,17 +107,23 @@ function remainingAtDoses(pk: PreparedKinetics, cond: ContactConditions, options
     let f: Float64Array;
     if (cond.kind === 'plug-flow') f = remainingUnderContact(pk, d, cond, options);
     else {
-      const [near, second] = nearestOutlets(outlets, d);
+      const known = stored ?? outlets; // the store holds this one's outlets too
+      const [near, second] = nearestOutlets(known.length ? known : starts, d);
       const res = stirredReactorFrom(pk, d, cond.contactTimeS, cond.carbonAgeS, options, near?.coupled, near?.jacobian, near?.dose, second && { dose: second.dose, remaining: second.coupled });
       const c = res.cMgPerL;
-      outlets.push({ dose: d, coupled: Float64Array.from(pk.coupled, (i) => c[i]! / pk.components[i]!.c0MgPerL), ...(res.balanceJacobian ? { jacobian: res.balanceJacobian } : {}) });
+      const outlet = { dose: d, coupled: Float64Array.from(pk.coupled, (i) => c[i]! / pk.components[i]!.c0MgPerL), ...(res.balanceJacobian ? { jacobian: res.balanceJacobian } : {}) };
+      outlets.push(outlet);
+      stored?.push(outlet);
       f = remainingFraction(pk, c);
     }
     done.set(d, f);
     return f;
   };
-  return Object.assign(at, { evaluations: () => done.size });
+  return Object.assign(at, { evaluations: () => done.size, solved: done as ReadonlyMap<number, Float64Array>, outlets: outlets as readonly StirredOutlet[] });
 }
+
+/** A compound's solves on its own (not trace, or alone with its competitors): remainingAtDoses on its own mixture. */
+type OwnSolves = ReturnType<typeof remainingAtDoses>;
 
 function pct(f: number): string {
   return `${(f * 100).toPrecision(4)} %`;
@@ -127,7 +135,10 @@ function pct(f: number): string {
  * per dose gives all of them, every dose solved is remembered, and `doseForRemoval` finds each
  * target's dose on those shared solves (traceDoseRoot.ts), so a carbon's whole design solves the
  * background at a few doses instead of once per target and dose. Other targets (not trace in
- * their water, or with their own competitors) are solved on their own, as before.
+ * their water, or with their own competitors) are solved on their own mixture, each dose once,
+ * every stirred solve started from the nearest outlet already solved (remainingAtDoses: of this
+ * model, of the store's models with the same mixture, or before those of the model at the nearby
+ * DOC, doses scaled by DOC); their doses are left to the design layer's search.
  */
 export class ContactRemoval implements RemovalModel {
   readonly kind: string;
@@ -152,6 +163,10 @@ export class ContactRemoval implements RemovalModel {
   private readonly shared: Array<SharedSlot | undefined>;
   /** The background components' indices in a shared background with the same components, if any. */
   private readonly bgShared?: { group: SharedBackground; at: number[] };
+  /** The solves of each compound solved on its own (made at its first dose; undefined for the shared ones). */
+  private readonly own: Array<OwnSolves | undefined>;
+  /** The key of this water's family in the store (the same water at other DOCs). */
+  private readonly family: string;
 
   constructor(
     readonly sets: readonly CompetitionSet[],
@@ -163,7 +178,7 @@ export class ContactRemoval implements RemovalModel {
     /** Share trace targets' backgrounds (default true; false solves every target on its own, for tests). */
     readonly shareBackground = true,
     /** The same water at another DOC (atDoc), whose solves give starts: doses scaled by `factor` = this DOC / its DOC. */
-    private nearDoc?: { shared: ReadonlyArray<SharedSlot | undefined>; factor: number },
+    private nearDoc?: ModelSolves & { factor: number },
     /**
      * Solves kept across the models of one factory (contactFactory): starts for groups with the
      * same background or target, and, in place of `nearDoc`, the model of the same water at the
@@ -184,8 +199,9 @@ export class ContactRemoval implements RemovalModel {
       if (key !== undefined) byKey.set(key, [...(byKey.get(key) ?? []), i]);
     });
     this.shared = this.prepared.map(() => undefined);
+    this.own = this.prepared.map(() => undefined);
     const perDoc = (cs: readonly FreundlichComponent[]) => cs.map((c) => ({ ...c, c0MgPerL: Number((c.c0MgPerL / docMgPerL).toPrecision(12)) }));
-    const family = store ? JSON.stringify([sets.map((s) => [s.target, perDoc(s.competitors)]), background ? perDoc(background) : null, particle, conditions, options, shareBackground]) : '';
+    const family = this.family = store ? JSON.stringify([sets.map((s) => [s.target, perDoc(s.competitors)]), background ? perDoc(background) : null, particle, conditions, options, shareBackground]) : '';
     if (store) nearDoc = store.nearestModel(family, docMgPerL) ?? nearDoc;
     this.nearDoc = nearDoc;
     for (const members of byKey.values()) {
@@ -200,7 +216,20 @@ export class ContactRemoval implements RemovalModel {
       this.backgroundC0MgPerL = Float64Array.from(background, (c) => c.c0MgPerL);
       this.bgShared = backgroundInGroup(this.bgPrepared, this.shared);
     }
-    store?.registerModel(family, docMgPerL, this.shared);
+    store?.registerModel(family, docMgPerL, { shared: this.shared, own: this.own });
+  }
+
+  /** The solves of compound `index` on its own mixture (see the class comment). */
+  private ownSolves(index: number): OwnSolves {
+    let o = this.own[index];
+    if (!o) {
+      const pk = this.prepared[index]!;
+      const near = this.nearDoc?.own[index];
+      const starts = near ? near.outlets.map((x) => ({ ...x, dose: x.dose * this.nearDoc!.factor })) : [];
+      o = remainingAtDoses(pk, this.conditions, this.options, starts, this.store?.outletsOf(ownKey(pk, this.conditions, this.options)));
+      this.own[index] = o;
+    }
+    return o;
   }
 
   remaining(index: number, doseGPerL: number, warm?: WarmStart): RemainingAtDose {
@@ -209,7 +238,7 @@ export class ContactRemoval implements RemovalModel {
     if (doseGPerL === 0) return { remainingFraction: 1, warm };
     const sh = this.shared[index];
     if (sh) return { remainingFraction: sh.group.remainingAt(doseGPerL)[sh.at]!, warm };
-    return { remainingFraction: remainingUnderContact(pk, doseGPerL, this.conditions, this.options)[0]!, warm };
+    return { remainingFraction: this.ownSolves(index)(doseGPerL)[0]!, warm };
   }
 
   /**
@@ -231,28 +260,60 @@ export class ContactRemoval implements RemovalModel {
   /**
    * The first dose tried when nothing is solved yet: the dose closest to the goal among the same
    * target's solves kept in the factory's store (another model with the same background and
-   * target); else the dose of the nearby DOC's solve closest to the goal, scaled by DOC; else
-   * 1.5 × the equilibrium dose (contact removes less), or 20 mg/L.
+   * target); else, from the models of the same water at other DOCs in
+   * the store that have bracketed the goal, each one's dose for it (linear in ln D of the log-odds
+   * between the bracketing solves) taken linear in ln DOC through the two nearest DOCs (one
+   * scaled by DOC when there is one), with the slope of the nearest as the first secant's;
+   * else the dose of the nearby DOC's solve closest to the goal, scaled by DOC;
+   * else 1.5 × the equilibrium dose (contact removes less), or 20 mg/L.
    */
-  private startDose(index: number, removalFraction: number): number {
-    const own = this.shared[index];
-    if (own) {
-      let best: number | undefined, gap = Infinity;
-      for (const [d, r] of own.group.storedPoints(own.at - own.group.competitorCount)) { const g = Math.abs(r - (1 - removalFraction)); if (g < gap) { gap = g; best = d; } }
-      if (best !== undefined) return best;
-    }
+  private startDose(index: number, removalFraction: number): number | { doseGPerL: number; slope: number } {
+    const goal = 1 - removalFraction;
+    let best: number | undefined, gap = Infinity;
+    const consider = (d: number, r: number) => { const g = Math.abs(r - goal); if (g < gap) { gap = g; best = d; } };
+    const sh = this.shared[index];
+    if (sh) for (const [d, r] of sh.group.storedPoints(sh.at - sh.group.competitorCount)) consider(d, r);
+    if (best !== undefined) return best;
+    const across = this.store ? this.acrossDoc(index, goal) : undefined;
+    if (across) return across;
     const near = this.nearDoc?.shared[index];
-    if (near) {
-      let best: number | undefined, gap = Infinity;
-      for (const [d, f] of near.group.solved) { const g = Math.abs(f[near.at]! - (1 - removalFraction)); if (g < gap) { gap = g; best = d; } }
-      if (best !== undefined) return best * this.nearDoc!.factor;
-    }
+    if (near) for (const [d, f] of near.group.solved) consider(d, f[near.at]!);
+    if (best !== undefined) return best * this.nearDoc!.factor;
     try {
       return 1.5 * doseForRemoval(prepareMixture(this.prepared[index]!.components), 0, removalFraction).doseGPerL;
     } catch (e) {
       if (e instanceof InputError || e instanceof ComputationError) return 0.02;
       throw e;
     }
+  }
+
+  /** startDose from the store's models of this water at other DOCs (see there); undefined when none has bracketed the goal. */
+  private acrossDoc(index: number, goal: number): { doseGPerL: number; slope: number } | undefined {
+    const yGoal = Math.log((1 - goal) / goal);
+    const roots: Array<{ lnDoc: number; x: number; slope: number }> = [];
+    for (const m of this.store!.modelsOf(this.family)) {
+      if (m.doc === this.docMgPerL) continue;
+      const sh = m.solves.shared[index];
+      const own = m.solves.own[index];
+      const pts: Array<readonly [number, number]> = sh ? [...sh.group.solved].map(([d, f]) => [d, f[sh.at]!] as const) : own ? [...own.solved].map(([d, f]) => [d, f[0]!] as const) : [];
+      let lo: { x: number; y: number } | undefined, hi: { x: number; y: number } | undefined;
+      for (const [d, r] of pts) {
+        if (!(r > 0 && r < 1)) continue;
+        const p = { x: Math.log(d), y: Math.log((1 - r) / r) };
+        if (p.y < yGoal) { if (!lo || p.x > lo.x) lo = p; } else if (!hi || p.x < hi.x) hi = p;
+      }
+      if (!lo || !hi || !(hi.x > lo.x) || !(hi.y > lo.y)) continue;
+      const slope = (hi.y - lo.y) / (hi.x - lo.x);
+      roots.push({ lnDoc: Math.log(m.doc), x: lo.x + (yGoal - lo.y) / slope, slope });
+    }
+    if (!roots.length) return undefined;
+    const here = Math.log(this.docMgPerL);
+    roots.sort((a, b) => Math.abs(a.lnDoc - here) - Math.abs(b.lnDoc - here));
+    const a = roots[0]!;
+    const b = roots.find((r) => r.lnDoc !== a.lnDoc);
+    // through the two nearest DOCs; from one, the dose scaled by DOC (the dose per mg DOC roughly constant)
+    const x = b ? a.x + ((b.x - a.x) * (here - a.lnDoc)) / (b.lnDoc - a.lnDoc) : a.x + (here - a.lnDoc);
+    return Number.isFinite(x) ? { doseGPerL: Math.exp(x), slope: a.slope } : undefined;
   }
 
   backgroundRemaining(doseGPerL: number, warm?: WarmStart): BackgroundAtDose {
@@ -269,8 +330,13 @@ export class ContactRemoval implements RemovalModel {
   atDoc(docMgPerL: number): ContactRemoval {
     const f = docMgPerL / this.docMgPerL;
     const scale = (cs: readonly FreundlichComponent[]) => cs.map((c) => ({ ...c, c0MgPerL: c.c0MgPerL * f }));
-    return new ContactRemoval(this.sets.map((s) => ({ target: s.target, competitors: scale(s.competitors) })), docMgPerL, this.particle, this.conditions, this.background ? scale(this.background) : undefined, this.options, this.shareBackground, { shared: this.shared, factor: f }, this.store);
+    return new ContactRemoval(this.sets.map((s) => ({ target: s.target, competitors: scale(s.competitors) })), docMgPerL, this.particle, this.conditions, this.background ? scale(this.background) : undefined, this.options, this.shareBackground, { shared: this.shared, own: this.own, factor: f }, this.store);
   }
+}
+
+/** The store's key of a compound's own mixture under the conditions and solver options (its outlets). */
+function ownKey(pk: PreparedKinetics, cond: ContactConditions, options: KineticSolverOptions): string {
+  return JSON.stringify(['own', pk.components, pk.coupled, pk.trace, pk.kfMPerS, pk.particle, cond, options]);
 }
 
 /**

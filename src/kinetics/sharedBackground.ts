@@ -56,6 +56,12 @@ export interface StirredOutlet { dose: number; coupled: Float64Array; jacobian?:
 /** A compound's shared background in a model and its component index there. */
 export interface SharedSlot { group: SharedBackground; at: number }
 
+/** A compound solved on its own in a model (not a trace target): its doses solved (c/c0 of its own mixture, the compound first) and stirred outlets. */
+export interface OwnSlot { readonly solved: ReadonlyMap<number, Float64Array>; readonly outlets: ReadonlyArray<StirredOutlet> }
+
+/** The solves of one contact model by compound (a live view: filled as the model solves): shared backgrounds, and the compounds solved on their own. */
+export interface ModelSolves { shared: ReadonlyArray<SharedSlot | undefined>; own: ReadonlyArray<OwnSlot | undefined> }
+
 /**
  * Solves kept across the contact models made by one model factory (contactFactory; never
  * module-wide, so that nothing depends on what else ran in the process): the stirred outlets of
@@ -66,21 +72,25 @@ export interface SharedSlot { group: SharedBackground; at: number }
 export class ContactSolveStore {
   private readonly outlets = new Map<string, StirredOutlet[]>();
   private readonly points = new Map<string, Array<readonly [number, number]>>();
-  private readonly models = new Map<string, Array<{ doc: number; shared: ReadonlyArray<SharedSlot | undefined> }>>();
-  /** Registers the shared backgrounds of a model of a family (the same water scaled by DOC: ContactRemoval's family key) at a DOC. */
-  registerModel(family: string, docMgPerL: number, shared: ReadonlyArray<SharedSlot | undefined>): void {
+  private readonly models = new Map<string, Array<{ doc: number; solves: ModelSolves }>>();
+  /** Registers the solves of a model of a family (the same water scaled by DOC: ContactRemoval's family key) at a DOC. */
+  registerModel(family: string, docMgPerL: number, solves: ModelSolves): void {
     let l = this.models.get(family);
     if (!l) { l = []; this.models.set(family, l); }
-    l.push({ doc: docMgPerL, shared });
+    l.push({ doc: docMgPerL, solves });
   }
   /** The model of the family at the DOC nearest `docMgPerL` (in ln DOC) that has solved a dose, and the factor this DOC / its DOC. */
-  nearestModel(family: string, docMgPerL: number): { shared: ReadonlyArray<SharedSlot | undefined>; factor: number } | undefined {
-    let best: { doc: number; shared: ReadonlyArray<SharedSlot | undefined> } | undefined, gap = Infinity;
+  nearestModel(family: string, docMgPerL: number): ModelSolves & { factor: number } | undefined {
+    let best: { doc: number; solves: ModelSolves } | undefined, gap = Infinity;
     for (const m of this.models.get(family) ?? []) {
       const g = Math.abs(Math.log(m.doc / docMgPerL));
-      if (g < gap && m.shared.some((sh) => sh && sh.group.solved.size > 0)) { gap = g; best = m; }
+      if (g < gap && (m.solves.shared.some((sh) => sh && sh.group.solved.size > 0) || m.solves.own.some((o) => o && o.solved.size > 0))) { gap = g; best = m; }
     }
-    return best ? { shared: best.shared, factor: docMgPerL / best.doc } : undefined;
+    return best ? { ...best.solves, factor: docMgPerL / best.doc } : undefined;
+  }
+  /** Every model of the family registered so far, with its DOC. */
+  modelsOf(family: string): ReadonlyArray<{ doc: number; solves: ModelSolves }> {
+    return this.models.get(family) ?? [];
   }
   /** The outlets of a background key (a live list: append to it). */
   outletsOf(key: string): StirredOutlet[] {

@@ -243,7 +243,9 @@ export class ContactRemoval implements RemovalModel {
 
   /**
    * The dose for a goal of a target that shares its background, found on the shared solves
-   * (traceDoseRoot), meeting the goal by at most half of `removalTolerance` more; undefined for the other targets, or
+   * (traceDoseRoot) and the target's points kept in the store (solves of other groups with the
+   * same background and target: the same c/c0 to the integrator's accuracy), meeting the goal by
+   * at most half of `removalTolerance` more; undefined for the other targets, or
    * when the goal is not met within the searched doses (the design layer's search then gives the
    * status).
    */
@@ -251,16 +253,19 @@ export class ContactRemoval implements RemovalModel {
     const sh = this.shared[index];
     if (!sh || !(removalFraction > 0 && removalFraction < 1)) return undefined;
     const { group, at } = sh;
-    const known = [...group.solved].map(([d, f]) => [d, f[at]!] as const);
+    // this target's c/c0 solved by any group of the store with the same background and target
+    // (the same values to the integrator's accuracy, ContactSolveStore), this group's own where both have a dose
+    const byDose = new Map<number, number>(group.storedPoints(at - group.competitorCount));
+    for (const [d, f] of group.solved) byDose.set(d, f[at]!);
+    const known = [...byDose];
     const root = traceDoseRoot((d) => group.remainingAt(d)[at]!, known, removalFraction, this.removalTolerance * 0.5, () => this.startDose(index, removalFraction));
     if (!root) return undefined;
     return { doseGPerL: root.doseGPerL, remainingFraction: root.remainingFraction, ...(withSlope && root.slope !== undefined ? { slope: root.slope } : {}), warm };
   }
 
   /**
-   * The first dose tried when nothing is solved yet: the dose closest to the goal among the same
-   * target's solves kept in the factory's store (another model with the same background and
-   * target); else, from the models of the same water at other DOCs in
+   * The first dose tried when nothing is solved yet (by this group, or by a group of the store
+   * with the same background and target): from the models of the same water at other DOCs in
    * the store that have bracketed the goal, each one's dose for it (linear in ln D of the log-odds
    * between the bracketing solves) taken linear in ln DOC through the two nearest DOCs (one
    * scaled by DOC when there is one), with the slope of the nearest as the first secant's;
@@ -271,9 +276,6 @@ export class ContactRemoval implements RemovalModel {
     const goal = 1 - removalFraction;
     let best: number | undefined, gap = Infinity;
     const consider = (d: number, r: number) => { const g = Math.abs(r - goal); if (g < gap) { gap = g; best = d; } };
-    const sh = this.shared[index];
-    if (sh) for (const [d, r] of sh.group.storedPoints(sh.at - sh.group.competitorCount)) consider(d, r);
-    if (best !== undefined) return best;
     const across = this.store ? this.acrossDoc(index, goal) : undefined;
     if (across) return across;
     const near = this.nearDoc?.shared[index];
@@ -289,22 +291,14 @@ export class ContactRemoval implements RemovalModel {
 
   /** startDose from the store's models of this water at other DOCs (see there); undefined when none has bracketed the goal. */
   private acrossDoc(index: number, goal: number): { doseGPerL: number; slope: number } | undefined {
-    const yGoal = Math.log((1 - goal) / goal);
     const roots: Array<{ lnDoc: number; x: number; slope: number }> = [];
     for (const m of this.store!.modelsOf(this.family)) {
       if (m.doc === this.docMgPerL) continue;
       const sh = m.solves.shared[index];
       const own = m.solves.own[index];
       const pts: Array<readonly [number, number]> = sh ? [...sh.group.solved].map(([d, f]) => [d, f[sh.at]!] as const) : own ? [...own.solved].map(([d, f]) => [d, f[0]!] as const) : [];
-      let lo: { x: number; y: number } | undefined, hi: { x: number; y: number } | undefined;
-      for (const [d, r] of pts) {
-        if (!(r > 0 && r < 1)) continue;
-        const p = { x: Math.log(d), y: Math.log((1 - r) / r) };
-        if (p.y < yGoal) { if (!lo || p.x > lo.x) lo = p; } else if (!hi || p.x < hi.x) hi = p;
-      }
-      if (!lo || !hi || !(hi.x > lo.x) || !(hi.y > lo.y)) continue;
-      const slope = (hi.y - lo.y) / (hi.x - lo.x);
-      roots.push({ lnDoc: Math.log(m.doc), x: lo.x + (yGoal - lo.y) / slope, slope });
+      const r = bracketedRoot(pts, goal);
+      if (r) roots.push({ lnDoc: Math.log(m.doc), ...r });
     }
     if (!roots.length) return undefined;
     const here = Math.log(this.docMgPerL);
@@ -332,6 +326,23 @@ export class ContactRemoval implements RemovalModel {
     const scale = (cs: readonly FreundlichComponent[]) => cs.map((c) => ({ ...c, c0MgPerL: c.c0MgPerL * f }));
     return new ContactRemoval(this.sets.map((s) => ({ target: s.target, competitors: scale(s.competitors) })), docMgPerL, this.particle, this.conditions, this.background ? scale(this.background) : undefined, this.options, this.shareBackground, { shared: this.shared, own: this.own, factor: f }, this.store);
   }
+}
+
+/**
+ * ln D where c/c0 = `goal`, linear in ln D of the log-odds between the two solved points nearest
+ * it on either side, with that secant's slope; undefined unless the points bracket the goal.
+ */
+function bracketedRoot(points: Iterable<readonly [number, number]>, goal: number): { x: number; slope: number } | undefined {
+  const yGoal = Math.log((1 - goal) / goal);
+  let lo: { x: number; y: number } | undefined, hi: { x: number; y: number } | undefined;
+  for (const [d, r] of points) {
+    if (!(r > 0 && r < 1)) continue;
+    const p = { x: Math.log(d), y: Math.log((1 - r) / r) };
+    if (p.y < yGoal) { if (!lo || p.x > lo.x) lo = p; } else if (!hi || p.x < hi.x) hi = p;
+  }
+  if (!lo || !hi || !(hi.x > lo.x) || !(hi.y > lo.y)) return undefined;
+  const slope = (hi.y - lo.y) / (hi.x - lo.x);
+  return { x: lo.x + (yGoal - lo.y) / slope, slope };
 }
 
 /** The store's key of a compound's own mixture under the conditions and solver options (its outlets). */

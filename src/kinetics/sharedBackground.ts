@@ -21,9 +21,12 @@
  * With a ContactSolveStore (one per model factory: contactFactory) the outlets already solved by
  * any group of that factory with the same background, conditions and solver options are starts
  * too (the background's balance does not depend on the targets), and every target's c/c0 at the
- * doses solved is kept there for a later group holding the same target (its first dose tried);
- * and the models of one water at other DOCs are kept there too, so that a model at a new DOC
- * starts from the one at the nearest DOC already solved (ContactRemoval).
+ * doses solved is kept there for a later group holding the same target: points of its curve for
+ * the dose root (ContactRemoval.doseForRemoval), equal to that group's own solve at the dose to
+ * the integrator's accuracy (the steps are pinned for the other group's blocks, and its balance
+ * started elsewhere: within removalTolerance); and the models of one water at other DOCs are
+ * kept there too, so that a model at a new DOC starts from the ones at the nearest DOCs already
+ * solved (ContactRemoval).
  *
  * Units: dose g/L, times s, concentrations mg/L.
  * @throws ComputationError when a kinetic solve fails.
@@ -66,8 +69,10 @@ export interface ModelSolves { shared: ReadonlyArray<SharedSlot | undefined>; ow
  * Solves kept across the contact models made by one model factory (contactFactory; never
  * module-wide, so that nothing depends on what else ran in the process): the stirred outlets of
  * each background, and each target's c/c0 at the doses solved, keyed by the values that decide
- * them. Only starts are taken from it: a result does not depend on them beyond the balance
- * tolerance and the dose root's tolerance.
+ * them. The outlets are starts only (a result does not depend on them beyond the balance
+ * tolerance); a target's c/c0 are points of its curve for a dose root, each within the model's
+ * removalTolerance of a fresh solve at that dose, so a dose found on them meets the goal within
+ * that accuracy too.
  */
 export class ContactSolveStore {
   private readonly outlets = new Map<string, StirredOutlet[]>();

@@ -29,7 +29,7 @@ import type { BackgroundAtDose, CompetitionSet, DoseAtRemoval, RemainingAtDose, 
 import { prepareKinetics, type CarbonParticle, type KineticComponent, type PreparedKinetics } from './kineticMixture.js';
 import { checkTimes, DEFAULT_KINETIC_RTOL, pacBatch, type KineticSolverOptions } from './pacBatch.js';
 import { checkContactConditions, STIRRED_DEFAULT_RTOL, stirredReactor, stirredReactorFrom } from './stirredReactor.js';
-import { ContactSolveStore, nearestOutlets, sharedBackground, sharedBackgroundKey, type ModelSolves, type SharedBackground, type SharedSlot, type StirredOutlet } from './sharedBackground.js';
+import { ContactSolveStore, nearestOutlets, sharedBackground, solveConditions, sharedBackgroundKey, type ModelSolves, type SharedBackground, type SharedSlot, type StirredOutlet } from './sharedBackground.js';
 import { traceDoseRoot } from './traceDoseRoot.js';
 
 export type ContactConditions =
@@ -96,7 +96,10 @@ export function doseUnderContact(pk: PreparedKinetics, targetIndex: number, remo
  * stirred reactor from the outlet and the balance Jacobian at the nearest dose already solved,
  * before the first at the nearest of `starts` (warm start; the result does not depend on the
  * start beyond the balance tolerance). With `stored` (a ContactSolveStore's live list for this
- * mixture, conditions and options) its outlets are starts too, and this one's are added to it.
+ * mixture, conditions and options) its outlets are starts too, and this one's are added to it;
+ * when the mixture has no trace component, an outlet solved there at exactly the dose is the
+ * result (every adsorbing component is in it; the others stay at c0), as a fresh solve within the
+ * balance tolerance.
  */
 function remainingAtDoses(pk: PreparedKinetics, cond: ContactConditions, options: KineticSolverOptions, starts: readonly StirredOutlet[] = [], stored?: StirredOutlet[]) {
   const done = new Map<number, Float64Array>();
@@ -105,7 +108,9 @@ function remainingAtDoses(pk: PreparedKinetics, cond: ContactConditions, options
     const hit = done.get(d);
     if (hit) return hit;
     let f: Float64Array;
-    if (cond.kind === 'plug-flow') f = remainingUnderContact(pk, d, cond, options);
+    const same = stored && !pk.trace.length ? stored.find((o) => o.dose === d) : undefined;
+    if (same) f = Float64Array.from(pk.components, (_c, i) => { const k = pk.coupled.indexOf(i); return k >= 0 ? same.coupled[k]! : 1; });
+    else if (cond.kind === 'plug-flow') f = remainingUnderContact(pk, d, cond, options);
     else {
       const known = stored ?? outlets; // the store holds this one's outlets too
       const [near, second] = nearestOutlets(known.length ? known : starts, d);
@@ -165,7 +170,7 @@ export class ContactRemoval implements RemovalModel {
   private readonly bgShared?: { group: SharedBackground; at: number[] };
   /** The solves of each compound solved on its own (made at its first dose; undefined for the shared ones). */
   private readonly own: Array<OwnSolves | undefined>;
-  /** The key of this water's family in the store (the same water at other DOCs). */
+  /** The key of this water's family in the store (the same water at other DOCs, under conditions that solve alike: solveConditions). */
   private readonly family: string;
 
   constructor(
@@ -180,9 +185,11 @@ export class ContactRemoval implements RemovalModel {
     /** The same water at another DOC (atDoc), whose solves give starts: doses scaled by `factor` = this DOC / its DOC. */
     private nearDoc?: ModelSolves & { factor: number },
     /**
-     * Solves kept across the models of one factory (contactFactory): starts for groups with the
-     * same background or target, and, in place of `nearDoc`, the model of the same water at the
-     * nearest DOC already solved (the family key: the competitors' c0 per mg DOC).
+     * Solves kept across the models of one factory (contactFactory), or of the factories of one
+     * carbon under several contact conditions (keyed by the conditions as they decide a solve:
+     * solveConditions): starts for groups with the same background or target, and, in place of
+     * `nearDoc`, the model of the same water at the nearest DOC already solved (the family key:
+     * the competitors' c0 per mg DOC).
      */
     private readonly store?: ContactSolveStore,
   ) {
@@ -201,7 +208,8 @@ export class ContactRemoval implements RemovalModel {
     this.shared = this.prepared.map(() => undefined);
     this.own = this.prepared.map(() => undefined);
     const perDoc = (cs: readonly FreundlichComponent[]) => cs.map((c) => ({ ...c, c0MgPerL: Number((c.c0MgPerL / docMgPerL).toPrecision(12)) }));
-    const family = this.family = store ? JSON.stringify([sets.map((s) => [s.target, perDoc(s.competitors)]), background ? perDoc(background) : null, particle, conditions, options, shareBackground]) : '';
+    // the fictive background for the surrogates is left out: it is solved with a group or on its own, never a start
+    const family = this.family = store ? JSON.stringify([sets.map((s) => [s.target, perDoc(s.competitors)]), particle, solveConditions(conditions), options, shareBackground]) : '';
     if (store) nearDoc = store.nearestModel(family, docMgPerL) ?? nearDoc;
     this.nearDoc = nearDoc;
     for (const members of byKey.values()) {
@@ -237,7 +245,11 @@ export class ContactRemoval implements RemovalModel {
     if (!pk) throw new InputError(`compound index ${index} is not in the model (${this.prepared.length} compounds)`);
     if (doseGPerL === 0) return { remainingFraction: 1, warm };
     const sh = this.shared[index];
-    if (sh) return { remainingFraction: sh.group.remainingAt(doseGPerL)[sh.at]!, warm };
+    if (sh) {
+      // a dose this group has not solved but another of the store has, for the same background and target (ContactSolveStore)
+      const kept = sh.group.solved.has(doseGPerL) ? undefined : sh.group.storedAt(sh.at - sh.group.competitorCount, doseGPerL);
+      return { remainingFraction: kept ?? sh.group.remainingAt(doseGPerL)[sh.at]!, warm };
+    }
     return { remainingFraction: this.ownSolves(index)(doseGPerL)[0]!, warm };
   }
 
@@ -258,7 +270,7 @@ export class ContactRemoval implements RemovalModel {
     const byDose = new Map<number, number>(group.storedPoints(at - group.competitorCount));
     for (const [d, f] of group.solved) byDose.set(d, f[at]!);
     const known = [...byDose];
-    const root = traceDoseRoot((d) => group.remainingAt(d)[at]!, known, removalFraction, this.removalTolerance * 0.5, () => this.startDose(index, removalFraction));
+    const root = traceDoseRoot((d) => group.remainingAt(d)[at]!, known, removalFraction, this.removalTolerance * 0.5, () => this.startDose(index, removalFraction), () => this.predictedDose(index, 1 - removalFraction));
     if (!root) return undefined;
     return { doseGPerL: root.doseGPerL, remainingFraction: root.remainingFraction, ...(withSlope && root.slope !== undefined ? { slope: root.slope } : {}), warm };
   }
@@ -269,17 +281,17 @@ export class ContactRemoval implements RemovalModel {
    * the store that have bracketed the goal, each one's dose for it (linear in ln D of the log-odds
    * between the bracketing solves) taken linear in ln DOC through the two nearest DOCs (one
    * scaled by DOC when there is one), with the slope of the nearest as the first secant's;
-   * else the dose of the nearby DOC's solve closest to the goal, scaled by DOC;
+   * else the nearby model's dose for the goal (`nearDoc`: interpolated as above where its solves
+   * bracket the goal, else its solve closest to the goal), scaled by DOC;
    * else 1.5 × the equilibrium dose (contact removes less), or 20 mg/L.
    */
   private startDose(index: number, removalFraction: number): number | { doseGPerL: number; slope: number } {
     const goal = 1 - removalFraction;
+    const predicted = this.predictedDose(index, goal);
+    if (predicted) return predicted;
     let best: number | undefined, gap = Infinity;
-    const consider = (d: number, r: number) => { const g = Math.abs(r - goal); if (g < gap) { gap = g; best = d; } };
-    const across = this.store ? this.acrossDoc(index, goal) : undefined;
-    if (across) return across;
     const near = this.nearDoc?.shared[index];
-    if (near) for (const [d, f] of near.group.solved) consider(d, f[near.at]!);
+    if (near) for (const [d, f] of near.group.solved) { const g = Math.abs(f[near.at]! - goal); if (g < gap) { gap = g; best = d; } }
     if (best !== undefined) return best * this.nearDoc!.factor;
     try {
       return 1.5 * doseForRemoval(prepareMixture(this.prepared[index]!.components), 0, removalFraction).doseGPerL;
@@ -287,6 +299,20 @@ export class ContactRemoval implements RemovalModel {
       if (e instanceof InputError || e instanceof ComputationError) return 0.02;
       throw e;
     }
+  }
+
+  /**
+   * The predicted dose for c/c0 = `goal` and the slope of the log-odds there, from the store's
+   * models of this water at other DOCs, else from `nearDoc` (see startDose); also the first dose
+   * the root tries when this model's solves do not meet the goal yet (traceDoseRoot's guess).
+   */
+  private predictedDose(index: number, goal: number): { doseGPerL: number; slope: number } | undefined {
+    const across = this.store ? this.acrossDoc(index, goal) : undefined;
+    if (across) return across;
+    const near = this.nearDoc?.shared[index];
+    if (!near) return undefined;
+    const r = bracketedRoot([...near.group.solved].map(([d, f]) => [d, f[near.at]!] as const), goal);
+    return r ? { doseGPerL: Math.exp(r.x) * this.nearDoc!.factor, slope: r.slope } : undefined;
   }
 
   /** startDose from the store's models of this water at other DOCs (see there); undefined when none has bracketed the goal. */
@@ -300,8 +326,8 @@ export class ContactRemoval implements RemovalModel {
       const r = bracketedRoot(pts, goal);
       if (r) roots.push({ lnDoc: Math.log(m.doc), ...r });
     }
-    if (!roots.length) return undefined;
     const here = Math.log(this.docMgPerL);
+    if (!roots.length) return undefined;
     roots.sort((a, b) => Math.abs(a.lnDoc - here) - Math.abs(b.lnDoc - here));
     const a = roots[0]!;
     const b = roots.find((r) => r.lnDoc !== a.lnDoc);
@@ -345,9 +371,15 @@ function bracketedRoot(points: Iterable<readonly [number, number]>, goal: number
   return { x: lo.x + (yGoal - lo.y) / slope, slope };
 }
 
-/** The store's key of a compound's own mixture under the conditions and solver options (its outlets). */
+/**
+ * The store's key of a compound's own mixture under the conditions and solver options (its
+ * outlets): the adsorbing components alone (coupled or trace; the others have no block in the
+ * particle), each c0 to 12 significant digits, and the split by id (as the store's background key).
+ */
 function ownKey(pk: PreparedKinetics, cond: ContactConditions, options: KineticSolverOptions): string {
-  return JSON.stringify(['own', pk.components, pk.coupled, pk.trace, pk.kfMPerS, pk.particle, cond, options]);
+  const comps = [...pk.coupled, ...pk.trace].sort((a, b) => a - b).map((i) => { const c = pk.components[i]!; return [i === 0, c.id, Number(c.c0MgPerL.toPrecision(12)), c.K, c.oneOverN, c.dsM2PerS ?? null, pk.kfMPerS[i]]; });
+  const ids = (l: readonly number[]) => l.map((i) => pk.components[i]!.id);
+  return JSON.stringify(['own', comps, ids(pk.coupled), ids(pk.trace), pk.particle, solveConditions(cond), options]);
 }
 
 /**

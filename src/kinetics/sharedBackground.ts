@@ -22,7 +22,8 @@
  * any group of that factory with the same background, conditions and solver options are starts
  * too (the background's balance does not depend on the targets), and every target's c/c0 at the
  * doses solved is kept there for a later group holding the same target: points of its curve for
- * the dose root (ContactRemoval.doseForRemoval), equal to that group's own solve at the dose to
+ * the dose root (ContactRemoval.doseForRemoval) and its c/c0 at exactly those doses
+ * (ContactRemoval.remaining), equal to that group's own solve at the dose to
  * the integrator's accuracy (the steps are pinned for the other group's blocks, and its balance
  * started elsewhere: within removalTolerance); and the models of one water at other DOCs are
  * kept there too, so that a model at a new DOC starts from the ones at the nearest DOCs already
@@ -51,6 +52,8 @@ export interface SharedBackground {
   readonly outlets: ReadonlyArray<StirredOutlet>;
   /** (dose g/L, c/c0) of target k (0-based among the targets) solved by any group of the same store, when there is one. */
   storedPoints(k: number): ReadonlyArray<readonly [number, number]>;
+  /** c/c0 of target k at exactly this dose solved by any group of the same store, if one has. */
+  storedAt(k: number, doseGPerL: number): number | undefined;
 }
 
 /** A solved stirred-reactor outlet: the dose, c_out/c0 of the coupled components and the balance Jacobian there. */
@@ -69,14 +72,17 @@ export interface ModelSolves { shared: ReadonlyArray<SharedSlot | undefined>; ow
  * Solves kept across the contact models made by one model factory (contactFactory; never
  * module-wide, so that nothing depends on what else ran in the process): the stirred outlets of
  * each background, and each target's c/c0 at the doses solved, keyed by the values that decide
- * them. The outlets are starts only (a result does not depend on them beyond the balance
- * tolerance); a target's c/c0 are points of its curve for a dose root, each within the model's
- * removalTolerance of a fresh solve at that dose, so a dose found on them meets the goal within
- * that accuracy too.
+ * them (the background by its adsorbing components alone, c0 to 12 significant digits: the same
+ * water reached by another sum is the same key). The outlets are starts only (a result does not
+ * depend on them beyond the balance tolerance), except that a compound solved on its own takes
+ * an outlet of its mixture at exactly the dose as its result (ContactRemoval); a target's c/c0
+ * are points of its curve for a dose root and its result at exactly such a dose, each within the
+ * model's removalTolerance of a fresh solve at that dose, so a dose found on them meets the goal
+ * within that accuracy too.
  */
 export class ContactSolveStore {
   private readonly outlets = new Map<string, StirredOutlet[]>();
-  private readonly points = new Map<string, Array<readonly [number, number]>>();
+  private readonly points = new Map<string, { list: Array<readonly [number, number]>; byDose: Map<number, number> }>();
   private readonly models = new Map<string, Array<{ doc: number; solves: ModelSolves }>>();
   /** Registers the solves of a model of a family (the same water scaled by DOC: ContactRemoval's family key) at a DOC. */
   registerModel(family: string, docMgPerL: number, solves: ModelSolves): void {
@@ -103,10 +109,10 @@ export class ContactSolveStore {
     if (!l) { l = []; this.outlets.set(key, l); }
     return l;
   }
-  /** The (dose g/L, c/c0) points of a target key (a live list: append to it). */
-  pointsOf(key: string): Array<readonly [number, number]> {
+  /** The (dose g/L, c/c0) points of a target key (a live list), and c/c0 by dose. */
+  pointsOf(key: string): { list: Array<readonly [number, number]>; byDose: Map<number, number> } {
     let l = this.points.get(key);
-    if (!l) { l = []; this.points.set(key, l); }
+    if (!l) { l = { list: [], byDose: new Map() }; this.points.set(key, l); }
     return l;
   }
 }
@@ -120,6 +126,31 @@ export function sharedBackgroundKey(own: PreparedKinetics): string | undefined {
   if (!own.trace.includes(0)) return undefined;
   const comps = own.components.slice(1).map((c, k) => [c.id, c.c0MgPerL, c.K, c.oneOverN, c.dsM2PerS ?? null, own.kfMPerS[k + 1]]);
   return JSON.stringify([comps, own.coupled, own.trace.filter((i) => i > 0)]);
+}
+
+/**
+ * The contact conditions as far as they decide a solve, for the store's keys: a stirred tank's
+ * outlet depends on the carbon age θ = max(θ, τ) alone (the age distribution of the carbon and the
+ * balance c0 − c_out = D·∫q̄E dt; the residence τ enters only the carbon held, D·θ/τ:
+ * stirredReactor), so tanks with the same θ share their solves (e.g. a sensitivity case that
+ * changes τ with recirculation); plug flow is its contact time.
+ */
+export function solveConditions(cond: ContactConditions): { kind: ContactConditions['kind']; timeS: number } {
+  return cond.kind === 'stirred' ? { kind: 'stirred', timeS: Math.max(cond.carbonAgeS, cond.contactTimeS) } : { kind: 'plug-flow', timeS: cond.contactTimeS };
+}
+
+/**
+ * The store's key of a background: sharedBackgroundKey on the adsorbable competitors alone (those
+ * coupled or trace; a component that does not adsorb has no block in the particle and leaves
+ * every result unchanged, e.g. the non-adsorbable DOC that a sensitivity case scales), the split
+ * by id, and each c0 to 12 significant digits (the same water reached by another sum, such as
+ * DOC × 0.8 and the adsorbable part × 0.8 at the design DOC).
+ */
+function storeBackgroundKey(own: PreparedKinetics): string {
+  const adsorbs = new Set([...own.coupled, ...own.trace]);
+  const comps = own.components.flatMap((c, i) => (i > 0 && adsorbs.has(i) ? [[c.id, Number(c.c0MgPerL.toPrecision(12)), c.K, c.oneOverN, c.dsM2PerS ?? null, own.kfMPerS[i]]] : []));
+  const ids = (l: readonly number[]) => l.filter((i) => i > 0).map((i) => own.components[i]!.id);
+  return JSON.stringify([comps, ids(own.coupled), ids(own.trace)]);
 }
 
 /**
@@ -142,9 +173,9 @@ export function sharedBackground(own: readonly PreparedKinetics[], particle: Car
   const outlets: StirredOutlet[] = [];
   // the store's keys: the background (competitors and split) with the particle, the conditions and
   // the solver options; each target with its own values and film coefficient beside it
-  const bgKey = store ? JSON.stringify([sharedBackgroundKey(first), particle, cond, options]) : '';
+  const bgKey = store ? JSON.stringify([storeBackgroundKey(first), particle, solveConditions(cond), options]) : '';
   const stored = store?.outletsOf(bgKey);
-  const emptyPoints: Array<readonly [number, number]> = [];
+  const emptyPoints = { list: [] as Array<readonly [number, number]>, byDose: new Map<number, number>() };
   const points = own.map((p) => (store ? store.pointsOf(JSON.stringify([bgKey, p.components[0], p.kfMPerS[0]])) : emptyPoints));
   const fraction = (c: Float64Array) => Float64Array.from(pk.components, (comp, i) => (comp.c0MgPerL > 0 ? Math.min(1, Math.max(0, c[i]! / comp.c0MgPerL)) : 1));
   const remainingAt = (d: number): Float64Array => {
@@ -163,10 +194,10 @@ export function sharedBackground(own: readonly PreparedKinetics[], particle: Car
       f = fraction(c);
     }
     solved.set(d, f);
-    if (store) points.forEach((list, k) => list.push([d, f[nC + k]!]));
+    if (store) points.forEach((p, k) => { p.list.push([d, f[nC + k]!]); p.byDose.set(d, f[nC + k]!); });
     return f;
   };
-  return { pk, competitorCount: nC, remainingAt, solved, outlets, storedPoints: (k) => points[k] ?? emptyPoints };
+  return { pk, competitorCount: nC, remainingAt, solved, outlets, storedPoints: (k) => (points[k] ?? emptyPoints).list, storedAt: (k, d) => points[k]?.byDose.get(d) };
 }
 
 /** The two outlets nearest a dose in ln D (the start of a stirred solve and a second point for its predictor). */

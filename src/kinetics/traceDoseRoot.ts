@@ -43,8 +43,12 @@ interface Point { x: number; r: number; y: number }
  * @param tolerance   |c/c0 − (1 − R)| accepted
  * @param start       the first dose to solve when nothing is known, g/L (asked only then), with
  *                    the slope dy/d ln D to take from a single point when it knows one
+ * @param guess       a predicted root with its slope (e.g. the same target's root at a nearby DOC
+ *                    or under nearby conditions), asked when points are known but none meets the
+ *                    goal: solved first (inside the bracket), and the next step taken from it with
+ *                    that slope rather than a secant to a far point
  */
-export function traceDoseRoot(remainingAt: (doseGPerL: number) => number, known: Iterable<readonly [number, number]>, removalFraction: number, tolerance: number, start: () => number | { doseGPerL: number; slope?: number }): TraceDoseRoot | undefined {
+export function traceDoseRoot(remainingAt: (doseGPerL: number) => number, known: Iterable<readonly [number, number]>, removalFraction: number, tolerance: number, start: () => number | { doseGPerL: number; slope?: number }, guess?: () => { doseGPerL: number; slope: number } | undefined): TraceDoseRoot | undefined {
   if (!(removalFraction > 0 && removalFraction < 1)) return undefined;
   const rGoal = 1 - removalFraction;
   // aim half the tolerance past the goal and accept only doses that meet it (c/c0 ≤ 1 − R): a
@@ -60,6 +64,7 @@ export function traceDoseRoot(remainingAt: (doseGPerL: number) => number, known:
   for (const [d, r] of known) if (d >= MIN_DOSE_G_PER_L && d <= MAX_DOSE_G_PER_L) pts.push({ x: Math.log(d), r, y: logOdds(r) });
   let solves = 0;
   let singleSlope = 1;
+  let guessed: { x: number; slope: number } | undefined; // the guess solved, while it is the nearest point
   let lastResidual = Infinity;
   let olderResidual = Infinity;
   for (;;) {
@@ -76,7 +81,14 @@ export function traceDoseRoot(remainingAt: (doseGPerL: number) => number, known:
     const finite = pts.filter((p) => Number.isFinite(p.y)).sort((a, b) => Math.abs(a.y - yGoal) - Math.abs(b.y - yGoal));
     const p1 = finite[0];
     let x: number;
-    if (!p1) {
+    const g = solves === 0 && p1 && guess ? guess() : undefined;
+    if (g && g.doseGPerL > 0 && Number.isFinite(g.doseGPerL) && g.slope > 0 && Number.isFinite(g.slope) && (!lo || Math.log(g.doseGPerL) > lo.x) && (!hi || Math.log(g.doseGPerL) < hi.x)) {
+      x = Math.log(g.doseGPerL);
+      guessed = { x, slope: g.slope };
+    } else if (p1 && guessed && p1.x === guessed.x) {
+      x = p1.x + (yGoal - p1.y) / guessed.slope;
+      x = Math.min(p1.x + MAX_STEP, Math.max(p1.x - MAX_STEP, x));
+    } else if (!p1) {
       if (lo) x = lo.x + MAX_STEP;
       else if (hi) x = hi.x - MAX_STEP;
       else {

@@ -24,6 +24,7 @@ import { doseTable, yearlyAtOneDose, type DoseTable } from '../design/doseTable.
 import { carbonKgPerD } from '../design/carbonCost.js';
 import { carbonModel } from '../design/carbonModel.js';
 import { contactFactory } from '../kinetics/contactModel.js';
+import { ContactSolveStore } from '../kinetics/sharedBackground.js';
 import { contactFigures } from './contactStep.js';
 import { contactCurvesStep } from './contactCurvesStep.js';
 import { kineticCalibrationStep } from './kineticCalibrationStep.js';
@@ -134,7 +135,9 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
       for (const f of kinCal.fits) res.warnings.push(...f.warnings.map((w) => `kinetic calibration of ${f.parameter === 'doc_Ds' ? 'doc_Ds' : `Ds of ${f.compoundId}`}: ${w}`));
     }
     const problem = designProblem(project, carbon, goalList, cb);
-    const factory = contactFactory(project.site.pacContact, carbon, options.kinetic);
+    // one store of contact solves per carbon, for the run's models and the sensitivity cases under other contact conditions
+    const contactStore = new ContactSolveStore();
+    const factory = contactFactory(project.site.pacContact, carbon, options.kinetic, contactStore);
     const bgAtDoc = cb.background ? surrogateModel(cb.background, doc, cb.backgroundKFactor).background : undefined;
     const model = carbonModel(systems, doc, bgAtDoc, factory);
     progress({ step: `${carbon.name}: doses at the design DOC`, done: ci, total: project.carbons.length });
@@ -184,7 +187,7 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
     if (req.doseMgPerL !== null) {
       progress({ step: `${carbon.name}: dose against DOC and sensitivity`, done: ci, total: project.carbons.length });
       res.doseAgainstDoc = timed('dose against DOC', () => doseAgainstDocStep(carbon.name, req, requiredAtDocs(model, problem, req, table), docRange(doc, input.series?.docMgPerL)));
-      const sens = timed('sensitivity', () => sensitivityStep({ carbon, systems, problem, modelOf: (s, d) => carbonModel(s, d, undefined, factory), ...(project.site.pacContact ? { contact: { conditions: project.site.pacContact, modelWith: (s: readonly CompoundSystem[], d: number, c: ContactConditions) => carbonModel(s, d, undefined, contactFactory(c, carbon, options.kinetic)) } } : {}), docMgPerL: doc, flowM3PerD: project.site.flowM3PerD, ...(input.series ? { series: input.series } : {}), required: req, yearly: res.yearly! }));
+      const sens = timed('sensitivity', () => sensitivityStep({ carbon, systems, problem, modelOf: (s, d) => carbonModel(s, d, undefined, factory), ...(project.site.pacContact ? { contact: { conditions: project.site.pacContact, modelWith: (s: readonly CompoundSystem[], d: number, c: ContactConditions) => carbonModel(s, d, undefined, contactFactory(c, carbon, options.kinetic, contactStore)) } } : {}), docMgPerL: doc, flowM3PerD: project.site.flowM3PerD, ...(input.series ? { series: input.series } : {}), required: req, yearly: res.yearly! }));
       if (sens) res.sensitivity = sens;
     }
     return res;

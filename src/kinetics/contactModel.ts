@@ -35,13 +35,16 @@ export interface PacCarbonKinetics {
   };
 }
 
-/** The contact model factory of a carbon, or undefined for equilibrium contact. */
-export function contactFactory(contact: ContactConditions | undefined, carbon: PacCarbonKinetics, options: KineticSolverOptions = {}): RemovalModelFactory | undefined {
+/**
+ * The contact model factory of a carbon, or undefined for equilibrium contact. Its models share
+ * their solves through `store` (ContactSolveStore: the same background in the design, the daily
+ * doses and the sensitivity cases that change a target); a caller that makes factories of one
+ * carbon under other conditions (the sensitivity cases on the contact time and carbon age) may
+ * give them the same store, whose keys hold the conditions.
+ */
+export function contactFactory(contact: ContactConditions | undefined, carbon: PacCarbonKinetics, options: KineticSolverOptions = {}, store: ContactSolveStore = new ContactSolveStore()): RemovalModelFactory | undefined {
   if (!contact) return undefined;
   const { particle, target, competitor } = kineticParts(carbon);
-  // the factory's models share their solves as starts (ContactSolveStore: the same background in
-  // the design, the daily doses and the sensitivity cases that change a target)
-  const store = new ContactSolveStore();
   return (sets: readonly CompetitionSet[], docMgPerL: number, background?: readonly FreundlichComponent[]) => new ContactRemoval(
     sets.map((s) => ({ target: target(s.target), competitors: s.competitors.map(competitor) })),
     docMgPerL,

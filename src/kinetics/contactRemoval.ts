@@ -29,7 +29,7 @@ import type { BackgroundAtDose, CompetitionSet, DoseAtRemoval, RemainingAtDose, 
 import { prepareKinetics, type CarbonParticle, type KineticComponent, type PreparedKinetics } from './kineticMixture.js';
 import { checkTimes, DEFAULT_KINETIC_RTOL, pacBatch, type KineticSolverOptions } from './pacBatch.js';
 import { checkContactConditions, STIRRED_DEFAULT_RTOL, stirredReactor, stirredReactorFrom } from './stirredReactor.js';
-import { ContactSolveStore, nearestOutlets, sharedBackground, sharedBackgroundKey, type SharedBackground, type SharedSlot, type StirredOutlet } from './sharedBackground.js';
+import { ContactSolveStore, nearestOutlets, sharedBackground, solveConditions, sharedBackgroundKey, type ModelSolves, type SharedBackground, type SharedSlot, type StirredOutlet } from './sharedBackground.js';
 import { traceDoseRoot } from './traceDoseRoot.js';
 
 export type ContactConditions =
@@ -91,31 +91,44 @@ export function doseUnderContact(pk: PreparedKinetics, targetIndex: number, remo
 }
 
 /**
- * remainingUnderContact over the doses of one search: remembers every dose's result (a dose
- * asked again costs nothing) and starts each stirred reactor from the outlet and the balance
- * Jacobian at the nearest dose already solved (warm start; the result does not depend on the
- * start beyond the balance tolerance).
+ * remainingUnderContact over the doses of one search, or of one compound solved on its own in a
+ * ContactRemoval: remembers every dose's result (a dose asked again costs nothing) and starts each
+ * stirred reactor from the outlet and the balance Jacobian at the nearest dose already solved,
+ * before the first at the nearest of `starts` (warm start; the result does not depend on the
+ * start beyond the balance tolerance). With `stored` (a ContactSolveStore's live list for this
+ * mixture, conditions and options) its outlets are starts too, and this one's are added to it;
+ * when the mixture has no trace component, an outlet solved there at exactly the dose is the
+ * result (every adsorbing component is in it; the others stay at c0), as a fresh solve within the
+ * balance tolerance.
  */
-function remainingAtDoses(pk: PreparedKinetics, cond: ContactConditions, options: KineticSolverOptions) {
+function remainingAtDoses(pk: PreparedKinetics, cond: ContactConditions, options: KineticSolverOptions, starts: readonly StirredOutlet[] = [], stored?: StirredOutlet[]) {
   const done = new Map<number, Float64Array>();
   const outlets: StirredOutlet[] = [];
   const at = (d: number): Float64Array => {
     const hit = done.get(d);
     if (hit) return hit;
     let f: Float64Array;
-    if (cond.kind === 'plug-flow') f = remainingUnderContact(pk, d, cond, options);
+    const same = stored && !pk.trace.length ? stored.find((o) => o.dose === d) : undefined;
+    if (same) f = Float64Array.from(pk.components, (_c, i) => { const k = pk.coupled.indexOf(i); return k >= 0 ? same.coupled[k]! : 1; });
+    else if (cond.kind === 'plug-flow') f = remainingUnderContact(pk, d, cond, options);
     else {
-      const [near, second] = nearestOutlets(outlets, d);
+      const known = stored ?? outlets; // the store holds this one's outlets too
+      const [near, second] = nearestOutlets(known.length ? known : starts, d);
       const res = stirredReactorFrom(pk, d, cond.contactTimeS, cond.carbonAgeS, options, near?.coupled, near?.jacobian, near?.dose, second && { dose: second.dose, remaining: second.coupled });
       const c = res.cMgPerL;
-      outlets.push({ dose: d, coupled: Float64Array.from(pk.coupled, (i) => c[i]! / pk.components[i]!.c0MgPerL), ...(res.balanceJacobian ? { jacobian: res.balanceJacobian } : {}) });
+      const outlet = { dose: d, coupled: Float64Array.from(pk.coupled, (i) => c[i]! / pk.components[i]!.c0MgPerL), ...(res.balanceJacobian ? { jacobian: res.balanceJacobian } : {}) };
+      outlets.push(outlet);
+      stored?.push(outlet);
       f = remainingFraction(pk, c);
     }
     done.set(d, f);
     return f;
   };
-  return Object.assign(at, { evaluations: () => done.size });
+  return Object.assign(at, { evaluations: () => done.size, solved: done as ReadonlyMap<number, Float64Array>, outlets: outlets as readonly StirredOutlet[] });
 }
+
+/** A compound's solves on its own (not trace, or alone with its competitors): remainingAtDoses on its own mixture. */
+type OwnSolves = ReturnType<typeof remainingAtDoses>;
 
 function pct(f: number): string {
   return `${(f * 100).toPrecision(4)} %`;
@@ -127,7 +140,10 @@ function pct(f: number): string {
  * per dose gives all of them, every dose solved is remembered, and `doseForRemoval` finds each
  * target's dose on those shared solves (traceDoseRoot.ts), so a carbon's whole design solves the
  * background at a few doses instead of once per target and dose. Other targets (not trace in
- * their water, or with their own competitors) are solved on their own, as before.
+ * their water, or with their own competitors) are solved on their own mixture, each dose once,
+ * every stirred solve started from the nearest outlet already solved (remainingAtDoses: of this
+ * model, of the store's models with the same mixture, or before those of the model at the nearby
+ * DOC, doses scaled by DOC); their doses are left to the design layer's search.
  */
 export class ContactRemoval implements RemovalModel {
   readonly kind: string;
@@ -152,6 +168,10 @@ export class ContactRemoval implements RemovalModel {
   private readonly shared: Array<SharedSlot | undefined>;
   /** The background components' indices in a shared background with the same components, if any. */
   private readonly bgShared?: { group: SharedBackground; at: number[] };
+  /** The solves of each compound solved on its own (made at its first dose; undefined for the shared ones). */
+  private readonly own: Array<OwnSolves | undefined>;
+  /** The key of this water's family in the store (the same water at other DOCs, under conditions that solve alike: solveConditions). */
+  private readonly family: string;
 
   constructor(
     readonly sets: readonly CompetitionSet[],
@@ -163,11 +183,13 @@ export class ContactRemoval implements RemovalModel {
     /** Share trace targets' backgrounds (default true; false solves every target on its own, for tests). */
     readonly shareBackground = true,
     /** The same water at another DOC (atDoc), whose solves give starts: doses scaled by `factor` = this DOC / its DOC. */
-    private nearDoc?: { shared: ReadonlyArray<SharedSlot | undefined>; factor: number },
+    private nearDoc?: ModelSolves & { factor: number },
     /**
-     * Solves kept across the models of one factory (contactFactory): starts for groups with the
-     * same background or target, and, in place of `nearDoc`, the model of the same water at the
-     * nearest DOC already solved (the family key: the competitors' c0 per mg DOC).
+     * Solves kept across the models of one factory (contactFactory), or of the factories of one
+     * carbon under several contact conditions (keyed by the conditions as they decide a solve:
+     * solveConditions): starts for groups with the same background or target, and, in place of
+     * `nearDoc`, the model of the same water at the nearest DOC already solved (the family key:
+     * the competitors' c0 per mg DOC).
      */
     private readonly store?: ContactSolveStore,
   ) {
@@ -184,8 +206,10 @@ export class ContactRemoval implements RemovalModel {
       if (key !== undefined) byKey.set(key, [...(byKey.get(key) ?? []), i]);
     });
     this.shared = this.prepared.map(() => undefined);
+    this.own = this.prepared.map(() => undefined);
     const perDoc = (cs: readonly FreundlichComponent[]) => cs.map((c) => ({ ...c, c0MgPerL: Number((c.c0MgPerL / docMgPerL).toPrecision(12)) }));
-    const family = store ? JSON.stringify([sets.map((s) => [s.target, perDoc(s.competitors)]), background ? perDoc(background) : null, particle, conditions, options, shareBackground]) : '';
+    // the fictive background for the surrogates is left out: it is solved with a group or on its own, never a start
+    const family = this.family = store ? JSON.stringify([sets.map((s) => [s.target, perDoc(s.competitors)]), particle, solveConditions(conditions), options, shareBackground]) : '';
     if (store) nearDoc = store.nearestModel(family, docMgPerL) ?? nearDoc;
     this.nearDoc = nearDoc;
     for (const members of byKey.values()) {
@@ -200,7 +224,20 @@ export class ContactRemoval implements RemovalModel {
       this.backgroundC0MgPerL = Float64Array.from(background, (c) => c.c0MgPerL);
       this.bgShared = backgroundInGroup(this.bgPrepared, this.shared);
     }
-    store?.registerModel(family, docMgPerL, this.shared);
+    store?.registerModel(family, docMgPerL, { shared: this.shared, own: this.own });
+  }
+
+  /** The solves of compound `index` on its own mixture (see the class comment). */
+  private ownSolves(index: number): OwnSolves {
+    let o = this.own[index];
+    if (!o) {
+      const pk = this.prepared[index]!;
+      const near = this.nearDoc?.own[index];
+      const starts = near ? near.outlets.map((x) => ({ ...x, dose: x.dose * this.nearDoc!.factor })) : [];
+      o = remainingAtDoses(pk, this.conditions, this.options, starts, this.store?.outletsOf(ownKey(pk, this.conditions, this.options)));
+      this.own[index] = o;
+    }
+    return o;
   }
 
   remaining(index: number, doseGPerL: number, warm?: WarmStart): RemainingAtDose {
@@ -208,13 +245,19 @@ export class ContactRemoval implements RemovalModel {
     if (!pk) throw new InputError(`compound index ${index} is not in the model (${this.prepared.length} compounds)`);
     if (doseGPerL === 0) return { remainingFraction: 1, warm };
     const sh = this.shared[index];
-    if (sh) return { remainingFraction: sh.group.remainingAt(doseGPerL)[sh.at]!, warm };
-    return { remainingFraction: remainingUnderContact(pk, doseGPerL, this.conditions, this.options)[0]!, warm };
+    if (sh) {
+      // a dose this group has not solved but another of the store has, for the same background and target (ContactSolveStore)
+      const kept = sh.group.solved.has(doseGPerL) ? undefined : sh.group.storedAt(sh.at - sh.group.competitorCount, doseGPerL);
+      return { remainingFraction: kept ?? sh.group.remainingAt(doseGPerL)[sh.at]!, warm };
+    }
+    return { remainingFraction: this.ownSolves(index)(doseGPerL)[0]!, warm };
   }
 
   /**
    * The dose for a goal of a target that shares its background, found on the shared solves
-   * (traceDoseRoot), meeting the goal by at most half of `removalTolerance` more; undefined for the other targets, or
+   * (traceDoseRoot) and the target's points kept in the store (solves of other groups with the
+   * same background and target: the same c/c0 to the integrator's accuracy), meeting the goal by
+   * at most half of `removalTolerance` more; undefined for the other targets, or
    * when the goal is not met within the searched doses (the design layer's search then gives the
    * status).
    */
@@ -222,37 +265,75 @@ export class ContactRemoval implements RemovalModel {
     const sh = this.shared[index];
     if (!sh || !(removalFraction > 0 && removalFraction < 1)) return undefined;
     const { group, at } = sh;
-    const known = [...group.solved].map(([d, f]) => [d, f[at]!] as const);
-    const root = traceDoseRoot((d) => group.remainingAt(d)[at]!, known, removalFraction, this.removalTolerance * 0.5, () => this.startDose(index, removalFraction));
+    // this target's c/c0 solved by any group of the store with the same background and target
+    // (the same values to the integrator's accuracy, ContactSolveStore), this group's own where both have a dose
+    const byDose = new Map<number, number>(group.storedPoints(at - group.competitorCount));
+    for (const [d, f] of group.solved) byDose.set(d, f[at]!);
+    const known = [...byDose];
+    const root = traceDoseRoot((d) => group.remainingAt(d)[at]!, known, removalFraction, this.removalTolerance * 0.5, () => this.startDose(index, removalFraction), () => this.predictedDose(index, 1 - removalFraction));
     if (!root) return undefined;
     return { doseGPerL: root.doseGPerL, remainingFraction: root.remainingFraction, ...(withSlope && root.slope !== undefined ? { slope: root.slope } : {}), warm };
   }
 
   /**
-   * The first dose tried when nothing is solved yet: the dose closest to the goal among the same
-   * target's solves kept in the factory's store (another model with the same background and
-   * target); else the dose of the nearby DOC's solve closest to the goal, scaled by DOC; else
-   * 1.5 × the equilibrium dose (contact removes less), or 20 mg/L.
+   * The first dose tried when nothing is solved yet (by this group, or by a group of the store
+   * with the same background and target): from the models of the same water at other DOCs in
+   * the store that have bracketed the goal, each one's dose for it (linear in ln D of the log-odds
+   * between the bracketing solves) taken linear in ln DOC through the two nearest DOCs (one
+   * scaled by DOC when there is one), with the slope of the nearest as the first secant's;
+   * else the nearby model's dose for the goal (`nearDoc`: interpolated as above where its solves
+   * bracket the goal, else its solve closest to the goal), scaled by DOC;
+   * else 1.5 × the equilibrium dose (contact removes less), or 20 mg/L.
    */
-  private startDose(index: number, removalFraction: number): number {
-    const own = this.shared[index];
-    if (own) {
-      let best: number | undefined, gap = Infinity;
-      for (const [d, r] of own.group.storedPoints(own.at - own.group.competitorCount)) { const g = Math.abs(r - (1 - removalFraction)); if (g < gap) { gap = g; best = d; } }
-      if (best !== undefined) return best;
-    }
+  private startDose(index: number, removalFraction: number): number | { doseGPerL: number; slope: number } {
+    const goal = 1 - removalFraction;
+    const predicted = this.predictedDose(index, goal);
+    if (predicted) return predicted;
+    let best: number | undefined, gap = Infinity;
     const near = this.nearDoc?.shared[index];
-    if (near) {
-      let best: number | undefined, gap = Infinity;
-      for (const [d, f] of near.group.solved) { const g = Math.abs(f[near.at]! - (1 - removalFraction)); if (g < gap) { gap = g; best = d; } }
-      if (best !== undefined) return best * this.nearDoc!.factor;
-    }
+    if (near) for (const [d, f] of near.group.solved) { const g = Math.abs(f[near.at]! - goal); if (g < gap) { gap = g; best = d; } }
+    if (best !== undefined) return best * this.nearDoc!.factor;
     try {
       return 1.5 * doseForRemoval(prepareMixture(this.prepared[index]!.components), 0, removalFraction).doseGPerL;
     } catch (e) {
       if (e instanceof InputError || e instanceof ComputationError) return 0.02;
       throw e;
     }
+  }
+
+  /**
+   * The predicted dose for c/c0 = `goal` and the slope of the log-odds there, from the store's
+   * models of this water at other DOCs, else from `nearDoc` (see startDose); also the first dose
+   * the root tries when this model's solves do not meet the goal yet (traceDoseRoot's guess).
+   */
+  private predictedDose(index: number, goal: number): { doseGPerL: number; slope: number } | undefined {
+    const across = this.store ? this.acrossDoc(index, goal) : undefined;
+    if (across) return across;
+    const near = this.nearDoc?.shared[index];
+    if (!near) return undefined;
+    const r = bracketedRoot([...near.group.solved].map(([d, f]) => [d, f[near.at]!] as const), goal);
+    return r ? { doseGPerL: Math.exp(r.x) * this.nearDoc!.factor, slope: r.slope } : undefined;
+  }
+
+  /** startDose from the store's models of this water at other DOCs (see there); undefined when none has bracketed the goal. */
+  private acrossDoc(index: number, goal: number): { doseGPerL: number; slope: number } | undefined {
+    const roots: Array<{ lnDoc: number; x: number; slope: number }> = [];
+    for (const m of this.store!.modelsOf(this.family)) {
+      if (m.doc === this.docMgPerL) continue;
+      const sh = m.solves.shared[index];
+      const own = m.solves.own[index];
+      const pts: Array<readonly [number, number]> = sh ? [...sh.group.solved].map(([d, f]) => [d, f[sh.at]!] as const) : own ? [...own.solved].map(([d, f]) => [d, f[0]!] as const) : [];
+      const r = bracketedRoot(pts, goal);
+      if (r) roots.push({ lnDoc: Math.log(m.doc), ...r });
+    }
+    const here = Math.log(this.docMgPerL);
+    if (!roots.length) return undefined;
+    roots.sort((a, b) => Math.abs(a.lnDoc - here) - Math.abs(b.lnDoc - here));
+    const a = roots[0]!;
+    const b = roots.find((r) => r.lnDoc !== a.lnDoc);
+    // through the two nearest DOCs; from one, the dose scaled by DOC (the dose per mg DOC roughly constant)
+    const x = b ? a.x + ((b.x - a.x) * (here - a.lnDoc)) / (b.lnDoc - a.lnDoc) : a.x + (here - a.lnDoc);
+    return Number.isFinite(x) ? { doseGPerL: Math.exp(x), slope: a.slope } : undefined;
   }
 
   backgroundRemaining(doseGPerL: number, warm?: WarmStart): BackgroundAtDose {
@@ -269,8 +350,36 @@ export class ContactRemoval implements RemovalModel {
   atDoc(docMgPerL: number): ContactRemoval {
     const f = docMgPerL / this.docMgPerL;
     const scale = (cs: readonly FreundlichComponent[]) => cs.map((c) => ({ ...c, c0MgPerL: c.c0MgPerL * f }));
-    return new ContactRemoval(this.sets.map((s) => ({ target: s.target, competitors: scale(s.competitors) })), docMgPerL, this.particle, this.conditions, this.background ? scale(this.background) : undefined, this.options, this.shareBackground, { shared: this.shared, factor: f }, this.store);
+    return new ContactRemoval(this.sets.map((s) => ({ target: s.target, competitors: scale(s.competitors) })), docMgPerL, this.particle, this.conditions, this.background ? scale(this.background) : undefined, this.options, this.shareBackground, { shared: this.shared, own: this.own, factor: f }, this.store);
   }
+}
+
+/**
+ * ln D where c/c0 = `goal`, linear in ln D of the log-odds between the two solved points nearest
+ * it on either side, with that secant's slope; undefined unless the points bracket the goal.
+ */
+function bracketedRoot(points: Iterable<readonly [number, number]>, goal: number): { x: number; slope: number } | undefined {
+  const yGoal = Math.log((1 - goal) / goal);
+  let lo: { x: number; y: number } | undefined, hi: { x: number; y: number } | undefined;
+  for (const [d, r] of points) {
+    if (!(r > 0 && r < 1)) continue;
+    const p = { x: Math.log(d), y: Math.log((1 - r) / r) };
+    if (p.y < yGoal) { if (!lo || p.x > lo.x) lo = p; } else if (!hi || p.x < hi.x) hi = p;
+  }
+  if (!lo || !hi || !(hi.x > lo.x) || !(hi.y > lo.y)) return undefined;
+  const slope = (hi.y - lo.y) / (hi.x - lo.x);
+  return { x: lo.x + (yGoal - lo.y) / slope, slope };
+}
+
+/**
+ * The store's key of a compound's own mixture under the conditions and solver options (its
+ * outlets): the adsorbing components alone (coupled or trace; the others have no block in the
+ * particle), each c0 to 12 significant digits, and the split by id (as the store's background key).
+ */
+function ownKey(pk: PreparedKinetics, cond: ContactConditions, options: KineticSolverOptions): string {
+  const comps = [...pk.coupled, ...pk.trace].sort((a, b) => a - b).map((i) => { const c = pk.components[i]!; return [i === 0, c.id, Number(c.c0MgPerL.toPrecision(12)), c.K, c.oneOverN, c.dsM2PerS ?? null, pk.kfMPerS[i]]; });
+  const ids = (l: readonly number[]) => l.map((i) => pk.components[i]!.id);
+  return JSON.stringify(['own', comps, ids(pk.coupled), ids(pk.trace), pk.particle, solveConditions(cond), options]);
 }
 
 /**

@@ -21,9 +21,13 @@
  * With a ContactSolveStore (one per model factory: contactFactory) the outlets already solved by
  * any group of that factory with the same background, conditions and solver options are starts
  * too (the background's balance does not depend on the targets), and every target's c/c0 at the
- * doses solved is kept there for a later group holding the same target (its first dose tried);
- * and the models of one water at other DOCs are kept there too, so that a model at a new DOC
- * starts from the one at the nearest DOC already solved (ContactRemoval).
+ * doses solved is kept there for a later group holding the same target: points of its curve for
+ * the dose root (ContactRemoval.doseForRemoval) and its c/c0 at exactly those doses
+ * (ContactRemoval.remaining), equal to that group's own solve at the dose to
+ * the integrator's accuracy (the steps are pinned for the other group's blocks, and its balance
+ * started elsewhere: within removalTolerance); and the models of one water at other DOCs are
+ * kept there too, so that a model at a new DOC starts from the ones at the nearest DOCs already
+ * solved (ContactRemoval).
  *
  * Units: dose g/L, times s, concentrations mg/L.
  * @throws ComputationError when a kinetic solve fails.
@@ -48,6 +52,8 @@ export interface SharedBackground {
   readonly outlets: ReadonlyArray<StirredOutlet>;
   /** (dose g/L, c/c0) of target k (0-based among the targets) solved by any group of the same store, when there is one. */
   storedPoints(k: number): ReadonlyArray<readonly [number, number]>;
+  /** c/c0 of target k at exactly this dose solved by any group of the same store, if one has. */
+  storedAt(k: number, doseGPerL: number): number | undefined;
 }
 
 /** A solved stirred-reactor outlet: the dose, c_out/c0 of the coupled components and the balance Jacobian there. */
@@ -56,31 +62,46 @@ export interface StirredOutlet { dose: number; coupled: Float64Array; jacobian?:
 /** A compound's shared background in a model and its component index there. */
 export interface SharedSlot { group: SharedBackground; at: number }
 
+/** A compound solved on its own in a model (not a trace target): its doses solved (c/c0 of its own mixture, the compound first) and stirred outlets. */
+export interface OwnSlot { readonly solved: ReadonlyMap<number, Float64Array>; readonly outlets: ReadonlyArray<StirredOutlet> }
+
+/** The solves of one contact model by compound (a live view: filled as the model solves): shared backgrounds, and the compounds solved on their own. */
+export interface ModelSolves { shared: ReadonlyArray<SharedSlot | undefined>; own: ReadonlyArray<OwnSlot | undefined> }
+
 /**
  * Solves kept across the contact models made by one model factory (contactFactory; never
  * module-wide, so that nothing depends on what else ran in the process): the stirred outlets of
  * each background, and each target's c/c0 at the doses solved, keyed by the values that decide
- * them. Only starts are taken from it: a result does not depend on them beyond the balance
- * tolerance and the dose root's tolerance.
+ * them (the background by its adsorbing components alone, c0 to 12 significant digits: the same
+ * water reached by another sum is the same key). The outlets are starts only (a result does not
+ * depend on them beyond the balance tolerance), except that a compound solved on its own takes
+ * an outlet of its mixture at exactly the dose as its result (ContactRemoval); a target's c/c0
+ * are points of its curve for a dose root and its result at exactly such a dose, each within the
+ * model's removalTolerance of a fresh solve at that dose, so a dose found on them meets the goal
+ * within that accuracy too.
  */
 export class ContactSolveStore {
   private readonly outlets = new Map<string, StirredOutlet[]>();
-  private readonly points = new Map<string, Array<readonly [number, number]>>();
-  private readonly models = new Map<string, Array<{ doc: number; shared: ReadonlyArray<SharedSlot | undefined> }>>();
-  /** Registers the shared backgrounds of a model of a family (the same water scaled by DOC: ContactRemoval's family key) at a DOC. */
-  registerModel(family: string, docMgPerL: number, shared: ReadonlyArray<SharedSlot | undefined>): void {
+  private readonly points = new Map<string, { list: Array<readonly [number, number]>; byDose: Map<number, number> }>();
+  private readonly models = new Map<string, Array<{ doc: number; solves: ModelSolves }>>();
+  /** Registers the solves of a model of a family (the same water scaled by DOC: ContactRemoval's family key) at a DOC. */
+  registerModel(family: string, docMgPerL: number, solves: ModelSolves): void {
     let l = this.models.get(family);
     if (!l) { l = []; this.models.set(family, l); }
-    l.push({ doc: docMgPerL, shared });
+    l.push({ doc: docMgPerL, solves });
   }
   /** The model of the family at the DOC nearest `docMgPerL` (in ln DOC) that has solved a dose, and the factor this DOC / its DOC. */
-  nearestModel(family: string, docMgPerL: number): { shared: ReadonlyArray<SharedSlot | undefined>; factor: number } | undefined {
-    let best: { doc: number; shared: ReadonlyArray<SharedSlot | undefined> } | undefined, gap = Infinity;
+  nearestModel(family: string, docMgPerL: number): ModelSolves & { factor: number } | undefined {
+    let best: { doc: number; solves: ModelSolves } | undefined, gap = Infinity;
     for (const m of this.models.get(family) ?? []) {
       const g = Math.abs(Math.log(m.doc / docMgPerL));
-      if (g < gap && m.shared.some((sh) => sh && sh.group.solved.size > 0)) { gap = g; best = m; }
+      if (g < gap && (m.solves.shared.some((sh) => sh && sh.group.solved.size > 0) || m.solves.own.some((o) => o && o.solved.size > 0))) { gap = g; best = m; }
     }
-    return best ? { shared: best.shared, factor: docMgPerL / best.doc } : undefined;
+    return best ? { ...best.solves, factor: docMgPerL / best.doc } : undefined;
+  }
+  /** Every model of the family registered so far, with its DOC. */
+  modelsOf(family: string): ReadonlyArray<{ doc: number; solves: ModelSolves }> {
+    return this.models.get(family) ?? [];
   }
   /** The outlets of a background key (a live list: append to it). */
   outletsOf(key: string): StirredOutlet[] {
@@ -88,10 +109,10 @@ export class ContactSolveStore {
     if (!l) { l = []; this.outlets.set(key, l); }
     return l;
   }
-  /** The (dose g/L, c/c0) points of a target key (a live list: append to it). */
-  pointsOf(key: string): Array<readonly [number, number]> {
+  /** The (dose g/L, c/c0) points of a target key (a live list), and c/c0 by dose. */
+  pointsOf(key: string): { list: Array<readonly [number, number]>; byDose: Map<number, number> } {
     let l = this.points.get(key);
-    if (!l) { l = []; this.points.set(key, l); }
+    if (!l) { l = { list: [], byDose: new Map() }; this.points.set(key, l); }
     return l;
   }
 }
@@ -105,6 +126,31 @@ export function sharedBackgroundKey(own: PreparedKinetics): string | undefined {
   if (!own.trace.includes(0)) return undefined;
   const comps = own.components.slice(1).map((c, k) => [c.id, c.c0MgPerL, c.K, c.oneOverN, c.dsM2PerS ?? null, own.kfMPerS[k + 1]]);
   return JSON.stringify([comps, own.coupled, own.trace.filter((i) => i > 0)]);
+}
+
+/**
+ * The contact conditions as far as they decide a solve, for the store's keys: a stirred tank's
+ * outlet depends on the carbon age θ = max(θ, τ) alone (the age distribution of the carbon and the
+ * balance c0 − c_out = D·∫q̄E dt; the residence τ enters only the carbon held, D·θ/τ:
+ * stirredReactor), so tanks with the same θ share their solves (e.g. a sensitivity case that
+ * changes τ with recirculation); plug flow is its contact time.
+ */
+export function solveConditions(cond: ContactConditions): { kind: ContactConditions['kind']; timeS: number } {
+  return cond.kind === 'stirred' ? { kind: 'stirred', timeS: Math.max(cond.carbonAgeS, cond.contactTimeS) } : { kind: 'plug-flow', timeS: cond.contactTimeS };
+}
+
+/**
+ * The store's key of a background: sharedBackgroundKey on the adsorbable competitors alone (those
+ * coupled or trace; a component that does not adsorb has no block in the particle and leaves
+ * every result unchanged, e.g. the non-adsorbable DOC that a sensitivity case scales), the split
+ * by id, and each c0 to 12 significant digits (the same water reached by another sum, such as
+ * DOC × 0.8 and the adsorbable part × 0.8 at the design DOC).
+ */
+function storeBackgroundKey(own: PreparedKinetics): string {
+  const adsorbs = new Set([...own.coupled, ...own.trace]);
+  const comps = own.components.flatMap((c, i) => (i > 0 && adsorbs.has(i) ? [[c.id, Number(c.c0MgPerL.toPrecision(12)), c.K, c.oneOverN, c.dsM2PerS ?? null, own.kfMPerS[i]]] : []));
+  const ids = (l: readonly number[]) => l.filter((i) => i > 0).map((i) => own.components[i]!.id);
+  return JSON.stringify([comps, ids(own.coupled), ids(own.trace)]);
 }
 
 /**
@@ -127,9 +173,9 @@ export function sharedBackground(own: readonly PreparedKinetics[], particle: Car
   const outlets: StirredOutlet[] = [];
   // the store's keys: the background (competitors and split) with the particle, the conditions and
   // the solver options; each target with its own values and film coefficient beside it
-  const bgKey = store ? JSON.stringify([sharedBackgroundKey(first), particle, cond, options]) : '';
+  const bgKey = store ? JSON.stringify([storeBackgroundKey(first), particle, solveConditions(cond), options]) : '';
   const stored = store?.outletsOf(bgKey);
-  const emptyPoints: Array<readonly [number, number]> = [];
+  const emptyPoints = { list: [] as Array<readonly [number, number]>, byDose: new Map<number, number>() };
   const points = own.map((p) => (store ? store.pointsOf(JSON.stringify([bgKey, p.components[0], p.kfMPerS[0]])) : emptyPoints));
   const fraction = (c: Float64Array) => Float64Array.from(pk.components, (comp, i) => (comp.c0MgPerL > 0 ? Math.min(1, Math.max(0, c[i]! / comp.c0MgPerL)) : 1));
   const remainingAt = (d: number): Float64Array => {
@@ -148,10 +194,10 @@ export function sharedBackground(own: readonly PreparedKinetics[], particle: Car
       f = fraction(c);
     }
     solved.set(d, f);
-    if (store) points.forEach((list, k) => list.push([d, f[nC + k]!]));
+    if (store) points.forEach((p, k) => { p.list.push([d, f[nC + k]!]); p.byDose.set(d, f[nC + k]!); });
     return f;
   };
-  return { pk, competitorCount: nC, remainingAt, solved, outlets, storedPoints: (k) => points[k] ?? emptyPoints };
+  return { pk, competitorCount: nC, remainingAt, solved, outlets, storedPoints: (k) => (points[k] ?? emptyPoints).list, storedAt: (k, d) => points[k]?.byDose.get(d) };
 }
 
 /** The two outlets nearest a dose in ln D (the start of a stirred solve and a second point for its predictor). */

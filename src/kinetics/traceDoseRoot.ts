@@ -6,8 +6,9 @@
  * Works on x = ln D and the log-odds of removal y = ln((1 − c/c0)/(c/c0)), increasing in x. In
  * the stirred reactor c/c0 = 1/(1 + D·Φ_T) gives y = ln D + ln Φ_T with Φ_T varying slowly
  * with D, so y is nearly linear in x with slope 1 (ours; it holds roughly for plug flow too).
- * Each step is a secant through the two solved points nearest the goal in y (slope 1 from a
- * single point), at most 3 in ln D beyond the points, kept inside the bracket once the goal is
+ * Each step is a secant through the two solved points nearest the goal in y (from a single
+ * point the slope that came with the start, e.g. that of the same target at a nearby DOC, else 1),
+ * at most 3 in ln D beyond the points, kept inside the bracket once the goal is
  * bracketed and replaced by bisection when the nearest point's distance to the goal in y does not
  * halve in two steps (the safeguard
  * of Brent 1973, simplified). It stops at |c/c0 − (1 − R)| ≤ tolerance.
@@ -40,9 +41,14 @@ interface Point { x: number; r: number; y: number }
  * @param known       doses (g/L) already solved, with the target's c/c0 there
  * @param removalFraction the goal R, 0 < R < 1
  * @param tolerance   |c/c0 − (1 − R)| accepted
- * @param start       the first dose to solve when nothing is known, g/L (asked only then)
+ * @param start       the first dose to solve when nothing is known, g/L (asked only then), with
+ *                    the slope dy/d ln D to take from a single point when it knows one
+ * @param guess       a predicted root with its slope (e.g. the same target's root at a nearby DOC
+ *                    or under nearby conditions), asked when points are known but none meets the
+ *                    goal: solved first (inside the bracket), and the next step taken from it with
+ *                    that slope rather than a secant to a far point
  */
-export function traceDoseRoot(remainingAt: (doseGPerL: number) => number, known: Iterable<readonly [number, number]>, removalFraction: number, tolerance: number, start: () => number): TraceDoseRoot | undefined {
+export function traceDoseRoot(remainingAt: (doseGPerL: number) => number, known: Iterable<readonly [number, number]>, removalFraction: number, tolerance: number, start: () => number | { doseGPerL: number; slope?: number }, guess?: () => { doseGPerL: number; slope: number } | undefined): TraceDoseRoot | undefined {
   if (!(removalFraction > 0 && removalFraction < 1)) return undefined;
   const rGoal = 1 - removalFraction;
   // aim half the tolerance past the goal and accept only doses that meet it (c/c0 ≤ 1 − R): a
@@ -57,6 +63,8 @@ export function traceDoseRoot(remainingAt: (doseGPerL: number) => number, known:
   const pts: Point[] = [];
   for (const [d, r] of known) if (d >= MIN_DOSE_G_PER_L && d <= MAX_DOSE_G_PER_L) pts.push({ x: Math.log(d), r, y: logOdds(r) });
   let solves = 0;
+  let singleSlope = 1;
+  let guessed: { x: number; slope: number } | undefined; // the guess solved, while it is the nearest point
   let lastResidual = Infinity;
   let olderResidual = Infinity;
   for (;;) {
@@ -73,10 +81,24 @@ export function traceDoseRoot(remainingAt: (doseGPerL: number) => number, known:
     const finite = pts.filter((p) => Number.isFinite(p.y)).sort((a, b) => Math.abs(a.y - yGoal) - Math.abs(b.y - yGoal));
     const p1 = finite[0];
     let x: number;
-    if (!p1) x = lo ? lo.x + MAX_STEP : hi ? hi.x - MAX_STEP : Math.log(start());
-    else {
+    const g = solves === 0 && p1 && guess ? guess() : undefined;
+    if (g && g.doseGPerL > 0 && Number.isFinite(g.doseGPerL) && g.slope > 0 && Number.isFinite(g.slope) && (!lo || Math.log(g.doseGPerL) > lo.x) && (!hi || Math.log(g.doseGPerL) < hi.x)) {
+      x = Math.log(g.doseGPerL);
+      guessed = { x, slope: g.slope };
+    } else if (p1 && guessed && p1.x === guessed.x) {
+      x = p1.x + (yGoal - p1.y) / guessed.slope;
+      x = Math.min(p1.x + MAX_STEP, Math.max(p1.x - MAX_STEP, x));
+    } else if (!p1) {
+      if (lo) x = lo.x + MAX_STEP;
+      else if (hi) x = hi.x - MAX_STEP;
+      else {
+        const st = start();
+        if (typeof st === 'number') x = Math.log(st);
+        else { x = Math.log(st.doseGPerL); if (st.slope !== undefined && st.slope > 0 && Number.isFinite(st.slope)) singleSlope = st.slope; }
+      }
+    } else {
       const p2 = finite.find((p) => Math.abs(p.x - p1.x) > 1e-12);
-      const s = p2 ? (p1.y - p2.y) / (p1.x - p2.x) : 1;
+      const s = p2 ? (p1.y - p2.y) / (p1.x - p2.x) : singleSlope;
       x = p1.x + (yGoal - p1.y) / (s > 0 && Number.isFinite(s) ? s : 1);
       x = Math.min(p1.x + MAX_STEP, Math.max(p1.x - MAX_STEP, x));
     }

@@ -20,10 +20,11 @@ import { reducedLoading } from '../design/reducedLoading.js';
 import { removalCurves } from '../design/removalCurves.js';
 import { indicatorCheckAt, type IndicatorGoal } from '../design/indicatorGoal.js';
 import { dailyDoses } from '../design/dailyDoses.js';
-import { doseTable, yearlyAtOneDose } from '../design/doseTable.js';
+import { doseTable, yearlyAtOneDose, type DoseTable } from '../design/doseTable.js';
 import { carbonKgPerD } from '../design/carbonCost.js';
 import { carbonModel } from '../design/carbonModel.js';
 import { contactFactory } from '../kinetics/contactModel.js';
+import { ContactSolveStore } from '../kinetics/sharedBackground.js';
 import { contactFigures } from './contactStep.js';
 import { contactCurvesStep } from './contactCurvesStep.js';
 import { kineticCalibrationStep } from './kineticCalibrationStep.js';
@@ -41,7 +42,7 @@ import { gacKineticStep } from './gacKineticStep.js';
 import { columnCalibrationStep } from './columnCalibrationStep.js';
 import { gacKineticFigures } from './gacKineticFigures.js';
 import { sweepCovering } from '../design/sweepCovering.js';
-import { docRange, doseAgainstDocStep } from './doseAgainstDocStep.js';
+import { docRange, doseAgainstDocStep, requiredAtDocs } from './doseAgainstDocStep.js';
 import { sensitivityStep } from './sensitivityStep.js';
 import { GAC_UPPER_BOUND_CAUTION } from '../gac/gacEstimate.js';
 import { InputError } from '../core/errors.js';
@@ -134,7 +135,9 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
       for (const f of kinCal.fits) res.warnings.push(...f.warnings.map((w) => `kinetic calibration of ${f.parameter === 'doc_Ds' ? 'doc_Ds' : `Ds of ${f.compoundId}`}: ${w}`));
     }
     const problem = designProblem(project, carbon, goalList, cb);
-    const factory = contactFactory(project.site.pacContact, carbon, options.kinetic);
+    // one store of contact solves per carbon, for the run's models and the sensitivity cases under other contact conditions
+    const contactStore = new ContactSolveStore();
+    const factory = contactFactory(project.site.pacContact, carbon, options.kinetic, contactStore);
     const bgAtDoc = cb.background ? surrogateModel(cb.background, doc, cb.backgroundKFactor).background : undefined;
     const model = carbonModel(systems, doc, bgAtDoc, factory);
     progress({ step: `${carbon.name}: doses at the design DOC`, done: ci, total: project.carbons.length });
@@ -168,11 +171,12 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
     } else {
       res.warnings.push('no goal is reachable with this carbon; no dose or cost');
     }
+    let table: DoseTable | undefined;
     if (input.series) {
       const series = input.series;
       progress({ step: `${carbon.name}: daily doses`, done: 0, total: series.dates.length });
-      const table = timed('daily doses', () => doseTable(model, problem, series.docMgPerL, req));
-      res.daily = timed('daily doses', () => dailyDoses(carbon, series, table));
+      table = timed('daily doses', () => doseTable(model, problem, series.docMgPerL, req));
+      res.daily = timed('daily doses', () => dailyDoses(carbon, series, table!));
       progress({ step: `${carbon.name}: daily doses`, done: series.dates.length, total: series.dates.length });
       res.yearly = { carbonKg: res.daily.yearlyCarbonKg, cost: res.daily.yearlyCost, basis: yearlyLabel('DOC series', series.dates.length), annualised: res.daily.annualised };
       const missing = res.daily.rows.length - res.daily.daysWithDose;
@@ -182,8 +186,8 @@ export function runPipeline(input: PipelineInput, options: PipelineOptions = {})
     }
     if (req.doseMgPerL !== null) {
       progress({ step: `${carbon.name}: dose against DOC and sensitivity`, done: ci, total: project.carbons.length });
-      res.doseAgainstDoc = timed('dose against DOC', () => doseAgainstDocStep(carbon.name, req, (d) => designDose(model.atDoc(d), problem, req), docRange(doc, input.series?.docMgPerL)));
-      const sens = timed('sensitivity', () => sensitivityStep({ carbon, systems, problem, modelOf: (s, d) => carbonModel(s, d, undefined, factory), ...(project.site.pacContact ? { contact: { conditions: project.site.pacContact, modelWith: (s: readonly CompoundSystem[], d: number, c: ContactConditions) => carbonModel(s, d, undefined, contactFactory(c, carbon, options.kinetic)) } } : {}), docMgPerL: doc, flowM3PerD: project.site.flowM3PerD, ...(input.series ? { series: input.series } : {}), required: req, yearly: res.yearly! }));
+      res.doseAgainstDoc = timed('dose against DOC', () => doseAgainstDocStep(carbon.name, req, requiredAtDocs(model, problem, req, table), docRange(doc, input.series?.docMgPerL)));
+      const sens = timed('sensitivity', () => sensitivityStep({ carbon, systems, problem, modelOf: (s, d) => carbonModel(s, d, undefined, factory), ...(project.site.pacContact ? { contact: { conditions: project.site.pacContact, modelWith: (s: readonly CompoundSystem[], d: number, c: ContactConditions) => carbonModel(s, d, undefined, contactFactory(c, carbon, options.kinetic, contactStore)) } } : {}), docMgPerL: doc, flowM3PerD: project.site.flowM3PerD, ...(input.series ? { series: input.series } : {}), required: req, yearly: res.yearly! }));
       if (sens) res.sensitivity = sens;
     }
     return res;

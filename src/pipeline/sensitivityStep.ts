@@ -9,7 +9,13 @@
  * case scales the run's yearly carbon mass by the changed price.
  *
  * Under PAC contact conditions the contact time and (stirred tank) the carbon age are cases too,
- * the carbon age kept at least the contact time; at equilibrium they are listed as not modelled. Thin on purpose: when the design model replaces the dose logic, `evaluate` changes.
+ * the carbon age kept at least the contact time; at equilibrium they are listed as not modelled.
+ * The run's models of a carbon under contact keep their kinetic solves in one store
+ * (ContactSolveStore, given to the factories of every case), so a case whose solves are the same
+ * computation as the run's or an earlier case's takes them from there: e.g. the adsorbable
+ * background scaled like the DOC, or the contact time of a stirred tank whose carbon age does not
+ * change (its outlet depends on the age alone). Thin on purpose: when the design model replaces
+ * the dose logic, `evaluate` changes.
  *
  * @throws ComputationError from the solvers, as the run does
  */

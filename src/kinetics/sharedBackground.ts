@@ -18,8 +18,9 @@
  * and each stirred solve starts from the outlet and balance Jacobian at the nearest dose already
  * solved, or, before the first, at the nearest of `starts` (e.g. the same water at another DOC,
  * doses scaled by DOC); the result does not depend on the start beyond the balance tolerance.
- * With a ContactSolveStore (one per model factory: contactFactory) the outlets already solved by
- * any group of that factory with the same background, conditions and solver options are starts
+ * With a ContactSolveStore (given to contactFactory: the run keeps one per carbon, shared by the
+ * factories of its sensitivity cases) the outlets already solved by any group of the models using
+ * it with the same background, conditions and solver options are starts
  * too (the background's balance does not depend on the targets), and every target's c/c0 at the
  * doses solved is kept there for a later group holding the same target: points of its curve for
  * the dose root (ContactRemoval.doseForRemoval) and its c/c0 at exactly those doses
@@ -69,8 +70,8 @@ export interface OwnSlot { readonly solved: ReadonlyMap<number, Float64Array>; r
 export interface ModelSolves { shared: ReadonlyArray<SharedSlot | undefined>; own: ReadonlyArray<OwnSlot | undefined> }
 
 /**
- * Solves kept across the contact models made by one model factory (contactFactory; never
- * module-wide, so that nothing depends on what else ran in the process): the stirred outlets of
+ * Solves kept across the contact models that are given the same store (contactFactory; the run
+ * keeps one per carbon; never module-wide, so that nothing depends on what else ran in the process): the stirred outlets of
  * each background, and each target's c/c0 at the doses solved, keyed by the values that decide
  * them (the background by its adsorbing components alone, c0 to 12 significant digits: the same
  * water reached by another sum is the same key). The outlets are starts only (a result does not

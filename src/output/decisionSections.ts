@@ -46,12 +46,14 @@ export function decisionSection(r: PipelineResult): ReportSection | undefined {
   pac.forEach((cr, k) => {
     const d = cr.doseAgainstDoc;
     if (d) {
-      paragraphs.push(`${cr.carbon.name}: ${fn(d.specificDoseAtDesign, 3)} mg carbon per mg DOC at the design DOC of ${fn(d.designDocMgPerL, 3)} mg/L. Over ${d.rangeSource === 'DOC series' ? 'the DOC range of the series' : 'the design DOC ±50 %'} the required dose is solved anew (IAST, background scaled with DOC) and set beside a constant specific dose (the design value times DOC).`);
+      // under PAC contact conditions the doses are those of the contact model, not of equilibrium IAST
+      const how = cr.contact ? 'contact model at the plant\'s contact conditions, background scaled with DOC' : 'IAST, background scaled with DOC';
+      paragraphs.push(`${cr.carbon.name}: ${fn(d.specificDoseAtDesign, 3)} mg carbon per mg DOC at the design DOC of ${fn(d.designDocMgPerL, 3)} mg/L. Over ${d.rangeSource === 'DOC series' ? 'the DOC range of the series' : 'the design DOC ±50 %'} the required dose is solved anew (${how}) and set beside a constant specific dose (the design value times DOC).`);
       plots.push({
-        kind: 'xy', id: `dose-against-doc-${k + 1}`, title: `Required dose against DOC: IAST scaling and a constant specific dose — ${cr.carbon.name}`,
+        kind: 'xy', id: `dose-against-doc-${k + 1}`, title: `Required dose against DOC: ${cr.contact ? 'the contact model' : 'IAST scaling'} and a constant specific dose — ${cr.carbon.name}`,
         xLabel: 'DOC (mg/L)', yLabel: 'dose (mg/L)',
         series: [
-          { name: 'required dose (IAST, background scaled with DOC)', colour: IAST_LINE, points: d.docMgPerL.flatMap((x, i) => (d.requiredDoseMgPerL[i] === null ? [] : [[x, d.requiredDoseMgPerL[i]!] as [number, number]])) },
+          { name: `required dose (${how})`, colour: IAST_LINE, points: d.docMgPerL.flatMap((x, i) => (d.requiredDoseMgPerL[i] === null ? [] : [[x, d.requiredDoseMgPerL[i]!] as [number, number]])) },
           { name: `constant specific dose ${fn(d.specificDoseAtDesign, 3)} mg/mg DOC`, key: 'reference', style: 'dashed', points: d.docMgPerL.map((x, i) => [x, d.constantRuleDoseMgPerL[i]!] as [number, number]) },
         ],
         vLines: [{ x: d.designDocMgPerL, label: `design DOC ${fn(d.designDocMgPerL, 3)} mg/L` }],
@@ -75,7 +77,7 @@ export function decisionSection(r: PipelineResult): ReportSection | undefined {
         columns: ['input', 'dose, input lowered (mg/L)', 'dose, input raised (mg/L)', `cost per year, lowered (${s.currency})`, `cost per year, raised (${s.currency})`],
         rows: s.rows.map((x) => [x.input, x.doseLowMgPerL === null ? 'unreachable' : fn(x.doseLowMgPerL, 3), x.doseHighMgPerL === null ? 'unreachable' : fn(x.doseHighMgPerL, 3), x.yearlyCostLow === null ? '—' : fmtMoney(x.yearlyCostLow, ''), x.yearlyCostHigh === null ? '—' : fmtMoney(x.yearlyCostHigh, '')]),
       });
-      if (k === 0) paragraphs.push(`Sensitivity: one input at a time, the rest at their design values; K and 1/n of the governing compound (${s.governingCompound}), DOC (the design value and every day of the series), the adsorbable part of the background (DOC kept; the non-adsorbable part takes the difference) and the carbon price. Not modelled in this equilibrium run: ${s.notModelled.join(' and ')}.`);
+      if (k === 0) paragraphs.push(`Sensitivity: one input at a time, the rest at their design values; K and 1/n of the governing compound (${s.governingCompound}), DOC (the design value and every day of the series), the adsorbable part of the background (DOC kept; the non-adsorbable part takes the difference) and the carbon price${s.rows.some((x) => x.key === 'contact_time') ? `; under the plant's PAC contact conditions also the contact time${s.rows.some((x) => x.key === 'carbon_age') ? ' and the carbon age (never below the contact time)' : ''}` : ''}.${s.notModelled.length ? ` Not modelled in this ${s.rows.some((x) => x.key === 'contact_time') ? 'run' : 'equilibrium run'}: ${s.notModelled.join(' and ')}.` : ''}`);
       const docRow = s.rows.find((x) => x.key === 'doc');
       const bgRow = s.rows.find((x) => x.key === 'background');
       const same = (x: number | null | undefined, y: number | null | undefined) => x != null && y != null && Math.abs(x - y) <= 1e-3 * Math.abs(y);

@@ -126,6 +126,18 @@ describe('run under PAC contact conditions', () => {
     expect(lines[2]).toEqual([]); // no carbon age of the plant's own to mark (its stirred-tank case below)
     const plain = buildReportModel(runPipeline(withoutContact(input), { now: NOW }), 'test');
     expect(plain.sections.some((x) => x.id === 'contact-conditions')).toBe(false);
+    // the decision figures say which model gave the doses, and what the sensitivity left out
+    const decisions = (model: typeof m) => {
+      const d = model.sections.find((x) => x.id === 'decisions')!;
+      const fig = d.plots!.find((p) => p.id === 'dose-against-doc-1')!;
+      return { text: d.paragraphs!.join('\n'), legend: fig.kind === 'xy' ? fig.series[0]!.name : '' };
+    };
+    const contact = decisions(m);
+    expect(contact.legend).toBe("required dose (contact model at the plant's contact conditions, background scaled with DOC)");
+    expect(contact.text).toContain("and the carbon price; under the plant's PAC contact conditions also the contact time. Not modelled in this run: carbon age (plug-flow contact).");
+    const equilibrium = decisions(plain);
+    expect(equilibrium.legend).toBe('required dose (IAST, background scaled with DOC)');
+    expect(equilibrium.text).toContain('and the carbon price. Not modelled in this equilibrium run: contact time and carbon age.');
   });
 
   it('"equilibrium" contact leaves the run unchanged: no contact figures, same doses, same run.json', () => {
@@ -152,6 +164,10 @@ describe('run in a stirred contact tank: what recirculation buys', () => {
     // the report's carbon-age figure marks the plant's carbon age (72 h)
     const agePlot = buildReportModel(threeDays.res, 'test').sections.find((x) => x.id === 'contact-conditions')!.plots!.find((p) => p.id === 'carbon-age-1')!;
     expect(agePlot.kind === 'xy' ? agePlot.vLines : undefined).toEqual([{ x: 72, label: 'plant carbon age' }]);
+    // a stirred tank: contact time and carbon age are both cases, nothing is listed as not modelled
+    const sensitivityText = buildReportModel(threeDays.res, 'test').sections.find((x) => x.id === 'decisions')!.paragraphs!.find((x) => x.startsWith('Sensitivity:'))!;
+    expect(sensitivityText).toMatch(/also the contact time and the carbon age \(never below the contact time\)\.$/);
+    expect(sensitivityText).not.toContain('Not modelled');
     // removal rises with carbon age at every dose, so the dose for the goal falls
     expect(threeDays.req).toBeLessThan(noRecirculation.req);
     // contact never removes more than equilibrium (the stirred reactor tends to it as θ grows)

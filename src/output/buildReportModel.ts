@@ -18,7 +18,7 @@ import { carbonLook } from './carbonLooks.js';
 import { calibrationPlot } from './calibrationPlots.js';
 import { withKineticCalibration } from './kineticCalibrationRecord.js';
 import { withColumnCalibration } from './columnCalibrationRecord.js';
-import { contactSection } from './contactPlots.js';
+import { contactSection, describeConditions } from './contactPlots.js';
 import { fmtConcentration as fc, fmtMoney, fmtNumber as fn, fmtWhole } from './formatting.js';
 import type { CarbonResult, PipelineResult } from '../pipeline/pipelineTypes.js';
 import { gacBreakthroughSection } from './gacBreakthroughSection.js';
@@ -114,8 +114,10 @@ function carbonSection(r: PipelineResult, cr: CarbonResult, index: number): Repo
     rows,
   }];
   const paragraphs = [
-    `Required dose ${doseWithSpecific(req.doseMgPerL, req.docMgPerL)}, governed by ${req.governedBy}.${req.indicator?.doseMgPerL != null ? ` The indicator mean reaches its goal at ${mgL(req.indicator.doseMgPerL)}.` : ''}`,
-    'Reduced loading: the loading a compound reaches in the site water (batch IAST beside the background) against its single-solute loading at the same liquid concentration; the ratio is the capacity lost to competition.',
+    `Required dose ${doseWithSpecific(req.doseMgPerL, req.docMgPerL)}${cr.contact ? ` under the plant's PAC contact conditions (${describeConditions(cr.contact)}; ${cr.contact.equilibriumDoseMgPerL === null ? 'no goal reachable at equilibrium' : `${mgL(cr.contact.equilibriumDoseMgPerL)} at equilibrium`}: see the section on PAC contact conditions)` : ''}, governed by ${req.governedBy}.${req.indicator?.doseMgPerL != null ? ` The indicator mean reaches its goal at ${mgL(req.indicator.doseMgPerL)}.` : ''}`,
+    cr.contact
+      ? "Reduced loading: the mean loading a compound reaches on the carbon in the site water under the plant's contact conditions (the contact model's removal and the balance q = (c0 − c)/D) against its single-solute equilibrium loading at the same liquid concentration; the ratio is the capacity lost to competition and to the limited contact."
+      : 'Reduced loading: the loading a compound reaches in the site water (batch IAST beside the background) against its single-solute loading at the same liquid concentration; the ratio is the capacity lost to competition.',
   ];
   if (cr.costPerM3 !== undefined) paragraphs.push(`Carbon cost ${fmtMoney(cr.costPerM3, cr.carbon.currency)} per m³ treated (${fn(req.doseMgPerL!, 3)} g/m³ at ${fmtMoney(cr.carbon.pricePerKg, cr.carbon.currency)}/kg); ${fmtWhole(cr.carbonKgPerDAtDesign!)} kg/d at the design flow.`);
   const plots: PlotSpec[] = [];

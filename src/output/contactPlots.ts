@@ -14,7 +14,8 @@ import { fmtNumber as fn } from './formatting.js';
 const MIN = 60;
 const DAY = 86400;
 
-function describeConditions(c: NonNullable<CarbonResult['contact']>): string {
+/** The plant's contact conditions in words, e.g. "stirred contact tank, residence 30 min, mean carbon age 3 d". */
+export function describeConditions(c: NonNullable<CarbonResult['contact']>): string {
   return c.reactor === 'plug-flow'
     ? `plug-flow contact of ${fn(c.contactTimeS / MIN, 3)} min`
     : `stirred contact tank, residence ${fn(c.contactTimeS / MIN, 3)} min, mean carbon age ${fn(c.carbonAgeS / DAY, 3)} d`;

@@ -135,6 +135,11 @@ describe('run under PAC contact conditions', () => {
     const contact = decisions(m);
     expect(contact.legend).toBe("required dose (contact model at the plant's contact conditions, background scaled with DOC)");
     expect(contact.text).toContain("and the carbon price; under the plant's PAC contact conditions also the contact time. Not modelled in this run: carbon age (plug-flow contact).");
+    // the carbon's own section gives its dose as a dose under contact, beside the equilibrium dose
+    const carbonText = m.sections.find((x) => x.id === 'carbon-1')!.paragraphs!.join('\n');
+    expect(carbonText).toContain(`under the plant's PAC contact conditions (plug-flow contact of 30.0 min; ${cr.contact!.equilibriumDoseMgPerL!.toPrecision(3)} mg/L at equilibrium: see the section on PAC contact conditions)`);
+    expect(carbonText).toContain("the mean loading a compound reaches on the carbon in the site water under the plant's contact conditions");
+    expect(plain.sections.find((x) => x.id === 'carbon-1')!.paragraphs!.join('\n')).toContain('(batch IAST beside the background)');
     const equilibrium = decisions(plain);
     expect(equilibrium.legend).toBe('required dose (IAST, background scaled with DOC)');
     expect(equilibrium.text).toContain('and the carbon price. Not modelled in this equilibrium run: contact time and carbon age.');

@@ -57,7 +57,7 @@ export function headlineFigures(r: PipelineResult): KeyFigure[] {
     ].join('');
     const gd = cr.uncertainty?.result.quantities.find((q) => q.key === 'governing_dose');
     const band = gd && Number.isFinite(gd.p90) ? `; P10–P90 ${fn(gd.p10, 3)}–${fn(gd.p90, 3)} mg/L (Monte Carlo)` : '';
-    figs.push({ label: `${cr.carbon.name}: dose`, value: mgL(req.doseMgPerL), note: `${fn(specificDose(req.doseMgPerL, doc), 3)} mg carbon per mg DOC; required at DOC ${fn(req.docMgPerL, 3)} mg/L, governed by ${req.governedBy}${others}${band}` });
+    figs.push({ label: `${cr.carbon.name}: dose`, value: mgL(req.doseMgPerL), note: `${fn(specificDose(req.doseMgPerL, doc), 3)} mg carbon per mg DOC; required at DOC ${fn(req.docMgPerL, 3)} mg/L${cr.contact ? ` under the plant's PAC contact conditions (${cr.contact.equilibriumDoseMgPerL === null ? 'no goal reachable at equilibrium' : `${mgL(cr.contact.equilibriumDoseMgPerL)} at equilibrium`})` : ''}, governed by ${req.governedBy}${others}${band}` });
     figs.push({ label: `${cr.carbon.name}: goals`, value: unmet.length ? `${unmet.length} goal${unmet.length === 1 ? '' : 's'} not met` : 'all goals met', note: [unmet.length ? unmet.join('; ') : 'every compound goal at the required dose', ...(reportOnlyNote ? [reportOnlyNote] : [])].join('; ') });
     if (cr.costPerM3 !== undefined) figs.push({ label: `${cr.carbon.name}: cost per m³`, value: fmtMoney(cr.costPerM3, cr.carbon.currency), note: 'carbon only, at the required dose' });
     if (cr.yearly) {

@@ -140,6 +140,8 @@ describe('run under PAC contact conditions', () => {
     expect(carbonText).toContain(`under the plant's PAC contact conditions (plug-flow contact of 30.0 min; ${cr.contact!.equilibriumDoseMgPerL!.toPrecision(3)} mg/L at equilibrium: see the section on PAC contact conditions)`);
     expect(carbonText).toContain("the mean loading a compound reaches on the carbon in the site water under the plant's contact conditions");
     expect(plain.sections.find((x) => x.id === 'carbon-1')!.paragraphs!.join('\n')).toContain('(batch IAST beside the background)');
+    const card = m.keyFigures.find((x) => x.label === `${cr.carbon.name}: dose`)!;
+    expect(card.note).toContain(`required at DOC 7.00 mg/L under the plant's PAC contact conditions (${cr.contact!.equilibriumDoseMgPerL!.toPrecision(3)} mg/L at equilibrium), governed by`);
     const equilibrium = decisions(plain);
     expect(equilibrium.legend).toBe('required dose (IAST, background scaled with DOC)');
     expect(equilibrium.text).toContain('and the carbon price. Not modelled in this equilibrium run: contact time and carbon age.');

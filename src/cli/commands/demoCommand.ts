@@ -22,7 +22,7 @@ export const demoCommand: CommandSpec = {
     { flags: '--out <dir>', description: 'output folder (written whole or not at all)', parse: nonEmptyText, default: 'sorbshare-demo' },
     { flags: '--json', description: 'print a JSON summary instead of text' },
     { flags: '--pdf', description: 'also write report.pdf (A4), printed by the installed Chromium' },
-    { flags: '--contact', description: 'the plant with a 30-minute stirred PAC contact tank and 3 days of carbon age (kinetic doses: about half a minute of CPU without draws; add --draws 0 to skip its Monte Carlo, which takes far longer)' },
+    { flags: '--contact', description: 'the plant with a 30-minute stirred PAC contact tank and 3 days of carbon age (kinetic doses: about half a minute of CPU without draws; add --draws 0 to skip its Monte Carlo: 100 contact draws per PAC carbon, about six minutes of CPU)' },
     ...MONTE_CARLO_OPTIONS,
   ],
   examples: ['sorbshare demo', 'sorbshare demo --draws 0', 'sorbshare demo --out demo-output --json', 'sorbshare demo --contact --draws 0 --out demo-contact'],

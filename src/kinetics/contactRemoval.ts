@@ -29,8 +29,8 @@ import type { BackgroundAtDose, CompetitionSet, DoseAtRemoval, RemainingAtDose, 
 import { prepareKinetics, type CarbonParticle, type KineticComponent, type PreparedKinetics } from './kineticMixture.js';
 import { checkTimes, DEFAULT_KINETIC_RTOL, pacBatch, type KineticSolverOptions } from './pacBatch.js';
 import { checkContactConditions, STIRRED_DEFAULT_RTOL, stirredReactor, stirredReactorFrom } from './stirredReactor.js';
-import { ContactSolveStore, nearestOutlets, sharedBackground, solveConditions, sharedBackgroundKey, type ModelSolves, type SharedBackground, type SharedSlot, type StirredOutlet } from './sharedBackground.js';
-import { traceDoseRoot } from './traceDoseRoot.js';
+import { adsorbingComponentsKey, ContactSolveStore, nearestOutlets, sharedBackground, solveConditions, sharedBackgroundKey, type ModelSolves, type SharedBackground, type SharedSlot, type StirredOutlet } from './sharedBackground.js';
+import { logOdds, traceDoseRoot } from './traceDoseRoot.js';
 
 export type ContactConditions =
   | { kind: 'plug-flow'; contactTimeS: number }
@@ -359,11 +359,11 @@ export class ContactRemoval implements RemovalModel {
  * it on either side, with that secant's slope; undefined unless the points bracket the goal.
  */
 function bracketedRoot(points: Iterable<readonly [number, number]>, goal: number): { x: number; slope: number } | undefined {
-  const yGoal = Math.log((1 - goal) / goal);
+  const yGoal = logOdds(goal);
   let lo: { x: number; y: number } | undefined, hi: { x: number; y: number } | undefined;
   for (const [d, r] of points) {
     if (!(r > 0 && r < 1)) continue;
-    const p = { x: Math.log(d), y: Math.log((1 - r) / r) };
+    const p = { x: Math.log(d), y: logOdds(r) };
     if (p.y < yGoal) { if (!lo || p.x > lo.x) lo = p; } else if (!hi || p.x < hi.x) hi = p;
   }
   if (!lo || !hi || !(hi.x > lo.x) || !(hi.y > lo.y)) return undefined;
@@ -373,13 +373,11 @@ function bracketedRoot(points: Iterable<readonly [number, number]>, goal: number
 
 /**
  * The store's key of a compound's own mixture under the conditions and solver options (its
- * outlets): the adsorbing components alone (coupled or trace; the others have no block in the
- * particle), each c0 to 12 significant digits, and the split by id (as the store's background key).
+ * outlets): its adsorbing components (adsorbingComponentsKey, the compound's own included; the
+ * others have no block in the particle), the particle and the conditions as they decide a solve.
  */
 function ownKey(pk: PreparedKinetics, cond: ContactConditions, options: KineticSolverOptions): string {
-  const comps = [...pk.coupled, ...pk.trace].sort((a, b) => a - b).map((i) => { const c = pk.components[i]!; return [i === 0, c.id, Number(c.c0MgPerL.toPrecision(12)), c.K, c.oneOverN, c.dsM2PerS ?? null, pk.kfMPerS[i]]; });
-  const ids = (l: readonly number[]) => l.map((i) => pk.components[i]!.id);
-  return JSON.stringify(['own', comps, ids(pk.coupled), ids(pk.trace), pk.particle, solveConditions(cond), options]);
+  return JSON.stringify(['own', adsorbingComponentsKey(pk, 0), pk.particle, solveConditions(cond), options]);
 }
 
 /**

@@ -91,8 +91,7 @@ export function luFactorLastRowAt(a: Float64Array, off: number, n: number, piv: 
     const rk = off + k * n;
     const f = v * (1 / a[rk + k]!);
     if (f === 0) return false;
-    a[rl + k] = f;
-    for (let j = k + 1; j < n; j++) a[rl + j] = a[rl + j]! - f * a[rk + j]!;
+    eliminateRow(a, rk, rl, k, n, f);
   }
   const best = Math.abs(a[rl + last]!);
   if (!(best > 0) || !Number.isFinite(best)) throw new ComputationError(`${what}: the Newton matrix is singular or not finite (column ${last})`);
@@ -107,8 +106,8 @@ function eliminateRow(a: Float64Array, rk: number, ri: number, k: number, n: num
   for (let j = k + 1; j < n; j++) a[ri + j] = a[ri + j]! - f * a[rk + j]!;
 }
 
-/** Solve with a factorisation from luFactorAt: b[bOff … bOff + n) is overwritten with x. */
-export function luSolveAt(a: Float64Array, off: number, n: number, piv: Int32Array, pOff: number, b: Float64Array, bOff: number): void {
+/** The row exchanges of a factorisation (pivots at piv[pOff …]) applied to b[bOff … bOff + n), in order. */
+function applyPivots(piv: Int32Array, pOff: number, b: Float64Array, bOff: number, n: number): void {
   for (let k = 0; k < n; k++) {
     const p = piv[pOff + k]!;
     if (p !== k) {
@@ -117,6 +116,11 @@ export function luSolveAt(a: Float64Array, off: number, n: number, piv: Int32Arr
       b[bOff + p] = t;
     }
   }
+}
+
+/** Solve with a factorisation from luFactorAt: b[bOff … bOff + n) is overwritten with x. */
+export function luSolveAt(a: Float64Array, off: number, n: number, piv: Int32Array, pOff: number, b: Float64Array, bOff: number): void {
+  applyPivots(piv, pOff, b, bOff, n);
   for (let i = 1; i < n; i++) {
     let s = b[bOff + i]!;
     const row = off + i * n;
@@ -142,17 +146,7 @@ export function luSolveBlocksAt(a: Float64Array, off: number, n: number, piv: In
   const nn = n * n;
   let q = 0;
   for (; q + 3 < count; q += 4) {
-    for (let u = q; u < q + 4; u++) {
-      const po = pOff + u * n, bo = bOff + u * n;
-      for (let k = 0; k < n; k++) {
-        const p = piv[po + k]!;
-        if (p !== k) {
-          const t = b[bo + k]!;
-          b[bo + k] = b[bo + p]!;
-          b[bo + p] = t;
-        }
-      }
-    }
+    for (let u = q; u < q + 4; u++) applyPivots(piv, pOff + u * n, b, bOff + u * n, n);
     const b0 = bOff + q * n, b1 = b0 + n, b2 = b1 + n, b3 = b2 + n;
     const a0 = off + q * nn, a1 = a0 + nn, a2 = a1 + nn, a3 = a2 + nn;
     for (let i = 1; i < n; i++) {
@@ -192,17 +186,7 @@ export function luSolveSharedBlocksAt(a: Float64Array, off: number, n: number, p
   const last = n - 1;
   let q = 0;
   for (; q + 3 < count; q += 4) {
-    for (let u = q; u < q + 4; u++) {
-      const bo = bOff + u * n;
-      for (let k = 0; k < n; k++) {
-        const p = piv[pOff + k]!;
-        if (p !== k) {
-          const t = b[bo + k]!;
-          b[bo + k] = b[bo + p]!;
-          b[bo + p] = t;
-        }
-      }
-    }
+    for (let u = q; u < q + 4; u++) applyPivots(piv, pOff, b, bOff + u * n, n); // the first block's pivots: shared
     const b0 = bOff + q * n, b1 = b0 + n, b2 = b1 + n, b3 = b2 + n;
     const a0 = off + q * nn, a1 = a0 + nn, a2 = a1 + nn, a3 = a2 + nn;
     for (let i = 1; i < last; i++) {

@@ -148,10 +148,20 @@ export function solveConditions(cond: ContactConditions): { kind: ContactConditi
  * DOC × 0.8 and the adsorbable part × 0.8 at the design DOC).
  */
 function storeBackgroundKey(own: PreparedKinetics): string {
-  const adsorbs = new Set([...own.coupled, ...own.trace]);
-  const comps = own.components.flatMap((c, i) => (i > 0 && adsorbs.has(i) ? [[c.id, Number(c.c0MgPerL.toPrecision(12)), c.K, c.oneOverN, c.dsM2PerS ?? null, own.kfMPerS[i]]] : []));
-  const ids = (l: readonly number[]) => l.filter((i) => i > 0).map((i) => own.components[i]!.id);
-  return JSON.stringify([comps, ids(own.coupled), ids(own.trace)]);
+  return JSON.stringify(adsorbingComponentsKey(own, 1));
+}
+
+/**
+ * The adsorbing components (coupled or trace) of a prepared mixture from index `from` on, in
+ * order, each with its values (c0 to 12 significant digits) and film coefficient, and the split
+ * into coupled and trace by id: what decides a solve, for the store's keys (storeBackgroundKey;
+ * a compound's own mixture in ContactRemoval).
+ */
+export function adsorbingComponentsKey(pk: PreparedKinetics, from: number): unknown[] {
+  const adsorbs = new Set([...pk.coupled, ...pk.trace]);
+  const comps = pk.components.flatMap((c, i) => (i >= from && adsorbs.has(i) ? [[c.id, Number(c.c0MgPerL.toPrecision(12)), c.K, c.oneOverN, c.dsM2PerS ?? null, pk.kfMPerS[i]]] : []));
+  const ids = (l: readonly number[]) => l.filter((i) => i >= from).map((i) => pk.components[i]!.id);
+  return [comps, ids(pk.coupled), ids(pk.trace)];
 }
 
 /**

@@ -59,7 +59,6 @@ export function traceDoseRoot(remainingAt: (doseGPerL: number) => number, known:
   const accepted = (r: number) => r <= rGoal && r >= rGoal - tol;
   const xMin = Math.log(MIN_DOSE_G_PER_L);
   const xMax = Math.log(MAX_DOSE_G_PER_L);
-  const logOdds = (r: number) => Math.log((1 - r) / r); // ±Infinity at r = 0 or 1
   const pts: Point[] = [];
   for (const [d, r] of known) if (d >= MIN_DOSE_G_PER_L && d <= MAX_DOSE_G_PER_L) pts.push({ x: Math.log(d), r, y: logOdds(r) });
   let solves = 0;
@@ -125,4 +124,9 @@ function slopeAt(p: Point, pts: readonly Point[], _yGoal: number): { slope?: num
   if (!q || !Number.isFinite(p.y)) return {};
   const s = -(1 - p.r) * ((p.y - q.y) / (p.x - q.x));
   return Number.isFinite(s) && s < 0 ? { slope: s } : {};
+}
+
+/** The log-odds of removal ln((1 − c/c0)/(c/c0)) at c/c0 = r (±Infinity at r = 0 or 1), in which the dose roots step. */
+export function logOdds(r: number): number {
+  return Math.log((1 - r) / r);
 }

@@ -88,7 +88,7 @@ describe('results.xlsx sheets written in one pass', () => {
   it('are the reference bytes on tricky cells, in the plain and the quoted path', async () => {
     const plain = TRICKY.filter((t) => !/[",]/.test(t));
     const header = 'a,b (m³/d),"c, quoted",d';
-    const rows = (cells: string[]) => cells.map((t, k) => [t, cells[(k + 7) % cells.length], cells[(k * 3) % cells.length], t].map(csvCell).join(','));
+    const rows = (cells: string[]) => cells.map((t, k) => [t, cells[(k + 7) % cells.length]!, cells[(k * 3) % cells.length]!, t].map(csvCell).join(','));
     await expectAsReference({
       'plain.csv': [header.replace(/"c, quoted"/, 'c'), ...rows(plain), ',,,', '', 'x,,', ',y'].join('\n') + '\n',
       'quoted.csv': [header, ...rows(TRICKY), 'z'].join('\n') + '\n',

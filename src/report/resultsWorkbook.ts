@@ -460,11 +460,29 @@ function sheetXmlOfRows(rows: string[][], strings: SharedStrings, sizeHint: numb
   return w.end();
 }
 
+let primed = false;
+/**
+ * Run the one-pass sheet writer once on a small invented table that takes each of its paths
+ * (negative, converted and exponent numbers, text after digits, texts repeated and in sequence,
+ * shared-string indices of two digits, row numbers gaining a digit). Speed only: the optimising
+ * compiler then sees every path before a long table, instead of throwing its code away (and
+ * compiling it again) at the first negative number or the first text in sequence, part-way
+ * through (measured on the 36,500-day tables: the first workbook 320-330 ms of CPU, 350-390 without).
+ */
+function primeSheetWriter(): void {
+  if (primed) return;
+  primed = true;
+  const lines = ['a,b,c,d'];
+  for (let k = 0; k < 24; k++) lines.push(`t${k % 12},-${k}.5,${k % 3 ? '1.50' : '2e-7'},${k % 4 ? 'x' : ''}`);
+  sheetXml(lines.join('\n'), new SharedStrings());
+}
+
 /**
  * @param csvFiles CSV texts keyed by file name, in the order the sheets should take
  * @returns the .xlsx file's bytes
  */
 export async function resultsWorkbook(csvFiles: Record<string, string>, meta: { creator?: string; created?: Date } = {}): Promise<Uint8Array> {
+  primeSheetWriter();
   const strings = new SharedStrings();
   const sheets = Object.entries(csvFiles).map(([file, text], k) => ({ name: sheetName(file), xml: sheetXml(text, strings), part: `worksheets/sheet${k + 1}.xml` }));
   const created = (meta.created ?? new Date()).toISOString().replace(/\.\d{3}Z$/, 'Z');

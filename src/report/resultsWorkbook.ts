@@ -473,7 +473,7 @@ function primeSheetWriter(): void {
   if (primed) return;
   primed = true;
   const lines = ['a,b,c,d'];
-  for (let k = 0; k < 24; k++) lines.push(`t${k % 12},-${k}.5,${k % 3 ? '1.50' : '2e-7'},${k % 4 ? 'x' : ''}`);
+  for (let k = 0; k < 24; k++) lines.push(`${2000 + (k % 12)}-01,-${k}.5,${k % 3 ? '1.50' : '2e-7'},${k % 4 ? 'x' : ''}`);
   sheetXml(lines.join('\n'), new SharedStrings());
 }
 

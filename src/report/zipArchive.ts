@@ -40,6 +40,14 @@ function dosDateTime(d: Date): { date: number; time: number } {
 /** DEFLATE level of every entry: fast, and within a few per cent of the default level's size on sheet XML. */
 const LEVEL = 2;
 
+/**
+ * zlib's options for an entry of `n` bytes: LEVEL, and an output chunk of about a quarter of the
+ * entry (16 KiB to 8 MiB), so that a long sheet is compressed in one or two passes on the thread
+ * pool instead of a few hundred 16 KiB ones (measured on a 23 MB sheet: about 110 instead of 130 ms
+ * of CPU). The chunk size only cuts the output into pieces: the compressed bytes are the same.
+ */
+const deflateOptions = (n: number): zlib.ZlibOptions => ({ level: LEVEL, chunkSize: Math.max(16 * 1024, Math.min(n >>> 2, 8 * 1024 * 1024)) });
+
 type ZipInput = ReadonlyArray<{ name: string; data: Uint8Array | string }>;
 interface Packed { name: string; raw: Uint8Array; packed: Uint8Array }
 
@@ -50,7 +58,7 @@ const bytes = (data: Uint8Array | string): Uint8Array => (typeof data === 'strin
  * @param when   the time stamp of every entry (default 1980-01-01)
  */
 export function zipArchive(files: ZipInput, when = new Date(Date.UTC(1980, 0, 1))): Uint8Array {
-  return assemble(files.map((f) => { const raw = bytes(f.data); return { name: f.name, raw, packed: zlib.deflateRawSync(raw, { level: LEVEL }) }; }), when);
+  return assemble(files.map((f) => { const raw = bytes(f.data); return { name: f.name, raw, packed: zlib.deflateRawSync(raw, deflateOptions(raw.length)) }; }), when);
 }
 
 /**
@@ -60,7 +68,7 @@ export function zipArchive(files: ZipInput, when = new Date(Date.UTC(1980, 0, 1)
 export async function zipArchiveAsync(files: ZipInput, when = new Date(Date.UTC(1980, 0, 1))): Promise<Uint8Array> {
   const packed = await Promise.all(files.map((f) => {
     const raw = bytes(f.data);
-    return new Promise<Packed>((resolve, reject) => zlib.deflateRaw(raw, { level: LEVEL }, (e, out) => (e ? reject(e) : resolve({ name: f.name, raw, packed: out }))));
+    return new Promise<Packed>((resolve, reject) => zlib.deflateRaw(raw, deflateOptions(raw.length), (e, out) => (e ? reject(e) : resolve({ name: f.name, raw, packed: out }))));
   }));
   return assemble(packed, when);
 }

@@ -10,8 +10,9 @@ import { numberText } from '../../src/report/resultsWorkbook.js';
 import { significant8 } from '../../src/output/outputTables.js';
 
 describe('numberText', () => {
-  it('equals String(Number(text)) on edge cases (trailing zeros, tiny and huge values, -0)', () => {
-    for (const t of ['0', '-0', '1.50', '1.', '.5', '0.000001', '0.0000001', '100', '1e5', '-0.5', '007', '123456789012345', '1234567890123456', '0.1234567890123456', '99999999999999999999', '1e21', '0.00000100'])
+  it('equals String(Number(text)) on edge cases (trailing zeros, tiny and huge values, -0, 16 digits above 2^53)', () => {
+    for (const t of ['0', '-0', '1.50', '1.', '.5', '0.000001', '0.0000001', '100', '1e5', '-0.5', '007', '123456789012345', '1234567890123456', '0.1234567890123456', '99999999999999999999', '1e21', '0.00000100',
+      '9007199254740993', '9999999999999999', '-9007199254740993', '0.0000012', '0.00000012', '-0.000001', '1.5E3', '-.5e-3', '0.100000000000001'])
       expect(numberText(t), t).toBe(String(Number(t)));
   });
 

@@ -9,7 +9,8 @@ import { spawnSync } from 'node:child_process';
 import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { crc32, zipArchive } from '../../src/report/zipArchive.js';
+import { deflateRawSync } from 'node:zlib';
+import { crc32, zipArchive, zipArchiveAsync } from '../../src/report/zipArchive.js';
 
 const HAVE_PYTHON = spawnSync('python3', ['-c', 'import zipfile']).status === 0;
 
@@ -17,6 +18,17 @@ describe('zipArchive', () => {
   it('CRC-32 of "123456789" is 0xCBF43926 (check value, from memory); of nothing 0', () => {
     expect(crc32(Buffer.from('123456789', 'ascii'))).toBe(0xcbf43926);
     expect(crc32(new Uint8Array(0))).toBe(0);
+  });
+
+  it('compresses each entry to the bytes of DEFLATE level 2 with zlib\'s default output chunks (large chunks change nothing), in both forms', async () => {
+    const big = Buffer.from(Array.from({ length: 60_000 }, (_, k) => `<row r="${k + 1}"><c r="A${k + 1}"><v>${(k % 97) / 7}</v></c></row>`).join(''), 'utf8');
+    const files = [{ name: 'big.xml', data: big }, { name: 'small.xml', data: '<x>ö</x>' }];
+    const when = new Date(Date.UTC(2026, 0, 2));
+    const sync = Buffer.from(zipArchive(files, when));
+    expect(Buffer.from(await zipArchiveAsync(files, when)).equals(sync)).toBe(true);
+    const packed = deflateRawSync(big, { level: 2 });
+    expect(sync.readUInt32LE(18)).toBe(packed.length);
+    expect(sync.subarray(30 + 'big.xml'.length, 30 + 'big.xml'.length + packed.length).equals(packed)).toBe(true);
   });
 
   it.skipIf(!HAVE_PYTHON)('an independent reader lists the files and reads them back byte for byte (CRCs checked)', () => {

@@ -10,7 +10,7 @@ import { pipelineOutputs, pipelineTables } from '../../outputFiles/pipelineOutpu
 import type { PipelineInput, PipelineResult, ProgressEvent } from '../../pipeline/pipelineTypes.js';
 import { writeOutputDir } from '../../io/writeOutputs.js';
 import { reportPdf, requireChromium } from '../../io/reportPdf.js';
-import { resultsWorkbookThreaded } from '../workbookThread.js';
+import { resultsWorkbookThreaded, startWorkbookThread, workbookThreadAhead } from '../workbookThread.js';
 import { checkOutputFolder } from '../../io/outputChecks.js';
 import { assertFiniteResult } from '../../scenario/finiteResult.js';
 import { VERSION } from '../../version.js';
@@ -107,21 +107,29 @@ export function monteCarloProgress(ctx: CommandContext, thresholdMs = 1000, now:
 export async function runAndWrite(input: PipelineInput, outDir: string, json: boolean, ctx: CommandContext, mc: { draws?: number; seed?: number } = {}, formats: { pdf?: boolean } = {}): Promise<void> {
   checkOutputFolder(outDir, input.provenance.files.map((f) => f.resolved));
   if (formats.pdf) requireChromium(); // before the run: a missing browser fails at once
-  const progress = progressPrinter(ctx);
-  const bar = monteCarloProgress(ctx);
-  const result = await runPipelineWithUncertainty(input, { ...mc, onProgress: progress.onProgress, onMonteCarloProgress: (d, t) => bar.update(d, t) });
-  bar.finish();
-  progress.done();
-  assertFiniteResult(result, result.project.carbons.map((c) => c.name));
-  // every output is made before anything is written (whole or nothing); results.xlsx is made
-  // (a large one on a worker thread, its parts compressed on the thread pool) while the report
-  // and run.json are made
-  const tables = pipelineTables(result);
-  const workbook = resultsWorkbookThreaded(tables, new Date(result.generatedAt));
-  workbook.catch(() => undefined); // awaited below; a failure of the texts first must not leave it unhandled
-  const texts = pipelineOutputs(result, { toolVersion: VERSION, nodeVersion: process.version, platform: `${process.platform}-${process.arch}` }, tables);
-  const files: Record<string, string | Uint8Array> = { ...texts, 'results.xlsx': await workbook };
-  if (formats.pdf) files['report.pdf'] = await reportPdf(texts['report.html']);
+  // a long run's workbook worker boots beside the pipeline; it is ended if the run fails
+  const started = workbookThreadAhead(input) ? startWorkbookThread() : undefined;
+  let files: Record<string, string | Uint8Array>;
+  let result: PipelineResult;
+  try {
+    const progress = progressPrinter(ctx);
+    const bar = monteCarloProgress(ctx);
+    result = await runPipelineWithUncertainty(input, { ...mc, onProgress: progress.onProgress, onMonteCarloProgress: (d, t) => bar.update(d, t) });
+    bar.finish();
+    progress.done();
+    assertFiniteResult(result, result.project.carbons.map((c) => c.name));
+    // every output is made before anything is written (whole or nothing); results.xlsx is made
+    // (a large one on a worker thread, its parts compressed on the thread pool) while the report
+    // and run.json are made
+    const tables = pipelineTables(result);
+    const workbook = resultsWorkbookThreaded(tables, new Date(result.generatedAt), started);
+    workbook.catch(() => undefined); // awaited below; a failure of the texts first must not leave it unhandled
+    const texts = pipelineOutputs(result, { toolVersion: VERSION, nodeVersion: process.version, platform: `${process.platform}-${process.arch}` }, tables);
+    files = { ...texts, 'results.xlsx': await workbook };
+    if (formats.pdf) files['report.pdf'] = await reportPdf(texts['report.html']);
+  } finally {
+    await started?.release();
+  }
   writeOutputDir(outDir, files);
   const names = Object.keys(files);
   const s = summaryJson(result, outDir, names);

@@ -7,7 +7,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { numberText } from '../../src/report/resultsWorkbook.js';
-import { significant8 } from '../../src/output/outputTables.js';
+import { AsciiText, significant8 } from '../../src/output/outputTables.js';
 
 describe('numberText', () => {
   it('equals String(Number(text)) on edge cases (trailing zeros, tiny and huge values, -0, 16 digits above 2^53)', () => {
@@ -32,3 +32,43 @@ describe('significant8 (CSV numbers)', () => {
     }), { numRuns: 2000 });
   });
 });
+
+describe('significant8 between 1e-6 and 1e8 (its digits from one product, toPrecision near a half)', () => {
+  const reference = (v: number) => String(Number(v.toPrecision(8)));
+  /** The text AsciiText.cell writes for v (its digits straight into bytes). */
+  const inBytes = (v: number) => { const t = new AsciiText(8); t.cell(v); return t.text(); };
+  /** Values around the cases the product can get wrong: a half at the 9th digit, powers of ten, carries to 1e8. */
+  const hard = (e: number, m: number) => {
+    const p = 10 ** (e - 7);
+    const base = (Math.floor(m) + 0.5) * p;
+    return [base, base * (1 + 2 ** -52), base * (1 - 2 ** -53), Number(`${Math.floor(m)}5e${e - 8}`), Number(base.toPrecision(9)), Number(base.toPrecision(12)), 10 ** e, 10 ** e * (1 - 2 ** -53), 10 ** e * 0.999999995, 10 ** e * 0.99999999500001];
+  };
+  it('equals String(Number(v.toPrecision(8))) on near-halves, powers of ten and carries, both signs, as a string and as bytes', () => {
+    for (const v of [1e-6, 9.99999995e-7, 9.999999950000001e-7, 99999999.5, 99999999.49, 99999999.51, 12345678.5, 1234567.85, 0.1, 0.2, 0.3, 1 / 3, 2 / 3, 13497, 9.42])
+      for (const x of [v, -v]) { expect(significant8(x), String(x)).toBe(reference(x)); expect(inBytes(x), String(x)).toBe(reference(x)); }
+    fc.assert(fc.property(fc.integer({ min: -7, max: 8 }), fc.double({ min: 1e7, max: 99999999, noNaN: true }), (e, m) => {
+      for (const v of hard(e, m)) for (const x of [v, -v]) { expect(significant8(x), String(x)).toBe(reference(x)); expect(inBytes(x), String(x)).toBe(reference(x)); }
+    }), { numRuns: 3000 });
+  });
+  it('equals the reference on random values of every magnitude from 1e-8 to 1e9 and on decimals with few digits', () => {
+    fc.assert(fc.property(fc.double({ min: -8, max: 9, noNaN: true }), fc.double({ min: 1, max: 10, noNaN: true }), fc.boolean(), (e, m, neg) => {
+      const v = (neg ? -1 : 1) * m * 10 ** e;
+      expect(significant8(v), String(v)).toBe(reference(v));
+      expect(inBytes(v), String(v)).toBe(reference(v));
+    }), { numRuns: 20000 });
+    fc.assert(fc.property(fc.integer({ min: -1e9, max: 1e9 }), fc.integer({ min: 0, max: 9 }), (k, d) => {
+      const v = k / 10 ** d;
+      expect(significant8(v), String(v)).toBe(reference(v));
+      expect(inBytes(v), String(v)).toBe(reference(v));
+    }), { numRuns: 20000 });
+  });
+  it('AsciiText.cell writes nothing for a non-finite number or null, and a text cell as cell() does', () => {
+    const t = new AsciiText(4);
+    for (const v of [NaN, Infinity, -Infinity, null, undefined]) t.cell(v);
+    expect(t.text()).toBe('');
+    expect(t.cell('=1+2')).toBe(true);
+    expect(t.text()).toBe("'=1+2");
+    expect(new AsciiText(4).cell('µg')).toBe(false);
+  });
+});
+

@@ -85,9 +85,12 @@ export function userIdMap(entries: Readonly<Record<string, unknown>>): UserIdMap
   return new UserIdMap(entries);
 }
 
+/** SNAKE_CASE_KEYS as a Map (a lookup in the object literal of some 200 keys cost more). */
+const SNAKE_CASE_MAP: ReadonlyMap<string, string> = new Map(Object.entries(SNAKE_CASE_KEYS));
+
 /** The JSON name of a field: the explicit mapping, or the key itself. */
 export function snakeCaseKey(key: string): string {
-  return Object.prototype.hasOwnProperty.call(SNAKE_CASE_KEYS, key) ? SNAKE_CASE_KEYS[key]! : key;
+  return SNAKE_CASE_MAP.get(key) ?? key;
 }
 
 function convertMap(entries: Readonly<Record<string, unknown>>): Record<string, unknown> {
@@ -254,51 +257,121 @@ function prettyText(v: unknown, indent: string, asMap = false): string | undefin
 }
 
 /**
- * The lines of a long array (joined by ",\n" + inner) written by one native JSON.stringify, for
- * the two shapes of per-day data: numbers only, and flat plain objects (every value a primitive;
- * per-day rows, renamed as toSnakeCaseJson does). In compact JSON text a quote inside a string is
- * always escaped, so `},{"` occurs only between two objects of such an array or at the end of a
- * string ending in "},{" (such arrays are left to the general case). undefined for any other
- * array (written element by element).
+ * The lines of a long array (joined by ",\n" + inner), for the two shapes of per-day data:
+ * numbers only (one native join: String(n) is JSON's number text for a finite n), and flat plain
+ * objects (every value a primitive; per-day rows), renamed as toSnakeCaseJson does and written
+ * by a native JSON.stringify per chunk of rows, split into lines. In compact JSON text a quote
+ * inside a string is always escaped, so `},{"` occurs only between two objects of such an array
+ * or at the end of a string ending in "},{" (such arrays are left to the general case).
+ * undefined for any other array (written element by element).
  */
 function longArrayLines(a: ArrayLike<unknown>, inner: string): string | undefined {
+  const sep = `,\n${inner}`;
+  if (ArrayBuffer.isView(a)) {
+    if (a instanceof BigInt64Array || a instanceof BigUint64Array) return undefined; // throws there, as JSON.stringify does
+    return numberLines(a as unknown as ArrayLike<number> & { join(sep: string): string }, sep);
+  }
+  if (typeof a[0] === 'number') {
+    for (let i = 1; i < a.length; i++) if (typeof a[i] !== 'number') return undefined;
+    return numberLines(a as unknown as ArrayLike<number> & { join(sep: string): string }, sep);
+  }
+  const shape = rowShape(a[0]);
+  if (shape === undefined) return undefined;
+  // in chunks of ROW_CHUNK rows: the renamed copies of a chunk die young (cheap to collect), and
+  // the split of a chunk's text stays small
+  const rowBreak = `},\n${inner}{"`;
+  let lines = '';
+  for (let start = 0; start < a.length; start += ROW_CHUNK) {
+    const rows = renamedRows(a, start, Math.min(a.length, start + ROW_CHUNK), shape);
+    if (rows === undefined) return undefined;
+    const part = (JSON.stringify(rows) as string).slice(1, -1).split('},{"').join(rowBreak);
+    lines = start === 0 ? part : lines + sep + part; // (no copy: the text is joined when it is written)
+  }
+  return lines;
+}
+
+/** Rows written per JSON.stringify call (their copies are garbage before the next chunk is made). */
+const ROW_CHUNK = 4096;
+
+/** Lines of an array of numbers (a typed array or numbers only): one join when every one is finite. */
+function numberLines(a: ArrayLike<number> & { join(sep: string): string }, sep: string): string {
   const len = a.length;
-  if (ArrayBuffer.isView(a) && !(a instanceof BigInt64Array || a instanceof BigUint64Array)) {
-    return len === 0 ? '' : JSON.stringify(Array.from(a)).slice(1, -1).replaceAll(',', `,\n${inner}`);
+  let finite = true;
+  for (let i = 0; i < len; i++) if (!Number.isFinite(a[i])) { finite = false; break; }
+  if (finite) return a.join(sep);
+  // NaN and ±Infinity are null in JSON: written by JSON.stringify (no commas in number text)
+  return (JSON.stringify(Array.isArray(a) ? a : Array.from(a)) as string).slice(1, -1).split(',').join(sep);
+}
+
+/** A plain object (not an array, typed array, user-id map or class instance): a per-day row candidate. */
+function isPlainRow(e: unknown): e is Record<string, unknown> {
+  if (e === null || typeof e !== 'object') return false;
+  const proto = Object.getPrototypeOf(e); // (a user-id map's is UserIdMap.prototype)
+  return (proto === Object.prototype || proto === null) && !Array.isArray(e) && !ArrayBuffer.isView(e);
+}
+
+/** A key that forbids the split into lines or the copy: toJSON, text ending in "},{", __proto__ (dropped by toSnakeCaseJson). */
+function breaksKey(k: string): boolean {
+  return k === 'toJSON' || k === '__proto__' || k.endsWith('},{');
+}
+
+/** The keys of the first row of an array of rows, their JSON names and the template of a renamed copy. */
+interface RowShape { keys: string[]; names: string[]; renamed: boolean; template: Record<string, unknown> }
+
+/** The shape of a first row (undefined when it is not a plain object or a key breaks the split). */
+function rowShape(first: unknown): RowShape | undefined {
+  if (!isPlainRow(first)) return undefined;
+  const keys: string[] = [];
+  for (const k in first) {
+    if (breaksKey(k)) return undefined;
+    keys.push(k);
   }
-  let numbers = true, rows = true;
-  const renamed = new Set<string>();
-  const checked = new Set<string>(); // keys whose snake_case form is known (renamed or not)
-  for (let i = 0; i < len && (numbers || rows); i++) {
+  const names = keys.map(snakeCaseKey);
+  const renamed = names.some((name, j) => name !== keys[j]);
+  const template: Record<string, unknown> = {};
+  if (renamed) for (const name of names) template[name] = undefined;
+  return { keys, names, renamed, template };
+}
+
+/**
+ * Rows start..end-1 of an array of flat plain objects with their keys renamed (toSnakeCaseJson's
+ * object for each, the same key order), ready for one JSON.stringify. A row with the first row's
+ * keys in its order (every per-day row) is copied from the shape's template while it is checked
+ * (names looked up once; copies of one shape share their layout, which JSON.stringify walks fast),
+ * or is itself when no key is renamed; another row is copied key by key. undefined unless every
+ * row is a flat plain object that writes at least one member and nothing in it breaks the split
+ * into lines.
+ */
+function renamedRows(a: ArrayLike<unknown>, start: number, end: number, shape: RowShape): unknown[] | undefined {
+  const { keys, names, template, renamed } = shape;
+  const n = keys.length;
+  const out = new Array<unknown>(end - start);
+  for (let i = start; i < end; i++) {
     const e = a[i];
-    if (typeof e !== 'number') numbers = false;
-    if (!rows) continue;
-    if (e === null || typeof e !== 'object' || Array.isArray(e) || e instanceof UserIdMap || ArrayBuffer.isView(e)) { rows = false; continue; }
-    const proto = Object.getPrototypeOf(e);
-    if (proto !== Object.prototype && proto !== null) { rows = false; continue; }
-    let written = false;
+    if (!isPlainRow(e)) return undefined;
+    const copy: Record<string, unknown> | undefined = renamed ? { ...template } : undefined;
+    let j = 0, same = true, written = false;
     for (const k in e) {
-      const v = (e as Record<string, unknown>)[k];
-      // a string (or key) ending in "},{" would end its text with `},{"`: written element by element
-      if (k === 'toJSON' || (v !== null && typeof v === 'object') || (typeof v === 'string' && v.endsWith('},{')) || k.endsWith('},{')) { rows = false; break; }
-      if (v !== undefined && typeof v !== 'function' && typeof v !== 'symbol') written = true;
-      if (!checked.has(k)) { checked.add(k); if (snakeCaseKey(k) !== k) renamed.add(k); }
+      const v = e[k];
+      if (same && j < n && k === keys[j]) {
+        if (copy !== undefined) copy[names[j]!] = v;
+      } else {
+        same = false;
+        if (breaksKey(k)) return undefined;
+      }
+      if ((v !== null && typeof v === 'object') || (typeof v === 'string' && v.endsWith('},{'))) return undefined;
+      if (!written && v !== undefined && typeof v !== 'function' && typeof v !== 'symbol') written = true;
+      j++;
     }
-    if (!written) rows = false; // `{}` would not be split safely
+    if (!written) return undefined; // `{}` would not be split safely
+    out[i - start] = same && j === n ? (copy ?? e) : renamedCopy(e);
   }
-  if (numbers) return JSON.stringify(Array.isArray(a) ? a : Array.prototype.slice.call(a)).slice(1, -1).replaceAll(',', `,\n${inner}`);
-  if (!rows) return undefined;
-  let source: ArrayLike<unknown> = a;
-  if (renamed.size > 0) {
-    // renamed copies (the same key order; rows of one shape share one hidden class)
-    const copies = new Array<Record<string, unknown>>(len);
-    for (let i = 0; i < len; i++) {
-      const e = a[i] as Record<string, unknown>;
-      const o: Record<string, unknown> = {};
-      for (const k in e) o[renamed.has(k) ? snakeCaseKey(k) : k] = e[k];
-      copies[i] = o;
-    }
-    source = copies;
-  }
-  return (JSON.stringify(Array.isArray(source) ? source : Array.prototype.slice.call(source)) as string).slice(1, -1).replaceAll('},{"', `},\n${inner}{"`);
+  return out;
+}
+
+/** toSnakeCaseJson's object for a flat plain object (its keys renamed, in its order). */
+function renamedCopy(e: Record<string, unknown>): Record<string, unknown> {
+  const o: Record<string, unknown> = {};
+  for (const k in e) o[snakeCaseKey(k)] = e[k];
+  return o;
 }

@@ -9,24 +9,8 @@
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { inflateRawSync } from 'node:zlib';
 import { parseCsv, resultsWorkbook } from '../../src/report/resultsWorkbook.js';
-
-/** The files of a ZIP archive by name (local headers in order; DEFLATE entries). */
-function unzip(bytes: Uint8Array): Record<string, string> {
-  const b = Buffer.from(bytes);
-  const out: Record<string, string> = {};
-  let p = 0;
-  while (b.readUInt32LE(p) === 0x04034b50) {
-    const size = b.readUInt32LE(p + 18);
-    const nameLen = b.readUInt16LE(p + 26);
-    const name = b.subarray(p + 30, p + 30 + nameLen).toString('utf8');
-    const start = p + 30 + nameLen + b.readUInt16LE(p + 28);
-    out[name] = inflateRawSync(b.subarray(start, start + size)).toString('utf8');
-    p = start + size;
-  }
-  return out;
-}
+import { unzipText } from '../helpers/unzipText.js';
 
 // the reference writer: rows, a regular expression per cell, strings joined
 const NUMBER = /^-?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i;
@@ -70,7 +54,7 @@ function reference(csvFiles: Record<string, string>): { sheets: string[]; sst: s
 }
 
 async function expectAsReference(csvFiles: Record<string, string>): Promise<void> {
-  const files = unzip(await resultsWorkbook(csvFiles, { created: new Date(Date.UTC(2026, 0, 2)) }));
+  const files = unzipText(await resultsWorkbook(csvFiles, { created: new Date(Date.UTC(2026, 0, 2)) }));
   const want = reference(csvFiles);
   want.sheets.forEach((x, k) => expect(files[`xl/worksheets/sheet${k + 1}.xml`], Object.keys(csvFiles)[k]).toBe(x));
   expect(files['xl/sharedStrings.xml']).toBe(want.sst);

@@ -5,30 +5,13 @@
  * from the ZIP with node:zlib's inflate (an independent decoder). Invented table.
  */
 import { describe, expect, it } from 'vitest';
-import { inflateRawSync } from 'node:zlib';
 import { resultsWorkbook } from '../../src/report/resultsWorkbook.js';
-
-/** The files of a ZIP archive by name (local headers in order; DEFLATE entries). */
-function unzip(bytes: Uint8Array): Record<string, string> {
-  const b = Buffer.from(bytes);
-  const out: Record<string, string> = {};
-  let p = 0;
-  while (b.readUInt32LE(p) === 0x04034b50) {
-    const size = b.readUInt32LE(p + 18);
-    const nameLen = b.readUInt16LE(p + 26);
-    const extra = b.readUInt16LE(p + 28);
-    const name = b.subarray(p + 30, p + 30 + nameLen).toString('utf8');
-    const start = p + 30 + nameLen + extra;
-    out[name] = inflateRawSync(b.subarray(start, start + size)).toString('utf8');
-    p = start + size;
-  }
-  return out;
-}
+import { unzipText } from '../helpers/unzipText.js';
 
 describe('results.xlsx sheet XML', () => {
   it('is the expected text for a small table (header, numbers, shared text, blanks, escaping, UTF-8)', async () => {
     const csv = 'carbon,"flow (m³/d)",note\nA & B,12345,<x>\nA & B,1.50,\nü,-0.000000123,A & B\n';
-    const files = unzip(await resultsWorkbook({ 'table.csv': csv }, { created: new Date(Date.UTC(2026, 0, 2)) }));
+    const files = unzipText(await resultsWorkbook({ 'table.csv': csv }, { created: new Date(Date.UTC(2026, 0, 2)) }));
     const sheet = files['xl/worksheets/sheet1.xml']!;
     const data = sheet.slice(sheet.indexOf('<sheetData>'));
     const h = (ref: string, t: string) => `<c r="${ref}" s="1" t="inlineStr"><is><t xml:space="preserve">${t}</t></is></c>`;

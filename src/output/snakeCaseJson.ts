@@ -245,7 +245,21 @@ function prettyText(v: unknown, indent: string, asMap = false): string | undefin
       const src = (!asMap && v instanceof UserIdMap ? v.entries : v) as Record<string, unknown>;
       const inner = `${indent}  `;
       let out = '';
-      for (const k of Object.keys(src)) {
+      const keys = Object.keys(src);
+      // two keys with one JSON name (`doseMgPerL` beside `dose_mg_per_L`): as in toSnakeCaseJson's
+      // object, the name once, where it first stands, with the value of the last key giving it
+      const lastOf = userIds ? undefined : sharedNames(keys);
+      const written = lastOf === undefined ? undefined : new Set<string>();
+      for (let k of keys) {
+        if (lastOf !== undefined) {
+          const name = snakeCaseKey(k);
+          const last = lastOf.get(name);
+          if (last !== undefined) {
+            if (written!.has(name)) continue; // written where the name first stood
+            written!.add(name);
+            k = last;
+          }
+        }
         const m = memberValue(src, k, userIds);
         const t = prettyText(m.value, inner, m.asMap);
         if (t === undefined) continue;
@@ -254,6 +268,23 @@ function prettyText(v: unknown, indent: string, asMap = false): string | undefin
       return out === '' ? '{}' : `{${out}\n${indent}}`;
     }
   }
+}
+
+/**
+ * For keys of which two or more are renamed to one JSON name: that name → the last such key
+ * (undefined, the usual case, when every name is distinct).
+ */
+function sharedNames(keys: readonly string[]): Map<string, string> | undefined {
+  if (keys.every((k) => snakeCaseKey(k) === k)) return undefined; // unchanged keys of one object are distinct
+  const last = new Map<string, string>();
+  const count = new Map<string, number>();
+  for (const k of keys) {
+    const name = snakeCaseKey(k);
+    last.set(name, k);
+    count.set(name, (count.get(name) ?? 0) + 1);
+  }
+  for (const [name, n] of count) if (n < 2) last.delete(name);
+  return last.size > 0 ? last : undefined;
 }
 
 /**

@@ -4,7 +4,9 @@
  * keys, order or values) and of numbers, where the new writer copies rows from a template per
  * chunk and joins numbers natively. `previousSnakeCaseJsonText` below is the earlier writer, kept
  * here only as the reference (it renamed keys through per-row Sets and wrote each long array with
- * one JSON.stringify). Both are also checked against the closed form jsonText(toSnakeCaseJson(v)).
+ * one JSON.stringify; it wrote a JSON name twice when two keys gave it, which it no longer does here,
+ * as the writer no longer does). Both are also checked against the closed form
+ * jsonText(toSnakeCaseJson(v)).
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
@@ -70,7 +72,11 @@ function prevPrettyText(v: unknown, indent: string, asMap = false): string | und
       const src = (!asMap && v instanceof UserIdMap ? v.entries : v) as Record<string, unknown>;
       const inner = `${indent}  `;
       let out = '';
-      for (const k of Object.keys(src)) {
+      // the one change since: two keys with one JSON name are written once, where the name first
+      // stands, with the last key's value (as toSnakeCaseJson's object; this writer wrote both)
+      const byName = new Map<string, string>();
+      for (const k of Object.keys(src)) byName.set(userIds ? k : prevSnakeCaseKey(k), k);
+      for (const k of byName.values()) {
         const m = src[k];
         const isMap = !userIds && USER_ID_MAP_FIELDS.has(k) && m !== null && typeof m === 'object' && !Array.isArray(m) && !ArrayBuffer.isView(m);
         const t = prevPrettyText(m, inner, isMap);
@@ -181,6 +187,21 @@ const value = fc.letrec((tie) => ({
   long: fc.oneof(rows, numbers, typed, fc.array(tie('v'), { minLength: LONG_ARRAY + 1, maxLength: LONG_ARRAY + 2 })),
   map: fc.dictionary(key, tie('v'), { maxKeys: 3 }).map((e) => userIdMap(e)),
 }));
+
+describe('snakeCaseJsonText where two keys give one JSON name', () => {
+  it('writes the name once, where it first stands, with the last key\'s value, as toSnakeCaseJson\'s object holds it (the previous writer wrote the name twice)', () => {
+    const cases: Array<[unknown, string]> = [
+      [{ doseMgPerL: [], dose_mg_per_L: 0 }, '{\n  "dose_mg_per_L": 0\n}'],
+      [{ dose_mg_per_L: 0, x: 1, doseMgPerL: [] }, '{\n  "dose_mg_per_L": [],\n  "x": 1\n}'],
+      [{ doseMgPerL: 1, dose_mg_per_L: undefined, x: 2 }, '{\n  "x": 2\n}'],
+      [{ a: { doseMgPerL: 1, q: 3, dose_mg_per_L: { z: 1 } } }, '{\n  "a": {\n    "dose_mg_per_L": {\n      "z": 1\n    },\n    "q": 3\n  }\n}'],
+    ];
+    for (const [v, text] of cases) {
+      expect(snakeCaseJsonText(v)).toBe(text);
+      expect(snakeCaseJsonText(v)).toBe(jsonText(toSnakeCaseJson(v)));
+    }
+  });
+});
 
 describe('snakeCaseJsonText against the previous writer', () => {
   it('the same text on random nested values (unicode and camelCase keys, -0, 1e21, 5e-324, long arrays, empty and undefined members, null)', () => {
